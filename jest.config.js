@@ -1,0 +1,20 @@
+// Jest projects. `npm test` (server/cli/launch.js) starts PostgreSQL first and passes
+// DATABASE_URL, so the server project runs against a real database.
+const tsJest = ['ts-jest', { diagnostics: false }];
+const base = {
+  testEnvironment: 'node',
+  transform: { '^.+\\.tsx?$': tsJest },
+  moduleFileExtensions: ['ts', 'tsx', 'js', 'json'],
+  moduleNameMapper: { '^@/(.*)$': '<rootDir>/$1' },
+};
+module.exports = {
+  projects: [
+    { ...base, displayName: 'shared', testMatch: ['<rootDir>/shared/**/*.test.ts'] },
+    {
+      ...base,
+      displayName: 'server',
+      testMatch: ['<rootDir>/server/**/*.test.ts', '<rootDir>/simulators/**/*.test.ts', '<rootDir>/tests/api/**/*.test.ts', '<rootDir>/tests/mqtt/**/*.test.ts'],
+    },
+    { ...base, displayName: 'browser', testMatch: ['<rootDir>/tests/browser/**/*.test.ts'] },
+  ],
+};

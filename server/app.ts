@@ -1,0 +1,84 @@
+import express, { type ErrorRequestHandler, type Express, type Router } from 'express';
+import helmet from 'helmet';
+import type { Sequelize } from 'sequelize';
+import { AppError } from './errors';
+import { createAuthenticator } from './auth/passport';
+import { authRouter } from './routes/auth/router';
+import { usersRouter } from './routes/users/router';
+import { healthRouter, type Health } from './routes/health/router';
+import { auditEventsRouter } from './routes/audit-events/router';
+import { mailRouter } from './routes/mail/router';
+import { calculationsRouter } from './routes/calculations/router';
+import { serveWebClient } from './web';
+
+export interface AppOptions {
+  sequelize: Sequelize;
+  jwtSecret: string;
+  tokenHours: number;
+  loginLimit: number;
+  health: () => Promise<Health>;
+  webDir?: string;
+}
+
+/** Builds the Express app; it does not listen (tests hand it to supertest). */
+export function createApp(options: AppOptions): Express {
+  const app = express();
+  app.set('trust proxy', 'loopback');
+  app.disable('x-powered-by');
+  // The exported client is a static bundle with inline bootstrapping; keep the other helmet headers.
+  app.use(helmet({ contentSecurityPolicy: false }));
+  app.use(express.json({ limit: '1mb' }));
+
+  const authenticate = createAuthenticator(options.jwtSecret);
+  const publicRoutes: [string, Router][] = [
+    ['/health', healthRouter(options.health)],
+    ['/auth', authRouter({ ...options, authenticate })],
+  ];
+  const signedInRoutes: [string, Router][] = [
+    ['/users', usersRouter(options.sequelize)],
+    ['/audit-events', auditEventsRouter()],
+    ['/mail', mailRouter()],
+    ['/calculations', calculationsRouter()],
+  ];
+  const api = express.Router();
+  for (const [path, router] of publicRoutes) api.use(path, router);
+  // Everything below needs a valid token.
+  api.use(authenticate);
+  for (const [path, router] of signedInRoutes) api.use(path, router);
+  app.locals.apiRoutes = listRoutes([...publicRoutes, ...signedInRoutes]);
+  api.use((req, _res, next) => next(new AppError(404, 'not_found', `No API route ${req.method} ${req.baseUrl}${req.path}.`)));
+  app.use('/api', api);
+
+  if (options.webDir) serveWebClient(app, options.webDir);
+  app.use(errorHandler);
+  return app;
+}
+
+const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
+  if (err instanceof AppError) return res.status(err.status).json(err.toJSON());
+  // body-parser's errors carry a status and a type; a malformed JSON body names the body as its field.
+  if (err && typeof err === 'object' && 'type' in err) {
+    const type = (err as { type: string }).type;
+    if (type === 'entity.parse.failed')
+      return res.status(400).json(new AppError(400, 'invalid_json', 'The request body is not valid JSON.', 'body').toJSON());
+    if (type === 'entity.too.large')
+      return res.status(413).json(new AppError(413, 'too_large', 'The request body is too large.', 'body').toJSON());
+  }
+  console.error(`[http] ${req.method} ${req.originalUrl}:`, err);
+  res.status(500).json(new AppError(500, 'internal', 'Something went wrong on the server; it has been logged.').toJSON());
+};
+
+/** `METHOD /api/path` of every route, read from the routers themselves (the role-matrix test uses it). */
+function listRoutes(mounts: [string, Router][]): string[] {
+  const routes: string[] = [];
+  for (const [mount, router] of mounts) {
+    for (const layer of router.stack as { route?: { path: string; methods: Record<string, boolean> } }[]) {
+      if (!layer.route) continue;
+      for (const method of Object.keys(layer.route.methods)) {
+        const path = layer.route.path === '/' ? '' : layer.route.path;
+        routes.push(`${method.toUpperCase()} /api${mount}${path}`);
+      }
+    }
+  }
+  return routes.sort();
+}

@@ -1,0 +1,84 @@
+/**
+ * `npm start`: the private PostgreSQL cluster (or DATABASE_URL), migrations and demo data, the
+ * exported web client, the server with its broker and SMTP stand-in, and the simulators.
+ * Ctrl-C stops every child, PostgreSQL included when this run started it.
+ */
+import { spawn, type ChildProcess } from 'node:child_process';
+import fs from 'node:fs';
+import path from 'node:path';
+import { ensureCluster, ensureDatabase, type Cluster } from './postgres';
+import { exportWebClient } from './web-export';
+import { readEnv } from '../env';
+import { startServer, type RunningServer } from '../index';
+import { demoUsers } from '../seed/demo-users';
+
+const root = path.resolve(__dirname, '..', '..');
+const log = (s: string) => console.log(`[tallyrun] ${s}`);
+
+async function main() {
+  const began = Date.now();
+  const dataDir = path.resolve(process.env.TALLYRUN_DATA_DIR ?? path.join(root, '.tallyrun'));
+  let cluster: Cluster | null = null;
+  let server: RunningServer | null = null;
+  let simulators: ChildProcess | null = null;
+  let stopping = false;
+
+  const shutdown = async (code: number) => {
+    if (stopping) return;
+    stopping = true;
+    log('stopping ...');
+    if (simulators?.pid) {
+      try {
+        process.kill(-simulators.pid, 'SIGTERM');
+      } catch {
+        /* already gone */
+      }
+    }
+    await server?.stop().catch((err) => console.error(err));
+    if (cluster?.startedHere) {
+      cluster.stop();
+      log('PostgreSQL stopped');
+    }
+    process.exit(code);
+  };
+  process.on('SIGINT', () => void shutdown(0));
+  process.on('SIGTERM', () => void shutdown(0));
+
+  try {
+    let databaseUrl = process.env.DATABASE_URL;
+    if (!databaseUrl) {
+      cluster = await ensureCluster({ dataDir, port: Number(process.env.TALLYRUN_PG_PORT ?? 54329), log });
+      await ensureDatabase(cluster.url('postgres'), 'tallyrun');
+      databaseUrl = cluster.url('tallyrun');
+    }
+    exportWebClient(root, log);
+    const env = readEnv({ ...process.env, DATABASE_URL: databaseUrl, TALLYRUN_DATA_DIR: dataDir, TALLYRUN_WEB_DIR: path.join(root, 'dist') });
+    server = await startServer(env);
+
+    const simulatorEntry = path.join(root, 'simulators', 'index.ts');
+    if (env.TALLYRUN_SIMULATORS === 'on' && fs.existsSync(simulatorEntry)) {
+      simulators = spawn(path.join(root, 'node_modules', '.bin', 'tsx'), [simulatorEntry], {
+        cwd: root,
+        detached: true, // own process group, so Ctrl-C handling stays here and we stop it as a group
+        stdio: ['ignore', 'inherit', 'inherit'],
+        env: { ...process.env, DATABASE_URL: databaseUrl, TALLYRUN_MQTT_URL: `mqtt://127.0.0.1:${server.mqttPort}` },
+      });
+    }
+
+    const seconds = ((Date.now() - began) / 1000).toFixed(1);
+    console.log(`
+  Tallyrun is running (ready in ${seconds} s)
+    web and API   ${server.url}
+    health        ${server.url}/api/health
+    MQTT broker   mqtt://127.0.0.1:${server.mqttPort}
+    SMTP stand-in 127.0.0.1:${server.smtpPort} (mail lands in the admin's outbox)
+${env.TALLYRUN_DEMO === 'on' ? `  Demo sign-ins (password "${env.TALLYRUN_DEMO_PASSWORD === 'tallyrun-demo' ? 'tallyrun-demo' : '<TALLYRUN_DEMO_PASSWORD>'}"):\n${demoUsers.map((u) => `    ${u.role.padEnd(11)} ${u.email}`).join('\n')}\n` : ''}
+  Press Ctrl-C to stop.
+`);
+  } catch (err) {
+    console.error(`[tallyrun] could not start: ${err instanceof Error ? err.message : String(err)}`);
+    await shutdown(1);
+  }
+}
+
+void main();

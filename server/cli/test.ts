@@ -1,0 +1,121 @@
+/**
+ * `npm test`: the same bring-up as `npm start` with databases of its own, then every test:
+ * unit (shared/), API and MQTT (real PostgreSQL, real broker) and browser end-to-end (Debian's
+ * Chromium against the real server with the exported client). Extra arguments go to jest.
+ */
+import { execFileSync, spawnSync } from 'node:child_process';
+import fs from 'node:fs';
+import path from 'node:path';
+import { ensureCluster, ensureDatabase, type Cluster } from './postgres';
+import { exportWebClient } from './web-export';
+import { readEnv } from '../env';
+import { startServer, type RunningServer } from '../index';
+import { connectDatabase } from '../db/connect';
+import { migrate } from '../db/migrate';
+
+const root = path.resolve(__dirname, '..', '..');
+const log = (s: string) => console.log(`[test] ${s}`);
+const isRoot = typeof process.getuid === 'function' && process.getuid() === 0;
+
+/** Debian packages the tests call: reference libraries (IAPWS-IF97, units) and the browser. */
+function ensureTestTools() {
+  const missing: string[] = [];
+  const hasPython = (mod: string) => spawnSync('/usr/bin/python3', ['-c', `import ${mod}`], { stdio: 'ignore' }).status === 0;
+  if (!hasPython('iapws')) missing.push('python3-iapws');
+  if (!hasPython('pint')) missing.push('python3-pint');
+  if (!fs.existsSync('/usr/bin/chromium')) missing.push('chromium');
+  if (missing.length === 0) return;
+  if (!isRoot) throw new Error(`missing Debian packages for the tests: ${missing.join(' ')} (install them with apt-get)`);
+  log(`installing ${missing.join(', ')} from Debian (apt-get) ...`);
+  execFileSync('apt-get', ['update', '-qq'], { stdio: 'inherit' });
+  execFileSync('apt-get', ['install', '-y', '-qq', ...missing], { stdio: 'inherit', env: { ...process.env, DEBIAN_FRONTEND: 'noninteractive' } });
+}
+
+async function main(): Promise<number> {
+  const began = Date.now();
+  const dataDir = path.resolve(process.env.TALLYRUN_DATA_DIR ?? path.join(root, '.tallyrun'));
+  let cluster: Cluster | null = null;
+  let server: RunningServer | null = null;
+  try {
+    ensureTestTools();
+    let e2eUrl: string;
+    let jestUrl: string;
+    if (process.env.DATABASE_URL) {
+      // An outside server: make the two test databases beside the given one.
+      const admin = new URL(process.env.DATABASE_URL);
+      admin.pathname = '/postgres';
+      await ensureDatabase(admin.toString(), 'tallyrun_e2e', { fresh: true });
+      await ensureDatabase(admin.toString(), 'tallyrun_jest', { fresh: true });
+      e2eUrl = Object.assign(new URL(admin), { pathname: '/tallyrun_e2e' }).toString();
+      jestUrl = Object.assign(new URL(admin), { pathname: '/tallyrun_jest' }).toString();
+    } else {
+      cluster = await ensureCluster({ dataDir, port: Number(process.env.TALLYRUN_PG_PORT ?? 54329), log });
+      await ensureDatabase(cluster.url('postgres'), 'tallyrun_e2e', { fresh: true });
+      await ensureDatabase(cluster.url('postgres'), 'tallyrun_jest', { fresh: true });
+      e2eUrl = cluster.url('tallyrun_e2e');
+      jestUrl = cluster.url('tallyrun_jest');
+    }
+    const jestDb = connectDatabase(jestUrl);
+    await migrate(jestDb, jestUrl);
+    await jestDb.close();
+
+    exportWebClient(root, log);
+    const password = process.env.TALLYRUN_DEMO_PASSWORD ?? 'tallyrun-demo';
+    const testDataDir = path.join(dataDir, 'test');
+    fs.mkdirSync(testDataDir, { recursive: true });
+    server = await startServer(
+      readEnv({
+        ...process.env,
+        DATABASE_URL: e2eUrl,
+        PORT: '0',
+        MQTT_PORT: '0',
+        SMTP_PORT: '0',
+        TALLYRUN_DEMO: 'on',
+        TALLYRUN_SIMULATORS: 'off',
+        TALLYRUN_DEMO_PASSWORD: password,
+        TALLYRUN_DATA_DIR: testDataDir,
+        TALLYRUN_WEB_DIR: path.join(root, 'dist'),
+      }),
+    );
+    log(`bring-up took ${((Date.now() - began) / 1000).toFixed(1)} s; server at ${server.url}`);
+
+    const resultsFile = path.join(root, '.test-results', 'jest.json');
+    fs.mkdirSync(path.dirname(resultsFile), { recursive: true });
+    fs.rmSync(resultsFile, { force: true });
+    const jest = spawnSync(
+      path.join(root, 'node_modules', '.bin', 'jest'),
+      ['--ci', '--maxWorkers=2', '--json', `--outputFile=${resultsFile}`, ...process.argv.slice(2)],
+      {
+        cwd: root,
+        stdio: 'inherit',
+        env: {
+          ...process.env,
+          TALLYRUN_BASE_URL: server.url,
+          TALLYRUN_MQTT_PORT: String(server.mqttPort),
+          TALLYRUN_SMTP_PORT: String(server.smtpPort),
+          TALLYRUN_E2E_DATABASE_URL: e2eUrl,
+          TEST_DATABASE_URL: jestUrl,
+          TALLYRUN_DEMO_PASSWORD: password,
+        },
+      },
+    );
+    let summary = { passed: 0, failed: 0, skipped: 0 };
+    if (fs.existsSync(resultsFile)) {
+      const r = JSON.parse(fs.readFileSync(resultsFile, 'utf8'));
+      summary = { passed: r.numPassedTests, failed: r.numFailedTests + (r.numRuntimeErrorTestSuites ?? 0), skipped: r.numPendingTests + r.numTodoTests };
+    }
+    const ok = jest.status === 0 && summary.failed === 0;
+    console.log(`\n[test] finished in ${((Date.now() - began) / 1000).toFixed(0)} s`);
+    console.log(`${summary.passed} passed, ${summary.failed} failed, ${summary.skipped} skipped`);
+    return ok ? 0 : 1;
+  } catch (err) {
+    console.error(`[test] could not run the tests: ${err instanceof Error ? err.stack : String(err)}`);
+    console.log('0 passed, 1 failed');
+    return 1;
+  } finally {
+    await server?.stop().catch(() => undefined);
+    if (cluster?.startedHere) cluster.stop();
+  }
+}
+
+main().then((code) => process.exit(code));

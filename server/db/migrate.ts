@@ -1,0 +1,36 @@
+import { Umzug, SequelizeStorage } from 'umzug';
+import type { Sequelize } from 'sequelize';
+import { Client } from 'pg';
+import * as m0001 from '../migrations/0001-foundation';
+
+/**
+ * Migrations are listed here, in order, rather than globbed: the list works the same under
+ * tsx, ts-jest and a bundler, and a missing file is a compile error instead of a skipped step.
+ */
+const migrations = [{ name: '0001-foundation', ...m0001 }];
+
+export function migrator(sequelize: Sequelize) {
+  return new Umzug({
+    migrations: migrations.map((m) => ({ name: m.name, up: m.up, down: m.down })),
+    context: sequelize.getQueryInterface(),
+    storage: new SequelizeStorage({ sequelize, tableName: 'schema_migrations' }),
+    logger: undefined,
+  });
+}
+
+/**
+ * Applies every pending migration, holding an advisory lock on a connection of its own (the
+ * pool could hand lock and unlock to different sessions) so two processes never race.
+ */
+export async function migrate(sequelize: Sequelize, databaseUrl: string): Promise<string[]> {
+  const lockKey = 7_200_417; // arbitrary, fixed: identifies Tallyrun's migration lock
+  const lock = new Client({ connectionString: databaseUrl });
+  await lock.connect();
+  try {
+    await lock.query('SELECT pg_advisory_lock($1)', [lockKey]);
+    const done = await migrator(sequelize).up();
+    return done.map((m) => m.name);
+  } finally {
+    await lock.end();
+  }
+}

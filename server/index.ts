@@ -1,0 +1,105 @@
+import fs from 'node:fs';
+import path from 'node:path';
+import crypto from 'node:crypto';
+import http from 'node:http';
+import type { AddressInfo } from 'node:net';
+import { readEnv, type Env } from './env';
+import { connectDatabase } from './db/connect';
+import { migrate } from './db/migrate';
+import { initModels } from './models';
+import { createApp } from './app';
+import { startEmbeddedBroker } from './ingest/broker';
+import { startSmtpStandIn } from './mail/smtp-stand-in';
+import { seedDemoUsers } from './seed/demo-users';
+
+export interface RunningServer {
+  url: string;
+  httpPort: number;
+  mqttPort: number;
+  smtpPort: number;
+  stop(): Promise<void>;
+}
+
+/**
+ * Starts everything the server process owns: database connection and migrations, demo seed,
+ * the embedded MQTT broker, the SMTP stand-in and the HTTP API with the web client.
+ * Ports may be 0 (tests): the real ones are returned.
+ */
+export async function startServer(env: Env = readEnv()): Promise<RunningServer> {
+  const sequelize = connectDatabase(env.DATABASE_URL);
+  await sequelize.authenticate();
+  initModels(sequelize);
+  await migrate(sequelize, env.DATABASE_URL);
+  if (env.TALLYRUN_DEMO === 'on') await seedDemoUsers(sequelize, env.TALLYRUN_DEMO_PASSWORD);
+
+  const broker = await startEmbeddedBroker({
+    host: env.HOST,
+    port: env.MQTT_PORT,
+    // Device credentials arrive with the ingest work; until then every device is refused.
+    authenticate: async () => null,
+  });
+  const smtp = await startSmtpStandIn({ host: env.HOST, port: env.SMTP_PORT });
+
+  const app = createApp({
+    sequelize,
+    jwtSecret: jwtSecret(env),
+    tokenHours: env.TALLYRUN_TOKEN_HOURS,
+    loginLimit: env.TALLYRUN_LOGIN_LIMIT,
+    webDir: env.TALLYRUN_WEB_DIR,
+    health: async () => ({
+      database: await sequelize
+        .query('SELECT 1')
+        .then(() => 'up' as const)
+        .catch(() => 'down' as const),
+      broker: broker.isUp() ? 'up' : 'down',
+    }),
+  });
+  const server = http.createServer(app);
+  await new Promise<void>((resolve, reject) => {
+    server.once('error', reject);
+    server.listen(env.PORT, env.HOST, () => resolve());
+  });
+  const httpPort = (server.address() as AddressInfo).port;
+
+  return {
+    url: `http://${env.HOST}:${httpPort}`,
+    httpPort,
+    mqttPort: broker.port,
+    smtpPort: smtp.port,
+    async stop() {
+      server.closeAllConnections();
+      await new Promise<void>((resolve) => server.close(() => resolve()));
+      await broker.close();
+      await smtp.close();
+      await sequelize.close();
+    },
+  };
+}
+
+/** A signing secret from the environment, or one generated once and kept in the data folder. */
+function jwtSecret(env: Env): string {
+  if (env.TALLYRUN_JWT_SECRET) return env.TALLYRUN_JWT_SECRET;
+  const file = path.resolve(env.TALLYRUN_DATA_DIR, 'jwt-secret');
+  if (fs.existsSync(file)) return fs.readFileSync(file, 'utf8').trim();
+  fs.mkdirSync(path.dirname(file), { recursive: true });
+  const secret = crypto.randomBytes(48).toString('base64url');
+  fs.writeFileSync(file, secret, { mode: 0o600 });
+  return secret;
+}
+
+// Run directly (`tsx server/index.ts`): start, and stop cleanly on SIGINT/SIGTERM.
+if (require.main === module) {
+  startServer()
+    .then((running) => {
+      console.log(`[server] http ${running.url}  mqtt ${running.mqttPort}  smtp ${running.smtpPort}`);
+      const shutdown = () => {
+        running.stop().then(() => process.exit(0), () => process.exit(1));
+      };
+      process.once('SIGINT', shutdown);
+      process.once('SIGTERM', shutdown);
+    })
+    .catch((err) => {
+      console.error(err instanceof Error ? err.message : err);
+      process.exit(1);
+    });
+}

@@ -1,0 +1,116 @@
+import jwt from 'jsonwebtoken';
+import { testApp } from '../../test-support/app';
+
+let t: Awaited<ReturnType<typeof testApp>>;
+beforeAll(async () => {
+  t = await testApp();
+});
+afterAll(() => t.close());
+
+const expectErrorShape = (body: unknown, code: string) => {
+  expect(body).toEqual({ error: expect.objectContaining({ code, message: expect.any(String) }) });
+  expect(JSON.stringify(body)).not.toMatch(/at .+\.(ts|js):\d+/); // never a stack trace
+};
+
+describe('POST /api/auth/login', () => {
+  it('returns a token and the user for the right email and password', async () => {
+    const u = await t.signedIn('engineer');
+    const res = await t.http().post('/api/auth/login').send({ email: u.email.toUpperCase(), password: u.password });
+    expect(res.status).toBe(200);
+    expect(res.body.user).toEqual({ id: u.id, email: u.email, name: 'Test engineer', role: 'engineer' });
+    const me = await t.http().get('/api/auth/me').set('Authorization', `Bearer ${res.body.token}`);
+    expect(me.body.user.email).toBe(u.email);
+  });
+
+  it('refuses a wrong password with 401 invalid_credentials', async () => {
+    const u = await t.signedIn('operator');
+    const res = await t.http().post('/api/auth/login').send({ email: u.email, password: 'not-the-password' });
+    expect(res.status).toBe(401);
+    expectErrorShape(res.body, 'invalid_credentials');
+  });
+
+  it('answers an unknown user exactly as a wrong password, so accounts cannot be probed', async () => {
+    const res = await t.http().post('/api/auth/login').send({ email: `nobody-${t.unique()}@test.tallyrun`, password: 'whatever-it-is' });
+    expect(res.status).toBe(401);
+    expectErrorShape(res.body, 'invalid_credentials');
+  });
+
+  it('refuses a disabled user with 401 account_disabled', async () => {
+    const u = await t.signedIn('accountant');
+    await t.sequelize.query('UPDATE users SET disabled = true WHERE id = :id', { replacements: { id: u.id } });
+    const res = await t.http().post('/api/auth/login').send({ email: u.email, password: u.password });
+    expect(res.status).toBe(401);
+    expectErrorShape(res.body, 'account_disabled');
+  });
+
+  it('names the missing field of an incomplete body with 400', async () => {
+    const res = await t.http().post('/api/auth/login').send({ password: 'x' });
+    expect(res.status).toBe(400);
+    expect(res.body.error.field).toBe('email');
+  });
+
+  it('answers a malformed JSON body with 400 naming the body', async () => {
+    const res = await t.http().post('/api/auth/login').set('Content-Type', 'application/json').send('{"email": ');
+    expect(res.status).toBe(400);
+    expectErrorShape(res.body, 'invalid_json');
+    expect(res.body.error.field).toBe('body');
+  });
+
+  it('rate-limits repeated sign-in attempts for one account with 429', async () => {
+    const limited = await testApp({ loginLimit: 3 });
+    try {
+      const email = `target-${limited.unique()}@test.tallyrun`;
+      const statuses: number[] = [];
+      for (let i = 0; i < 5; i++) statuses.push((await limited.http().post('/api/auth/login').send({ email, password: 'guess-guess' })).status);
+      expect(statuses).toEqual([401, 401, 401, 429, 429]);
+      const last = await limited.http().post('/api/auth/login').send({ email, password: 'guess-guess' });
+      expectErrorShape(last.body, 'rate_limited');
+    } finally {
+      await limited.close();
+    }
+  });
+});
+
+describe('bearer tokens', () => {
+  it('refuses a request without a token with 401', async () => {
+    const res = await t.http().get('/api/auth/me');
+    expect(res.status).toBe(401);
+    expectErrorShape(res.body, 'unauthorized');
+  });
+
+  it('refuses an expired token with 401 token_expired', async () => {
+    const u = await t.signedIn('operator');
+    const expired = jwt.sign({ role: 'operator', exp: Math.floor(Date.now() / 1000) - 60 }, t.jwtSecret, { subject: u.id });
+    const res = await t.http().get('/api/auth/me').set('Authorization', `Bearer ${expired}`);
+    expect(res.status).toBe(401);
+    expectErrorShape(res.body, 'token_expired');
+  });
+
+  it('refuses a token signed with another secret with 401', async () => {
+    const u = await t.signedIn('admin');
+    const forged = jwt.sign({ role: 'admin' }, 'a-secret-that-is-not-the-servers', { subject: u.id });
+    const res = await t.http().get('/api/users').set('Authorization', `Bearer ${forged}`);
+    expect(res.status).toBe(401);
+  });
+
+  it('refuses an unsigned ("alg: none") token with 401', async () => {
+    const u = await t.signedIn('admin');
+    const unsigned = jwt.sign({ role: 'admin' }, '', { subject: u.id, algorithm: 'none' });
+    const res = await t.http().get('/api/users').set('Authorization', `Bearer ${unsigned}`);
+    expect(res.status).toBe(401);
+  });
+
+  it('stops honouring a valid token as soon as its user is disabled', async () => {
+    const u = await t.signedIn('engineer');
+    expect((await t.http().get('/api/auth/me').set('Authorization', `Bearer ${u.token}`)).status).toBe(200);
+    await t.sequelize.query('UPDATE users SET disabled = true WHERE id = :id', { replacements: { id: u.id } });
+    expect((await t.http().get('/api/auth/me').set('Authorization', `Bearer ${u.token}`)).status).toBe(401);
+  });
+
+  it('answers an unknown API route with a 404 in the error shape', async () => {
+    const u = await t.signedIn('operator');
+    const res = await t.http().get('/api/no-such-thing').set('Authorization', `Bearer ${u.token}`);
+    expect(res.status).toBe(404);
+    expectErrorShape(res.body, 'not_found');
+  });
+});
