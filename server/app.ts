@@ -10,6 +10,16 @@ import { auditEventsRouter } from './routes/audit-events/router';
 import { mailRouter } from './routes/mail/router';
 import { calculationsRouter } from './routes/calculations/router';
 import { serveWebClient } from './web';
+import { sitesRouter } from './routes/sites/router';
+import { meterRunsRouter } from './routes/meter-runs/router';
+import { meterRunHistoryRouter } from './routes/meter-runs/history-router';
+import { transmittersRouter } from './routes/transmitters/router';
+import { devicesRouter } from './routes/devices/router';
+import { importsRouter } from './routes/imports/router';
+import { readingsRouter } from './routes/readings/router';
+import { liveRouter } from './routes/live/router';
+import { LiveBoard } from './live-board';
+import type { Services } from './services';
 
 export interface AppOptions {
   sequelize: Sequelize;
@@ -17,7 +27,9 @@ export interface AppOptions {
   tokenHours: number;
   loginLimit: number;
   health: () => Promise<Health>;
+  services: Services;
   webDir?: string;
+  maxUploadBytes?: number;
 }
 
 /** Builds the Express app; it does not listen (tests hand it to supertest). */
@@ -34,11 +46,26 @@ export function createApp(options: AppOptions): Express {
     ['/health', healthRouter(options.health)],
     ['/auth', authRouter({ ...options, authenticate })],
   ];
+  const { services, sequelize } = options;
+  const setupChanged = () => services.catalog.invalidate();
   const signedInRoutes: [string, Router][] = [
-    ['/users', usersRouter(options.sequelize)],
+    ['/users', usersRouter(sequelize)],
     ['/audit-events', auditEventsRouter()],
     ['/mail', mailRouter()],
     ['/calculations', calculationsRouter()],
+    ['/sites', sitesRouter(sequelize)],
+    ['/meter-runs', meterRunsRouter(sequelize, {
+      configChanged: async (meterRunId, from) => {
+        setupChanged();
+        await services.history.queueHours([meterRunId], from.getTime(), Date.now());
+      },
+    })],
+    ['/meter-runs', meterRunHistoryRouter(services.pool)],
+    ['/transmitters', transmittersRouter(sequelize, { changed: setupChanged })],
+    ['/devices', devicesRouter(sequelize, { credentialsChanged: () => services.deviceAuth.forget() })],
+    ['/imports', importsRouter({ pool: services.pool, uploadDir: services.uploadDir, maxBytes: options.maxUploadBytes ?? 200e6, jobs: services.imports })],
+    ['/readings', readingsRouter(services.pool)],
+    ['/live', liveRouter(new LiveBoard(services.pool), services.live)],
   ];
   const api = express.Router();
   for (const [path, router] of publicRoutes) api.use(path, router);

@@ -11,6 +11,8 @@ import { createApp } from './app';
 import { startEmbeddedBroker } from './ingest/broker';
 import { startSmtpStandIn } from './mail/smtp-stand-in';
 import { seedDemoUsers } from './seed/demo-users';
+import { createServices } from './services';
+import { makePartitionsAhead, startSchedule } from './jobs/schedule';
 
 export interface RunningServer {
   url: string;
@@ -32,11 +34,18 @@ export async function startServer(env: Env = readEnv()): Promise<RunningServer> 
   await migrate(sequelize, env.DATABASE_URL);
   if (env.TALLYRUN_DEMO === 'on') await seedDemoUsers(sequelize, env.TALLYRUN_DEMO_PASSWORD);
 
+  const services = createServices({ databaseUrl: env.DATABASE_URL, sequelize, dataDir: path.resolve(env.TALLYRUN_DATA_DIR) });
+  // An import cut short by a stop is reported as such; its committed batches stay.
+  await services.pool.query(`UPDATE imports SET status = 'failed', finished_at = now(), errors = errors || '[{"line": 0, "message": "the server stopped during this import; re-import the file (rows already stored count as duplicates)"}]'::jsonb WHERE status = 'running'`);
+  await makePartitionsAhead(services.pool);
+  services.history.start((ids) => services.live.historyChanged(ids));
+  const schedule = startSchedule({ pool: services.pool, history: services.history });
+
   const broker = await startEmbeddedBroker({
     host: env.HOST,
     port: env.MQTT_PORT,
-    // Device credentials arrive with the ingest work; until then every device is refused.
-    authenticate: async () => null,
+    authenticate: (username, password) => services.deviceAuth.authenticate(username, password),
+    onPublish: (device, topic, payload) => services.mqttIngest(device, topic, payload),
   });
   const smtp = await startSmtpStandIn({ host: env.HOST, port: env.SMTP_PORT });
 
@@ -46,6 +55,7 @@ export async function startServer(env: Env = readEnv()): Promise<RunningServer> 
     tokenHours: env.TALLYRUN_TOKEN_HOURS,
     loginLimit: env.TALLYRUN_LOGIN_LIMIT,
     webDir: env.TALLYRUN_WEB_DIR,
+    services,
     health: async () => ({
       database: await sequelize
         .query('SELECT 1')
@@ -69,8 +79,10 @@ export async function startServer(env: Env = readEnv()): Promise<RunningServer> 
     async stop() {
       server.closeAllConnections();
       await new Promise<void>((resolve) => server.close(() => resolve()));
+      schedule.stop();
       await broker.close();
       await smtp.close();
+      await services.close();
       await sequelize.close();
     },
   };

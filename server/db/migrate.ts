@@ -2,12 +2,16 @@ import { Umzug, SequelizeStorage } from 'umzug';
 import type { Sequelize } from 'sequelize';
 import { Client } from 'pg';
 import * as m0001 from '../migrations/0001-foundation';
+import * as m0002 from '../migrations/0002-setup-and-history';
 
 /**
  * Migrations are listed here, in order, rather than globbed: the list works the same under
  * tsx, ts-jest and a bundler, and a missing file is a compile error instead of a skipped step.
  */
-const migrations = [{ name: '0001-foundation', ...m0001 }];
+const migrations = [
+  { name: '0001-foundation', ...m0001 },
+  { name: '0002-setup-and-history', ...m0002 },
+];
 
 export function migrator(sequelize: Sequelize) {
   return new Umzug({

@@ -4,6 +4,9 @@ import type { AddressInfo } from 'node:net';
 /** Decides whether a device may connect with these credentials. */
 export type DeviceAuthenticator = (username: string, password: string) => Promise<{ id: string; siteCode: string } | null>;
 
+/** Stores a message's readings; resolves once they are committed (then the broker sends PUBACK). */
+export type PublishHandler = (device: { id: string; siteCode: string }, topic: string, payload: Buffer) => Promise<unknown>;
+
 export interface EmbeddedBroker {
   port: number;
   isUp(): boolean;
@@ -21,6 +24,7 @@ export async function startEmbeddedBroker(options: {
   host: string;
   port: number;
   authenticate: DeviceAuthenticator;
+  onPublish: PublishHandler;
 }): Promise<EmbeddedBroker> {
   // aedes 1.x ships as an ES module only; a dynamic import keeps this file loadable from CommonJS.
   const { Aedes } = await import('aedes');
@@ -40,6 +44,24 @@ export async function startEmbeddedBroker(options: {
         done(null, true);
       })
       .catch(() => fail());
+  };
+
+  // Storing happens before aedes acknowledges: its PUBACK for QoS 1 goes out only after this
+  // callback, so an acknowledged reading is a committed reading. A database failure is passed
+  // back as an error, which drops the connection unacknowledged and the device sends it again.
+  aedes.authorizePublish = (client, packet, callback) => {
+    const device = client ? ((client as unknown as { device?: { id: string; siteCode: string } }).device ?? null) : null;
+    if (!device) return callback(null); // the server's own publishes (live views)
+    options.onPublish(device, packet.topic, packet.payload as Buffer).then(
+      () => callback(null),
+      (err: Error) => callback(err),
+    );
+  };
+  // Devices publish; they do not read other sites' data.
+  aedes.authorizeSubscribe = (client, subscription, callback) => {
+    const device = (client as unknown as { device?: { siteCode: string } }).device;
+    if (device && subscription.topic.startsWith(`tallyrun/${device.siteCode}/`)) return callback(null, subscription);
+    callback(new Error('subscriptions are not allowed'), null);
   };
 
   const server = net.createServer(aedes.handle);

@@ -1,4 +1,7 @@
 import crypto from 'node:crypto';
+import os from 'node:os';
+import path from 'node:path';
+import { createServices, type Services } from '../services';
 import type { Express } from 'express';
 import type { Sequelize } from 'sequelize';
 import request from 'supertest';
@@ -16,7 +19,7 @@ import type { Role } from '../../shared/auth/roles';
  * files can run in parallel without cleaning up after each other.
  */
 // Models are bound to one connection per process, so every app of a test file shares it.
-let shared: { sequelize: Sequelize; users: number } | null = null;
+let shared: { sequelize: Sequelize; services: Services; users: number } | null = null;
 
 export async function testApp(options: { loginLimit?: number } = {}) {
   const url = process.env.TEST_DATABASE_URL;
@@ -25,10 +28,11 @@ export async function testApp(options: { loginLimit?: number } = {}) {
     const connection = connectDatabase(url);
     initModels(connection);
     await migrate(connection, url);
-    shared = { sequelize: connection, users: 0 };
+    const services = createServices({ databaseUrl: url, sequelize: connection, dataDir: path.join(os.tmpdir(), 'tallyrun-jest') });
+    shared = { sequelize: connection, services, users: 0 };
   }
   shared.users++;
-  const sequelize = shared.sequelize;
+  const { sequelize, services } = shared;
   const jwtSecret = crypto.randomBytes(32).toString('hex');
   const app: Express = createApp({
     sequelize,
@@ -36,6 +40,7 @@ export async function testApp(options: { loginLimit?: number } = {}) {
     tokenHours: 1,
     loginLimit: options.loginLimit ?? 1000,
     health: async () => ({ database: 'up', broker: 'up' }),
+    services,
   });
   const unique = () => crypto.randomBytes(5).toString('hex');
 
@@ -50,9 +55,10 @@ export async function testApp(options: { loginLimit?: number } = {}) {
     return { id, email, password, role, token: issueToken({ id, role }, jwtSecret, 1) };
   }
 
-  return { app, sequelize, jwtSecret, signedIn, unique, http: () => request(app), close: async () => {
+  return { app, sequelize, services, jwtSecret, signedIn, unique, http: () => request(app), close: async () => {
       if (shared && --shared.users === 0) {
         shared = null;
+        await services.close();
         await sequelize.close();
       }
     },

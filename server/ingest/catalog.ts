@@ -1,0 +1,69 @@
+import type { Sequelize } from 'sequelize';
+
+/** What ingest needs to know about a transmitter, looked up by site code and tag. */
+export interface CatalogTransmitter {
+  id: string;
+  tag: string;
+  meterRunId: string;
+  siteId: string;
+  siteCode: string;
+  timeZone: string;
+  measures: 'differential-pressure' | 'static-pressure' | 'temperature';
+  unit: string;
+  pressureReference: 'absolute' | 'gauge';
+  lowerRange: number;
+  upperRange: number;
+  atmosphericPressurePa: number;
+}
+
+/**
+ * An in-memory copy of the transmitter list, so that each reading costs a map lookup rather
+ * than a query. Set-up changes call `invalidate()`; a reload happens at most once at a time.
+ */
+export class Catalog {
+  private byTopic = new Map<string, CatalogTransmitter>();
+  private byTag = new Map<string, CatalogTransmitter>();
+  private loading: Promise<void> | null = null;
+  private stale = true;
+
+  constructor(private readonly sequelize: Sequelize) {}
+
+  invalidate() {
+    this.stale = true;
+  }
+
+  private async load() {
+    const [rows] = await this.sequelize.query(`
+      SELECT t.id::text, t.tag, t.meter_run_id::text AS "meterRunId", s.id::text AS "siteId", s.code AS "siteCode",
+             s.time_zone AS "timeZone", t.measures, t.unit, t.pressure_reference AS "pressureReference",
+             t.lower_range AS "lowerRange", t.upper_range AS "upperRange", s.atmospheric_pressure_pa AS "atmosphericPressurePa"
+        FROM transmitters t JOIN meter_runs m ON m.id = t.meter_run_id JOIN sites s ON s.id = m.site_id`);
+    const byTopic = new Map<string, CatalogTransmitter>();
+    const byTag = new Map<string, CatalogTransmitter>();
+    for (const row of rows as CatalogTransmitter[]) {
+      byTopic.set(`${row.siteCode}/${row.tag}`, row);
+      byTag.set(row.tag, row);
+    }
+    this.byTopic = byTopic;
+    this.byTag = byTag;
+  }
+
+  async ready() {
+    if (!this.stale) return;
+    if (!this.loading) {
+      this.stale = false;
+      this.loading = this.load().finally(() => (this.loading = null));
+    }
+    await this.loading;
+  }
+
+  async bySiteAndTag(siteCode: string, tag: string) {
+    await this.ready();
+    return this.byTopic.get(`${siteCode}/${tag}`) ?? null;
+  }
+
+  async byTransmitterTag(tag: string) {
+    await this.ready();
+    return this.byTag.get(tag) ?? null;
+  }
+}

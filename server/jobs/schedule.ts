@@ -1,0 +1,32 @@
+import cron from 'node-cron';
+import type { Pool } from 'pg';
+import type { HistoryWorker } from '../history/worker';
+import { ensureReadingPartition } from '../ingest/reading-writer';
+
+const hourMs = 3_600_000;
+
+/** Creates the readings partitions of this month and the next three, ahead of the data. */
+export async function makePartitionsAhead(pool: Pool, nowMs = Date.now()) {
+  const d = new Date(nowMs);
+  for (let i = 0; i < 4; i++) await ensureReadingPartition(pool, Date.UTC(d.getUTCFullYear(), d.getUTCMonth() + i, 1));
+}
+
+/**
+ * Scheduled jobs (node-cron):
+ * - every hour at minute 1: queue the hour that just ended (and the one before) for every meter
+ *   run, so an hour finishes with asOf = its end even when no reading arrived (a dropout), and its
+ *   contract day turns complete;
+ * - every day at 00:10 UTC: create the next months' readings partitions.
+ */
+export function startSchedule(deps: { pool: Pool; history: HistoryWorker }) {
+  const tasks = [
+    cron.schedule('1 * * * *', () => {
+      const now = Date.now();
+      void deps.history.queueHours('all', now - 2 * hourMs, now).catch((err) => console.error('[jobs] hourly sweep:', err));
+    }),
+    cron.schedule('10 0 * * *', () => {
+      void makePartitionsAhead(deps.pool).catch((err) => console.error('[jobs] partitions:', err));
+    }),
+  ];
+  return { stop: () => tasks.forEach((t) => t.stop()) };
+}

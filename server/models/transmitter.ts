@@ -1,0 +1,34 @@
+import { DataTypes, Model, type Sequelize } from 'sequelize';
+
+export class Transmitter extends Model {
+  declare id: string;
+  declare meterRunId: string;
+  declare tag: string;
+  declare measures: 'differential-pressure' | 'static-pressure' | 'temperature';
+  declare unit: string;
+  declare pressureReference: 'absolute' | 'gauge';
+  declare lowerRange: number;
+  declare upperRange: number;
+  declare stackRole: 'single' | 'low' | 'high';
+  declare accuracyPercentOfSpan: number;
+  declare calibrationDue: string | null;
+
+  static initModel(sequelize: Sequelize) {
+    Transmitter.init(
+      {
+        id: { type: DataTypes.BIGINT, primaryKey: true, autoIncrement: true },
+        meterRunId: { type: DataTypes.BIGINT, allowNull: false },
+        tag: { type: DataTypes.TEXT, allowNull: false },
+        measures: { type: DataTypes.ENUM('differential-pressure', 'static-pressure', 'temperature'), allowNull: false },
+        unit: { type: DataTypes.TEXT, allowNull: false },
+        pressureReference: { type: DataTypes.TEXT, allowNull: false, defaultValue: 'absolute' },
+        lowerRange: { type: DataTypes.DOUBLE, allowNull: false },
+        upperRange: { type: DataTypes.DOUBLE, allowNull: false },
+        stackRole: { type: DataTypes.ENUM('single', 'low', 'high'), allowNull: false, defaultValue: 'single' },
+        accuracyPercentOfSpan: { type: DataTypes.DOUBLE, allowNull: false },
+        calibrationDue: { type: DataTypes.DATEONLY },
+      },
+      { sequelize, tableName: 'transmitters', underscored: true },
+    );
+  }
+}

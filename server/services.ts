@@ -1,0 +1,54 @@
+import path from 'node:path';
+import { Pool } from 'pg';
+import { Catalog } from './ingest/catalog';
+import { ReadingWriter, GroupCommitter } from './ingest/reading-writer';
+import { DeviceCounters } from './ingest/device-counters';
+import { DeviceAuthenticator } from './ingest/device-auth';
+import { createMqttIngest } from './ingest/mqtt-ingest';
+import { importFieldTotalsCsv, importReadingsCsv } from './ingest/csv-import';
+import { HistoryWorker } from './history/worker';
+import { LiveEvents } from './live';
+import { hourStartOf } from '../shared/history/contract-day';
+import type { Sequelize } from 'sequelize';
+
+/**
+ * The long-lived parts of the server that routes, the broker and jobs share: one pg pool for
+ * bulk work beside Sequelize's, the transmitter catalog, the reading writer with group commit,
+ * the history worker and the live event fan-out.
+ */
+export function createServices(options: { databaseUrl: string; sequelize: Sequelize; dataDir: string }) {
+  const pool = new Pool({ connectionString: options.databaseUrl, max: 10 });
+  const catalog = new Catalog(options.sequelize);
+  const writer = new ReadingWriter(pool, hourStartOf);
+  const committer = new GroupCommitter(writer);
+  const counters = new DeviceCounters(pool);
+  const deviceAuth = new DeviceAuthenticator();
+  const live = new LiveEvents();
+  const history = new HistoryWorker(pool);
+  const stored = (readings: { meterRunId: string }[]) => live.readingsStored(readings.map((r) => r.meterRunId));
+  const mqttIngest = createMqttIngest({ catalog, committer, counters, onStored: stored });
+  const imports = {
+    readings: (id: string, file: string) => importReadingsCsv({ pool, catalog, writer, onStored: stored }, id, file),
+    fieldTotals: (id: string, file: string) => importFieldTotalsCsv({ pool }, id, file),
+  };
+  return {
+    pool,
+    catalog,
+    writer,
+    committer,
+    counters,
+    deviceAuth,
+    live,
+    history,
+    mqttIngest,
+    imports,
+    uploadDir: path.join(options.dataDir, 'uploads'),
+    async close() {
+      history.stop();
+      await counters.close();
+      await pool.end();
+    },
+  };
+}
+
+export type Services = ReturnType<typeof createServices>;

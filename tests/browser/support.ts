@@ -1,0 +1,113 @@
+/**
+ * Helpers for the browser tests: Debian's Chromium driven by playwright-core against the real
+ * server serving the exported client (started by `npm test`, see server/cli/test.ts).
+ */
+import fs from 'node:fs';
+import os from 'node:os';
+import path from 'node:path';
+import { chromium, type BrowserContext, type Page } from 'playwright-core';
+
+/** Sign-in, navigation and the first fetches fit well inside this on a 2-core machine. */
+jest.setTimeout(60_000);
+
+export const baseUrl = (process.env.TALLYRUN_BASE_URL ?? 'http://127.0.0.1:8080').replace(/\/+$/, '');
+export const demoPassword = process.env.TALLYRUN_DEMO_PASSWORD ?? 'tallyrun-demo';
+
+export const viewports = {
+  phone: { width: 390, height: 844 },
+  wide: { width: 1440, height: 900 },
+} as const;
+export type ViewportName = keyof typeof viewports;
+
+export type Role = 'operator' | 'engineer' | 'accountant' | 'admin';
+
+/** The demo sign-ins of shared/DESIGN.md ("Interfaces that checks rely on"). */
+export function demoEmail(role: Role): string {
+  return `${role}@demo.tallyrun`;
+}
+
+const chromiumArgs = [
+  '--headless',
+  '--no-sandbox',
+  '--disable-gpu',
+  '--disable-quic',
+  '--no-first-run',
+  '--disable-background-networking',
+  '--disable-component-update',
+  '--disable-sync',
+];
+
+export interface TestBrowser {
+  context: BrowserContext;
+  close: () => Promise<void>;
+}
+
+/** Starts one Chromium with a fresh profile; a test file launches it once, in beforeAll. */
+export async function launchBrowser(): Promise<TestBrowser> {
+  const profile = fs.mkdtempSync(path.join(os.tmpdir(), 'tallyrun-browser-'));
+  const context = await chromium.launchPersistentContext(profile, {
+    executablePath: '/usr/bin/chromium',
+    headless: true,
+    args: chromiumArgs,
+    viewport: viewports.phone,
+  });
+  context.setDefaultTimeout(15_000);
+  return {
+    context,
+    close: async () => {
+      await context.close();
+      fs.rmSync(profile, { recursive: true, force: true });
+    },
+  };
+}
+
+/**
+ * Opens a page at the given size, signed out (tests in one file share the profile's storage).
+ * @returns the page, closed by the caller
+ */
+export async function freshPage(browser: TestBrowser, viewport: ViewportName): Promise<Page> {
+  const page = await browser.context.newPage();
+  await page.setViewportSize(viewports[viewport]);
+  await page.goto(`${baseUrl}/sign-in`);
+  await page.evaluate(() => window.localStorage.clear());
+  await page.goto(`${baseUrl}/sign-in`);
+  await page.getByTestId('sign-in-email').waitFor();
+  return page;
+}
+
+/** Fills in the sign-in form and submits it (the page must be on the sign-in screen). */
+export async function submitSignIn(page: Page, email: string, password: string = demoPassword): Promise<void> {
+  await page.getByTestId('sign-in-email').fill(email);
+  await page.getByTestId('sign-in-password').fill(password);
+  await page.getByTestId('sign-in-submit').click();
+}
+
+/** Signs in and waits for the signed-in header. */
+export async function signIn(page: Page, email: string, password: string = demoPassword): Promise<void> {
+  await submitSignIn(page, email, password);
+  await page.getByTestId('current-user').waitFor();
+}
+
+/** Signs out from the header and waits for the sign-in screen. */
+export async function signOut(page: Page): Promise<void> {
+  await page.getByTestId('sign-out').click();
+  await page.getByTestId('sign-in-email').waitFor();
+}
+
+/**
+ * The area keys the navigation offers, read from the `nav-<area>` test ids. On a phone the
+ * areas beyond the bottom bar sit under "More", which is opened first.
+ */
+export async function offeredAreas(page: Page): Promise<string[]> {
+  await page.getByTestId('nav-live').waitFor();
+  if ((await page.getByTestId('nav-more').count()) > 0) {
+    await page.getByTestId('nav-more').click();
+    await page.getByTestId('more-menu').waitFor();
+  }
+  const ids = await page
+    .locator('[data-testid^="nav-"]')
+    .evaluateAll((elements) =>
+      elements.filter((element) => element.checkVisibility()).map((element) => element.getAttribute('data-testid') ?? ''),
+    );
+  return ids.filter((id) => id !== 'nav-more').map((id) => id.slice('nav-'.length));
+}
