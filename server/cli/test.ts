@@ -3,7 +3,7 @@
  * unit (shared/), API and MQTT (real PostgreSQL, real broker) and browser end-to-end (Debian's
  * Chromium against the real server with the exported client). Extra arguments go to jest.
  */
-import { execFileSync, spawnSync } from 'node:child_process';
+import { execFileSync, spawn, spawnSync, type SpawnOptions } from 'node:child_process';
 import fs from 'node:fs';
 import path from 'node:path';
 import { ensureCluster, ensureDatabase, type Cluster } from './postgres';
@@ -82,7 +82,8 @@ async function main(): Promise<number> {
     const resultsFile = path.join(root, '.test-results', 'jest.json');
     fs.mkdirSync(path.dirname(resultsFile), { recursive: true });
     fs.rmSync(resultsFile, { force: true });
-    const jest = spawnSync(
+    // Async spawn, not spawnSync: the server under test lives in this process and must keep answering.
+    const jestExit = await runChild(
       path.join(root, 'node_modules', '.bin', 'jest'),
       ['--ci', '--maxWorkers=2', '--json', `--outputFile=${resultsFile}`, ...process.argv.slice(2)],
       {
@@ -104,7 +105,7 @@ async function main(): Promise<number> {
       const r = JSON.parse(fs.readFileSync(resultsFile, 'utf8'));
       summary = { passed: r.numPassedTests, failed: r.numFailedTests + (r.numRuntimeErrorTestSuites ?? 0), skipped: r.numPendingTests + r.numTodoTests };
     }
-    const ok = jest.status === 0 && summary.failed === 0;
+    const ok = jestExit === 0 && summary.failed === 0;
     console.log(`\n[test] finished in ${((Date.now() - began) / 1000).toFixed(0)} s`);
     console.log(`${summary.passed} passed, ${summary.failed} failed, ${summary.skipped} skipped`);
     return ok ? 0 : 1;
@@ -116,6 +117,14 @@ async function main(): Promise<number> {
     await server?.stop().catch(() => undefined);
     if (cluster?.startedHere) cluster.stop();
   }
+}
+
+function runChild(command: string, args: string[], options: SpawnOptions): Promise<number> {
+  return new Promise((resolve) => {
+    const child = spawn(command, args, options);
+    child.on('exit', (code, signal) => resolve(code ?? (signal ? 1 : 0)));
+    child.on('error', () => resolve(1));
+  });
 }
 
 main().then((code) => process.exit(code));

@@ -23,7 +23,41 @@ const expected: Record<string, Who[] | typeof PUBLIC> = {
   'GET /api/audit-events': ['engineer', 'accountant', 'admin'],
   // calculations are part of "live view, trends, totals": every role
   'POST /api/calculations/flow': everyone,
+  // live view, trends, totals: every role reads set-up, readings, history and the live board
+  'GET /api/sites': everyone,
+  'GET /api/sites/:id': everyone,
+  'GET /api/meter-runs': everyone,
+  'GET /api/meter-runs/:id': everyone,
+  'GET /api/meter-runs/:id/config-versions': everyone,
+  'GET /api/meter-runs/:id/totals': everyone,
+  'GET /api/meter-runs/:id/hourly-records': everyone,
+  'GET /api/meter-runs/:id/trend': everyone,
+  'GET /api/meter-runs/:id/recompute-status': everyone,
+  'GET /api/transmitters': everyone,
+  'GET /api/transmitters/:id': everyone,
+  'GET /api/readings': everyone,
+  'GET /api/live/board': everyone,
+  'GET /api/live/stream': everyone,
+  // sites, meter runs, transmitters, configuration versions: engineer and admin
+  'POST /api/sites': ['engineer', 'admin'],
+  'PATCH /api/sites/:id': ['engineer', 'admin'],
+  'POST /api/meter-runs': ['engineer', 'admin'],
+  'PATCH /api/meter-runs/:id': ['engineer', 'admin'],
+  'POST /api/meter-runs/:id/config-versions': ['engineer', 'admin'],
+  'POST /api/transmitters': ['engineer', 'admin'],
+  'PATCH /api/transmitters/:id': ['engineer', 'admin'],
+  // import readings and field totals: engineer and admin
+  'GET /api/imports': ['engineer', 'admin'],
+  'GET /api/imports/:id': ['engineer', 'admin'],
+  'POST /api/imports': ['engineer', 'admin'],
+  // device credentials: admin
+  'GET /api/devices': ['admin'],
+  'POST /api/devices': ['admin'],
+  'PATCH /api/devices/:id': ['admin'],
 };
+
+/** Routes that stream (server-sent events): checked on a real socket, status only. */
+const streaming = new Set(['GET /api/live/stream']);
 
 let t: Awaited<ReturnType<typeof testApp>>;
 const tokens = {} as Record<Who, string>;
@@ -41,9 +75,30 @@ const cases = Object.entries(expected).flatMap(([route, allowed]) =>
   [...everyone, 'no token' as const].map((who) => [route, who, allowed] as const),
 );
 
+async function streamStatus(url: string, token: string | null) {
+  const server = t.app.listen(0);
+  const port = (server.address() as import('node:net').AddressInfo).port;
+  const abort = new AbortController();
+  try {
+    const res = await fetch(`http://127.0.0.1:${port}${url}`, { headers: token ? { Authorization: `Bearer ${token}` } : {}, signal: abort.signal });
+    return res.status;
+  } finally {
+    abort.abort();
+    server.closeAllConnections();
+    await new Promise((r) => server.close(r));
+  }
+}
+
 it.each(cases)('%s as %s answers as the role table says', async (route, who, allowed) => {
   const [method, path] = route.split(' ');
   const url = path.replace(':id', '1');
+  if (streaming.has(route)) {
+    const status = await streamStatus(url, who === 'no token' ? null : tokens[who]);
+    if (who === 'no token') expect(status).toBe(401);
+    else if (allowed === PUBLIC || allowed.includes(who)) expect(status).toBe(200);
+    else expect(status).toBe(403);
+    return;
+  }
   let req = t.http()[method.toLowerCase() as 'get' | 'post' | 'patch' | 'delete'](url);
   if (who !== 'no token') req = req.set('Authorization', `Bearer ${tokens[who]}`);
   // An empty body: allowed callers get past the gate and are stopped by validation (400) at most.

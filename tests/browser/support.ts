@@ -82,10 +82,17 @@ export async function submitSignIn(page: Page, email: string, password: string =
   await page.getByTestId('sign-in-submit').click();
 }
 
-/** Signs in and waits for the signed-in header. */
+/**
+ * Signs in and waits for the signed-in header. A refusal fails at once with the screen's
+ * message; the server allows TALLYRUN_LOGIN_LIMIT sign-ins per address and account in 15
+ * minutes (default 10), so re-running against a long-lived server can hit it.
+ */
 export async function signIn(page: Page, email: string, password: string = demoPassword): Promise<void> {
   await submitSignIn(page, email, password);
-  await page.getByTestId('current-user').waitFor();
+  const header = page.getByTestId('current-user');
+  const error = page.getByTestId('sign-in-error');
+  await header.or(error).first().waitFor();
+  if (await error.isVisible()) throw new Error(`signing in as ${email} was refused: ${await error.innerText()}`);
 }
 
 /** Signs out from the header and waits for the sign-in screen. */

@@ -18,6 +18,8 @@ export function authRouter(options: { jwtSecret: string; tokenHours: number; log
     limit: options.loginLimit,
     standardHeaders: 'draft-8',
     legacyHeaders: false,
+    // Only failed attempts count: a control room signing in all day is never locked out.
+    skipSuccessfulRequests: true,
     keyGenerator: (req) => `${ipKeyGenerator(req.ip ?? '')}|${String(req.body?.email ?? '').toLowerCase()}`,
     handler: (_req, res) => {
       const err = new AppError(429, 'rate_limited', 'Too many sign-in attempts; wait a few minutes and try again.');

@@ -1,0 +1,5 @@
+import { AuditLogScreen } from '@/components/screens/AuditLogScreen';
+
+export default function AuditRoute() {
+  return <AuditLogScreen />;
+}

@@ -1,0 +1,5 @@
+import { MailOutboxScreen } from '@/components/screens/MailOutboxScreen';
+
+export default function MailRoute() {
+  return <MailOutboxScreen />;
+}

@@ -1,0 +1,5 @@
+import { UsersScreen } from '@/components/screens/UsersScreen';
+
+export default function UsersRoute() {
+  return <UsersScreen />;
+}

@@ -1,0 +1,5 @@
+import { SignInScreen } from '@/components/screens/SignInScreen';
+
+export default function SignInRoute() {
+  return <SignInScreen />;
+}

@@ -1,0 +1,109 @@
+/**
+ * One user in the admin's list, with the changes an admin makes: role, and disable or enable
+ * (disabling asks once more). An admin cannot change their own account here, so the last admin
+ * cannot lock everyone out by accident.
+ */
+import { useState } from 'react';
+import { StyleSheet, View } from 'react-native';
+
+import { formatTimestamp } from '@/components/format/formatTimestamp';
+import { AppText } from '@/components/ui/AppText';
+import { Button } from '@/components/ui/Button';
+import { ChoiceGroup } from '@/components/ui/ChoiceGroup';
+import { roleLabel, roles, type Role } from '@/constants/roles';
+import { colors, radius, space } from '@/constants/theme';
+import { useUpdateUser, type User, type UserChange } from '@/hooks/api/users';
+
+const roleOptions = roles.map((role) => ({ value: role, label: roleLabel[role] }));
+
+interface UserRowProps {
+  user: User;
+  isSelf: boolean;
+}
+
+export function UserRow({ user, isSelf }: UserRowProps) {
+  const update = useUpdateUser();
+  const [mode, setMode] = useState<'view' | 'role' | 'confirm-disable'>('view');
+  const [role, setRole] = useState<Role>(user.role);
+
+  const apply = (change: UserChange) =>
+    update.mutate({ id: user.id, change }, { onSuccess: () => setMode('view') });
+
+  return (
+    <View style={[styles.row, user.disabled && styles.rowDisabled]} testID={`user-row-${user.email}`}>
+      <View style={styles.summary}>
+        <View style={styles.who}>
+          <AppText variant="bodyStrong">{isSelf ? `${user.name} (you)` : user.name}</AppText>
+          <AppText tone="muted" selectable>
+            {user.email}
+          </AppText>
+        </View>
+        <View style={styles.facts}>
+          <AppText variant="label">{roleLabel[user.role]}</AppText>
+          <AppText variant="caption" tone="muted" testID={`user-status-${user.email}`}>
+            {user.disabled ? '⊘ Disabled: cannot sign in' : 'Active'}
+          </AppText>
+          <AppText variant="caption" tone="muted">{`Added ${formatTimestamp(user.createdAt)}`}</AppText>
+        </View>
+      </View>
+
+      {update.error ? (
+        <AppText variant="caption" tone="alarm" role="alert">
+          {`▲ ${update.error.message}`}
+        </AppText>
+      ) : null}
+
+      {isSelf ? null : mode === 'role' ? (
+        <View style={styles.editor}>
+          <ChoiceGroup label={`Role for ${user.name}`} options={roleOptions} value={role} onChange={setRole} testIDPrefix={`user-role-${user.email}`} />
+          <View style={styles.actions}>
+            <Button label="Save role" size="compact" variant="primary" busy={update.isPending} disabled={role === user.role} onPress={() => apply({ role })} />
+            <Button label="Cancel" size="compact" variant="quiet" onPress={() => setMode('view')} />
+          </View>
+        </View>
+      ) : mode === 'confirm-disable' ? (
+        <View style={styles.editor}>
+          <AppText>{`Disable ${user.name}? They are signed out and cannot sign in until enabled again. Their records stay.`}</AppText>
+          <View style={styles.actions}>
+            <Button label="Disable" size="compact" variant="primary" busy={update.isPending} onPress={() => apply({ disabled: true })} testID={`user-disable-confirm-${user.email}`} />
+            <Button label="Cancel" size="compact" variant="quiet" onPress={() => setMode('view')} />
+          </View>
+        </View>
+      ) : (
+        <View style={styles.actions}>
+          <Button
+            label="Change role"
+            size="compact"
+            onPress={() => {
+              setRole(user.role);
+              setMode('role');
+            }}
+            testID={`user-change-role-${user.email}`}
+          />
+          {user.disabled ? (
+            <Button label="Enable" size="compact" busy={update.isPending} onPress={() => apply({ disabled: false })} testID={`user-enable-${user.email}`} />
+          ) : (
+            <Button label="Disable" size="compact" onPress={() => setMode('confirm-disable')} testID={`user-disable-${user.email}`} />
+          )}
+        </View>
+      )}
+    </View>
+  );
+}
+
+const styles = StyleSheet.create({
+  row: {
+    gap: space.sm,
+    padding: space.md,
+    backgroundColor: colors.surfaceRaised,
+    borderWidth: 1,
+    borderColor: colors.divider,
+    borderRadius: radius.sm,
+  },
+  rowDisabled: { backgroundColor: colors.surfaceSunken },
+  summary: { flexDirection: 'row', flexWrap: 'wrap', gap: space.md, justifyContent: 'space-between' },
+  who: { flexGrow: 1, flexShrink: 1, minWidth: 180 },
+  facts: { alignItems: 'flex-start', minWidth: 140 },
+  editor: { gap: space.sm },
+  actions: { flexDirection: 'row', flexWrap: 'wrap', gap: space.sm },
+});

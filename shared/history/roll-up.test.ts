@@ -1,0 +1,101 @@
+import { rollUpRecords } from './roll-up';
+import type { RollUpRecord } from './types';
+
+const H = 3_600_000;
+/** The 25-hour America/Denver contract day (09:00) that contains the 2026-11-01 change: 2026-10-31 15:00Z to 2026-11-01 16:00Z (worked by hand in contract-day.test.ts from the US DST rules). */
+const longDay = { startMs: Date.parse('2026-10-31T15:00:00Z'), endMs: Date.parse('2026-11-01T16:00:00Z'), hours: 25 };
+
+/** A constant hour: 1000.25 kg, 1.5 m³, 1200.75 Sm³, 50 MJ, 3600 s flowing, U = 0.8 %. */
+function hour(k: number, over: Partial<RollUpRecord> = {}): RollUpRecord {
+  return {
+    startMs: longDay.startMs + k * H,
+    endMs: longDay.startMs + (k + 1) * H,
+    flowTimeS: 3600,
+    massKg: 1000.25,
+    volumeM3: 1.5,
+    standardVolumeM3: 1200.75,
+    energyJ: 50e6,
+    coverage: 1,
+    flags: [],
+    uncertaintyPercent: 0.8,
+    ...over,
+  };
+}
+const allHours = (over: (k: number) => Partial<RollUpRecord> = () => ({})) => Array.from({ length: 25 }, (_, k) => hour(k, over(k)));
+
+describe('rollUpRecords', () => {
+  it('sums a 25-hour day of constant hourly records to 25 × the hourly figure: 25006.25 kg, 90000 s, 30018.75 Sm³, 1.25 GJ', () => {
+    const t = rollUpRecords(allHours(), longDay, { nowMs: longDay.endMs });
+    expect(t.hours).toBe(25);
+    expect(t.massKg).toBeCloseTo(25 * 1000.25, 9); // 25006.25, by hand
+    expect(t.flowTimeS).toBe(90000); // 25 h × 3600 s
+    expect(t.volumeM3).toBeCloseTo(37.5, 12);
+    expect(t.standardVolumeM3).toBeCloseTo(30018.75, 9);
+    expect(t.energyJ).toBeCloseTo(1.25e9, 3);
+    expect(t.coverage).toBe(1);
+    expect(t.uncertaintyPercent).toBeCloseTo(0.8, 12);
+    expect(t.flags).toEqual([]);
+    expect(t.status).toBe('complete');
+  });
+
+  it('writes start and end as ISO 8601 UTC strings', () => {
+    const t = rollUpRecords(allHours(), longDay, { nowMs: longDay.endMs });
+    expect(t.start).toBe('2026-10-31T15:00:00.000Z');
+    expect(t.end).toBe('2026-11-01T16:00:00.000Z');
+  });
+
+  it('counts a missing hour as coverage 0: 24 of 25 hours gives 0.96, missing-data, and stays provisional after the day ends', () => {
+    const records = allHours().filter((_, k) => k !== 7);
+    const t = rollUpRecords(records, longDay, { nowMs: longDay.endMs + 10 * H });
+    expect(t.coverage).toBeCloseTo(24 / 25, 12);
+    expect(t.flags).toContain('missing-data');
+    expect(t.status).toBe('provisional');
+  });
+
+  it('weights coverage by hour: one hour at 0.5 coverage in 25 gives (24 + 0.5)/25 = 0.98', () => {
+    const t = rollUpRecords(allHours((k) => (k === 3 ? { coverage: 0.5, flags: ['missing-data', 'bad-quality'] } : {})), longDay, { nowMs: longDay.endMs });
+    expect(t.coverage).toBeCloseTo(0.98, 12);
+    expect(t.flags).toEqual(['missing-data', 'bad-quality']);
+  });
+
+  it('judges a running day on its elapsed part: at 6.5 h into the day with 7 complete records the coverage is 1 and the status provisional', () => {
+    const records = allHours().slice(0, 7);
+    const t = rollUpRecords(records, longDay, { nowMs: longDay.startMs + 6.5 * H });
+    expect(t.coverage).toBe(1);
+    expect(t.status).toBe('provisional');
+    expect(t.massKg).toBeCloseTo(7 * 1000.25, 9);
+  });
+
+  it('gives 6/6.5 coverage to a running day whose current hour has no record yet', () => {
+    const t = rollUpRecords(allHours().slice(0, 6), longDay, { nowMs: longDay.startMs + 6.5 * H });
+    expect(t.coverage).toBeCloseTo(6 / 6.5, 12);
+  });
+
+  it('takes the mass-weighted mean of hourly uncertainties: 3 h × 100 kg at 1 % and 1 h × 300 kg at 2 % give 1.5 %', () => {
+    const bounds = { startMs: 0, endMs: 4 * H, hours: 4 };
+    const rec = (k: number, massKg: number, u: number): RollUpRecord => ({ ...hour(0), startMs: k * H, endMs: (k + 1) * H, massKg, uncertaintyPercent: u });
+    const t = rollUpRecords([rec(0, 100, 1), rec(1, 100, 1), rec(2, 100, 1), rec(3, 300, 2)], bounds, { nowMs: 4 * H });
+    // (3 × 100 × 1 + 300 × 2) / 600 = 900 / 600 = 1.5, by hand
+    expect(t.uncertaintyPercent).toBeCloseTo(1.5, 12);
+  });
+
+  it('gives null uncertainty and null energy to a day without flow or energy', () => {
+    const t = rollUpRecords(allHours(() => ({ massKg: 0, volumeM3: 0, standardVolumeM3: 0, flowTimeS: 0, energyJ: null, uncertaintyPercent: null })), longDay, { nowMs: longDay.endMs });
+    expect(t.uncertaintyPercent).toBeNull();
+    expect(t.energyJ).toBeNull();
+    expect(t.massKg).toBe(0);
+  });
+
+  it('reports closed when the month is closed, whatever the records', () => {
+    expect(rollUpRecords(allHours().slice(0, 3), longDay, { nowMs: longDay.endMs, closed: true }).status).toBe('closed');
+  });
+
+  it('ignores records outside the period', () => {
+    const t = rollUpRecords([...allHours(), hour(25), hour(-1)], longDay, { nowMs: longDay.endMs });
+    expect(t.massKg).toBeCloseTo(25 * 1000.25, 9);
+  });
+
+  it('rejects bounds that end before they start, naming the field', () => {
+    expect(() => rollUpRecords([], { startMs: 10, endMs: 5, hours: 1 }, { nowMs: 0 })).toThrow(/rollUpRecords: bounds/);
+  });
+});

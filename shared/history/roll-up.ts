@@ -1,0 +1,126 @@
+/**
+ * Totals of a period (an hour, a contract day, a contract month) from its hourly records, as
+ * GET /api/meter-runs/:id/totals returns them (DESIGN.md, "Interfaces").
+ */
+import type { PeriodBounds, PeriodTotal, RollUpRecord, TotalStatus } from './types';
+
+const MS_PER_HOUR = 3_600_000;
+
+export interface RollUpOptions {
+  /** The caller's "now", epoch ms: hours starting at or after it are not yet due. */
+  nowMs: number;
+  /** The period lies in a closed month (locked against change). */
+  closed?: boolean;
+}
+
+/**
+ * Sums hourly records into a period total.
+ * - Quantities and flow time are sums; energy is null only when no record has one (flag
+ *   'energy-incomplete' when a record with flow lacks it while others have it).
+ * - Coverage is weighted by elapsed time over the elapsed part of the period, [start, min(now,
+ *   end)): an hour without a record counts as coverage 0; hours not yet begun do not count, so
+ *   today's running total shows the coverage of what has happened so far. Each hour's weight
+ *   is its elapsed part, min(now, hour end) − hour start (the hour's own coverage is already
+ *   relative to its elapsed part).
+ * - Flags: the union in order of first appearance, plus 'missing-data' when coverage < 1.
+ * - Uncertainty: the mass-weighted mean of the hourly expanded uncertainties. Assumption: the
+ *   hourly uncertainties are dominated by systematic effects (C, ε, diameters, transmitter
+ *   calibration) that are fully correlated from hour to hour, so they add linearly rather than
+ *   in quadrature (the conservative choice; random noise averages out well within an hour).
+ *   Null when there is no mass.
+ * - Status: 'closed' when options.closed; else 'complete' once now ≥ end and every hour of the
+ *   period has a record; else 'provisional'.
+ * Hours are the period's start + k h for k < hours (a contract day starts at a local hour, and
+ * every hour of a whole-hour or :30/:45 zone is 3600 s long); records outside the period are
+ * ignored, and of two records for one hour the later in the array wins.
+ * @param records hourly records (or the summed fields of them)
+ * @param bounds the period's bounds and its length in hours
+ * @param options nowMs, and closed for a closed month
+ * @returns the period total with start and end as ISO 8601 UTC strings
+ */
+export function rollUpRecords(records: readonly RollUpRecord[], bounds: PeriodBounds, options: RollUpOptions): PeriodTotal {
+  const { startMs, endMs, hours } = bounds;
+  if (!Number.isFinite(startMs) || !Number.isFinite(endMs) || !(endMs > startMs)) {
+    throw new Error(`rollUpRecords: bounds.startMs and bounds.endMs must be finite with endMs > startMs (got ${startMs}, ${endMs})`);
+  }
+  if (!(hours > 0)) throw new Error(`rollUpRecords: bounds.hours must be > 0 (got ${hours})`);
+  if (!Number.isFinite(options?.nowMs)) throw new Error(`rollUpRecords: options.nowMs must be a finite epoch time in ms (got ${options?.nowMs})`);
+  const nowMs = options.nowMs;
+
+  const byStart = new Map<number, RollUpRecord>();
+  for (const r of records) {
+    if (r.startMs >= startMs && r.startMs < endMs) byStart.set(r.startMs, r);
+  }
+
+  let flowTimeS = 0;
+  let massKg = 0;
+  let volumeM3 = 0;
+  let standardVolumeM3 = 0;
+  let energyJ = 0;
+  let energyCount = 0;
+  let flowingWithoutEnergy = false;
+  let massTimesUncertainty = 0;
+  let massWithUncertainty = 0;
+  let uncertaintyMissing = false;
+  const flags: string[] = [];
+  for (const r of byStart.values()) {
+    flowTimeS += r.flowTimeS;
+    massKg += r.massKg;
+    volumeM3 += r.volumeM3;
+    standardVolumeM3 += r.standardVolumeM3;
+    if (r.energyJ !== null) {
+      energyJ += r.energyJ;
+      energyCount++;
+    } else if (r.massKg > 0) {
+      flowingWithoutEnergy = true;
+    }
+    if (r.massKg > 0) {
+      if (r.uncertaintyPercent === null) uncertaintyMissing = true;
+      else {
+        massTimesUncertainty += r.massKg * r.uncertaintyPercent;
+        massWithUncertainty += r.massKg;
+      }
+    }
+    for (const f of r.flags) if (!flags.includes(f)) flags.push(f);
+  }
+
+  // Coverage over the elapsed part of the period, hour by hour.
+  const elapsedEndMs = Math.min(nowMs, endMs);
+  let coveredMs = 0;
+  let elapsedMs = 0;
+  let everyHourHasRecord = true;
+  const hourCount = Math.ceil(hours - 1e-9);
+  for (let k = 0; k < hourCount; k++) {
+    const hourStart = startMs + k * MS_PER_HOUR;
+    const hourEnd = Math.min(hourStart + MS_PER_HOUR, endMs);
+    const record = byStart.get(hourStart);
+    if (!record) everyHourHasRecord = false;
+    if (hourStart >= elapsedEndMs) continue;
+    const weightMs = Math.min(elapsedEndMs, hourEnd) - hourStart;
+    elapsedMs += weightMs;
+    if (record) coveredMs += weightMs * Math.min(Math.max(record.coverage, 0), 1);
+  }
+  const coverage = elapsedMs > 0 ? coveredMs / elapsedMs : 0;
+  if (coverage < 1 && !flags.includes('missing-data')) flags.push('missing-data');
+  if (flowingWithoutEnergy && energyCount > 0) flags.push('energy-incomplete');
+  if (uncertaintyMissing && !flags.includes('uncertainty-incomplete')) flags.push('uncertainty-incomplete');
+
+  let status: TotalStatus = 'provisional';
+  if (options.closed) status = 'closed';
+  else if (nowMs >= endMs && everyHourHasRecord) status = 'complete';
+
+  return {
+    start: new Date(startMs).toISOString(),
+    end: new Date(endMs).toISOString(),
+    hours,
+    flowTimeS,
+    massKg,
+    volumeM3,
+    standardVolumeM3,
+    energyJ: energyCount > 0 ? energyJ : null,
+    coverage,
+    flags,
+    uncertaintyPercent: massWithUncertainty > 0 ? massTimesUncertainty / massWithUncertainty : null,
+    status,
+  };
+}

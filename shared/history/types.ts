@@ -1,0 +1,118 @@
+/**
+ * The contract between the server's history jobs and the pure hourly computation: what the
+ * server reads from the database for one hour of one meter run (HourInputs), and the hourly
+ * record it stores (HourlyRecord, the quantity transaction record of API MPMS Ch. 21.1).
+ * SI throughout: Pa (absolute for static pressure), K, kg, m³, J, s; times are epoch ms (UTC).
+ */
+import type { ElementSpec } from '../flow/flow-types';
+import type { FluidSpec } from '../fluids';
+
+export type Quality = 'good' | 'uncertain' | 'bad' | 'substituted';
+
+/** One reading: value in SI (Pa for DP, Pa absolute for static pressure, K for temperature). */
+export interface Sample {
+  timeMs: number;
+  value: number;
+  quality: Quality;
+}
+
+/** The readings of one DP transmitter, sorted by time, with its calibrated range. */
+export interface DpSeries {
+  transmitterId: string;
+  stackRole: 'single' | 'low' | 'high';
+  lowerRangePa: number;
+  upperRangePa: number;
+  /** Stated accuracy, percent of span, taken as an expanded (k = 2) uncertainty. */
+  accuracyPercentOfSpan: number;
+  samples: Sample[];
+}
+
+/** An effective-dated configuration of a meter run: its element and fluid (the DESIGN.md case objects). */
+export interface ConfigVersionInput {
+  id: string;
+  effectiveFromMs: number;
+  element: ElementSpec;
+  fluid: FluidSpec;
+}
+
+export interface HourInputs {
+  startMs: number;
+  endMs: number;
+  /** Data are complete up to here (= endMs for a past hour; "now" for the current hour). */
+  asOfMs: number;
+  /** One series (single) or two (stacked low + high); each includes the latest sample before startMs. */
+  dp: DpSeries[];
+  /** Pa absolute, sorted; includes the latest sample BEFORE startMs if any. */
+  staticPressure: Sample[];
+  /** K, sorted; includes the latest sample before startMs if any. */
+  temperature: Sample[];
+  /** Sorted by effectiveFromMs; the one in effect at a time applies from that time on. */
+  configVersions: ConfigVersionInput[];
+  base: { pressurePa: number; temperatureK: number };
+  /** A P or T sample older than this is not used. */
+  holdLimitS: number;
+  /** A DP sample covers at most this long; longer gaps are missing time. */
+  maxGapS: number;
+  /** Hysteresis of a stacked pair, shares of the low-range transmitter's span (e.g. 0.9 / 0.8). */
+  stackSwitchUpShare: number;
+  stackSwitchDownShare: number;
+  /** The transmitter in use at the end of the previous hour (the previous record's finalStackChoice). */
+  initialStackChoice?: 'low' | 'high';
+}
+
+/** Bands of the DP reading as a share of the ACTIVE transmitter's span, percent. */
+export type DpBandName = '0-10' | '10-25' | '25-50' | '50-100' | 'over';
+
+export interface HourlyRecord {
+  startMs: number;
+  endMs: number;
+  flowTimeS: number;
+  massKg: number;
+  volumeM3: number;
+  standardVolumeM3: number;
+  energyJ: number | null;
+  averageDpPa: number | null;
+  averagePressurePa: number | null;
+  averageTemperatureK: number | null;
+  integralValue: number | null;
+  coverage: number;
+  flags: string[];
+  uncertaintyPercent: number | null;
+  configVersionId: string | null;
+  /** Flowing time and mass per band of the DP as a share of the ACTIVE transmitter's span (the band times sum to flowTimeS). */
+  dpBands: Record<DpBandName, { timeS: number; massKg: number }>;
+  /** Per transmitter id, the time its reading was the one in use (flowing or not; also when P or T was missing). */
+  activeTransmitterTimeS: Record<string, number>;
+  finalStackChoice: 'low' | 'high' | null;
+}
+
+/** The part of an hourly record that a roll-up sums (an HourlyRecord fits). */
+export type RollUpRecord = Pick<
+  HourlyRecord,
+  'startMs' | 'endMs' | 'flowTimeS' | 'massKg' | 'volumeM3' | 'standardVolumeM3' | 'energyJ' | 'coverage' | 'flags' | 'uncertaintyPercent'
+>;
+
+export type TotalStatus = 'provisional' | 'complete' | 'closed';
+
+/** One entry of GET /api/meter-runs/:id/totals (DESIGN.md, "Interfaces"). */
+export interface PeriodTotal {
+  start: string;
+  end: string;
+  hours: number;
+  flowTimeS: number;
+  massKg: number;
+  volumeM3: number;
+  standardVolumeM3: number;
+  energyJ: number | null;
+  coverage: number;
+  flags: string[];
+  uncertaintyPercent: number | null;
+  status: TotalStatus;
+}
+
+/** A period [startMs, endMs) and its length in hours (23, 24 or 25 for a contract day). */
+export interface PeriodBounds {
+  startMs: number;
+  endMs: number;
+  hours: number;
+}
