@@ -11,6 +11,7 @@ import { createApp } from './app';
 import { startEmbeddedBroker } from './ingest/broker';
 import { startSmtpStandIn } from './mail/smtp-stand-in';
 import { seedDemoUsers } from './seed/demo-users';
+import { seedDemoScenario } from './seed/demo-scenario';
 import { createServices } from './services';
 import { makePartitionsAhead, startSchedule } from './jobs/schedule';
 
@@ -32,7 +33,11 @@ export async function startServer(env: Env = readEnv()): Promise<RunningServer> 
   await sequelize.authenticate();
   initModels(sequelize);
   await migrate(sequelize, env.DATABASE_URL);
-  if (env.TALLYRUN_DEMO === 'on') await seedDemoUsers(sequelize, env.TALLYRUN_DEMO_PASSWORD);
+  if (env.TALLYRUN_DEMO === 'on') {
+    await seedDemoUsers(sequelize, env.TALLYRUN_DEMO_PASSWORD);
+    // After the users, so the seeded configuration changes are recorded as made by the demo engineer.
+    await seedDemoScenario(sequelize, { demoPassword: env.TALLYRUN_DEMO_PASSWORD });
+  }
 
   const services = createServices({ databaseUrl: env.DATABASE_URL, sequelize, dataDir: path.resolve(env.TALLYRUN_DATA_DIR) });
   // An import cut short by a stop is reported as such; its committed batches stay.

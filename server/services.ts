@@ -8,7 +8,7 @@ import { createMqttIngest } from './ingest/mqtt-ingest';
 import { importFieldTotalsCsv, importReadingsCsv } from './ingest/csv-import';
 import { HistoryWorker } from './history/worker';
 import { LiveEvents } from './live';
-import { hourStartOf } from '../shared/history/contract-day';
+import { cachedHourStartOf } from './ingest/hour-start-cache';
 import type { Sequelize } from 'sequelize';
 
 /**
@@ -19,7 +19,7 @@ import type { Sequelize } from 'sequelize';
 export function createServices(options: { databaseUrl: string; sequelize: Sequelize; dataDir: string }) {
   const pool = new Pool({ connectionString: options.databaseUrl, max: 10 });
   const catalog = new Catalog(options.sequelize);
-  const writer = new ReadingWriter(pool, hourStartOf);
+  const writer = new ReadingWriter(pool, cachedHourStartOf());
   const committer = new GroupCommitter(writer);
   const counters = new DeviceCounters(pool);
   const deviceAuth = new DeviceAuthenticator();
@@ -44,7 +44,7 @@ export function createServices(options: { databaseUrl: string; sequelize: Sequel
     imports,
     uploadDir: path.join(options.dataDir, 'uploads'),
     async close() {
-      history.stop();
+      await history.stop();
       await counters.close();
       await pool.end();
     },

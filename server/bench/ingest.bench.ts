@@ -121,9 +121,14 @@ async function main() {
       const v = tr === single.dp ? 20 : tr === single.pt ? 5 : 290;
       return { topic: `tallyrun/BENCH/${tr.tag}`, payload: JSON.stringify({ t: now - 8 * 3600_000 + Math.floor(i / 3) * 1000, v, q: 'good' }) };
     });
-    const bareMs = await mqttLoad(bare.port, 'x', 'y', singleMessages);
-    await bare.close();
+    // Warm both paths up first (JIT, connections), then measure; the broker-only base is taken
+    // before and after the stored run and the faster of the two kept, so the ratio is not flattered.
+    await mqttLoad(bare.port, 'x', 'y', singleMessages.slice(0, 2000));
+    const bareMs1 = await mqttLoad(bare.port, 'x', 'y', singleMessages);
     const singleMs = await mqttLoad(server.mqttPort, device.username, device.password, singleMessages);
+    const bareMs2 = await mqttLoad(bare.port, 'x', 'y', singleMessages);
+    const bareMs = Math.min(bareMs1, bareMs2);
+    await bare.close();
     const t0 = performance.now();
     await settle();
     const singleSettleMs = performance.now() - t0;

@@ -23,6 +23,7 @@ export class HistoryWorker {
   constructor(
     private readonly pool: Pool,
     private readonly now: () => number = Date.now,
+    private readonly timing: { quietMs: number; maxWaitMs: number } = { quietMs: 1000, maxWaitMs: 10_000 },
   ) {}
 
   start(onChange?: (meterRunIds: string[]) => void) {
@@ -34,12 +35,14 @@ export class HistoryWorker {
     (timer as unknown as { unref?: () => void }).unref?.();
   }
 
-  stop() {
+  /** Stops the timer and waits for a round in progress, so the pool can close under it safely. */
+  async stop() {
     if (this.timer) clearInterval(this.timer);
     this.timer = null;
+    if (this.running) await new Promise<void>((resolve) => this.idleResolvers.push(resolve));
   }
 
-  /** Resolves when the queue is empty (tests and benchmarks wait on it). */
+  /** Resolves when the queue is empty (benchmarks wait on it); the debounce still applies. */
   async settle(timeoutMs = 60_000) {
     const until = Date.now() + timeoutMs;
     for (;;) {
@@ -71,12 +74,13 @@ export class HistoryWorker {
           console.error(`[history] meter run ${claimed.meterRunId}:`, err);
           // Leave the rows queued, but not in a tight loop: push them back a little.
           await this.pool.query(
-            `UPDATE stale_hours SET claimed_at = NULL, queued_at = clock_timestamp() + interval '30 seconds' WHERE meter_run_id = $1 AND start = ANY($2::timestamptz[])`,
+            `UPDATE stale_hours SET claimed_at = NULL, queued_at = clock_timestamp() + interval '30 seconds', first_queued_at = clock_timestamp() + interval '30 seconds' WHERE meter_run_id = $1 AND start = ANY($2::timestamptz[])`,
             [claimed.meterRunId, claimed.hours.map((h) => new Date(h).toISOString())],
           );
           break;
         }
-        await this.pool.query('UPDATE stale_hours SET claimed_at = NULL WHERE meter_run_id = $1 AND claimed_at IS NOT NULL', [claimed.meterRunId]);
+        // Hours that got new readings while being computed wait for another round (a live hour: ten seconds).
+        await this.pool.query('UPDATE stale_hours SET claimed_at = NULL, first_queued_at = clock_timestamp() WHERE meter_run_id = $1 AND claimed_at IS NOT NULL', [claimed.meterRunId]);
       }
     } finally {
       this.running = false;
@@ -87,15 +91,19 @@ export class HistoryWorker {
     }
   }
 
+  /** An hour is ready once quiet for `quietMs`, or once it has waited `maxWaitMs` (a live hour). */
+  private readyCondition = `claimed_at IS NULL AND (queued_at <= clock_timestamp() - interval '1 millisecond' * $1 OR first_queued_at <= clock_timestamp() - interval '1 millisecond' * $2)`;
+
   private async claim(): Promise<{ meterRunId: string; hours: number[] } | null> {
     const { rows } = await this.pool.query(
       `UPDATE stale_hours SET claimed_at = clock_timestamp()
         WHERE (meter_run_id, start) IN (
           SELECT meter_run_id, start FROM stale_hours
-           WHERE claimed_at IS NULL AND queued_at <= clock_timestamp()
-             AND meter_run_id = (SELECT meter_run_id FROM stale_hours WHERE claimed_at IS NULL AND queued_at <= clock_timestamp() ORDER BY queued_at LIMIT 1)
+           WHERE ${this.readyCondition}
+             AND meter_run_id = (SELECT meter_run_id FROM stale_hours WHERE ${this.readyCondition} ORDER BY first_queued_at LIMIT 1)
            ORDER BY start LIMIT ${hoursPerRound} FOR UPDATE SKIP LOCKED)
         RETURNING meter_run_id::text, start`,
+      [this.timing.quietMs, this.timing.maxWaitMs],
     );
     if (!rows.length) return null;
     return { meterRunId: rows[0].meter_run_id, hours: rows.map((r) => (r.start as Date).getTime()).sort((a, b) => a - b) };

@@ -48,22 +48,39 @@ export class Catalog {
     this.byTag = byTag;
   }
 
+  private loadedAt = 0;
+
   async ready() {
-    if (!this.stale) return;
-    if (!this.loading) {
-      this.stale = false;
-      this.loading = this.load().finally(() => (this.loading = null));
+    // Callers that arrive during a load wait for it rather than read the old maps.
+    while (this.stale || this.loading) {
+      if (!this.loading) {
+        this.stale = false;
+        this.loading = this.load()
+          .then(() => void (this.loadedAt = Date.now()))
+          .finally(() => (this.loading = null));
+      }
+      await this.loading;
     }
-    await this.loading;
   }
 
-  async bySiteAndTag(siteCode: string, tag: string) {
+  /**
+   * A miss may be a transmitter another process has just created: reload, at most every few
+   * seconds, before calling it unknown.
+   */
+  private async lookup(map: () => Map<string, CatalogTransmitter>, key: string) {
     await this.ready();
-    return this.byTopic.get(`${siteCode}/${tag}`) ?? null;
+    const hit = map().get(key);
+    if (hit || Date.now() - this.loadedAt < 5000) return hit ?? null;
+    this.stale = true;
+    await this.ready();
+    return map().get(key) ?? null;
   }
 
-  async byTransmitterTag(tag: string) {
-    await this.ready();
-    return this.byTag.get(tag) ?? null;
+  bySiteAndTag(siteCode: string, tag: string) {
+    return this.lookup(() => this.byTopic, `${siteCode}/${tag}`);
+  }
+
+  byTransmitterTag(tag: string) {
+    return this.lookup(() => this.byTag, tag);
   }
 }

@@ -1,14 +1,14 @@
 import fs from 'node:fs';
 import { parse } from 'csv-parse';
 import type { Pool } from 'pg';
-import type { Catalog } from './catalog';
+import type { Catalog, CatalogTransmitter } from './catalog';
 import type { ReadingWriter } from './reading-writer';
 import { validateReading, type ValidReading } from './validate-reading';
 import { toSI, unitQuantity } from '../../shared/units';
 
 /** At most this many rejected lines are listed (all are counted). */
 const maxListedErrors = 1000;
-const batchSize = 5000;
+const batchSize = 10_000;
 
 interface Progress {
   bytesRead: number;
@@ -40,52 +40,70 @@ function reject(p: Progress, line: number, message: string) {
  */
 export async function importReadingsCsv(deps: { pool: Pool; catalog: Catalog; writer: ReadingWriter; onStored?: (r: ValidReading[]) => void }, importId: string, file: string) {
   const p: Progress = { bytesRead: 0, rowsRead: 0, rowsImported: 0, duplicates: 0, rejected: 0, errors: [] };
-  const input = fs.createReadStream(file);
+  const input = fs.createReadStream(file, { highWaterMark: 1 << 20 });
   input.on('data', (chunk) => (p.bytesRead += chunk.length));
   const parser = input.pipe(parse({ bom: true, trim: true, skip_empty_lines: true, relax_column_count: true, info: true }));
-  let header: string[] | null = null;
+  let columns: { time: number; tag: number; value: number; quality: number; unit: number } | null = null;
   let batch: ValidReading[] = [];
+  // One write in flight while the next batch is parsed; progress is saved after each commit.
+  let writing: Promise<void> = Promise.resolve();
   const flush = async () => {
+    await writing;
     if (!batch.length) return;
-    const { inserted, duplicates } = await deps.writer.write(batch, 'csv');
-    p.rowsImported += inserted;
-    p.duplicates += duplicates;
-    deps.onStored?.(batch);
+    const rows = batch;
     batch = [];
-    await saveProgress(deps.pool, importId, p);
+    writing = deps.writer.write(rows, 'csv').then(async ({ inserted, duplicates }) => {
+      p.rowsImported += inserted;
+      p.duplicates += duplicates;
+      deps.onStored?.(rows);
+      await saveProgress(deps.pool, importId, p);
+    });
   };
+  // Transmitters looked up once per tag for the whole file.
+  const transmitters = new Map<string, CatalogTransmitter | null>();
   try {
     const nowMs = Date.now();
     for await (const { record, info } of parser as AsyncIterable<{ record: string[]; info: { lines: number } }>) {
       const line = info.lines;
-      if (!header) {
-        header = record.map((h) => h.toLowerCase());
-        const missing = ['time', 'tag', 'value'].filter((c) => !header!.includes(c));
+      if (!columns) {
+        const header = record.map((h) => h.toLowerCase());
+        const missing = ['time', 'tag', 'value'].filter((c) => !header.includes(c));
         if (missing.length) throw new Error(`line ${line}: the header must name the columns time,tag,value[,quality][,unit]; missing ${missing.join(', ')}`);
+        columns = { time: header.indexOf('time'), tag: header.indexOf('tag'), value: header.indexOf('value'), quality: header.indexOf('quality'), unit: header.indexOf('unit') };
         continue;
       }
       p.rowsRead++;
-      const row: Record<string, string> = {};
-      header.forEach((h, i) => (row[h] = record[i] ?? ''));
-      if (!row.tag) {
+      const tag = record[columns.tag];
+      if (!tag) {
         reject(p, line, 'tag: is missing');
         continue;
       }
-      const transmitter = await deps.catalog.byTransmitterTag(row.tag);
+      let transmitter = transmitters.get(tag);
+      if (transmitter === undefined) {
+        transmitter = await deps.catalog.byTransmitterTag(tag);
+        transmitters.set(tag, transmitter);
+      }
       if (!transmitter) {
-        reject(p, line, `tag: unknown transmitter ${row.tag}`);
+        reject(p, line, `tag: unknown transmitter ${tag}`);
         continue;
       }
-      const checked = validateReading({ time: row.time, value: row.value, quality: row.quality, unit: row.unit }, transmitter, nowMs);
+      const checked = validateReading(
+        { time: record[columns.time], value: record[columns.value], quality: columns.quality >= 0 ? record[columns.quality] : undefined, unit: columns.unit >= 0 ? record[columns.unit] : undefined },
+        transmitter,
+        nowMs,
+      );
       if (typeof checked === 'string') reject(p, line, checked);
       else batch.push(checked);
       if (batch.length >= batchSize) await flush();
     }
     await flush();
+    await writing;
     await saveProgress(deps.pool, importId, p, 'done');
   } catch (err) {
     // Batches already committed stay; the import says where it stopped and why.
+    await writing.catch(() => undefined);
     await flush().catch(() => undefined);
+    await writing.catch(() => undefined);
     reject(p, p.rowsRead + 1, err instanceof Error ? err.message : String(err));
     await saveProgress(deps.pool, importId, p, 'failed');
   } finally {

@@ -88,8 +88,10 @@ export class ReadingWriter {
       const hour = this.hourStartOf(r.timeMs, r.timeZone);
       stale.set(`${r.meterRunId}|${hour}`, [r.meterRunId, hour / 1000]);
     }
-    const staleRuns = [...stale.values()].map((s) => s[0]);
-    const staleHours = [...stale.values()].map((s) => s[1]);
+    // Always lock stale-hour rows in one order, so two concurrent batches cannot deadlock.
+    const staleRows = [...stale.values()].sort((a, b) => Number(a[0]) - Number(b[0]) || a[1] - b[1]);
+    const staleRuns = staleRows.map((s) => s[0]);
+    const staleHours = staleRows.map((s) => s[1]);
     const result = await this.pool.query(
       `WITH ins AS (
          INSERT INTO readings (transmitter_id, time, value, quality, source)
@@ -110,55 +112,61 @@ export class ReadingWriter {
 }
 
 /**
- * Gathers the readings of many concurrent publishes for a few milliseconds and commits them as
- * one batch (group commit): each publisher is answered only after its readings are committed,
- * yet the database sees a few large statements instead of one per message.
+ * Gathers the readings of many concurrent publishes and commits them as one batch (group
+ * commit): each publisher is answered only after its readings are committed, yet the database
+ * sees a few large statements instead of one per message. Adaptive: a batch goes out at the next
+ * turn of the event loop when the database is idle, and grows for as long as the previous
+ * batches are still being written — low latency when quiet, big batches under load.
  */
 export class GroupCommitter {
   private queue: { readings: ValidReading[]; resolve: (r: { inserted: number; duplicates: number }) => void; reject: (e: unknown) => void }[] = [];
   private queued = 0;
-  private timer: ReturnType<typeof setTimeout> | null = null;
+  private scheduled = false;
   private inFlight = 0;
 
   constructor(
     private readonly writer: ReadingWriter,
-    private readonly options: { maxBatch: number; maxWaitMs: number; maxConcurrent: number } = { maxBatch: 5000, maxWaitMs: 4, maxConcurrent: 4 },
+    private readonly options: { maxBatch: number; maxConcurrent: number } = { maxBatch: 20_000, maxConcurrent: 2 },
   ) {}
 
   submit(readings: ValidReading[]): Promise<{ inserted: number; duplicates: number }> {
     return new Promise((resolve, reject) => {
       this.queue.push({ readings, resolve, reject });
       this.queued += readings.length;
-      if (this.queued >= this.options.maxBatch) this.flush();
-      else if (!this.timer) this.timer = setTimeout(() => this.flush(), this.options.maxWaitMs);
+      if (!this.scheduled) {
+        this.scheduled = true;
+        setImmediate(() => {
+          this.scheduled = false;
+          this.flush();
+        });
+      }
     });
   }
 
   private flush() {
-    if (this.timer) {
-      clearTimeout(this.timer);
-      this.timer = null;
+    while (this.queue.length && this.inFlight < this.options.maxConcurrent) {
+      // Take whole messages up to maxBatch readings (a message is never split).
+      let take = 0;
+      let count = 0;
+      while (take < this.queue.length && (take === 0 || count + this.queue[take].readings.length <= this.options.maxBatch)) {
+        count += this.queue[take].readings.length;
+        take++;
+      }
+      const batch = this.queue.splice(0, take);
+      this.queued -= count;
+      this.inFlight++;
+      const all = batch.length === 1 ? batch[0].readings : batch.flatMap((b) => b.readings);
+      this.writer
+        .write(all, 'mqtt')
+        .then(
+          // Duplicates are known for the batch as a whole; each publisher learns its readings are stored.
+          (res) => batch.forEach((b) => b.resolve(batch.length === 1 ? res : { inserted: b.readings.length, duplicates: 0 })),
+          (err) => batch.forEach((b) => b.reject(err)),
+        )
+        .finally(() => {
+          this.inFlight--;
+          this.flush();
+        });
     }
-    if (this.queue.length === 0) return;
-    if (this.inFlight >= this.options.maxConcurrent) {
-      this.timer = setTimeout(() => this.flush(), this.options.maxWaitMs);
-      return;
-    }
-    const batch = this.queue;
-    this.queue = [];
-    this.queued = 0;
-    this.inFlight++;
-    const all = batch.flatMap((b) => b.readings);
-    this.writer
-      .write(all, 'mqtt')
-      .then(
-        // Duplicates are counted for the batch as a whole; per message it is enough to know it is stored.
-        (res) => batch.forEach((b) => b.resolve({ inserted: b.readings.length, duplicates: 0, ...(batch.length === 1 ? res : {}) })),
-        (err) => batch.forEach((b) => b.reject(err)),
-      )
-      .finally(() => {
-        this.inFlight--;
-        if (this.queue.length) this.flush();
-      });
   }
 }

@@ -193,11 +193,14 @@ export const up: MigrationFn<QueryInterface> = async ({ context: qi }) => {
     -- configuration version dated in the past, put them here; the history worker drains it.
     -- claimed_at is set while a worker computes the hour; a reading queued after the claim
     -- (queued_at > claimed_at) keeps the row for another round.
+    -- first_queued_at and queued_at debounce the work: an hour is taken once it has been quiet
+    -- for a second, or has waited ten seconds (a live hour), not at every reading.
     CREATE TABLE stale_hours (
-      meter_run_id bigint NOT NULL,
-      start        timestamptz NOT NULL,
-      queued_at    timestamptz NOT NULL DEFAULT clock_timestamp(),
-      claimed_at   timestamptz,
+      meter_run_id    bigint NOT NULL,
+      start           timestamptz NOT NULL,
+      queued_at       timestamptz NOT NULL DEFAULT clock_timestamp(),
+      first_queued_at timestamptz NOT NULL DEFAULT clock_timestamp(),
+      claimed_at      timestamptz,
       PRIMARY KEY (meter_run_id, start)
     );
   `);

@@ -69,26 +69,29 @@ export function meterRunHistoryRouter(pool: Pool) {
     );
     const found = rows.map(presentTotal);
     if (q.interval === 'hour') return res.json(found);
-    // Every contract day (month) in the window appears, with zero and coverage 0 where nothing was recorded.
-    const byStart = new Map(found.map((t) => [t.start, t]));
-    const out = [];
-    if (q.interval === 'day') {
-      let day = contractDayOf(fromMs, timeZone, contractHour);
-      for (let i = 0; i < 4000; i++) {
-        const b = contractDayBounds(day, timeZone, contractHour);
-        if (b.startMs >= toMs) break;
-        out.push(byStart.get(new Date(b.startMs).toISOString()) ?? emptyTotal(b.startMs, b.endMs, b.hours));
-        day = contractDayOf(b.endMs, timeZone, contractHour);
+    // Every contract day (month) in the window appears, with zero and coverage 0 where nothing
+    // was recorded. Stored rows carry their own bounds, so the calendar (luxon) is consulted only
+    // for the periods that have no row: a year of daily totals stays a few milliseconds.
+    const bounds = (startMs: number) => {
+      const name = contractDayOf(startMs, timeZone, contractHour);
+      return q.interval === 'day' ? contractDayBounds(name, timeZone, contractHour) : contractMonthBounds(name.slice(0, 7), timeZone, contractHour);
+    };
+    const out: ReturnType<typeof presentTotal>[] = [];
+    let cursor = bounds(fromMs).startMs;
+    const fillUntil = (limitMs: number) => {
+      for (let guard = 0; cursor < limitMs && guard < 4000; guard++) {
+        const b = bounds(cursor);
+        out.push(emptyTotal(b.startMs, b.endMs, b.hours) as ReturnType<typeof presentTotal>);
+        cursor = b.endMs;
       }
-    } else {
-      let month = contractDayOf(fromMs, timeZone, contractHour).slice(0, 7);
-      for (let i = 0; i < 200; i++) {
-        const b = contractMonthBounds(month, timeZone, contractHour);
-        if (b.startMs >= toMs) break;
-        out.push(byStart.get(new Date(b.startMs).toISOString()) ?? emptyTotal(b.startMs, b.endMs, b.hours));
-        month = contractDayOf(b.endMs, timeZone, contractHour).slice(0, 7);
-      }
+    };
+    for (const row of found) {
+      const rowStart = Date.parse(row.start);
+      fillUntil(rowStart);
+      out.push(row);
+      cursor = Date.parse(row.end);
     }
+    fillUntil(toMs);
     res.json(out);
   });
 
