@@ -8,6 +8,8 @@ const base = {
   moduleNameMapper: { '^@/(.*)$': '<rootDir>/$1' },
 };
 module.exports = {
+  // Tests that go through the broker, the history worker or a browser wait on real work.
+  testTimeout: 60_000,
   projects: [
     { ...base, displayName: 'shared', testMatch: ['<rootDir>/shared/**/*.test.ts'] },
     {

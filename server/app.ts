@@ -18,6 +18,9 @@ import { devicesRouter } from './routes/devices/router';
 import { importsRouter } from './routes/imports/router';
 import { readingsRouter } from './routes/readings/router';
 import { liveRouter } from './routes/live/router';
+import { alarmsRouter } from './routes/alarms/router';
+import { alarmLimitsRouter } from './routes/alarm-limits/router';
+import { meterRunRangeHealthRouter } from './routes/meter-runs/range-health-router';
 import { LiveBoard } from './live-board';
 import type { Services } from './services';
 
@@ -66,6 +69,10 @@ export function createApp(options: AppOptions): Express {
     ['/imports', importsRouter({ pool: services.pool, uploadDir: services.uploadDir, maxBytes: options.maxUploadBytes ?? 200e6, jobs: services.imports })],
     ['/readings', readingsRouter(services.pool)],
     ['/live', liveRouter(new LiveBoard(services.pool), services.live)],
+    // Alarms (issue 5): the list and lifecycle, limits per meter run or transmitter, range health.
+    ['/alarms', alarmsRouter(services.pool)],
+    ['/alarm-limits', alarmLimitsRouter(services.pool)], // new limits apply from the next evaluation (within a minute)
+    ['/meter-runs', meterRunRangeHealthRouter(services.pool)],
   ];
   const api = express.Router();
   for (const [path, router] of publicRoutes) api.use(path, router);

@@ -13,7 +13,9 @@ const schema = z.object({
   MQTT_PORT: port(1883),
   MQTT_WS_PORT: port(0),
   /** When set, ingest subscribes to this external broker instead of embedding aedes. */
-  MQTT_URL: z.string().optional(),
+  MQTT_URL: z.string().url('MQTT_URL must be a URL such as mqtt://broker:1883').optional(),
+  /** With an external MQTT 5 broker: share the subscription among several Tallyrun processes. */
+  MQTT_SHARED_GROUP: z.string().regex(/^[A-Za-z0-9_-]+$/).optional(),
   SMTP_PORT: port(2525),
   DATABASE_URL: z.string().min(1, 'DATABASE_URL is required (npm start sets it for the private cluster)'),
   TALLYRUN_DATA_DIR: z.string().default('.tallyrun'),

@@ -9,11 +9,14 @@ import { migrate } from './db/migrate';
 import { initModels } from './models';
 import { createApp } from './app';
 import { startEmbeddedBroker } from './ingest/broker';
+import { startExternalBrokerIngest } from './ingest/external-broker';
 import { startSmtpStandIn } from './mail/smtp-stand-in';
 import { seedDemoUsers } from './seed/demo-users';
 import { seedDemoScenario } from './seed/demo-scenario';
 import { createServices } from './services';
-import { makePartitionsAhead, startSchedule } from './jobs/schedule';
+import { makePartitionsAhead, startAlarmSchedule, startSchedule } from './jobs/schedule';
+import { createMailer } from './mail/send';
+import { AlarmNotifier } from './mail/notifier';
 
 export interface RunningServer {
   url: string;
@@ -43,16 +46,28 @@ export async function startServer(env: Env = readEnv()): Promise<RunningServer> 
   // An import cut short by a stop is reported as such; its committed batches stay.
   await services.pool.query(`UPDATE imports SET status = 'failed', finished_at = now(), errors = errors || '[{"line": 0, "message": "the server stopped during this import; re-import the file (rows already stored count as duplicates)"}]'::jsonb WHERE status = 'running'`);
   await makePartitionsAhead(services.pool);
-  services.history.start((ids) => services.live.historyChanged(ids));
+  services.history.start((ids) => {
+    services.live.historyChanged(ids);
+    // Alarms: judge the new readings of the meter runs just recomputed (issue 5).
+    services.alarms.meterRunsChanged(ids);
+  });
   const schedule = startSchedule({ pool: services.pool, history: services.history });
 
-  const broker = await startEmbeddedBroker({
-    host: env.HOST,
-    port: env.MQTT_PORT,
-    authenticate: (username, password) => services.deviceAuth.authenticate(username, password),
-    onPublish: (device, topic, payload) => services.mqttIngest(device, topic, payload),
-  });
+  const broker = env.MQTT_URL
+    ? { port: 0, ...(await startExternalBrokerIngest({ url: env.MQTT_URL, sharedGroup: env.MQTT_SHARED_GROUP, ingest: services.mqttIngest })) }
+    : await startEmbeddedBroker({
+        host: env.HOST,
+        port: env.MQTT_PORT,
+        authenticate: (username, password) => services.deviceAuth.authenticate(username, password),
+        onPublish: (device, topic, payload) => services.mqttIngest(device, topic, payload),
+      });
   const smtp = await startSmtpStandIn({ host: env.HOST, port: env.SMTP_PORT });
+  // Alarm mail through the stand-in (issue 5): new alarms soon after they are raised, digests and
+  // clock-judged conditions (stale, calibration, shelving over) on the minute.
+  const mailer = createMailer({ host: env.HOST, port: smtp.port });
+  const notifier = new AlarmNotifier(services.pool, mailer);
+  services.alarms.on('raised', () => notifier.requestRun());
+  const alarmSchedule = startAlarmSchedule({ alarms: services.alarms, notifier });
 
   const app = createApp({
     sequelize,
@@ -85,7 +100,10 @@ export async function startServer(env: Env = readEnv()): Promise<RunningServer> 
       server.closeAllConnections();
       await new Promise<void>((resolve) => server.close(() => resolve()));
       schedule.stop();
+      alarmSchedule.stop();
+      notifier.stop();
       await broker.close();
+      mailer.close();
       await smtp.close();
       await services.close();
       await sequelize.close();

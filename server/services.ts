@@ -8,6 +8,7 @@ import { createMqttIngest } from './ingest/mqtt-ingest';
 import { importFieldTotalsCsv, importReadingsCsv } from './ingest/csv-import';
 import { HistoryWorker } from './history/worker';
 import { LiveEvents } from './live';
+import { AlarmEvaluator } from './alarms/alarm-evaluator';
 import { cachedHourStartOf } from './ingest/hour-start-cache';
 import type { Sequelize } from 'sequelize';
 
@@ -25,6 +26,8 @@ export function createServices(options: { databaseUrl: string; sequelize: Sequel
   const deviceAuth = new DeviceAuthenticator();
   const live = new LiveEvents();
   const history = new HistoryWorker(pool);
+  // Alarms: judged after each history round and on the minute (index.ts wires both).
+  const alarms = new AlarmEvaluator(pool);
   const stored = (readings: { meterRunId: string }[]) => live.readingsStored(readings.map((r) => r.meterRunId));
   const mqttIngest = createMqttIngest({ catalog, committer, counters, onStored: stored });
   const imports = {
@@ -40,6 +43,7 @@ export function createServices(options: { databaseUrl: string; sequelize: Sequel
     deviceAuth,
     live,
     history,
+    alarms,
     mqttIngest,
     imports,
     uploadDir: path.join(options.dataDir, 'uploads'),

@@ -1,5 +1,5 @@
-import { UpcomingScreen } from '@/components/screens/UpcomingScreen';
+import { RangeCheckScreen } from '@/components/screens/RangeCheckScreen';
 
 export default function RangeCheckRoute() {
-  return <UpcomingScreen area="range-check" />;
+  return <RangeCheckScreen />;
 }

@@ -130,3 +130,13 @@ export async function ensureDatabase(adminUrl: string, name: string, options: { 
     await client.end();
   }
 }
+
+export async function dropDatabase(adminUrl: string, name: string) {
+  const client = new Client({ connectionString: adminUrl });
+  await client.connect();
+  try {
+    await client.query(`DROP DATABASE IF EXISTS "${name}" WITH (FORCE)`);
+  } finally {
+    await client.end();
+  }
+}

@@ -27,12 +27,15 @@ async function main() {
     if (stopping) return;
     stopping = true;
     log('stopping ...');
-    if (simulators?.pid) {
+    if (simulators?.pid && simulators.exitCode === null) {
+      // Let the simulators hand over what they hold while the broker is still up (at most 5 s).
+      const exited = new Promise<void>((resolve) => simulators!.once('exit', () => resolve()));
       try {
         process.kill(-simulators.pid, 'SIGTERM');
       } catch {
         /* already gone */
       }
+      await Promise.race([exited, new Promise((r) => setTimeout(r, 5000))]);
     }
     await server?.stop().catch((err) => console.error(err));
     if (cluster?.startedHere) {
@@ -61,7 +64,7 @@ async function main() {
         cwd: root,
         detached: true, // own process group, so Ctrl-C handling stays here and we stop it as a group
         stdio: ['ignore', 'inherit', 'inherit'],
-        env: { ...process.env, DATABASE_URL: databaseUrl, TALLYRUN_MQTT_URL: `mqtt://127.0.0.1:${server.mqttPort}` },
+        env: { ...process.env, DATABASE_URL: databaseUrl, TALLYRUN_MQTT_URL: env.MQTT_URL ?? `mqtt://127.0.0.1:${server.mqttPort}` },
       });
     }
 
@@ -70,7 +73,7 @@ async function main() {
   Tallyrun is running (ready in ${seconds} s)
     web and API   ${server.url}
     health        ${server.url}/api/health
-    MQTT broker   mqtt://127.0.0.1:${server.mqttPort}
+    MQTT broker   ${env.MQTT_URL ? `${env.MQTT_URL.replace(/\/\/[^@/]*@/, '//')} (external)` : `mqtt://127.0.0.1:${server.mqttPort}`}
     SMTP stand-in 127.0.0.1:${server.smtpPort} (mail lands in the admin's outbox)
 ${env.TALLYRUN_DEMO === 'on' ? `  Demo sign-ins (password "${env.TALLYRUN_DEMO_PASSWORD === 'tallyrun-demo' ? 'tallyrun-demo' : '<TALLYRUN_DEMO_PASSWORD>'}"):\n${demoUsers.map((u) => `    ${u.role.padEnd(11)} ${u.email}`).join('\n')}\n` : ''}
   Press Ctrl-C to stop.

@@ -6,7 +6,7 @@
 import { execFileSync, spawn, spawnSync, type SpawnOptions } from 'node:child_process';
 import fs from 'node:fs';
 import path from 'node:path';
-import { ensureCluster, ensureDatabase, type Cluster } from './postgres';
+import { dropDatabase, ensureCluster, ensureDatabase, type Cluster } from './postgres';
 import { exportWebClient } from './web-export';
 import { readEnv } from '../env';
 import { startServer, type RunningServer } from '../index';
@@ -36,25 +36,34 @@ async function main(): Promise<number> {
   const dataDir = path.resolve(process.env.TALLYRUN_DATA_DIR ?? path.join(root, '.tallyrun'));
   let cluster: Cluster | null = null;
   let server: RunningServer | null = null;
+  let adminUrl: string | null = null;
+  const databases: string[] = [];
   try {
     ensureTestTools();
+    // Databases of this run alone (by process id), so two runs on one machine do not collide;
+    // they are dropped at the end.
+    const e2eName = `tallyrun_e2e_${process.pid}`;
+    const jestName = `tallyrun_jest_${process.pid}`;
     let e2eUrl: string;
     let jestUrl: string;
     if (process.env.DATABASE_URL) {
       // An outside server: make the two test databases beside the given one.
       const admin = new URL(process.env.DATABASE_URL);
       admin.pathname = '/postgres';
-      await ensureDatabase(admin.toString(), 'tallyrun_e2e', { fresh: true });
-      await ensureDatabase(admin.toString(), 'tallyrun_jest', { fresh: true });
-      e2eUrl = Object.assign(new URL(admin), { pathname: '/tallyrun_e2e' }).toString();
-      jestUrl = Object.assign(new URL(admin), { pathname: '/tallyrun_jest' }).toString();
+      adminUrl = admin.toString();
+      await ensureDatabase(adminUrl, e2eName, { fresh: true });
+      await ensureDatabase(adminUrl, jestName, { fresh: true });
+      e2eUrl = Object.assign(new URL(admin), { pathname: `/${e2eName}` }).toString();
+      jestUrl = Object.assign(new URL(admin), { pathname: `/${jestName}` }).toString();
     } else {
       cluster = await ensureCluster({ dataDir, port: Number(process.env.TALLYRUN_PG_PORT ?? 54329), log });
-      await ensureDatabase(cluster.url('postgres'), 'tallyrun_e2e', { fresh: true });
-      await ensureDatabase(cluster.url('postgres'), 'tallyrun_jest', { fresh: true });
-      e2eUrl = cluster.url('tallyrun_e2e');
-      jestUrl = cluster.url('tallyrun_jest');
+      adminUrl = cluster.url('postgres');
+      await ensureDatabase(adminUrl, e2eName, { fresh: true });
+      await ensureDatabase(adminUrl, jestName, { fresh: true });
+      e2eUrl = cluster.url(e2eName);
+      jestUrl = cluster.url(jestName);
     }
+    databases.push(e2eName, jestName);
     const jestDb = connectDatabase(jestUrl);
     await migrate(jestDb, jestUrl);
     await jestDb.close();
@@ -79,7 +88,7 @@ async function main(): Promise<number> {
     );
     log(`bring-up took ${((Date.now() - began) / 1000).toFixed(1)} s; server at ${server.url}`);
 
-    const resultsFile = path.join(root, '.test-results', 'jest.json');
+    const resultsFile = path.join(root, '.test-results', `jest-${process.pid}.json`);
     fs.mkdirSync(path.dirname(resultsFile), { recursive: true });
     fs.rmSync(resultsFile, { force: true });
     // Async spawn, not spawnSync: the server under test lives in this process and must keep answering.
@@ -115,6 +124,7 @@ async function main(): Promise<number> {
     return 1;
   } finally {
     await server?.stop().catch(() => undefined);
+    if (adminUrl) for (const name of databases) await dropDatabase(adminUrl, name).catch(() => undefined);
     if (cluster?.startedHere) cluster.stop();
   }
 }

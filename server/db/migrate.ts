@@ -3,6 +3,7 @@ import type { Sequelize } from 'sequelize';
 import { Client } from 'pg';
 import * as m0001 from '../migrations/0001-foundation';
 import * as m0002 from '../migrations/0002-setup-and-history';
+import * as m0003 from '../migrations/0003-alarms';
 
 /**
  * Migrations are listed here, in order, rather than globbed: the list works the same under
@@ -11,6 +12,7 @@ import * as m0002 from '../migrations/0002-setup-and-history';
 const migrations = [
   { name: '0001-foundation', ...m0001 },
   { name: '0002-setup-and-history', ...m0002 },
+  { name: '0003-alarms', ...m0003 },
 ];
 
 export function migrator(sequelize: Sequelize) {

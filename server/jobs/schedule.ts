@@ -30,3 +30,30 @@ export function startSchedule(deps: { pool: Pool; history: HistoryWorker }) {
   ];
   return { stop: () => tasks.forEach((t) => t.stop()) };
 }
+
+/**
+ * Alarm jobs (issue 5), every minute: conditions judged by the clock (a transmitter gone
+ * silent, calibration due or overdue, shelving that ran out), then mail that waits, and each
+ * site's daily digest within the hour after its contract hour. A minute's run that is still busy
+ * makes the next one skip.
+ */
+export function startAlarmSchedule(deps: {
+  alarms: { tick(): Promise<void> };
+  notifier: { run(): Promise<unknown>; sendDigests(): Promise<unknown> };
+}) {
+  let busy = false;
+  const task = cron.schedule('* * * * *', () => {
+    if (busy) return;
+    busy = true;
+    void (async () => {
+      await deps.alarms.tick();
+      await deps.notifier.run();
+      await deps.notifier.sendDigests();
+    })()
+      .catch((err) => console.error('[jobs] alarms:', err))
+      .finally(() => {
+        busy = false;
+      });
+  });
+  return { stop: () => task.stop() };
+}

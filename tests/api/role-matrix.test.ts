@@ -54,6 +54,23 @@ const expected: Record<string, Who[] | typeof PUBLIC> = {
   'GET /api/devices': ['admin'],
   'POST /api/devices': ['admin'],
   'PATCH /api/devices/:id': ['admin'],
+  // alarms (issue 5): every role reads; acknowledge and shelve: operator, engineer, admin;
+  // out of service is maintenance of the alarm system, like configuration: engineer, admin
+  'GET /api/alarms': everyone,
+  'GET /api/alarms/counts': everyone,
+  'GET /api/alarms/:id': everyone,
+  'GET /api/alarms/:id/events': everyone,
+  'POST /api/alarms/:id/acknowledge': ['operator', 'engineer', 'admin'],
+  'POST /api/alarms/:id/shelve': ['operator', 'engineer', 'admin'],
+  'POST /api/alarms/:id/unshelve': ['operator', 'engineer', 'admin'],
+  'POST /api/alarms/:id/out-of-service': ['engineer', 'admin'],
+  'POST /api/alarms/:id/return-to-service': ['engineer', 'admin'],
+  // alarm limits are part of a meter run's configuration: engineer and admin change them; all read
+  'GET /api/alarm-limits': everyone,
+  'POST /api/alarm-limits': ['engineer', 'admin'],
+  'DELETE /api/alarm-limits/:id': ['engineer', 'admin'],
+  // range health is a view of totals and trends: every role reads it
+  'GET /api/meter-runs/:id/range-health': everyone,
 };
 
 /** Routes that stream (server-sent events): checked on a real socket, status only. */

@@ -17,9 +17,9 @@ export async function signIn(email: string, password = demoPassword): Promise<st
   return (await res.json()).token;
 }
 
-export function client(token: string) {
+export function client(token: string, serverUrl = baseUrl) {
   const call = async <T = any>(method: string, path: string, body?: unknown): Promise<Answer<T>> => {
-    const res = await fetch(`${baseUrl}${path}`, {
+    const res = await fetch(`${serverUrl}${path}`, {
       method,
       headers: { Authorization: `Bearer ${token}`, ...(body !== undefined && !(body instanceof FormData) ? { 'content-type': 'application/json' } : {}) },
       body: body === undefined ? undefined : body instanceof FormData ? body : JSON.stringify(body),

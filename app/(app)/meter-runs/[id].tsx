@@ -1,13 +1,9 @@
 import { useLocalSearchParams } from 'expo-router';
 
-import { UpcomingScreen } from '@/components/screens/UpcomingScreen';
+import { MeterRunScreen } from '@/components/screens/MeterRunScreen';
 
 export default function MeterRunRoute() {
   const { id } = useLocalSearchParams<{ id: string }>();
-  return (
-    <UpcomingScreen
-      area="meter-runs"
-      lead={`Meter run ${id}: its live readings and compensated flow, trends, hourly and contract-day records with coverage and flags, and its configuration versions.`}
-    />
-  );
+  // A new meter run is a new screen: its window, contract day and caches start afresh.
+  return <MeterRunScreen key={id} meterRunId={String(id)} />;
 }

@@ -1,5 +1,5 @@
-import { UpcomingScreen } from '@/components/screens/UpcomingScreen';
+import { MeterRunsScreen } from '@/components/screens/MeterRunsScreen';
 
 export default function MeterRunsRoute() {
-  return <UpcomingScreen area="meter-runs" />;
+  return <MeterRunsScreen />;
 }

@@ -30,9 +30,17 @@ export function transmittersRouter(sequelize: Sequelize, hooks: { changed(): voi
     const input = validate(transmitterSchema, req.body);
     const meterRun = await MeterRun.findByPk(input.meterRunId);
     if (!meterRun) throw badRequest(`meterRunId: no meter run ${input.meterRunId}`, 'meterRunId', 'invalid_field');
-    if (input.stackRole !== 'single') {
-      const same = await Transmitter.findOne({ where: { meterRunId: input.meterRunId, stackRole: input.stackRole } });
-      if (same) throw conflict(`Meter run ${meterRun.tag} already has a ${input.stackRole}-range DP transmitter (${same.tag}).`, 'stackRole');
+    // A meter run has one DP transmitter, or a stacked pair (one low, one high); one static pressure and one temperature.
+    const siblings = await Transmitter.findAll({ where: { meterRunId: input.meterRunId, measures: input.measures } });
+    if (input.measures === 'differential-pressure') {
+      const clash = siblings.find((s) => s.stackRole === input.stackRole || s.stackRole === 'single' || input.stackRole === 'single');
+      if (clash)
+        throw conflict(
+          `Meter run ${meterRun.tag} already has DP transmitter ${clash.tag} (${clash.stackRole}); it takes one single DP transmitter or one low- and one high-range pair.`,
+          'stackRole',
+        );
+    } else if (siblings.length) {
+      throw conflict(`Meter run ${meterRun.tag} already has a ${input.measures} transmitter (${siblings[0].tag}).`, 'measures');
     }
     try {
       const created = await sequelize.transaction(async (transaction) => {

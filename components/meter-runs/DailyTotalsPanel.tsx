@@ -1,0 +1,73 @@
+/** The last 31 contract days of a meter run, newest first: quantities, coverage, flags, uncertainty, status. */
+import { useState } from 'react';
+
+import { AppText } from '@/components/ui/AppText';
+import { Button } from '@/components/ui/Button';
+import { DataTable, type DataColumn } from '@/components/ui/DataTable';
+import { Panel } from '@/components/ui/Panel';
+import { QueryState } from '@/components/ui/QueryState';
+import { formatNumber, unitsFor } from '@/constants/units-display';
+import type { Site } from '@/hooks/api/sites';
+import { useTotals } from '@/hooks/api/totals';
+import { contractDayBounds, contractDayOf } from '@/shared/history/contract-day';
+import { FlagList } from './FlagList';
+import { formatSiteTime } from './siteTime';
+import { totalCells } from './totalCells';
+
+const days = 31;
+const dayMs = 86_400_000;
+
+/** The window from the start of the contract day `days − 1` days ago to the end of today's. */
+function lastDaysWindow(site: Site): { from: string; to: string } {
+  const now = Date.now();
+  const today = contractDayBounds(contractDayOf(now, site.timeZone, site.contractHour), site.timeZone, site.contractHour);
+  const first = contractDayBounds(contractDayOf(today.startMs - (days - 1) * dayMs + dayMs / 2, site.timeZone, site.contractHour), site.timeZone, site.contractHour);
+  return { from: new Date(first.startMs).toISOString(), to: new Date(today.endMs).toISOString() };
+}
+
+export function DailyTotalsPanel({ meterRunId, site }: { meterRunId: string; site: Site }) {
+  const [period] = useState(() => lastDaysWindow(site));
+  const totals = useTotals(meterRunId, 'day', period.from, period.to);
+  const set = unitsFor(site.displayUnits);
+
+  const columns: DataColumn[] = [
+    { key: 'day', title: 'Contract day', width: 104 },
+    { key: 'hours', title: 'Hours', width: 56 },
+    { key: 'flowTime', title: 'Flow time, h', width: 80 },
+    { key: 'mass', title: `Mass, ${set.mass.label}`, width: 104 },
+    { key: 'volume', title: `Volume at base, ${set.standardVolume.label}`, width: 112 },
+    { key: 'energy', title: `Energy, ${set.energy.label}`, width: 100 },
+    { key: 'coverage', title: 'Coverage', width: 80 },
+    { key: 'flags', title: 'Flags', width: 170, align: 'left' },
+    { key: 'uncertainty', title: 'U (k = 2)', width: 88 },
+    { key: 'status', title: 'Status', width: 100, align: 'left' },
+  ];
+
+  const rows = [...(totals.data ?? [])].reverse().map((total, index) => ({
+    key: total.start,
+    testID: `daily-row-${index}`,
+    cells: {
+      day: formatSiteTime(total.start, site.timeZone, 'yyyy-MM-dd'),
+      hours: String(total.hours),
+      flowTime: formatNumber(total.flowTimeS / 3600, 3),
+      ...totalCells(total, set),
+      flags: <FlagList flags={total.flags} />,
+    },
+  }));
+
+  return (
+    <Panel
+      title={`Daily totals (last ${days} contract days)`}
+      testID="daily-totals"
+      actions={<Button label="Refresh" size="compact" busy={totals.isFetching && !totals.isPending} onPress={() => void totals.refetch()} />}
+    >
+      <QueryState isPending={totals.isPending} error={totals.error} onRetry={() => void totals.refetch()} noun="daily totals" />
+      {totals.data ? (
+        <DataTable columns={columns} rows={rows} label="Daily totals by contract day" emptyText="No contract days in this window." testID="daily-table" />
+      ) : null}
+      <AppText variant="caption" tone="muted">
+        {`Each contract day starts at ${String(site.contractHour).padStart(2, '0')}:00 site time (23 or 25 hours on clock-change days). Volume at base conditions. A day with nothing recorded shows zero with coverage 0. U: expanded uncertainty (k = 2).`}
+      </AppText>
+    </Panel>
+  );
+}

@@ -1,0 +1,104 @@
+/**
+ * The hourly records of one contract day (the standard's quantity transaction records): start,
+ * flow time, quantities, flow-dependent averages, coverage, flags, uncertainty and status.
+ */
+import { useState } from 'react';
+import { StyleSheet, View } from 'react-native';
+
+import { AppText } from '@/components/ui/AppText';
+import { Button } from '@/components/ui/Button';
+import { DataTable, type DataColumn } from '@/components/ui/DataTable';
+import { Panel } from '@/components/ui/Panel';
+import { QueryState } from '@/components/ui/QueryState';
+import { space } from '@/constants/theme';
+import {
+  differentialPressureForDisplay,
+  formatNumber,
+  staticPressureForDisplay,
+  temperatureForDisplay,
+  unitsFor,
+} from '@/constants/units-display';
+import { useHourlyRecords } from '@/hooks/api/totals';
+import type { Site } from '@/hooks/api/sites';
+import { contractDayBounds, contractDayOf } from '@/shared/history/contract-day';
+import { FlagList } from './FlagList';
+import { formatSiteTime } from './siteTime';
+import { totalCells } from './totalCells';
+
+interface HourlyRecordsPanelProps {
+  meterRunId: string;
+  site: Site;
+}
+
+export function HourlyRecordsPanel({ meterRunId, site }: HourlyRecordsPanelProps) {
+  const [day, setDay] = useState(() => contractDayOf(Date.now(), site.timeZone, site.contractHour));
+  const bounds = contractDayBounds(day, site.timeZone, site.contractHour);
+  const records = useHourlyRecords(meterRunId, new Date(bounds.startMs).toISOString(), new Date(bounds.endMs).toISOString());
+  const today = contractDayOf(Date.now(), site.timeZone, site.contractHour);
+  const set = unitsFor(site.displayUnits);
+
+  const columns: DataColumn[] = [
+    { key: 'start', title: 'Start', width: 60 },
+    { key: 'flowTime', title: 'Flow time, min', width: 72 },
+    { key: 'mass', title: `Mass, ${set.mass.label}`, width: 92 },
+    { key: 'volume', title: `Volume at base, ${set.standardVolume.label}`, width: 104 },
+    { key: 'energy', title: `Energy, ${set.energy.label}`, width: 92 },
+    { key: 'dp', title: `DP avg, ${set.differentialPressure.label}`, width: 100 },
+    { key: 'pressure', title: `P avg, ${set.staticPressure.label}`, width: 84 },
+    { key: 'temperature', title: `T avg, ${set.temperature.label}`, width: 68 },
+    { key: 'coverage', title: 'Coverage', width: 80 },
+    { key: 'flags', title: 'Flags', width: 160, align: 'left' },
+    { key: 'uncertainty', title: 'U (k = 2)', width: 80 },
+    { key: 'status', title: 'Status', width: 96, align: 'left' },
+  ];
+
+  const rows = (records.data ?? []).map((record, index) => ({
+    key: record.start,
+    testID: `hourly-row-${index}`,
+    cells: {
+      start: formatSiteTime(record.start, site.timeZone, 'HH:mm'),
+      flowTime: formatNumber(record.flowTimeS / 60, 3),
+      ...totalCells(record, set),
+      dp: record.averageDpPa === null ? '—' : formatNumber(differentialPressureForDisplay(record.averageDpPa, set)),
+      pressure: record.averagePressurePa === null ? '—' : formatNumber(staticPressureForDisplay(record.averagePressurePa, set, site.atmosphericPressurePa)),
+      temperature: record.averageTemperatureK === null ? '—' : formatNumber(temperatureForDisplay(record.averageTemperatureK, set), 3),
+      flags: <FlagList flags={record.flags} />,
+    },
+  }));
+
+  return (
+    <Panel title="Hourly records" testID="hourly-records">
+      <View style={styles.dayRow}>
+        <Button label="‹ Previous day" size="compact" onPress={() => setDay(contractDayOf(bounds.startMs - 1, site.timeZone, site.contractHour))} testID="hourly-previous-day" />
+        <AppText variant="bodyStrong" testID="hourly-day" style={styles.day}>
+          {`Contract day ${day} (${bounds.hours} h from ${formatSiteTime(bounds.startMs, site.timeZone, 'HH:mm ZZZZ')})`}
+        </AppText>
+        <Button
+          label="Next day ›"
+          size="compact"
+          disabled={day >= today}
+          onPress={() => setDay(contractDayOf(bounds.endMs, site.timeZone, site.contractHour))}
+          testID="hourly-next-day"
+        />
+      </View>
+      <QueryState isPending={records.isPending} error={records.error} onRetry={() => void records.refetch()} noun="hourly records" />
+      {records.data ? (
+        <DataTable
+          columns={columns}
+          rows={rows}
+          label={`Hourly records of contract day ${day}`}
+          emptyText="No hourly records for this contract day yet."
+          testID="hourly-table"
+        />
+      ) : null}
+      <AppText variant="caption" tone="muted">
+        Averages are flow-dependent: taken over the flowing time, with no-flow time left out. U: expanded uncertainty (k = 2) of the hour's quantity. Provisional: the hour is not over yet; closed: its month is locked. Times on the site's clock.
+      </AppText>
+    </Panel>
+  );
+}
+
+const styles = StyleSheet.create({
+  dayRow: { flexDirection: 'row', flexWrap: 'wrap', alignItems: 'center', gap: space.sm },
+  day: { flexShrink: 1 },
+});

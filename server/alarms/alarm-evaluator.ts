@@ -1,0 +1,279 @@
+/**
+ * Evaluates alarm conditions for meter runs: after each history recompute round (the history
+ * worker's onChange) and on the minute (the clock: stale transmitters, calibration dates,
+ * shelving that ran out).
+ *
+ * Per meter run a watermark is kept in alarm_evaluations: each round walks the readings after it
+ * in time order (shared/alarms/meter-run-alarm-walk.ts), in chunks, up to a horizon of
+ * min(latest reading, now − grace) — the grace lets a live reading that arrives a few seconds
+ * late still be judged in order — and stores the raises and clears at the readings' own times.
+ * The walk state (delay timers, the pair's choice) is saved with the watermark in the same
+ * transaction as the alarms, so the same readings never raise twice, even across restarts.
+ *
+ * Late data: a reading older than the watermark is not judged for alarms (the alarm log is
+ * append-only: what was announced stays as announced). It still goes into its hourly record, so
+ * totals, flags and range health include it, and a gap that it fills has already shown as a
+ * stale alarm. Hourly records are judged only once no hour before them waits in the recompute
+ * queue.
+ */
+import { EventEmitter } from 'node:events';
+import type { Pool, PoolClient } from 'pg';
+import { DateTime } from 'luxon';
+import { toSI } from '../../shared/units';
+import { initialAlarmWalkState, walkMeterRunAlarms, type AlarmWalkState, type WalkHour, type WalkReading, type WalkTransmitter } from '../../shared/alarms/meter-run-alarm-walk';
+import { alarmMessage } from '../../shared/alarms/alarm-message';
+import type { Quality } from '../../shared/history/types';
+import { loadMeterRunContext, type MeterRunContext } from '../history/load-context';
+import { applySignal, setClockCondition, unshelveExpired } from './alarm-store';
+import { limitsResolver, loadStoredLimits } from './limits-store';
+
+const qualityName: Quality[] = ['good', 'uncertain', 'bad', 'substituted'];
+const dayMs = 86_400_000;
+/** Readings walked per transaction, by time (bounds memory: a day at 1 Hz is 86 400 readings per transmitter). */
+const CHUNK_MS = dayMs / 4;
+
+export interface AlarmEvaluatorOptions {
+  /** A live reading this late is still judged in order (default 30 s). */
+  graceS?: number;
+  now?: () => number;
+}
+
+export class AlarmEvaluator extends EventEmitter {
+  private readonly running = new Map<string, Promise<void>>();
+  private readonly again = new Set<string>();
+  private readonly graceMs: number;
+  private readonly now: () => number;
+
+  constructor(
+    private readonly pool: Pool,
+    options: AlarmEvaluatorOptions = {},
+  ) {
+    super();
+    this.graceMs = (options.graceS ?? 30) * 1000;
+    this.now = options.now ?? Date.now;
+  }
+
+  /** The history worker recomputed these meter runs: judge their new readings (in the background). */
+  meterRunsChanged(meterRunIds: string[]) {
+    for (const id of meterRunIds) void this.evaluate(id).catch((err) => console.error(`[alarms] meter run ${id}:`, err));
+  }
+
+  /**
+   * Judges a meter run's readings up to the horizon; one evaluation per meter run at a time (a
+   * call during one queues one more round).
+   * @param meterRunId the meter run
+   * @param options clock: also judge stale by the clock
+   */
+  evaluate(meterRunId: string, options: { clock?: boolean } = {}): Promise<void> {
+    const current = this.running.get(meterRunId);
+    if (current) {
+      this.again.add(meterRunId);
+      return current.then(() => (this.running.get(meterRunId) ?? Promise.resolve()));
+    }
+    const run = (async () => {
+      try {
+        do {
+          this.again.delete(meterRunId);
+          await this.evaluateOnce(meterRunId, options.clock ?? false);
+        } while (this.again.has(meterRunId));
+      } finally {
+        this.running.delete(meterRunId);
+      }
+    })();
+    this.running.set(meterRunId, run);
+    return run;
+  }
+
+  /** The minute's work: every meter run judged with the clock, calibration dates, expired shelving. */
+  async tick(): Promise<void> {
+    const nowMs = this.now();
+    const unshelved = await unshelveExpired(this.pool, nowMs);
+    if (unshelved.length) this.emit('changed', unshelved);
+    const { rows } = await this.pool.query('SELECT id::text FROM meter_runs ORDER BY id');
+    for (const r of rows) {
+      try {
+        await this.evaluate(r.id, { clock: true });
+      } catch (err) {
+        console.error(`[alarms] meter run ${r.id}:`, err);
+      }
+    }
+    await this.evaluateCalibration(nowMs);
+  }
+
+  private async evaluateOnce(meterRunId: string, clock: boolean) {
+    const ctx = await loadMeterRunContext(this.pool, meterRunId);
+    if (!ctx) return;
+    const tag = (await this.pool.query('SELECT tag FROM meter_runs WHERE id = $1', [meterRunId])).rows[0]?.tag as string;
+    const tags = new Map((await this.pool.query('SELECT id::text, tag FROM transmitters WHERE meter_run_id = $1', [meterRunId])).rows.map((r) => [r.id as string, r.tag as string]));
+    const transmitters = walkTransmitters(ctx, tags);
+    const limits = limitsResolver(await loadStoredLimits(this.pool, meterRunId));
+    const latest: Record<string, number> = {};
+    let first = Infinity;
+    for (const t of transmitters) {
+      const { rows } = await this.pool.query('SELECT min(time) AS first, max(time) AS last FROM readings WHERE transmitter_id = $1', [t.id]);
+      if (rows[0].last) latest[t.id] = (rows[0].last as Date).getTime();
+      if (rows[0].first) first = Math.min(first, (rows[0].first as Date).getTime());
+    }
+    const nowMs = this.now();
+    const lastMs = Math.max(-Infinity, ...Object.values(latest));
+    const horizon = Math.min(lastMs, nowMs - this.graceMs);
+    const lookbackMs = this.lookbackMs(transmitters, limits, ctx);
+    const raisedIds: string[] = [];
+    const touchedIds: string[] = [];
+
+    for (let round = 0; round < 10_000; round++) {
+      const client = await this.pool.connect();
+      try {
+        await client.query('BEGIN');
+        const state = await this.lockState(client, meterRunId);
+        const watermark = state.watermarkMs ?? (Number.isFinite(first) ? first - 1 : null);
+        if (watermark === null) {
+          await client.query('ROLLBACK');
+          break; // no reading yet
+        }
+        const hasReadings = Number.isFinite(horizon) && horizon > watermark;
+        // Skip a stretch without readings in one step (sparse or back-filled data).
+        const next = hasReadings ? await this.nextReadingMs(client, transmitters, watermark) : null;
+        const chunkEnd = hasReadings ? Math.min(horizon, Math.max(watermark, (next ?? horizon) - 1) + CHUNK_MS) : watermark;
+        const lastChunk = !hasReadings || chunkEnd >= horizon;
+        const readings = hasReadings ? await this.loadReadings(client, ctx, watermark - lookbackMs, chunkEnd) : [];
+        const hours = await this.loadHours(client, meterRunId, state.recordsToMs, chunkEnd);
+        const walked = walkMeterRunAlarms({
+          state: { ...state, watermarkMs: watermark },
+          meterRunTag: tag,
+          transmitters,
+          readings,
+          hours,
+          horizonMs: chunkEnd,
+          clockMs: clock && lastChunk ? nowMs : undefined,
+          latestReadingMs: latest,
+          limits,
+          meterRun: { maxGapS: ctx.maxGapS, stackSwitchUpShare: ctx.stackSwitchUpShare, stackSwitchDownShare: ctx.stackSwitchDownShare },
+        });
+        for (const signal of walked.signals) {
+          const applied = await applySignal(client, meterRunId, signal, limits(signal.condition, signal.transmitterId).priority, nowMs);
+          if (applied) touchedIds.push(applied.alarmId);
+          if (applied?.raised) raisedIds.push(applied.alarmId);
+        }
+        await client.query('UPDATE alarm_evaluations SET state = $2, watermark = to_timestamp($3 / 1000.0), updated_at = now() WHERE meter_run_id = $1', [
+          meterRunId,
+          JSON.stringify(walked.state),
+          walked.state.watermarkMs,
+        ]);
+        await client.query('COMMIT');
+        if (lastChunk) break;
+      } catch (err) {
+        await client.query('ROLLBACK').catch(() => undefined);
+        throw err;
+      } finally {
+        client.release();
+      }
+    }
+    if (touchedIds.length) this.emit('changed', touchedIds);
+    if (raisedIds.length) this.emit('raised', raisedIds);
+  }
+
+  /** How far before the watermark readings are needed: the longest frozen window plus a sample's coverage. */
+  private lookbackMs(transmitters: WalkTransmitter[], limits: ReturnType<typeof limitsResolver>, ctx: MeterRunContext) {
+    const windows = transmitters.map((t) => (limits('frozen', t.id).windowS ?? 0) * 1000);
+    return Math.max(0, ...windows) + ctx.maxGapS * 1000;
+  }
+
+  private async nextReadingMs(client: PoolClient, transmitters: WalkTransmitter[], afterMs: number): Promise<number | null> {
+    let next = Infinity;
+    for (const t of transmitters) {
+      const { rows } = await client.query('SELECT time FROM readings WHERE transmitter_id = $1 AND time > to_timestamp($2 / 1000.0) ORDER BY time LIMIT 1', [t.id, afterMs]);
+      if (rows[0]) next = Math.min(next, (rows[0].time as Date).getTime());
+    }
+    return Number.isFinite(next) ? next : null;
+  }
+
+  private async lockState(client: PoolClient, meterRunId: string): Promise<AlarmWalkState> {
+    await client.query('INSERT INTO alarm_evaluations (meter_run_id, state) VALUES ($1, $2) ON CONFLICT (meter_run_id) DO NOTHING', [meterRunId, JSON.stringify(initialAlarmWalkState())]);
+    const { rows } = await client.query('SELECT state FROM alarm_evaluations WHERE meter_run_id = $1 FOR UPDATE', [meterRunId]);
+    return { ...initialAlarmWalkState(), ...(rows[0].state as AlarmWalkState) };
+  }
+
+  /** Readings of [fromMs, toMs] per transmitter in SI, plus the latest one before fromMs, merged in time order. */
+  private async loadReadings(client: PoolClient, ctx: MeterRunContext, fromMs: number, toMs: number): Promise<WalkReading[]> {
+    const out: WalkReading[] = [];
+    for (const t of ctx.transmitters) {
+      const { rows } = await client.query(
+        `(SELECT time, value, quality FROM readings WHERE transmitter_id = $1 AND time < to_timestamp($2 / 1000.0) ORDER BY time DESC LIMIT 1)
+         UNION ALL
+         (SELECT time, value, quality FROM readings WHERE transmitter_id = $1 AND time >= to_timestamp($2 / 1000.0) AND time <= to_timestamp($3 / 1000.0) ORDER BY time)`,
+        [t.id, fromMs, toMs],
+      );
+      const offset = t.measures === 'static-pressure' && t.pressureReference === 'gauge' ? ctx.atmosphericPressurePa : 0;
+      for (const r of rows) out.push({ transmitterId: t.id, timeMs: (r.time as Date).getTime(), value: toSI(r.value, t.unit) + offset, quality: qualityName[r.quality] ?? 'bad' });
+    }
+    return out.sort((a, b) => a.timeMs - b.timeMs);
+  }
+
+  /** Hourly records not yet judged, up to the horizon and before any hour still waiting to be recomputed. */
+  private async loadHours(client: PoolClient, meterRunId: string, fromMs: number | null, toMs: number): Promise<WalkHour[]> {
+    if (!Number.isFinite(toMs)) return [];
+    const { rows } = await client.query(
+      `SELECT start, "end", flow_time_s, flags FROM hourly_records h
+        WHERE meter_run_id = $1 AND start >= to_timestamp($2 / 1000.0) AND "end" <= to_timestamp($3 / 1000.0)
+          AND "end" <= coalesce((SELECT min(start) FROM stale_hours s WHERE s.meter_run_id = $1), 'infinity'::timestamptz)
+        ORDER BY start`,
+      [meterRunId, fromMs ?? 0, toMs],
+    );
+    return rows.map((r) => ({ startMs: (r.start as Date).getTime(), endMs: (r.end as Date).getTime(), flowTimeS: r.flow_time_s, flags: r.flags }));
+  }
+
+  /**
+   * Calibration due soon and overdue, by the date in the site's time zone: due from dueSoonDays
+   * before the due date up to and including it, overdue after it. Judged by the clock, not readings.
+   */
+  async evaluateCalibration(nowMs = this.now()) {
+    const { rows } = await this.pool.query(
+      `SELECT t.id::text, t.tag, t.meter_run_id::text, to_char(t.calibration_due, 'YYYY-MM-DD') AS due, s.time_zone
+         FROM transmitters t JOIN meter_runs m ON m.id = t.meter_run_id JOIN sites s ON s.id = m.site_id
+        WHERE t.calibration_due IS NOT NULL
+           OR EXISTS (SELECT 1 FROM alarms a WHERE a.transmitter_id = t.id AND a.condition IN ('calibration-due', 'calibration-overdue') AND a.state <> 'normal')`,
+    );
+    const raised: string[] = [];
+    const touched: string[] = [];
+    const byRun = new Map<string, ReturnType<typeof limitsResolver>>();
+    for (const r of rows) {
+      let limits = byRun.get(r.meter_run_id);
+      if (!limits) byRun.set(r.meter_run_id, (limits = limitsResolver(await loadStoredLimits(this.pool, r.meter_run_id))));
+      const today = DateTime.fromMillis(nowMs, { zone: r.time_zone }).toISODate()!;
+      const due: string | null = r.due;
+      const dueLimits = limits('calibration-due', r.id);
+      const overdueLimits = limits('calibration-overdue', r.id);
+      const soonFrom = due ? DateTime.fromISO(due).minus({ days: dueLimits.dueSoonDays ?? 14 }).toISODate()! : null;
+      const overdue = due !== null && today > due && overdueLimits.enabled;
+      const dueSoon = due !== null && soonFrom !== null && today >= soonFrom && today <= due && dueLimits.enabled;
+      const detail = { calibrationDue: due };
+      for (const [condition, holds, priority] of [
+        ['calibration-due', dueSoon, dueLimits.priority],
+        ['calibration-overdue', overdue, overdueLimits.priority],
+      ] as const) {
+        const applied = await setClockCondition(this.pool, r.meter_run_id, r.id, condition, holds, priority, alarmMessage(condition, r.tag, detail), detail, nowMs);
+        if (applied) touched.push(applied.alarmId);
+        if (applied?.raised) raised.push(applied.alarmId);
+      }
+    }
+    if (touched.length) this.emit('changed', touched);
+    if (raised.length) this.emit('raised', raised);
+  }
+}
+
+/** The meter run's transmitters with their ranges in SI (as the readings are converted). */
+function walkTransmitters(ctx: MeterRunContext, tags: Map<string, string>): WalkTransmitter[] {
+  return ctx.transmitters.map((t) => {
+    const offset = t.measures === 'static-pressure' && t.pressureReference === 'gauge' ? ctx.atmosphericPressurePa : 0;
+    return {
+      id: t.id,
+      tag: tags.get(t.id) ?? t.id,
+      measures: t.measures,
+      stackRole: t.stackRole,
+      lowerRangeSI: toSI(t.lowerRange, t.unit) + offset,
+      upperRangeSI: toSI(t.upperRange, t.unit) + offset,
+      accuracyPercentOfSpan: t.accuracyPercentOfSpan,
+    };
+  });
+}

@@ -1,0 +1,40 @@
+import { z } from 'zod';
+import { ALARM_CONDITIONS, ALARM_PRIORITIES, ALARM_STATES } from '../../../shared/alarms/alarm-codes';
+
+const id = (what: string) => z.string().regex(/^\d+$/, `must be a ${what} id`);
+const isoTime = z.iso.datetime({ offset: true, error: 'must be ISO 8601 with an offset or Z' });
+/** A comma-separated list of codes; "open" stands for every state but normal. */
+const allowedStates: readonly string[] = [...ALARM_STATES, 'open'];
+const splitList = (s: string) => s.split(',').map((x) => x.trim()).filter(Boolean);
+const stateList = z
+  .string()
+  .refine((s) => splitList(s).length > 0 && splitList(s).every((x) => allowedStates.includes(x)), `must be one or more of ${ALARM_STATES.join(', ')} or open, comma-separated`)
+  .transform((s) => splitList(s) as (typeof ALARM_STATES[number] | 'open')[]);
+
+export const alarmListQuery = z.object({
+  meterRunId: id('meter run').optional(),
+  siteId: id('site').optional(),
+  transmitterId: id('transmitter').optional(),
+  state: stateList.optional(),
+  condition: z.enum(ALARM_CONDITIONS, { error: `must be one of ${ALARM_CONDITIONS.join(', ')}` }).optional(),
+  priority: z.enum(ALARM_PRIORITIES, { error: `must be one of ${ALARM_PRIORITIES.join(', ')}` }).optional(),
+  from: isoTime.optional(),
+  to: isoTime.optional(),
+  limit: z.coerce.number().int().min(1).max(2000).default(500),
+  include: z.enum(['events'], { error: 'must be events' }).optional(),
+});
+
+export const countsQuery = z.object({ siteId: id('site').optional(), meterRunId: id('meter run').optional() });
+
+/** ISA-18.2: shelving is time-limited; a day at most here. */
+export const MAX_SHELVE_MINUTES = 1440;
+export const shelveBody = z
+  .object({
+    minutes: z.number({ error: 'must be a number of minutes' }).int('must be a whole number of minutes').min(1, 'must be at least 1').max(MAX_SHELVE_MINUTES, `must be at most ${MAX_SHELVE_MINUTES} (a day)`),
+    reason: z.string({ error: 'is required: say why the alarm is shelved' }).trim().min(1, 'is required: say why the alarm is shelved').max(500),
+  })
+  .strict();
+
+export const acknowledgeBody = z.object({ comment: z.string().trim().max(500).optional() }).strict();
+export const reasonBody = z.object({ reason: z.string({ error: 'is required' }).trim().min(1, 'is required').max(500) }).strict();
+export const optionalReasonBody = z.object({ reason: z.string().trim().max(500).optional() }).strict();

@@ -1,0 +1,41 @@
+/**
+ * The one-line message of a raised alarm, for lists, banners and mail: what is wrong, on which
+ * transmitter, with the number that tripped it and the limit.
+ */
+import type { AlarmCondition } from './alarm-codes';
+
+export type AlarmDetail = Record<string, number | string | null>;
+
+const pct = (share: unknown, digits = 1) => (typeof share === 'number' ? `${(share * 100).toFixed(digits)} %` : '?');
+const iso = (ms: unknown) => (typeof ms === 'number' ? new Date(ms).toISOString().replace('.000Z', 'Z') : '?');
+
+/**
+ * @param condition the condition raised
+ * @param subject the transmitter's tag, or the meter run's tag for meter-run conditions
+ * @param detail the numbers observed at the onset (shares as fractions, times as epoch ms)
+ * @returns a sentence
+ */
+export function alarmMessage(condition: AlarmCondition, subject: string, detail: AlarmDetail): string {
+  switch (condition) {
+    case 'dp-low-in-range':
+      return `${subject} reads ${pct(detail.shareOfSpan)} of its span, below ${pct(detail.thresholdShareOfSpan, 0)}, while it is the DP in use and there is flow: its error is a large share of the reading.`;
+    case 'dp-over-range':
+      return `${subject} reads ${pct(detail.shareOfSpan)} of its span, above ${pct(detail.thresholdShareOfSpan, 0)}: the DP is over range and flow is under-registered.`;
+    case 'stack-disagreement':
+      return `${subject}: the stacked DP pair differ by ${pct(detail.differenceShareOfLowSpan, 2)} of the low-range span in their overlap (tolerance ${pct(detail.toleranceShareOfSpan, 2)}).`;
+    case 'frozen':
+      return `${subject} shows no variation for ${Math.round(Number(detail.windowS) / 60)} min (${detail.count} readings, σ = ${pct(detail.stdDevShareOfSpan, 4)} of span): the transmitter may be frozen.`;
+    case 'stale':
+      return `${subject} has sent no reading since ${iso(detail.lastReadingMs)} (limit ${Math.round(Number(detail.maxAgeS) / 60)} min).`;
+    case 'bad-quality':
+      return `${subject} reports bad-quality readings.`;
+    case 'outside-standard-limits':
+      return `${subject} is outside the limits of its standard (Re_D, β, pressure ratio) in the hour from ${iso(detail.hourStartMs)}.`;
+    case 'calibration-due':
+      return `${subject} is due for calibration on ${detail.calibrationDue}.`;
+    case 'calibration-overdue':
+      return `${subject} is overdue for calibration (due ${detail.calibrationDue}).`;
+    default:
+      return `${subject}: ${condition}.`;
+  }
+}

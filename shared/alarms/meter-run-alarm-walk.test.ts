@@ -1,0 +1,173 @@
+import { effectiveAlarmLimits } from './alarm-limits';
+import type { AlarmCondition } from './alarm-codes';
+import { initialAlarmWalkState, walkMeterRunAlarms, type AlarmWalkInput, type WalkReading, type WalkTransmitter } from './meter-run-alarm-walk';
+
+/**
+ * Readings constructed by hand, one a minute; the expected raise and clear times follow from
+ * the limits (DP low in range below 10 % of span with a 300 s on-delay and 60 s off-delay and a
+ * 2 % deadband; the other defaults of alarm-limits.ts) and are worked out beside each check.
+ */
+const MIN = 60_000;
+const T0 = Date.parse('2026-10-01T00:00:00Z');
+const dp: WalkTransmitter = { id: 'dp', tag: 'FT-DP', measures: 'differential-pressure', stackRole: 'single', lowerRangeSI: 0, upperRangeSI: 50_000, accuracyPercentOfSpan: 0.075 };
+const pt: WalkTransmitter = { id: 'pt', tag: 'FT-PT', measures: 'static-pressure', stackRole: 'single', lowerRangeSI: 0, upperRangeSI: 4e6, accuracyPercentOfSpan: 0.075 };
+
+/** DP as a share of span for each minute from T0, with a little noise on P so P is never frozen. */
+function minutes(shares: number[], options: { quality?: (i: number) => WalkReading['quality']; skip?: (i: number) => boolean } = {}): WalkReading[] {
+  const out: WalkReading[] = [];
+  shares.forEach((share, i) => {
+    if (options.skip?.(i)) return;
+    const t = T0 + i * MIN;
+    out.push({ transmitterId: 'dp', timeMs: t, value: share * 50_000 + (i % 2) * 3, quality: options.quality?.(i) ?? 'good' });
+    out.push({ transmitterId: 'pt', timeMs: t, value: 2e6 + (i % 3) * 100, quality: 'good' });
+  });
+  return out;
+}
+
+function walk(readings: WalkReading[], over: Partial<AlarmWalkInput> = {}, overrides: Partial<Record<AlarmCondition, object>> = {}) {
+  return walkMeterRunAlarms({
+    state: initialAlarmWalkState(),
+    meterRunTag: 'MR-1',
+    transmitters: [dp, pt],
+    readings,
+    hours: [],
+    horizonMs: readings.length ? readings[readings.length - 1].timeMs : T0,
+    limits: (c) => effectiveAlarmLimits(c, overrides[c]),
+    meterRun: { maxGapS: 300, stackSwitchUpShare: 0.9, stackSwitchDownShare: 0.8 },
+    ...over,
+  });
+}
+
+const of = (signals: ReturnType<typeof walk>['signals'], condition: AlarmCondition) => signals.filter((s) => s.condition === condition);
+const repeat = (n: number, share: number) => new Array<number>(n).fill(share);
+
+describe('walkMeterRunAlarms: DP low in range', () => {
+  it('raises exactly one alarm for DP held at 5 % of span for 20 min, at onset + 300 s, and clears 60 s after DP rises', () => {
+    // 10 min at 40 %, 20 min at 5 % (from 00:10), then 40 % from 00:30.
+    const { signals } = walk(minutes([...repeat(10, 0.4), ...repeat(20, 0.05), ...repeat(10, 0.4)]));
+    const low = of(signals, 'dp-low-in-range');
+    expect(low.map((s) => [s.kind, new Date(s.timeMs).toISOString(), new Date(s.onsetMs).toISOString()])).toEqual([
+      ['raise', '2026-10-01T00:15:00.000Z', '2026-10-01T00:10:00.000Z'],
+      ['clear', '2026-10-01T00:31:00.000Z', '2026-10-01T00:30:00.000Z'],
+    ]);
+    expect(low[0].message).toMatch(/FT-DP reads 5\.0 % of its span, below 10 %/);
+    expect(low[0].transmitterId).toBe('dp');
+  });
+
+  it('raises nothing new while DP chatters between 9 % and 11.5 % (inside the 10–12 % deadband) after the raise', () => {
+    const chatter = Array.from({ length: 60 }, (_, i) => (i % 2 ? 0.115 : 0.09));
+    const { signals } = walk(minutes([...repeat(10, 0.05), ...chatter, ...repeat(5, 0.4)]));
+    expect(of(signals, 'dp-low-in-range').map((s) => s.kind)).toEqual(['raise', 'clear']);
+  });
+
+  it('raises nothing when DP crosses the limit back and forth faster than the on-delay (8 % / 15 % each minute)', () => {
+    const chatter = Array.from({ length: 60 }, (_, i) => (i % 2 ? 0.15 : 0.08));
+    expect(of(walk(minutes(chatter)).signals, 'dp-low-in-range')).toEqual([]);
+  });
+
+  it('raises nothing without flow (DP at zero)', () => {
+    expect(of(walk(minutes(repeat(30, 0))).signals, 'dp-low-in-range')).toEqual([]);
+  });
+
+  it('uses the limits set: 20 % threshold, no on-delay', () => {
+    const { signals } = walk(minutes([...repeat(5, 0.4), ...repeat(5, 0.15)]), {}, { 'dp-low-in-range': { thresholdShareOfSpan: 0.2, onDelayS: 0 } });
+    expect(of(signals, 'dp-low-in-range').map((s) => new Date(s.timeMs).toISOString())).toEqual(['2026-10-01T00:05:00.000Z']);
+  });
+
+  it('judges each reading once: two walks over halves give what one walk gives, and a repeat walk gives nothing', () => {
+    const readings = minutes([...repeat(10, 0.4), ...repeat(20, 0.05), ...repeat(10, 0.4)]);
+    const whole = walk(readings);
+    const cut = T0 + 17 * MIN + 30_000;
+    const first = walk(readings, { horizonMs: cut });
+    const second = walk(readings, { state: first.state });
+    expect([...first.signals, ...second.signals]).toEqual(whole.signals);
+    expect(walk(readings, { state: whole.state }).signals).toEqual([]);
+  });
+});
+
+describe('walkMeterRunAlarms: stacked pair', () => {
+  const lo: WalkTransmitter = { ...dp, id: 'lo', tag: 'FT-DPL', stackRole: 'low', upperRangeSI: 5_000 };
+  const hi: WalkTransmitter = { ...dp, id: 'hi', tag: 'FT-DPH', stackRole: 'high', upperRangeSI: 50_000 };
+  const pair = (lowPa: number[], highPa: number[]): WalkReading[] =>
+    lowPa.flatMap((v, i) => [
+      { transmitterId: 'lo', timeMs: T0 + i * MIN, value: v, quality: 'good' as const },
+      { transmitterId: 'hi', timeMs: T0 + i * MIN, value: highPa[i], quality: 'good' as const },
+    ]);
+
+  it('alarms the low-range transmitter when it is in use below 10 % of its own span, not the high one', () => {
+    // 300 Pa = 6 % of the 5 kPa low span (0.6 % of the high span, which is not in use).
+    const { signals } = walk(pair(repeat(20, 300), repeat(20, 310)), { transmitters: [lo, hi] });
+    expect(of(signals, 'dp-low-in-range').map((s) => [s.kind, s.transmitterId])).toEqual([['raise', 'lo']]);
+  });
+
+  it('finds the pair disagreeing in their overlap beyond 2 % of the low span (200 Pa apart on a 5 kPa span = 4 %)', () => {
+    const { signals } = walk(pair(repeat(20, 3000), repeat(20, 3200)), { transmitters: [lo, hi] });
+    const d = of(signals, 'stack-disagreement');
+    expect(d.map((s) => [s.kind, new Date(s.timeMs).toISOString()])).toEqual([['raise', '2026-10-01T00:05:00.000Z']]);
+    expect(d[0].detail.differenceShareOfLowSpan).toBeCloseTo(0.04, 12);
+  });
+
+  it('finds no disagreement within tolerance (50 Pa = 1 % of the low span)', () => {
+    expect(of(walk(pair(repeat(20, 3000), repeat(20, 3050)), { transmitters: [lo, hi] }).signals, 'stack-disagreement')).toEqual([]);
+  });
+});
+
+describe('walkMeterRunAlarms: frozen, stale, bad quality', () => {
+  it('finds a transmitter frozen once a full 30-min window shows the same value: at 00:41 for a value stuck from 00:10', () => {
+    const readings = minutes(repeat(60, 0.4)).map((r) => {
+      const i = (r.timeMs - T0) / MIN;
+      // Before 00:10 the DP varies; from 00:10 it repeats one value to the last digit.
+      return r.transmitterId === 'dp' ? { ...r, value: i < 10 ? 20_000 + (i % 3) * 50 : 20_100 } : r;
+    });
+    const frozen = of(walk(readings).signals, 'frozen');
+    // At 00:40 the window [00:10, 00:40] still starts with the 00:09 reading in force (20 000 Pa, live);
+    // at 00:41 the reading in force at 00:11 is the stuck one of 00:10, so every value is 20 100 Pa.
+    expect(frozen.map((s) => [s.kind, s.transmitterId, new Date(s.timeMs).toISOString()])).toEqual([['raise', 'dp', '2026-10-01T00:41:00.000Z']]);
+    // 31 readings in [00:11, 00:41] plus the one in force at 00:11 (00:10): 32.
+    expect(frozen[0].detail).toMatchObject({ count: 32, stdDevShareOfSpan: 0 });
+  });
+
+  it('finds a 20-min gap stale from last reading + 10 min to the next reading', () => {
+    const readings = minutes(repeat(40, 0.4), { skip: (i) => i > 10 && i < 31 });
+    const stale = of(walk(readings).signals, 'stale').filter((s) => s.transmitterId === 'dp');
+    expect(stale.map((s) => [s.kind, new Date(s.timeMs).toISOString()])).toEqual([
+      ['raise', '2026-10-01T00:20:00.000Z'],
+      ['clear', '2026-10-01T00:31:00.000Z'],
+    ]);
+  });
+
+  it('finds a transmitter stale by the clock when it has gone silent', () => {
+    const readings = minutes(repeat(10, 0.4));
+    const { signals } = walk(readings, { clockMs: T0 + 60 * MIN });
+    expect(of(signals, 'stale').map((s) => [s.transmitterId, new Date(s.timeMs).toISOString()])).toEqual([
+      ['dp', '2026-10-01T00:19:00.000Z'],
+      ['pt', '2026-10-01T00:19:00.000Z'],
+    ]);
+  });
+
+  it('raises bad quality 30 s after bad readings start and clears 60 s after good ones return', () => {
+    const readings = minutes(repeat(20, 0.4), { quality: (i) => (i >= 5 && i < 10 ? 'bad' : 'good') });
+    expect(of(walk(readings).signals, 'bad-quality').map((s) => [s.kind, new Date(s.timeMs).toISOString()])).toEqual([
+      ['raise', '2026-10-01T00:05:30.000Z'],
+      ['clear', '2026-10-01T00:11:00.000Z'],
+    ]);
+  });
+
+  it('raises outside-standard-limits from the hourly records and clears on the next flowing hour without the flag', () => {
+    const H = 3_600_000;
+    const hours = [
+      { startMs: T0, endMs: T0 + H, flowTimeS: 3600, flags: [] },
+      { startMs: T0 + H, endMs: T0 + 2 * H, flowTimeS: 3600, flags: ['outside-standard-limits'] },
+      { startMs: T0 + 2 * H, endMs: T0 + 3 * H, flowTimeS: 0, flags: [] },
+      { startMs: T0 + 3 * H, endMs: T0 + 4 * H, flowTimeS: 3600, flags: [] },
+    ];
+    const { signals, state } = walk([], { hours, horizonMs: T0 + 4 * H });
+    expect(of(signals, 'outside-standard-limits').map((s) => [s.kind, (s.timeMs - T0) / H])).toEqual([['raise', 1], ['clear', 3]]);
+    expect(state.recordsToMs).toBe(T0 + 4 * H);
+  });
+
+  it('raises nothing for a condition that is disabled', () => {
+    const { signals } = walk(minutes([...repeat(20, 0.05)]), {}, { 'dp-low-in-range': { enabled: false } });
+    expect(of(signals, 'dp-low-in-range')).toEqual([]);
+  });
+});
