@@ -1,5 +1,5 @@
-import { UpcomingScreen } from '@/components/screens/UpcomingScreen';
+import { DevicesScreen } from '@/components/screens/DevicesScreen';
 
 export default function DevicesRoute() {
-  return <UpcomingScreen area="devices" />;
+  return <DevicesScreen />;
 }

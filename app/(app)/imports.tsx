@@ -1,5 +1,5 @@
-import { UpcomingScreen } from '@/components/screens/UpcomingScreen';
+import { ImportsScreen } from '@/components/screens/ImportsScreen';
 
 export default function ImportsRoute() {
-  return <UpcomingScreen area="imports" />;
+  return <ImportsScreen />;
 }

@@ -1,5 +1,5 @@
-import { UpcomingScreen } from '@/components/screens/UpcomingScreen';
+import { LiveBoardScreen } from '@/components/screens/LiveBoardScreen';
 
 export default function LiveBoardRoute() {
-  return <UpcomingScreen area="live" />;
+  return <LiveBoardScreen />;
 }

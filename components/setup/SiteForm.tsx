@@ -1,0 +1,264 @@
+/**
+ * A site: code, name, time zone, contract hour, base conditions and atmospheric pressure, and
+ * the units its screens show. Pressures and temperatures are typed in the unit chosen beside
+ * them and sent in SI; the draft is checked with the server's own siteSchema before sending.
+ */
+import { useState } from 'react';
+import { StyleSheet, View } from 'react-native';
+
+import { Button } from '@/components/ui/Button';
+import { ChoiceGroup } from '@/components/ui/ChoiceGroup';
+import { Notice } from '@/components/ui/Notice';
+import { TextField } from '@/components/ui/TextField';
+import { space } from '@/constants/theme';
+import { useCreateSite, useUpdateSite, type SetupSite } from '@/hooks/api/setup';
+import { siteSchema } from '@/shared/schemas/setup';
+import { FieldRow } from './FieldRow';
+import { FormErrorSummary } from './FormErrorSummary';
+import { convertNumberText, fieldErrorFromServer, fieldErrorsFromZod, fieldTestID, numberText, parseNumberText, type FieldErrors } from './formFields';
+import { NumberField } from './NumberField';
+import {
+  absolutePressureUnits,
+  fromSI,
+  optionalToSI,
+  toSI,
+  temperatureUnits,
+  type AbsolutePressureUnit,
+  type TemperatureUnit,
+} from './unitChoices';
+
+interface SiteDraft {
+  code: string;
+  name: string;
+  timeZone: string;
+  contractHour: string;
+  basePressure: string;
+  basePressureUnit: AbsolutePressureUnit;
+  baseTemperature: string;
+  baseTemperatureUnit: TemperatureUnit;
+  atmosphericPressure: string;
+  atmosphericPressureUnit: AbsolutePressureUnit;
+  displayUnits: 'si' | 'us';
+}
+
+const labels: Record<string, string> = {
+  code: 'Code',
+  name: 'Name',
+  timeZone: 'Time zone',
+  contractHour: 'Contract hour',
+  basePressurePa: 'Base pressure',
+  baseTemperatureK: 'Base temperature',
+  atmosphericPressurePa: 'Atmospheric pressure',
+  displayUnits: 'Units on screen',
+};
+
+const displayUnitOptions = [
+  { value: 'si' as const, label: 'SI (kPa, °C, m³, t)' },
+  { value: 'us' as const, label: 'US customary (psi, °F, Mscf)' },
+];
+
+function browserTimeZone(): string {
+  try {
+    return Intl.DateTimeFormat().resolvedOptions().timeZone || 'UTC';
+  } catch {
+    return 'UTC';
+  }
+}
+
+/** A new site starts at the ISO 13443 standard reference conditions, 15 °C and 101.325 kPa (common practice). */
+function emptyDraft(): SiteDraft {
+  return {
+    code: '',
+    name: '',
+    timeZone: browserTimeZone(),
+    contractHour: '6',
+    basePressure: '101.325',
+    basePressureUnit: 'kPa',
+    baseTemperature: '15',
+    baseTemperatureUnit: 'degC',
+    atmosphericPressure: '101.325',
+    atmosphericPressureUnit: 'kPa',
+    displayUnits: 'si',
+  };
+}
+
+function draftFromSite(site: SetupSite): SiteDraft {
+  const us = site.displayUnits === 'us';
+  const pressureUnit: AbsolutePressureUnit = us ? 'psi' : 'kPa';
+  const temperatureUnit: TemperatureUnit = us ? 'degF' : 'degC';
+  return {
+    code: site.code,
+    name: site.name,
+    timeZone: site.timeZone,
+    contractHour: String(site.contractHour),
+    basePressure: numberText(fromSI(site.basePressurePa, pressureUnit)),
+    basePressureUnit: pressureUnit,
+    baseTemperature: numberText(fromSI(site.baseTemperatureK, temperatureUnit)),
+    baseTemperatureUnit: temperatureUnit,
+    atmosphericPressure: numberText(fromSI(site.atmosphericPressurePa, pressureUnit)),
+    atmosphericPressureUnit: pressureUnit,
+    displayUnits: site.displayUnits,
+  };
+}
+
+function bodyFrom(draft: SiteDraft) {
+  return {
+    code: draft.code,
+    name: draft.name,
+    timeZone: draft.timeZone.trim(),
+    contractHour: parseNumberText(draft.contractHour),
+    basePressurePa: optionalToSI(parseNumberText(draft.basePressure), draft.basePressureUnit),
+    baseTemperatureK: optionalToSI(parseNumberText(draft.baseTemperature), draft.baseTemperatureUnit),
+    atmosphericPressurePa: optionalToSI(parseNumberText(draft.atmosphericPressure), draft.atmosphericPressureUnit),
+    displayUnits: draft.displayUnits,
+  };
+}
+
+interface SiteFormProps {
+  /** The site to edit; a new site when absent. */
+  site?: SetupSite;
+  onDone?: (site: SetupSite) => void;
+  onCancel?: () => void;
+}
+
+export function SiteForm({ site, onDone, onCancel }: SiteFormProps) {
+  const create = useCreateSite();
+  const update = useUpdateSite();
+  const mutation = site ? update : create;
+  const prefix = site ? 'site-edit' : 'site-create';
+  const [draft, setDraft] = useState<SiteDraft>(() => (site ? draftFromSite(site) : emptyDraft()));
+  const [errors, setErrors] = useState<FieldErrors>({});
+  const [saved, setSaved] = useState<string | null>(null);
+
+  const edit = <K extends keyof SiteDraft>(key: K, value: SiteDraft[K]) => {
+    setDraft((current) => ({ ...current, [key]: value }));
+    setSaved(null);
+    if (mutation.error) mutation.reset();
+  };
+
+  /** A new unit for a value field: the typed number is converted so the quantity stays the same. */
+  const changeUnit = <V extends 'basePressure' | 'baseTemperature' | 'atmosphericPressure'>(field: V, unit: SiteDraft[`${V}Unit`]) => {
+    setDraft((current) => {
+      const from = current[`${field}Unit`];
+      return { ...current, [`${field}Unit`]: unit, [field]: convertNumberText(current[field], (value) => fromSI(toSI(value, from), unit)) };
+    });
+  };
+
+  const submit = () => {
+    const body = bodyFrom(draft);
+    const parsed = siteSchema.safeParse(body);
+    if (!parsed.success) {
+      setErrors(fieldErrorsFromZod(parsed.error));
+      return;
+    }
+    setErrors({});
+    const onSuccess = (result: SetupSite) => {
+      setSaved(site ? `Saved ${result.code}.` : `Added ${result.code} · ${result.name}.`);
+      if (!site) setDraft(emptyDraft());
+      onDone?.(result);
+    };
+    if (site) {
+      // The code names the site in every MQTT topic: it stays as it was created.
+      const { code: _code, ...change } = parsed.data;
+      update.mutate({ id: site.id, change }, { onSuccess });
+    } else {
+      create.mutate(parsed.data, { onSuccess });
+    }
+  };
+
+  const serverErrors = fieldErrorFromServer(mutation.error);
+  const shown: FieldErrors = { ...serverErrors, ...errors };
+  const general = mutation.error && !serverErrors ? mutation.error.message : null;
+  const id = (key: string) => fieldTestID(prefix, key);
+
+  return (
+    <View style={styles.form} testID={prefix}>
+      {saved ? <Notice testID={`${prefix}-done`}>{saved}</Notice> : null}
+      <FormErrorSummary errors={shown} labels={labels} general={general} testID={`${prefix}-errors`} />
+      <FieldRow>
+        <View style={styles.field}>
+          <TextField
+            label="Code"
+            value={draft.code}
+            onChangeText={(text) => edit('code', text)}
+            error={shown.code}
+            hint={site ? 'Part of every MQTT topic of the site: it cannot be changed.' : 'Short, e.g. KFG. It becomes part of MQTT topics.'}
+            testID={id('code')}
+            autoCapitalize="characters"
+            autoCorrect={false}
+            editable={!site}
+          />
+        </View>
+        <View style={styles.field}>
+          <TextField label="Name" value={draft.name} onChangeText={(text) => edit('name', text)} error={shown.name} testID={id('name')} />
+        </View>
+      </FieldRow>
+      <FieldRow>
+        <View style={styles.field}>
+          <TextField
+            label="Time zone"
+            value={draft.timeZone}
+            onChangeText={(text) => edit('timeZone', text)}
+            error={shown.timeZone}
+            hint="IANA name, e.g. America/Denver: contract days follow its daylight-saving rules."
+            testID={id('timeZone')}
+            autoCapitalize="none"
+            autoCorrect={false}
+          />
+        </View>
+        <NumberField
+          label="Contract hour"
+          value={draft.contractHour}
+          onChangeText={(text) => edit('contractHour', text)}
+          error={shown.contractHour}
+          hint="0–23, local time: when the contract day starts."
+          testID={id('contractHour')}
+        />
+      </FieldRow>
+      <FieldRow>
+        <NumberField
+          label="Base pressure"
+          value={draft.basePressure}
+          onChangeText={(text) => edit('basePressure', text)}
+          units={absolutePressureUnits}
+          unit={draft.basePressureUnit}
+          onChangeUnit={(unit) => changeUnit('basePressure', unit)}
+          error={shown.basePressurePa}
+          testID={id('basePressurePa')}
+        />
+        <NumberField
+          label="Base temperature"
+          value={draft.baseTemperature}
+          onChangeText={(text) => edit('baseTemperature', text)}
+          units={temperatureUnits}
+          unit={draft.baseTemperatureUnit}
+          onChangeUnit={(unit) => changeUnit('baseTemperature', unit)}
+          error={shown.baseTemperatureK}
+          testID={id('baseTemperatureK')}
+        />
+        <NumberField
+          label="Atmospheric pressure"
+          value={draft.atmosphericPressure}
+          onChangeText={(text) => edit('atmosphericPressure', text)}
+          units={absolutePressureUnits}
+          unit={draft.atmosphericPressureUnit}
+          onChangeUnit={(unit) => changeUnit('atmosphericPressure', unit)}
+          error={shown.atmosphericPressurePa}
+          hint="Local, for gauge transmitters (lower at altitude)."
+          testID={id('atmosphericPressurePa')}
+        />
+      </FieldRow>
+      <ChoiceGroup label="Units on screen" options={displayUnitOptions} value={draft.displayUnits} onChange={(value) => edit('displayUnits', value)} testIDPrefix={id('displayUnits')} />
+      <View style={styles.actions}>
+        <Button label={site ? 'Save site' : 'Add site'} variant="primary" onPress={submit} busy={mutation.isPending} testID={`${prefix}-submit`} />
+        {onCancel ? <Button label="Cancel" variant="quiet" onPress={onCancel} /> : null}
+      </View>
+    </View>
+  );
+}
+
+const styles = StyleSheet.create({
+  form: { gap: space.md },
+  field: { flexGrow: 1, flexBasis: 200, minWidth: 160 },
+  actions: { flexDirection: 'row', gap: space.sm, flexWrap: 'wrap' },
+});

@@ -1,0 +1,118 @@
+/**
+ * A primary element as typed in a form (text, diameters in mm or inches) and back: the draft
+ * becomes the element of a calculation case (shared/schemas/flow-case.ts elementSpecSchema,
+ * diameters in metres), which the shared schema then checks.
+ */
+import type { ElementKind, ElementSpec, MaterialName, NozzleType, OrificeTaps, VenturiType } from '@/shared/flow/flow-types';
+import { numberText, parseNumberText } from './formFields';
+import { fromSI, lengthFromMetres, lengthToMetres, optionalToSI, type LengthUnit } from './unitChoices';
+
+export interface ElementDraft {
+  kind: ElementKind;
+  taps: OrificeTaps;
+  venturiType: VenturiType;
+  nozzleType: NozzleType;
+  lengthUnit: LengthUnit;
+  pipeDiameter: string;
+  boreDiameter: string;
+  coneDiameter: string;
+  /** Optional fixed C; empty for the standard's equation (or a cone's calibration). */
+  dischargeCoefficient: string;
+  /** Optional calibration curve, one "Re_D, C" pair per line. */
+  calibration: string;
+  pipeMaterial: MaterialName | '';
+  elementMaterial: MaterialName | '';
+  /** Temperature the diameters were measured at, °C; empty for 20 °C. */
+  referenceTemperatureC: string;
+}
+
+export const emptyElementDraft: ElementDraft = {
+  kind: 'orifice',
+  taps: 'flange',
+  venturiType: 'machined',
+  nozzleType: 'isa-1932',
+  lengthUnit: 'mm',
+  pipeDiameter: '',
+  boreDiameter: '',
+  coneDiameter: '',
+  dischargeCoefficient: '',
+  calibration: '',
+  pipeMaterial: '',
+  elementMaterial: '',
+  referenceTemperatureC: '',
+};
+
+/**
+ * @param text one "Re_D, C" pair per line (commas, semicolons, tabs or spaces between)
+ * @returns the points, with NaN where a line does not hold two numbers (the schema names it)
+ */
+export function parseCalibration(text: string): { reynoldsNumber: number; dischargeCoefficient: number }[] | undefined {
+  const lines = text.split(/\r?\n/).map((line) => line.trim()).filter(Boolean);
+  if (lines.length === 0) return undefined;
+  return lines.map((line) => {
+    const [re, c, extra] = line.split(/[\s,;]+/);
+    const reynoldsNumber = parseNumberText(re ?? '');
+    const dischargeCoefficient = parseNumberText(c ?? '');
+    return {
+      reynoldsNumber: extra === undefined && reynoldsNumber !== undefined ? reynoldsNumber : Number.NaN,
+      dischargeCoefficient: extra === undefined && dischargeCoefficient !== undefined ? dischargeCoefficient : Number.NaN,
+    };
+  });
+}
+
+/**
+ * @param draft the form's element
+ * @returns the element spec to validate and send (diameters in metres)
+ */
+export function elementFromDraft(draft: ElementDraft): Partial<ElementSpec> {
+  const length = (text: string) => lengthToMetres(parseNumberText(text), draft.lengthUnit);
+  const spec: Partial<ElementSpec> = { kind: draft.kind, pipeDiameterM: length(draft.pipeDiameter) };
+  if (draft.kind === 'orifice') spec.taps = draft.taps;
+  if (draft.kind === 'venturi') spec.venturiType = draft.venturiType;
+  if (draft.kind === 'nozzle') spec.nozzleType = draft.nozzleType;
+  if (draft.kind === 'cone') spec.coneDiameterM = length(draft.coneDiameter);
+  else spec.boreDiameterM = length(draft.boreDiameter);
+  const fixedC = parseNumberText(draft.dischargeCoefficient);
+  if (fixedC !== undefined) spec.dischargeCoefficient = fixedC;
+  const calibration = parseCalibration(draft.calibration);
+  if (calibration) spec.calibration = calibration;
+  if (draft.pipeMaterial) spec.pipeMaterial = draft.pipeMaterial;
+  if (draft.elementMaterial) spec.elementMaterial = draft.elementMaterial;
+  const referenceK = optionalToSI(parseNumberText(draft.referenceTemperatureC), 'degC');
+  if (referenceK !== undefined) spec.referenceTemperatureK = referenceK;
+  return spec;
+}
+
+/**
+ * @param element an element as the server stores it
+ * @param lengthUnit the unit to show its diameters in
+ * @returns the form's draft of it
+ */
+export function draftFromElement(element: ElementSpec, lengthUnit: LengthUnit): ElementDraft {
+  const length = (metres: number | undefined) => (metres === undefined ? '' : numberText(lengthFromMetres(metres, lengthUnit)));
+  return {
+    ...emptyElementDraft,
+    kind: element.kind,
+    taps: element.taps ?? emptyElementDraft.taps,
+    venturiType: element.venturiType ?? emptyElementDraft.venturiType,
+    nozzleType: element.nozzleType ?? emptyElementDraft.nozzleType,
+    lengthUnit,
+    pipeDiameter: length(element.pipeDiameterM),
+    boreDiameter: length(element.boreDiameterM),
+    coneDiameter: length(element.coneDiameterM),
+    dischargeCoefficient: numberText(element.dischargeCoefficient),
+    calibration: (element.calibration ?? []).map((point) => `${point.reynoldsNumber}, ${point.dischargeCoefficient}`).join('\n'),
+    pipeMaterial: element.pipeMaterial ?? '',
+    elementMaterial: element.elementMaterial ?? '',
+    referenceTemperatureC: element.referenceTemperatureK === undefined ? '' : numberText(fromSI(element.referenceTemperatureK, 'degC')),
+  };
+}
+
+/** @returns a line such as "orifice, flange taps, D 102.3 mm, d 51.1 mm" for lists */
+export function describeElement(element: ElementSpec | undefined, lengthUnit: LengthUnit): string {
+  if (!element) return 'no element';
+  const length = (metres: number | undefined) => (metres === undefined ? '?' : `${numberText(Number(lengthFromMetres(metres, lengthUnit).toPrecision(5)))} ${lengthUnit}`);
+  const subtype = element.taps ? `${element.taps} taps` : (element.venturiType ?? element.nozzleType);
+  const inner = element.kind === 'cone' ? `cone ${length(element.coneDiameterM)}` : `d ${length(element.boreDiameterM)}`;
+  return [element.kind, subtype, `D ${length(element.pipeDiameterM)}`, inner].filter(Boolean).join(', ');
+}
