@@ -6,6 +6,7 @@ const base = {
   transform: { '^.+\\.tsx?$': tsJest },
   moduleFileExtensions: ['ts', 'tsx', 'js', 'json'],
   moduleNameMapper: { '^@/(.*)$': '<rootDir>/$1' },
+  setupFiles: ['<rootDir>/tests/support/fast-check-seed.ts'],
 };
 module.exports = {
   // Tests that go through the broker, the history worker or a browser wait on real work.

@@ -50,7 +50,11 @@ export function createApp(options: AppOptions): Express {
     ['/auth', authRouter({ ...options, authenticate })],
   ];
   const { services, sequelize } = options;
-  const setupChanged = () => services.catalog.invalidate();
+  // A set-up change reaches ingest (the transmitter catalog) and the live board at once.
+  const setupChanged = () => {
+    services.catalog.invalidate();
+    services.live.readingsStored([]);
+  };
   const signedInRoutes: [string, Router][] = [
     ['/users', usersRouter(sequelize)],
     ['/audit-events', auditEventsRouter()],
@@ -65,7 +69,13 @@ export function createApp(options: AppOptions): Express {
     })],
     ['/meter-runs', meterRunHistoryRouter(services.pool)],
     ['/transmitters', transmittersRouter(sequelize, { changed: setupChanged })],
-    ['/devices', devicesRouter(sequelize, { credentialsChanged: () => services.deviceAuth.forget() })],
+    ['/devices', devicesRouter(sequelize, {
+      credentialsChanged: (username) => {
+        services.deviceAuth.forget();
+        // A disabled device is cut off now, not when it next signs in.
+        services.brokerControl.disconnect(username);
+      },
+    })],
     ['/imports', importsRouter({ pool: services.pool, uploadDir: services.uploadDir, maxBytes: options.maxUploadBytes ?? 200e6, jobs: services.imports })],
     ['/readings', readingsRouter(services.pool)],
     ['/live', liveRouter(new LiveBoard(services.pool), services.live)],

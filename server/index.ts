@@ -61,6 +61,7 @@ export async function startServer(env: Env = readEnv()): Promise<RunningServer> 
         authenticate: (username, password) => services.deviceAuth.authenticate(username, password),
         onPublish: (device, topic, payload) => services.mqttIngest(device, topic, payload),
       });
+  if ('disconnect' in broker) services.brokerControl.disconnect = (username) => broker.disconnect(username);
   const smtp = await startSmtpStandIn({ host: env.HOST, port: env.SMTP_PORT });
   // Alarm mail through the stand-in (issue 5): new alarms soon after they are raised, digests and
   // clock-judged conditions (stale, calibration, shelving over) on the minute.

@@ -34,7 +34,10 @@ export function createServices(options: { databaseUrl: string; sequelize: Sequel
     readings: (id: string, file: string) => importReadingsCsv({ pool, catalog, writer, onStored: stored }, id, file),
     fieldTotals: (id: string, file: string) => importFieldTotalsCsv({ pool }, id, file),
   };
+  /** Set by startServer once the embedded broker runs: drops the connections of a device. */
+  const brokerControl = { disconnect: (_username: string) => {} };
   return {
+    brokerControl,
     pool,
     catalog,
     writer,

@@ -10,7 +10,8 @@ import path from 'node:path';
 export function serveWebClient(app: Express, webDir: string) {
   const root = path.resolve(webDir);
   if (!fs.existsSync(path.join(root, 'index.html'))) return false;
-  app.use(express.static(root, { extensions: ['html'], index: 'index.html', maxAge: '1h' }));
+  // redirect: false — /setup must not become /setup/ when a folder of the same name exists.
+  app.use(express.static(root, { extensions: ['html'], index: 'index.html', maxAge: '1h', redirect: false }));
   app.get('/{*splat}', (req, res, next) => {
     if (req.path.startsWith('/api/')) return next();
     const segments = req.path.split('/').filter(Boolean);
@@ -19,6 +20,8 @@ export function serveWebClient(app: Express, webDir: string) {
     for (let i = 0; i < segments.length; i++) {
       const last = i === segments.length - 1;
       const entries = fs.existsSync(dir) ? fs.readdirSync(dir) : [];
+      // A folder route (meter-runs/index.html) answers for its own path too.
+      if (last && entries.includes(segments[i]) && fs.existsSync(path.join(dir, segments[i], 'index.html'))) return res.sendFile(path.join(dir, segments[i], 'index.html'));
       const literal = last ? `${segments[i]}.html` : segments[i];
       const dynamic = entries.find((e) => /^\[.+\]/.test(e) && (last ? e.endsWith('.html') : !e.endsWith('.html')));
       const pick = entries.includes(literal) ? literal : dynamic;

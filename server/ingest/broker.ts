@@ -11,6 +11,8 @@ export interface EmbeddedBroker {
   port: number;
   isUp(): boolean;
   close(): Promise<void>;
+  /** Closes every connection signed in as this device username. */
+  disconnect(username: string): void;
   /** The aedes instance, for in-process subscribers (live views) and hooks. */
   aedes: import('aedes').Aedes;
 }
@@ -40,7 +42,7 @@ export async function startEmbeddedBroker(options: {
       .authenticate(username, password.toString('utf8'))
       .then((device) => {
         if (!device) return fail();
-        (client as unknown as { device: unknown }).device = device;
+        (client as unknown as { device: unknown }).device = { ...device, username };
         done(null, true);
       })
       .catch(() => fail());
@@ -74,6 +76,10 @@ export async function startEmbeddedBroker(options: {
   return {
     port,
     aedes,
+    disconnect(username: string) {
+      const clients = (aedes as unknown as { clients: Record<string, { close(): void; device?: { username?: string } }> }).clients;
+      for (const client of Object.values(clients)) if (client.device?.username === username) client.close();
+    },
     isUp: () => server.listening && !aedes.closed,
     close: () =>
       new Promise<void>((resolve) => {

@@ -25,7 +25,7 @@ const present = (d: Device, siteCode?: string) => ({
 });
 
 /** Device credentials (admin): the password is shown once, at creation, and stored only as a hash. */
-export function devicesRouter(sequelize: Sequelize, hooks: { credentialsChanged(): void }) {
+export function devicesRouter(sequelize: Sequelize, hooks: { credentialsChanged(username: string): void }) {
   const router = Router();
   router.use(requireCapability('administer'));
 
@@ -58,7 +58,8 @@ export function devicesRouter(sequelize: Sequelize, hooks: { credentialsChanged(
       await device.update(patch, { transaction });
       await recordAuditEvent({ actor: req.user!, action: 'device.update', entityType: 'device', entityId: String(device.id), before, after: present(device) }, transaction);
     });
-    hooks.credentialsChanged();
+    if (patch.disabled) hooks.credentialsChanged(device.username);
+    else hooks.credentialsChanged('');
     res.json(present(device));
   });
 
