@@ -94,3 +94,43 @@ describe('computeHour additivity (fast-check)', () => {
     expect(withStackSwitch).toBeGreaterThan(20);
   });
 });
+
+describe('computeHour additivity (counterexamples found by fast-check)', () => {
+  it('chooses a stacked pair again when a new reading arrives exactly at the hour boundary, so the second hour covers 915 s as the 2-hour period does (seed 1699624194)', () => {
+    // The shrunk counterexample, times in s from START_MS. Low-range (0–25 kPa) reads 0 except
+    // 22501 Pa exactly at the boundary (3600 s), then 0 every second to 3620 s; the high-range
+    // one reads 0, last at 2706 s, so with maxGapS 895 it covers until 3601 s. P and T only at
+    // −199…−195 s with holdLimitS 30: stale in both hours, so any DP above the cutoff is missing time.
+    const at = (offsetsS: number[], value: (offsetS: number) => number): Sample[] =>
+      offsetsS.map((o) => ({ timeMs: START_MS + o * 1000, value: value(o), quality: 'good' }));
+    const lowS = [-127, 45, 216, 404, 627, 716, 818, 1002, 1140, 1294, 1374, 1425, 1656, 1770, 1776, 1778, 1902, 2108, 2341, 2418, 2538, 2554, 2668, 2880, 3100, 3220, 3375, 3577, 3583];
+    const everySecond = Array.from({ length: 21 }, (_, i) => 3600 + i);
+    const highS = [-144, -64, 173, 330, 401, 566, 692, 837, 994, 1194, 1274, 1360, 1504, 1671, 1822, 2002, 2240, 2327, 2549, 2706];
+    const s: Scenario = {
+      low: at([...lowS, ...everySecond], (o) => (o === 3600 ? 22501 : 0)),
+      high: at(highS, () => 0),
+      stacked: true,
+      pressure: at([-199, -198, -197, -196, -195], () => 300000),
+      temperature: at([-199, -198, -197, -196, -195], () => 280),
+      holdLimitS: 30,
+      maxGapS: 895,
+      versionChangeS: undefined,
+    };
+    const whole = computeHour(inputsFor(s, START_MS, START_MS + 2 * HOUR_MS));
+    const first = computeHour(inputsFor(s, START_MS, START_MS + HOUR_MS));
+    const second = computeHour(inputsFor(s, START_MS + HOUR_MS, START_MS + 2 * HOUR_MS, first.finalStackChoice ?? undefined));
+    // Worked by hand: no two low samples are 895 s apart, so the low one covers the first hour,
+    // reading 0 (≤ 90 % of 25 kPa): on 'lo', no flow, covered. At 3600 s, 22501 Pa > 22500 Pa
+    // switches up from 'lo' to 'hi' (0 Pa: no flow, covered) until the high expires at 3601 s;
+    // then 'lo' (0 Pa) until the last low sample (3620 s) expires at 3620 + 895 = 4515 s.
+    expect(first.finalStackChoice).toBe('low');
+    expect(first.activeTransmitterTimeS).toEqual({ lo: 3600 });
+    expect(second.activeTransmitterTimeS).toEqual({ hi: 1, lo: 914 });
+    expect(coveredS(second, 3600)).toBeCloseTo(915, 9);
+    expect(coveredS(whole, 7200)).toBeCloseTo(3600 + 915, 9);
+    expect(whole.activeTransmitterTimeS).toEqual({ hi: 1, lo: 4514 });
+    expect(whole.flowTimeS).toBe(0);
+    expect(second.flowTimeS).toBe(0);
+    expect(whole.finalStackChoice).toBe(second.finalStackChoice);
+  });
+});

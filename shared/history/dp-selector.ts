@@ -83,6 +83,16 @@ export function dpSelector(dp: readonly DpSeries[], options: DpSelectorOptions):
   let lastLow: Sample | null = null;
   let lastHigh: Sample | null = null;
   let lastSelection: DpSelection = { series: null, sample: null, badSampleInForce: false };
+  /**
+   * The sample in force just before a time (the previous hour's last piece): the latest one
+   * before it, if its coverage reaches the time (it covers [t, t + maxGap)). HourInputs.dp
+   * includes the latest sample before startMs, so an hour knows it without the previous hour.
+   */
+  const inForceJustBefore = (samples: readonly Sample[], timeMs: number): Sample | null => {
+    let j = samples.length - 1;
+    while (j >= 0 && !(samples[j].timeMs < timeMs)) j--;
+    return j >= 0 && samples[j].timeMs + options.maxGapMs >= timeMs ? samples[j] : null;
+  };
   const reading = (s: Sample | null): StackedReading | null => (s === null ? null : { valuePa: s.value, quality: s.quality });
   const selectionOf = (use: StackChoice | null, lowSample: Sample | null, highSample: Sample | null): DpSelection => {
     const badSampleInForce = lowSample?.quality === 'bad' || highSample?.quality === 'bad';
@@ -99,9 +109,12 @@ export function dpSelector(dp: readonly DpSeries[], options: DpSelectorOptions):
       const lowReading = reading(lowSample);
       const highReading = reading(highSample);
       let use = chooseStackedTransmitter(lowReading, highReading, previous, config).use;
-      if (first && previous !== null && use !== previous) {
-        // The previous hour ended on `previous`, chosen on these same readings if no new one came
-        // since: keep it when some history could have chosen it for this pair.
+      if (first && previous !== null && use !== previous && lowSample === inForceJustBefore(low.samples, timeMs) && highSample === inForceJustBefore(high.samples, timeMs)) {
+        // The previous hour ended on `previous`, chosen on these same readings (the pair in force
+        // just before this hour is still in force): a continuous walk would not choose again
+        // here, so keep it when some history could have chosen it for this pair. When a new
+        // reading arrives exactly at the boundary, the choice is made on it from `previous`, as
+        // a continuous walk would.
         const other: StackChoice = previous === 'low' ? 'high' : 'low';
         const reachable = [other, null].some((before) => chooseStackedTransmitter(lowReading, highReading, before, config).use === previous);
         if (reachable) use = previous;

@@ -56,7 +56,12 @@ export interface HourInputs {
   /** Hysteresis of a stacked pair, shares of the low-range transmitter's span (e.g. 0.9 / 0.8). */
   stackSwitchUpShare: number;
   stackSwitchDownShare: number;
-  /** The transmitter in use at the end of the previous hour (the previous record's finalStackChoice). */
+  /**
+   * The transmitter in use at the end of the previous hour (the previous record's finalStackChoice).
+   * It is kept at startMs only while the pair of readings in force just before startMs is still in
+   * force (found from the latest sample before startMs that dp includes); a reading arriving at
+   * startMs is chosen on from it, as in a computation that runs through the boundary.
+   */
   initialStackChoice?: 'low' | 'high';
 }
 
