@@ -13,6 +13,7 @@ export const areaKeys = [
   'imports',
   'setup',
   'range-check',
+  'range-health',
   'corrections',
   'audit',
   'users',
@@ -50,6 +51,8 @@ const entries: readonly AreaEntry[] = [
   { key: 'setup', title: 'Set-up', shortTitle: 'Set-up', href: '/setup', capability: 'configure', primary: false, group: 'engineering' },
   // Finding readings low in range is part of keeping transmitters right: the set-up people's job.
   { key: 'range-check', title: 'Range check', shortTitle: 'Range', href: '/range-check', capability: 'configure', primary: false, group: 'engineering' },
+  // How a meter run's recorded flow sat in its DP span, and what to change: the same people's job.
+  { key: 'range-health', title: 'Range health', shortTitle: 'Health', href: '/range-health', capability: 'configure', primary: false, group: 'engineering' },
   { key: 'corrections', title: 'Corrections', shortTitle: 'Corrections', href: '/corrections', capability: 'proposeCorrection', primary: false, group: 'engineering' },
   { key: 'audit', title: 'Audit log', shortTitle: 'Audit', href: '/audit', capability: 'readAuditLog', primary: false, group: 'administration' },
   { key: 'users', title: 'Users', shortTitle: 'Users', href: '/users', capability: 'administer', primary: false, group: 'administration' },

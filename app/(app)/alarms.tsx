@@ -1,5 +1,8 @@
-import { UpcomingScreen } from '@/components/screens/UpcomingScreen';
+import { useLocalSearchParams } from 'expo-router';
+
+import { AlarmsScreen, type AlarmsScreenParams } from '@/components/screens/AlarmsScreen';
 
 export default function AlarmsRoute() {
-  return <UpcomingScreen area="alarms" />;
+  const params = useLocalSearchParams<{ [K in keyof AlarmsScreenParams]: string }>();
+  return <AlarmsScreen params={params} />;
 }

@@ -5,6 +5,8 @@
 import { Link } from 'expo-router';
 import { StyleSheet, View } from 'react-native';
 
+// Alarm history and the range health link: a section owned by the alarms screens (components/alarms).
+import { MeterRunAlarmsSection } from '@/components/alarms/MeterRunAlarmsSection';
 import { DailyTotalsPanel } from '@/components/meter-runs/DailyTotalsPanel';
 import { HourlyRecordsPanel } from '@/components/meter-runs/HourlyRecordsPanel';
 import { MeterRunHeader } from '@/components/meter-runs/MeterRunHeader';
@@ -66,6 +68,8 @@ export function MeterRunScreen({ meterRunId }: { meterRunId: string }) {
           />
           <HourlyRecordsPanel meterRunId={meterRunId} site={site.data} />
           <DailyTotalsPanel meterRunId={meterRunId} site={site.data} />
+          {/* Alarm history and range health (components/alarms). */}
+          <MeterRunAlarmsSection meterRunId={meterRunId} timeZone={site.data.timeZone} />
         </>
       ) : null}
     </Screen>

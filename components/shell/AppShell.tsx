@@ -1,12 +1,14 @@
 /**
  * The frame around every signed-in screen. Phone-first: a compact header and a bottom bar
  * (with "More" for the rest); from the `wide` breakpoint a left side navigation instead.
- * Only the areas the user's role may open are offered (constants/areas.ts).
+ * Only the areas the user's role may open are offered (constants/areas.ts). The alarm banner
+ * (components/alarms) sits under the header on every screen, for every role.
  */
 import { usePathname } from 'expo-router';
 import { useCallback, useEffect, useState, type ReactNode } from 'react';
 import { StyleSheet, View } from 'react-native';
 
+import { AlarmBanner } from '@/components/alarms/AlarmBanner';
 import { areaForPath, areasForRole } from '@/constants/areas';
 import { colors } from '@/constants/theme';
 import { useSession } from '@/hooks/session/SessionProvider';
@@ -47,6 +49,7 @@ export function AppShell({ user, children }: AppShellProps) {
         <SideNav areas={allowed} currentKey={current?.key} />
         <View style={styles.main}>
           <AppHeader title={title} user={user} onSignOut={onSignOut} compact={false} />
+          <AlarmBanner />
           <View style={styles.body} role="main">
             {children}
           </View>
@@ -60,6 +63,7 @@ export function AppShell({ user, children }: AppShellProps) {
   return (
     <View style={styles.narrow}>
       <AppHeader title={title} user={user} onSignOut={onSignOut} compact={breakpoint === 'phone'} />
+      <AlarmBanner />
       <View style={styles.body} role="main">
         {children}
         {moreOpen ? <MoreMenu areas={more} currentKey={current?.key} onClose={closeMore} /> : null}

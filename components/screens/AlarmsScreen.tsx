@@ -1,0 +1,100 @@
+/**
+ * The alarm list (every role reads; operators, engineers and admins respond): open alarms by
+ * default, newest first, filtered by state, priority, site and meter run. The filters live in
+ * the address too (/alarms?meterRunId=…&state=all), so the meter run screen links to a run's
+ * alarm history and a reload keeps the view.
+ */
+import { router } from 'expo-router';
+import { useEffect, useState } from 'react';
+import { StyleSheet, View } from 'react-native';
+
+import { AlarmRow } from '@/components/alarms/AlarmRow';
+import { AppText } from '@/components/ui/AppText';
+import { Button } from '@/components/ui/Button';
+import { QueryState } from '@/components/ui/QueryState';
+import { Screen } from '@/components/ui/Screen';
+import { can } from '@/constants/roles';
+import { space } from '@/constants/theme';
+import { useAlarms, type AlarmFilters } from '@/hooks/api/alarms';
+import { useMeterRuns } from '@/hooks/api/meterRuns';
+import { useSites } from '@/hooks/api/sites';
+import { useSignedInUser } from '@/hooks/session/SessionProvider';
+import { useBreakpoint } from '@/hooks/useBreakpoint';
+import { ALARM_PRIORITIES, type AlarmPriority } from '@/shared/alarms/alarm-codes';
+import { AlarmsFilters, describeFilters, stateChoices } from './AlarmsFilters';
+
+/** Newest first, this many at most: more than a shift's worth for an operator (TRADE.md §7). */
+const listLimit = 300;
+
+export interface AlarmsScreenParams {
+  state?: string;
+  siteId?: string;
+  meterRunId?: string;
+  priority?: string;
+}
+
+/** @returns the filters an address asks for, with anything unknown dropped */
+export function filtersFromParams(params: AlarmsScreenParams): AlarmFilters {
+  const digits = (value: string | undefined) => (value && /^\d+$/.test(value) ? value : undefined);
+  const state = stateChoices.find((choice) => choice.value === params.state)?.value ?? 'open';
+  const priority = ALARM_PRIORITIES.includes(params.priority as AlarmPriority) ? (params.priority as AlarmPriority) : undefined;
+  return { state, priority, siteId: digits(params.siteId), meterRunId: digits(params.meterRunId) };
+}
+
+export function AlarmsScreen({ params }: { params: AlarmsScreenParams }) {
+  const user = useSignedInUser();
+  const phone = useBreakpoint() === 'phone';
+  const [filters, setFilters] = useState<AlarmFilters>(() => filtersFromParams(params));
+  // A link to another view of the list (the banner, a meter run's history) changes the address only.
+  const { state, siteId, meterRunId, priority } = params;
+  useEffect(() => setFilters(filtersFromParams({ state, siteId, meterRunId, priority })), [state, siteId, meterRunId, priority]);
+  const alarms = useAlarms({ ...filters, limit: listLimit });
+  const sites = useSites();
+  const meterRuns = useMeterRuns();
+  const siteById = new Map((sites.data ?? []).map((site) => [site.id, site]));
+  const list = alarms.data ?? [];
+
+  const change = (next: AlarmFilters) => {
+    setFilters(next);
+    router.setParams({ state: next.state, priority: next.priority, siteId: next.siteId, meterRunId: next.meterRunId });
+  };
+
+  const lead = can(user.role, 'respondToAlarms')
+    ? 'Alarms newest first. Acknowledge with one tap; shelving asks how long and why. Open an alarm’s log to see who did what, and when.'
+    : 'Alarms newest first, with their log. Your role reads alarms; acknowledging and shelving them is for operators, engineers and administrators.';
+
+  return (
+    <Screen lead={lead} testID="alarms-screen">
+      <AlarmsFilters filters={filters} sites={sites.data ?? []} meterRuns={meterRuns.data ?? []} onChange={change} folded={phone} />
+      <QueryState isPending={alarms.isPending} error={alarms.error} onRetry={() => void alarms.refetch()} noun="alarms" />
+      {alarms.data ? (
+        <View style={styles.head}>
+          <AppText variant="title" role="heading" aria-level={2} style={styles.count} testID="alarm-count">
+            {list.length === 0 ? 'No alarms' : `${list.length}${list.length >= listLimit ? '+' : ''} alarm${list.length === 1 ? '' : 's'}`}
+          </AppText>
+          <Button label="Refresh" size="compact" busy={alarms.isFetching && !alarms.isPending} onPress={() => void alarms.refetch()} testID="alarm-refresh" />
+        </View>
+      ) : null}
+      {alarms.data && list.length === 0 ? (
+        <AppText tone="muted" testID="alarm-empty">
+          {`Nothing matches: ${describeFilters(filters, sites.data ?? [], meterRuns.data ?? [])}.`}
+        </AppText>
+      ) : null}
+      <View style={styles.list} role="list" aria-label="Alarms" testID="alarm-list">
+        {/* Times are on each site's clock, so rows wait for the sites. */}
+        {(sites.data || sites.error ? list : []).map((alarm) => (
+          <AlarmRow key={alarm.id} alarm={alarm} role={user.role} timeZone={siteById.get(alarm.siteId)?.timeZone ?? 'UTC'} />
+        ))}
+      </View>
+      {list.length >= listLimit ? (
+        <AppText variant="caption" tone="muted">{`Only the newest ${listLimit} are listed: narrow the filter to see older ones.`}</AppText>
+      ) : null}
+    </Screen>
+  );
+}
+
+const styles = StyleSheet.create({
+  head: { flexDirection: 'row', alignItems: 'center', gap: space.sm },
+  count: { flex: 1 },
+  list: { gap: space.sm },
+});
