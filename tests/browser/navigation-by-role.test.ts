@@ -19,7 +19,7 @@ import {
 // Written out from shared/DESIGN.md "Roles" and the Foundation issue's list of areas, not
 // imported from the client, so a slip in the client's own table shows up here:
 // everyone: live view, meter runs, alarms, totals; engineer and admin: imports, set-up (sites,
-// meter runs, transmitters, calibrations), range check, corrections; engineer, accountant and
+// meter runs, transmitters, calibrations), range check, range health, corrections; engineer, accountant and
 // admin: audit log (read); admin only: users, device credentials, mail outbox.
 const allAreas = ['live', 'meter-runs', 'alarms', 'totals', 'imports', 'setup', 'range-check', 'range-health', 'corrections', 'audit', 'users', 'devices', 'mail'];
 const expectedAreas: Record<Role, string[]> = {
