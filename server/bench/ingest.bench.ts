@@ -173,12 +173,18 @@ async function main() {
     const t3 = performance.now();
     await settle();
     const csvSettleMs = performance.now() - t3;
-    await pool.query('DELETE FROM readings WHERE transmitter_id = ANY($1::bigint[])', [[csvRun.dp.id, csvRun.pt.id, csvRun.tt.id]]);
-    const copyClient = await pool.connect();
-    const t4 = performance.now();
-    await pipeline(Readable.from(copyRows), copyClient.query(copyFrom('COPY readings (transmitter_id, time, value, quality, source) FROM STDIN')));
-    const copyMs = performance.now() - t4;
-    copyClient.release();
+    // The base: the same rows by raw COPY into the same table, best of two (the machine is shared
+    // with the server's own background work, so a single COPY can be unlucky).
+    let copyMs = Infinity;
+    for (let attempt = 0; attempt < 2; attempt++) {
+      await pool.query('DELETE FROM readings WHERE transmitter_id = ANY($1::bigint[])', [[csvRun.dp.id, csvRun.pt.id, csvRun.tt.id]]);
+      await pool.query('VACUUM readings');
+      const copyClient = await pool.connect();
+      const t4 = performance.now();
+      await pipeline(Readable.from(copyRows), copyClient.query(copyFrom('COPY readings (transmitter_id, time, value, quality, source) FROM STDIN')));
+      copyMs = Math.min(copyMs, performance.now() - t4);
+      copyClient.release();
+    }
 
     // 4. Daily totals: 100 meter runs × 365 days, read over HTTP one meter run at a time.
     const day0 = Date.UTC(2025, 0, 1);

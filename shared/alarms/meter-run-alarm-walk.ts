@@ -106,6 +106,12 @@ export function initialAlarmWalkState(): AlarmWalkState {
 const pointKey = (condition: AlarmCondition, transmitterId: string | null) => `${condition}|${transmitterId ?? ''}`;
 /** A frozen window is re-judged at most this often while it is not frozen (bounds the work at 1 Hz). */
 const FROZEN_CHECK_EVERY_MS = 60_000;
+/**
+ * While frozen, a reading that differs from the one before is judged at once (so the alarm
+ * clears at that reading's time); repeats of the same value are re-judged at most this often —
+ * otherwise every reading of a fast, flat signal would cost a pass over the whole window.
+ */
+const FROZEN_RECHECK_UNCHANGED_MS = 5_000;
 
 /**
  * @param input state, transmitters, readings, hourly records, horizon, clock and limits
@@ -217,10 +223,14 @@ export function walkMeterRunAlarms(input: AlarmWalkInput): { signals: AlarmSigna
     const limits = limitsOf('frozen', tr.id);
     const windowMs = (limits.windowS ?? 1800) * 1000;
     const checked = st.frozenCheckedMs[tr.id] ?? -Infinity;
-    if (!previousRaw('frozen', tr.id) && t - checked < Math.min(FROZEN_CHECK_EVERY_MS, windowMs / 10)) return;
-    st.frozenCheckedMs[tr.id] = t;
     const list = series.get(tr.id)!;
     const end = index.get(tr.id)!; // list[end - 1] is the reading at t
+    const spanForCheck = tr.upperRangeSI - tr.lowerRangeSI;
+    if (previousRaw('frozen', tr.id)) {
+      const changed = end >= 2 && Math.abs(list[end - 1].value - list[end - 2].value) > (limits.maxStdDevShareOfSpan ?? 0) * spanForCheck;
+      if (!changed && t - checked < Math.min(FROZEN_RECHECK_UNCHANGED_MS, windowMs / 10)) return;
+    } else if (t - checked < Math.min(FROZEN_CHECK_EVERY_MS, windowMs / 10)) return;
+    st.frozenCheckedMs[tr.id] = t;
     let j = windowStart.get(tr.id)!;
     while (j < end && list[j].timeMs < t - windowMs) j++;
     windowStart.set(tr.id, j);
