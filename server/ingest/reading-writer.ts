@@ -120,7 +120,6 @@ export class ReadingWriter {
  */
 export class GroupCommitter {
   private queue: { readings: ValidReading[]; resolve: (r: { inserted: number; duplicates: number }) => void; reject: (e: unknown) => void }[] = [];
-  private queued = 0;
   private scheduled = false;
   private inFlight = 0;
 
@@ -132,7 +131,6 @@ export class GroupCommitter {
   submit(readings: ValidReading[]): Promise<{ inserted: number; duplicates: number }> {
     return new Promise((resolve, reject) => {
       this.queue.push({ readings, resolve, reject });
-      this.queued += readings.length;
       if (!this.scheduled) {
         this.scheduled = true;
         setImmediate(() => {
@@ -153,7 +151,6 @@ export class GroupCommitter {
         take++;
       }
       const batch = this.queue.splice(0, take);
-      this.queued -= count;
       this.inFlight++;
       const all = batch.length === 1 ? batch[0].readings : batch.flatMap((b) => b.readings);
       this.writer

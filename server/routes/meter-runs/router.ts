@@ -23,9 +23,8 @@ export async function currentConfig(meterRunId: string, at = new Date()) {
   return ConfigVersion.findOne({ where: { meterRunId, effectiveFrom: { [Op.lte]: at } }, order: [['effectiveFrom', 'DESC']] });
 }
 
-export function meterRunsRouter(sequelize: Sequelize, hooks: MeterRunHooks, extra: Router[] = []) {
+export function meterRunsRouter(sequelize: Sequelize, hooks: MeterRunHooks) {
   const router = Router();
-  for (const r of extra) router.use('/', r);
 
   router.get('/', requireCapability('view'), async (req, res) => {
     const q = validate(z.object({ siteId: z.string().regex(/^\d+$/).optional() }), req.query, 'query');
