@@ -1,14 +1,15 @@
 /**
  * DP as a share of the active transmitter's span: a bar whose bottom tenth is marked (a
  * shaded band and a tick), with the share in words beside it. In the bottom tenth the bar
- * turns to the low-priority alarm colour and the words say so; over the span, the high one.
+ * turns to the colour and shape of the DP-low-in-range alarm's priority (medium) and the words
+ * say so; over the span, the high one.
  */
 import { StyleSheet, View } from 'react-native';
 
 import { AppText } from '@/components/ui/AppText';
 import { alarmStyle, colors, radius, space } from '@/constants/theme';
 import { formatShare } from './formatFigure';
-import { isLowInRange, lowInRangeShare } from './runStates';
+import { isLowInRange, lowInRangePriority, lowInRangeShare } from './runStates';
 
 interface DpShareBarProps {
   /** DP as a share of span (0..1, more when over range), or null when no DP is in use. */
@@ -20,7 +21,7 @@ export function DpShareBar({ share, testID }: DpShareBarProps) {
   const low = isLowInRange(share);
   const over = share !== null && share > 1;
   const fill = share === null ? 0 : Math.min(Math.max(share, 0), 1);
-  const abnormal = low ? alarmStyle.low : over ? alarmStyle.high : null;
+  const abnormal = low ? alarmStyle[lowInRangePriority] : over ? alarmStyle.high : null;
   const words =
     share === null
       ? 'DP: no reading in use'

@@ -4,6 +4,7 @@
  * is never the only sign (ISA-101, TRADE.md §7).
  */
 import type { LiveBoardRow } from '@/hooks/api/live';
+import { DEFAULT_ALARM_LIMITS } from '@/shared/alarms/alarm-limits';
 import { formatAge, formatShare } from './formatFigure';
 
 /**
@@ -12,6 +13,12 @@ import { formatAge, formatShare } from './formatFigure';
  * server flags hours spent there as low-in-range).
  */
 export const lowInRangeShare = 0.1;
+
+/**
+ * Drawn like the DP-low-in-range alarm at its default priority (shared/alarms/alarm-limits.ts),
+ * so the board, the alarm banner and the alarm list show the same shape and colour for it.
+ */
+export const lowInRangePriority = DEFAULT_ALARM_LIMITS['dp-low-in-range'].priority;
 
 /** Used when a meter run's hold limit is unknown: two minutes without a reading is stale. */
 export const defaultStaleAfterS = 120;
@@ -51,7 +58,7 @@ export function runStates(row: LiveBoardRow, ageS: number | null, staleAfterS: n
   const implied = (warning: string) => ageS === null || (stale && /^no fresh /.test(warning));
   for (const warning of row.warnings) if (!implied(warning)) states.push({ key: 'warning', priority: 'medium', label: warning });
   if (isLowInRange(row.dpShareOfSpan)) {
-    states.push({ key: 'dp-low-in-range', priority: 'low', label: `DP low in range (${formatShare(row.dpShareOfSpan ?? 0)} of span)` });
+    states.push({ key: 'dp-low-in-range', priority: lowInRangePriority, label: `DP low in range (${formatShare(row.dpShareOfSpan ?? 0)} of span)` });
   }
   return states;
 }

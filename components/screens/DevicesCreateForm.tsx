@@ -16,14 +16,14 @@ import { TextField } from '@/components/ui/TextField';
 import { colors, radius, space } from '@/constants/theme';
 import { ApiError } from '@/hooks/api/client';
 import { useCreateDevice } from '@/hooks/api/devices';
-import { useSetupSites } from '@/hooks/api/setup';
+import { useSites } from '@/hooks/api/sites';
 import { deviceSchema } from '@/shared/schemas/setup';
 
 type Field = 'name' | 'siteId';
 
 export function DevicesCreateForm() {
   const create = useCreateDevice();
-  const sites = useSetupSites();
+  const sites = useSites();
   const [name, setName] = useState('');
   const [siteId, setSiteId] = useState<string>('');
   const [problems, setProblems] = useState<Partial<Record<Field, string>>>({});

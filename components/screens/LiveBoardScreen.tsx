@@ -21,7 +21,8 @@ import { Screen } from '@/components/ui/Screen';
 import { StateBadge } from '@/components/ui/StateBadge';
 import { colors, space } from '@/constants/theme';
 import { useLiveBoard, type LiveBoardRow } from '@/hooks/api/live';
-import { useSetupMeterRuns, useSetupSites, type SetupMeterRun, type SetupSite } from '@/hooks/api/setup';
+import { useMeterRuns, type MeterRun } from '@/hooks/api/meterRuns';
+import { useSites, type Site } from '@/hooks/api/sites';
 
 /** Ages are re-read this often between server updates. */
 const clockTickMs = 1_000;
@@ -36,11 +37,11 @@ interface BoardEntry {
 
 interface SiteGroup {
   code: string;
-  site: SetupSite | undefined;
+  site: Site | undefined;
   entries: BoardEntry[];
 }
 
-function groupBySite(entries: BoardEntry[], sites: SetupSite[]): SiteGroup[] {
+function groupBySite(entries: BoardEntry[], sites: Site[]): SiteGroup[] {
   const groups = new Map<string, SiteGroup>();
   for (const entry of entries) {
     const code = entry.row.siteCode;
@@ -93,11 +94,11 @@ function AttentionPanel({ entries }: { entries: BoardEntry[] }) {
 
 export function LiveBoardScreen() {
   const { board, connection } = useLiveBoard();
-  const sites = useSetupSites();
-  const runs = useSetupMeterRuns();
+  const sites = useSites();
+  const runs = useMeterRuns();
   const nowMs = useNow(clockTickMs);
 
-  const runById = new Map<string, SetupMeterRun>((runs.data ?? []).map((run) => [run.id, run]));
+  const runById = new Map<string, MeterRun>((runs.data ?? []).map((run) => [run.id, run]));
   const receivedAtMs = board.data?.receivedAtMs;
   const sinceReceivedS = receivedAtMs === undefined ? 0 : Math.max(0, (nowMs - receivedAtMs) / 1000);
   const entries: BoardEntry[] = (board.data?.rows ?? []).map((row) => {

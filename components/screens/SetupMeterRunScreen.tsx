@@ -22,10 +22,12 @@ import { Panel } from '@/components/ui/Panel';
 import { QueryState } from '@/components/ui/QueryState';
 import { Screen } from '@/components/ui/Screen';
 import { space } from '@/constants/theme';
-import { useConfigVersions, useSetupMeterRun, useSetupSites, useSetupTransmitters, type SetupMeterRun, type SetupSite } from '@/hooks/api/setup';
+import { useConfigVersions, useMeterRun, type MeterRun } from '@/hooks/api/meterRuns';
+import { useSites, type Site } from '@/hooks/api/sites';
+import { useTransmitters } from '@/hooks/api/transmitters';
 import { useBreakpoint } from '@/hooks/useBreakpoint';
 
-function lineSummary(run: SetupMeterRun): string {
+function lineSummary(run: MeterRun): string {
   const line = run.line as Record<string, unknown>;
   const parts = [
     line.nominalSize && `size ${String(line.nominalSize)}`,
@@ -40,7 +42,7 @@ function lineSummary(run: SetupMeterRun): string {
   return parts.length ? parts.join(' · ') : 'No line data recorded.';
 }
 
-function Details({ run, site }: { run: SetupMeterRun; site: SetupSite }) {
+function Details({ run, site }: { run: MeterRun; site: Site }) {
   const [editing, setEditing] = useState(false);
   const unit = site.displayUnits === 'us' ? 'in' : 'mm';
   return (
@@ -62,8 +64,8 @@ function Details({ run, site }: { run: SetupMeterRun; site: SetupSite }) {
   );
 }
 
-function Transmitters({ run, site }: { run: SetupMeterRun; site: SetupSite }) {
-  const transmitters = useSetupTransmitters(run.id);
+function Transmitters({ run, site }: { run: MeterRun; site: Site }) {
+  const transmitters = useTransmitters(run.id);
   const list = transmitters.data ?? [];
   const dp = list.filter((t) => t.measures === 'differential-pressure');
   const missing = [
@@ -93,7 +95,7 @@ function Transmitters({ run, site }: { run: SetupMeterRun; site: SetupSite }) {
   );
 }
 
-function Versions({ run, site }: { run: SetupMeterRun; site: SetupSite }) {
+function Versions({ run, site }: { run: MeterRun; site: Site }) {
   const versions = useConfigVersions(run.id);
   const [adding, setAdding] = useState(false);
   const [added, setAdded] = useState(false);
@@ -127,8 +129,8 @@ function Versions({ run, site }: { run: SetupMeterRun; site: SetupSite }) {
 }
 
 export function SetupMeterRunScreen({ meterRunId }: { meterRunId: string }) {
-  const run = useSetupMeterRun(meterRunId);
-  const sites = useSetupSites();
+  const run = useMeterRun(meterRunId);
+  const sites = useSites();
   const wide = useBreakpoint() === 'wide';
   const site = run.data ? sites.data?.find((candidate) => candidate.id === run.data.siteId) : undefined;
 

@@ -14,10 +14,11 @@ import { Panel } from '@/components/ui/Panel';
 import { QueryState } from '@/components/ui/QueryState';
 import { Screen } from '@/components/ui/Screen';
 import { colors, radius, space } from '@/constants/theme';
-import { useSetupMeterRuns, useSetupSites, type SetupSite } from '@/hooks/api/setup';
+import { useMeterRuns } from '@/hooks/api/meterRuns';
+import { useSites, type Site } from '@/hooks/api/sites';
 import { useBreakpoint } from '@/hooks/useBreakpoint';
 
-function SiteRow({ site, meterRunCount }: { site: SetupSite; meterRunCount: number | undefined }) {
+function SiteRow({ site, meterRunCount }: { site: Site; meterRunCount: number | undefined }) {
   const [editing, setEditing] = useState(false);
   const href = `/setup?site=${encodeURIComponent(site.id)}`;
   return (
@@ -48,8 +49,8 @@ function SiteRow({ site, meterRunCount }: { site: SetupSite; meterRunCount: numb
 }
 
 export function SetupScreen() {
-  const sites = useSetupSites();
-  const runs = useSetupMeterRuns();
+  const sites = useSites();
+  const runs = useMeterRuns();
   const wide = useBreakpoint() === 'wide';
   const counts = new Map<string, number>();
   for (const run of runs.data ?? []) counts.set(run.siteId, (counts.get(run.siteId) ?? 0) + 1);

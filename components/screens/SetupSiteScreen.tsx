@@ -20,9 +20,10 @@ import { Panel } from '@/components/ui/Panel';
 import { QueryState } from '@/components/ui/QueryState';
 import { Screen } from '@/components/ui/Screen';
 import { colors, radius, space } from '@/constants/theme';
-import { useSetupMeterRuns, useSetupSites, type SetupMeterRun, type SetupSite } from '@/hooks/api/setup';
+import { useMeterRuns, type MeterRun } from '@/hooks/api/meterRuns';
+import { useSites, type Site } from '@/hooks/api/sites';
 
-function siteFacts(site: SetupSite): string {
+function siteFacts(site: Site): string {
   const us = site.displayUnits === 'us';
   const pressure = us ? `${fromSI(site.basePressurePa, 'psi').toFixed(3)} psia` : `${fromSI(site.basePressurePa, 'kPa').toFixed(3)} kPa`;
   const temperature = us ? `${fromSI(site.baseTemperatureK, 'degF').toFixed(2)} °F` : `${fromSI(site.baseTemperatureK, 'degC').toFixed(2)} °C`;
@@ -30,7 +31,7 @@ function siteFacts(site: SetupSite): string {
   return `${site.timeZone} · contract day from ${String(site.contractHour).padStart(2, '0')}:00 · base ${pressure}, ${temperature} · atmosphere ${atmosphere} · ${us ? 'US customary' : 'SI'} units`;
 }
 
-function MeterRunRow({ run, site }: { run: SetupMeterRun; site: SetupSite }) {
+function MeterRunRow({ run, site }: { run: MeterRun; site: Site }) {
   const unit = site.displayUnits === 'us' ? 'in' : 'mm';
   return (
     <Link href={`/setup?meterRun=${encodeURIComponent(run.id)}`} asChild>
@@ -47,8 +48,8 @@ function MeterRunRow({ run, site }: { run: SetupMeterRun; site: SetupSite }) {
 }
 
 export function SetupSiteScreen({ siteId }: { siteId: string }) {
-  const sites = useSetupSites();
-  const runs = useSetupMeterRuns(siteId);
+  const sites = useSites();
+  const runs = useMeterRuns(siteId);
   const [editing, setEditing] = useState(false);
   const site = sites.data?.find((candidate) => candidate.id === siteId);
 

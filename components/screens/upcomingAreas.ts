@@ -1,6 +1,7 @@
 /**
  * What each area not yet built will hold, in the trade's words, and which of its actions a
- * role gets. Later issues replace these placeholders with the real screens.
+ * role gets. Later issues replace these placeholders with the real screens; an area leaves this
+ * list when its screen is built (only totals and corrections are still placeholders).
  */
 import type { AreaKey } from '@/constants/areas';
 import { can, type Capability, type Role } from '@/constants/roles';
@@ -14,25 +15,6 @@ export interface UpcomingArea {
 }
 
 export const upcomingAreas: Partial<Record<AreaKey, UpcomingArea>> = {
-  live: {
-    lead:
-      "Every meter run's flow rate now and today's running total since the site's contract hour, with the DP transmitter in use on a stacked pair. Anything abnormal is listed first.",
-  },
-  'meter-runs': {
-    lead:
-      'Each meter run with its site, primary element, fluid and transmitters. Open one for its trends, hourly records and configuration versions.',
-  },
-  alarms: {
-    lead:
-      'Alarms by priority and state (active, acknowledged, returned to normal, shelved): DP low in range, over range, frozen or stale transmitters, calibrations due, reconciliations out of tolerance.',
-    actions: [
-      {
-        capability: 'respondToAlarms',
-        allowed: 'You will be able to acknowledge alarms and shelve them for a set time with a reason.',
-        refused: 'Your role sees alarms; acknowledging and shelving them is for operators, engineers and administrators.',
-      },
-    ],
-  },
   totals: {
     lead:
       'Hourly, contract-day and monthly totals per meter run and site (mass, actual volume, volume at base conditions, energy) with coverage, flags and uncertainty, and the balance groups beside them.',
@@ -54,20 +36,6 @@ export const upcomingAreas: Partial<Record<AreaKey, UpcomingArea>> = {
       },
     ],
   },
-  imports: {
-    lead:
-      'Upload CSV files of readings (time, tag, value, quality) and field totals. Each import reports the rows read, imported, duplicated and rejected, line by line.',
-  },
-  setup: {
-    lead:
-      'Sites with their time zone, contract hour and base conditions; meter runs with their primary element and fluid; transmitters with their ranges and stacked pairs; calibrations and element changes with effective dates.',
-    caution:
-      'Changing a primary element or a transmitter in the field means working on pressurised lines: follow your site procedures, local codes and licensed practice.',
-  },
-  'range-check': {
-    lead:
-      "Find DP readings that sit low in their transmitter's range, where the error as a share of the reading grows, and plan a re-range or a low-range transmitter. A form and a plot will go here.",
-  },
   corrections: {
     lead:
       'Propose a substitution or an adjustment for a period of a meter run, with a reason; another engineer or an administrator approves or rejects it. A closed month cannot be corrected.',
@@ -78,10 +46,6 @@ export const upcomingAreas: Partial<Record<AreaKey, UpcomingArea>> = {
         refused: 'Approving corrections is for engineers and administrators.',
       },
     ],
-  },
-  devices: {
-    lead:
-      'Issue MQTT sign-in credentials for field devices, one site each. A device may publish only under its own site; its password is shown once.',
   },
 };
 

@@ -12,7 +12,8 @@ import { Notice } from '@/components/ui/Notice';
 import { StateBadge } from '@/components/ui/StateBadge';
 import { TextField } from '@/components/ui/TextField';
 import { space } from '@/constants/theme';
-import { useCreateConfigVersion, type SetupMeterRun, type SetupSite } from '@/hooks/api/setup';
+import { useCreateConfigVersion, type MeterRun } from '@/hooks/api/meterRuns';
+import type { Site } from '@/hooks/api/sites';
 import type { ElementSpec } from '@/shared/flow/flow-types';
 import type { FluidSpec } from '@/shared/fluids/fluid-types';
 import { configVersionSchema } from '@/shared/schemas/setup';
@@ -37,8 +38,8 @@ const labels: Record<string, string> = {
 };
 
 interface ConfigVersionFormProps {
-  meterRun: SetupMeterRun;
-  site: SetupSite;
+  meterRun: MeterRun;
+  site: Site;
   onDone?: () => void;
   onCancel?: () => void;
 }

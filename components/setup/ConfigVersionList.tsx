@@ -7,7 +7,7 @@ import { StyleSheet, View } from 'react-native';
 import { formatTimestamp } from '@/components/format/formatTimestamp';
 import { AppText } from '@/components/ui/AppText';
 import { colors, radius, space } from '@/constants/theme';
-import type { ConfigVersion } from '@/hooks/api/setup';
+import type { ConfigVersion } from '@/hooks/api/meterRuns';
 import { describeElement } from './elementDraft';
 import { describeFluid } from './fluidDraft';
 import type { LengthUnit } from './unitChoices';

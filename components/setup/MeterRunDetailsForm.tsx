@@ -11,7 +11,8 @@ import { Button } from '@/components/ui/Button';
 import { Notice } from '@/components/ui/Notice';
 import { TextField } from '@/components/ui/TextField';
 import { space } from '@/constants/theme';
-import { useUpdateMeterRun, type MeterRunChange, type SetupMeterRun, type SetupSite } from '@/hooks/api/setup';
+import { useUpdateMeterRun, type MeterRunChange, type MeterRun } from '@/hooks/api/meterRuns';
+import type { Site } from '@/hooks/api/sites';
 import { lineSchema, meterRunSchema } from '@/shared/schemas/setup';
 import { FieldRow } from './FieldRow';
 import { FormErrorSummary } from './FormErrorSummary';
@@ -27,8 +28,8 @@ const { name: nameRule, holdLimitS: holdLimitRule, maxGapS: maxGapRule } = meter
 const changeSchema = z.object({ name: nameRule, holdLimitS: holdLimitRule, maxGapS: maxGapRule, line: lineSchema });
 
 interface MeterRunDetailsFormProps {
-  meterRun: SetupMeterRun;
-  site: SetupSite;
+  meterRun: MeterRun;
+  site: Site;
   onDone?: () => void;
   onCancel?: () => void;
 }

@@ -10,7 +10,8 @@ import { Button } from '@/components/ui/Button';
 import { Notice } from '@/components/ui/Notice';
 import { TextField } from '@/components/ui/TextField';
 import { space } from '@/constants/theme';
-import { useCreateMeterRun, type SetupMeterRun, type SetupSite } from '@/hooks/api/setup';
+import { useCreateMeterRun, type MeterRun } from '@/hooks/api/meterRuns';
+import type { Site } from '@/hooks/api/sites';
 import { meterRunSchema } from '@/shared/schemas/setup';
 import { ElementFields, elementFieldLabels } from './ElementFields';
 import { elementFromDraft, emptyElementDraft, type ElementDraft } from './elementDraft';
@@ -64,8 +65,8 @@ const labels: Record<string, string> = {
 const fractionPerPercent = 0.01;
 
 interface MeterRunFormProps {
-  site: SetupSite;
-  onDone?: (run: SetupMeterRun) => void;
+  site: Site;
+  onDone?: (run: MeterRun) => void;
 }
 
 export function MeterRunForm({ site, onDone }: MeterRunFormProps) {

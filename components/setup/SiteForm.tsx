@@ -11,7 +11,7 @@ import { ChoiceGroup } from '@/components/ui/ChoiceGroup';
 import { Notice } from '@/components/ui/Notice';
 import { TextField } from '@/components/ui/TextField';
 import { space } from '@/constants/theme';
-import { useCreateSite, useUpdateSite, type SetupSite } from '@/hooks/api/setup';
+import { useCreateSite, useUpdateSite, type Site } from '@/hooks/api/sites';
 import { siteSchema } from '@/shared/schemas/setup';
 import { FieldRow } from './FieldRow';
 import { FormErrorSummary } from './FormErrorSummary';
@@ -82,7 +82,7 @@ function emptyDraft(): SiteDraft {
   };
 }
 
-function draftFromSite(site: SetupSite): SiteDraft {
+function draftFromSite(site: Site): SiteDraft {
   const us = site.displayUnits === 'us';
   const pressureUnit: AbsolutePressureUnit = us ? 'psi' : 'kPa';
   const temperatureUnit: TemperatureUnit = us ? 'degF' : 'degC';
@@ -116,8 +116,8 @@ function bodyFrom(draft: SiteDraft) {
 
 interface SiteFormProps {
   /** The site to edit; a new site when absent. */
-  site?: SetupSite;
-  onDone?: (site: SetupSite) => void;
+  site?: Site;
+  onDone?: (site: Site) => void;
   onCancel?: () => void;
 }
 
@@ -152,7 +152,7 @@ export function SiteForm({ site, onDone, onCancel }: SiteFormProps) {
       return;
     }
     setErrors({});
-    const onSuccess = (result: SetupSite) => {
+    const onSuccess = (result: Site) => {
       setSaved(site ? `Saved ${result.code}.` : `Added ${result.code} · ${result.name}.`);
       if (!site) setDraft(emptyDraft());
       onDone?.(result);

@@ -12,7 +12,8 @@ import { Notice } from '@/components/ui/Notice';
 import { TextField } from '@/components/ui/TextField';
 import { AppText } from '@/components/ui/AppText';
 import { space } from '@/constants/theme';
-import { useCreateTransmitter, type SetupMeterRun, type SetupTransmitter } from '@/hooks/api/setup';
+import type { MeterRun } from '@/hooks/api/meterRuns';
+import { useCreateTransmitter, type Transmitter } from '@/hooks/api/transmitters';
 import { transmitterSchema } from '@/shared/schemas/setup';
 import { FieldRow } from './FieldRow';
 import { FormErrorSummary } from './FormErrorSummary';
@@ -82,7 +83,7 @@ function defaultUnit(what: Measures, us: boolean): TransmitterUnitCode {
  * the history cannot choose among more (shared/history/dp-selector.ts), so the form says so first.
  * @returns the problem with adding a DP transmitter of this role, or null
  */
-function dpRoleProblem(role: TransmitterDraft['stackRole'], existing: SetupTransmitter[]): string | null {
+function dpRoleProblem(role: TransmitterDraft['stackRole'], existing: Transmitter[]): string | null {
   const dps = existing.filter((t) => t.measures === 'differential-pressure');
   const single = dps.find((t) => t.stackRole === 'single');
   if (role === 'single' && dps.length > 0) {
@@ -95,11 +96,11 @@ function dpRoleProblem(role: TransmitterDraft['stackRole'], existing: SetupTrans
 }
 
 interface TransmitterFormProps {
-  meterRun: SetupMeterRun;
+  meterRun: MeterRun;
   /** The meter run's transmitters so far. */
-  existing: SetupTransmitter[];
+  existing: Transmitter[];
   us: boolean;
-  onDone?: (transmitter: SetupTransmitter) => void;
+  onDone?: (transmitter: Transmitter) => void;
 }
 
 export function TransmitterForm({ meterRun, existing, us, onDone }: TransmitterFormProps) {

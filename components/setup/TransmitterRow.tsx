@@ -11,7 +11,7 @@ import { Button } from '@/components/ui/Button';
 import { StateBadge } from '@/components/ui/StateBadge';
 import { TextField } from '@/components/ui/TextField';
 import { colors, radius, space } from '@/constants/theme';
-import { useUpdateTransmitter, type SetupTransmitter } from '@/hooks/api/setup';
+import { useUpdateTransmitter, type Transmitter } from '@/hooks/api/transmitters';
 import { FieldRow } from './FieldRow';
 import { FormErrorSummary } from './FormErrorSummary';
 import { transmitterSchema } from '@/shared/schemas/setup';
@@ -35,7 +35,7 @@ function calibrationState(due: string | null, nowMs: number): { priority: 'mediu
 
 const stackWords = { single: '', low: ' · LOW range of the stacked pair', high: ' · HIGH range of the stacked pair' } as const;
 
-export function TransmitterRow({ transmitter }: { transmitter: SetupTransmitter }) {
+export function TransmitterRow({ transmitter }: { transmitter: Transmitter }) {
   const update = useUpdateTransmitter();
   const [editing, setEditing] = useState(false);
   const [lower, setLower] = useState('');

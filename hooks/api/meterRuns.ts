@@ -1,15 +1,22 @@
 /**
- * Meter runs as every screen reads them: GET /api/meter-runs, GET /api/meter-runs/:id, each
- * with the element and fluid of its configuration version in effect now. Changes and
- * configuration versions go through the set-up hooks (hooks/api/setup.ts), which invalidate
- * these keys.
+ * Meter runs and their configuration versions: GET/POST /api/meter-runs, GET/PATCH
+ * /api/meter-runs/:id, GET/POST /api/meter-runs/:id/config-versions. The one home of the meter
+ * run query keys, read hooks, mutations and cache helpers; every screen (set-up, meter runs,
+ * range check, alarms, live board...) reads meter runs through these keys. A meter run comes
+ * with the element and fluid of its configuration version in effect now.
+ *
+ * Request bodies are the shapes of shared/schemas/setup.ts, already validated by the form with
+ * the same schemas the server uses.
  */
-import { useQuery } from '@tanstack/react-query';
+import { useMutation, useQuery, useQueryClient, type QueryClient } from '@tanstack/react-query';
 import { z } from 'zod';
 
 import type { FluidSpec } from '@/shared/fluids';
 import type { ElementSpec } from '@/shared/flow';
+import type { ConfigVersionInput, MeterRunInput, meterRunSchema } from '@/shared/schemas/setup';
 import { apiRequest } from './client';
+import { liveKeys } from './live';
+import { upsertInList } from './upsertInList';
 
 const id = z.union([z.string(), z.number()]).transform(String);
 
@@ -43,10 +50,22 @@ export const meterRunResponseSchema = z.object({
 });
 export type MeterRun = z.infer<typeof meterRunResponseSchema>;
 
+export const configVersionResponseSchema = z.object({
+  id,
+  meterRunId: id,
+  effectiveFrom: z.string(),
+  element: elementSchema,
+  fluid: fluidSchema,
+  reason: z.string().nullable(),
+  createdAt: z.string(),
+});
+export type ConfigVersion = z.infer<typeof configVersionResponseSchema>;
+
 export const meterRunKeys = {
   all: ['meter-runs'] as const,
   list: (siteId?: string) => [...meterRunKeys.all, 'list', { siteId: siteId ?? null }] as const,
   detail: (meterRunId: string) => [...meterRunKeys.all, 'detail', meterRunId] as const,
+  configVersions: (meterRunId: string) => [...meterRunKeys.all, 'config-versions', meterRunId] as const,
 };
 
 /** @param siteId only this site's meter runs; every meter run when undefined */
@@ -64,5 +83,98 @@ export function useMeterRun(meterRunId: string) {
     queryKey: meterRunKeys.detail(meterRunId),
     queryFn: ({ signal }) =>
       apiRequest({ path: `/meter-runs/${encodeURIComponent(meterRunId)}`, schema: meterRunResponseSchema, signal }),
+  });
+}
+
+/** @param meterRunId the meter run whose configuration versions to list, oldest first */
+export function useConfigVersions(meterRunId: string) {
+  return useQuery({
+    queryKey: meterRunKeys.configVersions(meterRunId),
+    queryFn: ({ signal }) =>
+      apiRequest({
+        path: `/meter-runs/${encodeURIComponent(meterRunId)}/config-versions`,
+        schema: z.array(configVersionResponseSchema),
+        signal,
+      }),
+  });
+}
+
+/**
+ * Refetches every meter run query (lists, details and configuration versions, read by the
+ * set-up, meter run, range check and alarm screens) and the live board: the stream sends a new
+ * board only when readings arrive, so a new or renamed meter run would not appear on it until then.
+ * @param queryClient the app's query client
+ */
+export function invalidateMeterRuns(queryClient: QueryClient): void {
+  void queryClient.invalidateQueries({ queryKey: meterRunKeys.all });
+  void queryClient.invalidateQueries({ queryKey: liveKeys.all });
+}
+
+/**
+ * Shows a created or changed meter run at once (its detail, its site's list and the list of
+ * all meter runs), then refetches as {@link invalidateMeterRuns} does.
+ * @param queryClient the app's query client
+ * @param run the meter run as the server returned it
+ */
+export function refreshAfterMeterRunChange(queryClient: QueryClient, run: MeterRun): void {
+  queryClient.setQueryData(meterRunKeys.detail(run.id), run);
+  upsertInList(queryClient, meterRunKeys.list(run.siteId), run);
+  upsertInList(queryClient, meterRunKeys.list(), run);
+  invalidateMeterRuns(queryClient);
+}
+
+export type NewMeterRun = z.input<typeof meterRunSchema>;
+export interface MeterRunChange {
+  name?: string;
+  holdLimitS?: number;
+  maxGapS?: number;
+  line?: MeterRunInput['line'];
+}
+
+/** @returns a mutation that creates a meter run with its first configuration version */
+export function useCreateMeterRun() {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: (run: NewMeterRun) =>
+      apiRequest({ method: 'POST', path: '/meter-runs', body: run, schema: meterRunResponseSchema }),
+    onSuccess: (run) => refreshAfterMeterRunChange(queryClient, run),
+  });
+}
+
+/** @returns a mutation that changes a meter run's name, limits or line data */
+export function useUpdateMeterRun() {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: ({ id: meterRunId, change }: { id: string; change: MeterRunChange }) =>
+      apiRequest({
+        method: 'PATCH',
+        path: `/meter-runs/${encodeURIComponent(meterRunId)}`,
+        body: change,
+        schema: meterRunResponseSchema,
+      }),
+    onSuccess: (run) => refreshAfterMeterRunChange(queryClient, run),
+  });
+}
+
+/**
+ * @param meterRunId the meter run the version belongs to
+ * @returns a mutation that adds a configuration version (an element or fluid change with its
+ * effective time); the meter run's element and fluid in effect may change with it, so every
+ * meter run query is refetched too
+ */
+export function useCreateConfigVersion(meterRunId: string) {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: (version: ConfigVersionInput) =>
+      apiRequest({
+        method: 'POST',
+        path: `/meter-runs/${encodeURIComponent(meterRunId)}/config-versions`,
+        body: version,
+        schema: configVersionResponseSchema,
+      }),
+    onSuccess: (version) => {
+      upsertInList(queryClient, meterRunKeys.configVersions(meterRunId), version);
+      invalidateMeterRuns(queryClient);
+    },
   });
 }

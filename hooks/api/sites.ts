@@ -1,11 +1,18 @@
 /**
- * Sites as every screen reads them: GET /api/sites, GET /api/sites/:id. Changes go through the
- * set-up hooks (hooks/api/setup.ts), which invalidate these keys.
+ * Sites: GET /api/sites, GET /api/sites/:id, POST /api/sites, PATCH /api/sites/:id. The one
+ * home of the site query keys, read hooks, mutations and cache helpers; every screen (set-up,
+ * meter runs, live board, alarms...) reads sites through these keys.
+ *
+ * Request bodies are the shapes of shared/schemas/setup.ts, already validated by the form with
+ * the same schemas the server uses.
  */
-import { useQuery } from '@tanstack/react-query';
+import { useMutation, useQuery, useQueryClient, type QueryClient } from '@tanstack/react-query';
 import { z } from 'zod';
 
+import type { SiteInput, siteSchema } from '@/shared/schemas/setup';
+import { upsertInList } from './upsertInList';
 import { apiRequest } from './client';
+import { liveKeys } from './live';
 
 const id = z.union([z.string(), z.number()]).transform(String);
 
@@ -43,5 +50,42 @@ export function useSite(siteId: string | undefined) {
     queryKey: siteKeys.detail(siteId ?? ''),
     queryFn: ({ signal }) => apiRequest({ path: `/sites/${encodeURIComponent(siteId ?? '')}`, schema: siteResponseSchema, signal }),
     enabled: siteId !== undefined,
+  });
+}
+
+/**
+ * Shows a created or changed site at once, then refetches every site query (set-up, meter run
+ * and alarm screens all read `siteKeys`) and the live board, whose rows carry the site's code and
+ * time zone; the stream sends a new board only when readings arrive.
+ * @param queryClient the app's query client
+ * @param site the site as the server returned it
+ */
+export function refreshAfterSiteChange(queryClient: QueryClient, site: Site): void {
+  upsertInList(queryClient, siteKeys.list(), site);
+  queryClient.setQueryData(siteKeys.detail(site.id), site);
+  void queryClient.invalidateQueries({ queryKey: siteKeys.all });
+  void queryClient.invalidateQueries({ queryKey: liveKeys.all });
+}
+
+/** The body of POST /api/sites: the site schema's input (displayUnits may be left out). */
+export type NewSite = z.input<typeof siteSchema>;
+export type SiteChange = Partial<SiteInput>;
+
+/** @returns a mutation that creates a site */
+export function useCreateSite() {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: (site: NewSite) => apiRequest({ method: 'POST', path: '/sites', body: site, schema: siteResponseSchema }),
+    onSuccess: (site) => refreshAfterSiteChange(queryClient, site),
+  });
+}
+
+/** @returns a mutation that changes a site's fields */
+export function useUpdateSite() {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: ({ id: siteId, change }: { id: string; change: SiteChange }) =>
+      apiRequest({ method: 'PATCH', path: `/sites/${encodeURIComponent(siteId)}`, body: change, schema: siteResponseSchema }),
+    onSuccess: (site) => refreshAfterSiteChange(queryClient, site),
   });
 }

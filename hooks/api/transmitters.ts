@@ -1,12 +1,18 @@
 /**
- * Transmitters of meter runs as every screen reads them: GET /api/transmitters. Changes go
- * through the set-up hooks (hooks/api/setup.ts), which invalidate these keys.
+ * Transmitters of meter runs: GET/POST /api/transmitters, PATCH /api/transmitters/:id. The one
+ * home of the transmitter query keys, read hooks, mutations and cache helpers; every screen
+ * (set-up, meter run, range check, live board...) reads transmitters through these keys.
+ *
+ * Request bodies are the shapes of shared/schemas/setup.ts, already validated by the form with
+ * the same schemas the server uses.
  */
-import { useQuery } from '@tanstack/react-query';
+import { useMutation, useQuery, useQueryClient, type QueryClient } from '@tanstack/react-query';
 import { z } from 'zod';
 
-import { measures, transmitterUnits } from '@/shared/schemas/setup';
+import { measures, transmitterUnits, type transmitterSchema } from '@/shared/schemas/setup';
 import { apiRequest } from './client';
+import { liveKeys } from './live';
+import { upsertInList } from './upsertInList';
 
 const id = z.union([z.string(), z.number()]).transform(String);
 
@@ -40,5 +46,52 @@ export function useTransmitters(meterRunId?: string) {
     queryKey: transmitterKeys.list(meterRunId),
     queryFn: ({ signal }) =>
       apiRequest({ path: '/transmitters', query: { meterRunId }, schema: z.array(transmitterResponseSchema), signal }),
+  });
+}
+
+/**
+ * Shows a created or changed transmitter at once (its meter run's list and the list of all
+ * transmitters), then refetches every transmitter query and the live board, whose rows carry
+ * each transmitter's range share; the stream sends a new board only when readings arrive.
+ * @param queryClient the app's query client
+ * @param transmitter the transmitter as the server returned it
+ */
+export function refreshAfterTransmitterChange(queryClient: QueryClient, transmitter: Transmitter): void {
+  upsertInList(queryClient, transmitterKeys.list(transmitter.meterRunId), transmitter);
+  upsertInList(queryClient, transmitterKeys.list(), transmitter);
+  void queryClient.invalidateQueries({ queryKey: transmitterKeys.all });
+  void queryClient.invalidateQueries({ queryKey: liveKeys.all });
+}
+
+export type NewTransmitter = z.input<typeof transmitterSchema>;
+export interface TransmitterChange {
+  lowerRange?: number;
+  upperRange?: number;
+  accuracyPercentOfSpan?: number;
+  calibrationDue?: string | null;
+}
+
+/** @returns a mutation that adds a transmitter to a meter run */
+export function useCreateTransmitter() {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: (transmitter: NewTransmitter) =>
+      apiRequest({ method: 'POST', path: '/transmitters', body: transmitter, schema: transmitterResponseSchema }),
+    onSuccess: (transmitter) => refreshAfterTransmitterChange(queryClient, transmitter),
+  });
+}
+
+/** @returns a mutation that re-ranges a transmitter or records its accuracy and calibration due date */
+export function useUpdateTransmitter() {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: ({ id: transmitterId, change }: { id: string; change: TransmitterChange }) =>
+      apiRequest({
+        method: 'PATCH',
+        path: `/transmitters/${encodeURIComponent(transmitterId)}`,
+        body: change,
+        schema: transmitterResponseSchema,
+      }),
+    onSuccess: (transmitter) => refreshAfterTransmitterChange(queryClient, transmitter),
   });
 }

@@ -104,10 +104,11 @@ describe('the live board', () => {
     expect(Math.abs(shown - expectedMscfPerDay)).toBeLessThanOrEqual(Math.max(0.5, expectedMscfPerDay * 1e-3));
     expect(await page.getByTestId(card).innerText()).toContain('Mscf/d');
 
-    // The bottom-tenth state in words and with a shape, not colour alone.
+    // The bottom-tenth state in words and with a shape, not colour alone: the medium-priority ◆, as
+    // the DP-low-in-range alarm shows in the alarm banner and list.
     expect(await page.getByTestId(`${card}-dp-label`).innerText()).toBe('DP 5.0 % of span — low in range');
     await page.getByTestId(`${card}-state-dp-low-in-range`).waitFor();
-    expect(await page.getByTestId(`${card}-state-dp-low-in-range`).innerText()).toMatch(/■\s*DP low in range \(5\.0 % of span\)/);
+    expect(await page.getByTestId(`${card}-state-dp-low-in-range`).innerText()).toMatch(/◆\s*DP low in range \(5\.0 % of span\)/);
     expect(await page.getByTestId(`${card}-stack`).innerText()).toBe(`Single DP transmitter (${f.dp.tag})`);
     expect(await page.getByTestId(`${card}-age`).innerText()).toMatch(/^Newest reading \d+ s ago$/);
     await page.getByTestId('live-connection-live').waitFor();
