@@ -32,7 +32,7 @@ const log = (s: string) => console.log(s);
 const rate = (n: number, ms: number) => (n / (ms / 1000));
 const fmt = (x: number) => Math.round(x).toLocaleString('en-US');
 
-async function mqttLoad(port: number, username: string, password: string, messages: { topic: string; payload: string }[], clients = 4, window = 1000) {
+async function mqttLoad(port: number, username: string, password: string, messages: { topic: string; payload: string }[], clients = Number(process.env.BENCH_CLIENTS ?? 4), window = 1000) {
   const conns = await Promise.all(
     Array.from({ length: clients }, () =>
       new Promise<mqtt.MqttClient>((resolve, reject) => {

@@ -113,6 +113,8 @@ async function main(): Promise<number> {
     if (fs.existsSync(resultsFile)) {
       const r = JSON.parse(fs.readFileSync(resultsFile, 'utf8'));
       summary = { passed: r.numPassedTests, failed: r.numFailedTests + (r.numRuntimeErrorTestSuites ?? 0), skipped: r.numPendingTests + r.numTodoTests };
+      // Keep only the latest run's results, as jest.json.
+      fs.renameSync(resultsFile, path.join(root, '.test-results', 'jest.json'));
     }
     const ok = jestExit === 0 && summary.failed === 0;
     console.log(`\n[test] finished in ${((Date.now() - began) / 1000).toFixed(0)} s`);
