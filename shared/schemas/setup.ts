@@ -99,8 +99,7 @@ export const transmitterSchema = z
       ctx.addIssue({ code: 'custom', path: ['unit'], message: `a pressure transmitter needs a pressure unit (${pressureUnits.join(', ')})` });
     if (t.measures !== 'differential-pressure' && t.stackRole !== 'single')
       ctx.addIssue({ code: 'custom', path: ['stackRole'], message: 'only differential-pressure transmitters can be stacked' });
-    if (t.measures === 'differential-pressure' && t.pressureReference === 'gauge')
-      ctx.addIssue({ code: 'custom', path: ['pressureReference'], message: 'a differential pressure has no gauge or absolute reference; leave it absolute' });
+    // pressureReference means nothing for a differential pressure and is ignored there.
   });
 
 export const deviceSchema = z.object({
