@@ -184,35 +184,34 @@ export class HistoryWorker {
     const days = new Set(hourStarts.map((h) => contractDayOf(h, ctx.timeZone, ctx.contractHour)));
     const months = new Set([...days].map((d) => d.slice(0, 7)));
     for (const day of days) {
-      const bounds = contractDayBounds(day, ctx.timeZone, ctx.contractHour);
-      const total = rollUpRecords(await this.recordsIn(ctx.meterRunId, bounds.startMs, bounds.endMs), bounds, { nowMs });
-      await this.pool.query(
-        `INSERT INTO daily_totals (meter_run_id, contract_day, start, "end", hours, flow_time_s, mass_kg, volume_m3, standard_volume_m3,
-           energy_j, coverage, flags, uncertainty_percent, status, computed_at)
-         VALUES ($1, $2, $3, $4, $5, $6, $7, $8, $9, $10, $11, $12, $13, $14, now())
-         ON CONFLICT (meter_run_id, contract_day) DO UPDATE SET start = EXCLUDED.start, "end" = EXCLUDED."end", hours = EXCLUDED.hours,
-           flow_time_s = EXCLUDED.flow_time_s, mass_kg = EXCLUDED.mass_kg, volume_m3 = EXCLUDED.volume_m3,
-           standard_volume_m3 = EXCLUDED.standard_volume_m3, energy_j = EXCLUDED.energy_j, coverage = EXCLUDED.coverage,
-           flags = EXCLUDED.flags, uncertainty_percent = EXCLUDED.uncertainty_percent, status = EXCLUDED.status, computed_at = now()`,
-        [ctx.meterRunId, day, total.start, total.end, total.hours, total.flowTimeS, total.massKg, total.volumeM3, total.standardVolumeM3,
-          total.energyJ, total.coverage, total.flags, total.uncertaintyPercent, total.status],
-      );
+      await this.savePeriodTotal('daily_totals', 'contract_day', day, ctx, contractDayBounds(day, ctx.timeZone, ctx.contractHour), nowMs);
     }
     for (const month of months) {
-      const bounds = contractMonthBounds(month, ctx.timeZone, ctx.contractHour);
-      const total = rollUpRecords(await this.recordsIn(ctx.meterRunId, bounds.startMs, bounds.endMs), bounds, { nowMs });
-      await this.pool.query(
-        `INSERT INTO monthly_totals (meter_run_id, month, start, "end", hours, flow_time_s, mass_kg, volume_m3, standard_volume_m3,
-           energy_j, coverage, flags, uncertainty_percent, status, computed_at)
-         VALUES ($1, $2, $3, $4, $5, $6, $7, $8, $9, $10, $11, $12, $13, $14, now())
-         ON CONFLICT (meter_run_id, month) DO UPDATE SET start = EXCLUDED.start, "end" = EXCLUDED."end", hours = EXCLUDED.hours,
-           flow_time_s = EXCLUDED.flow_time_s, mass_kg = EXCLUDED.mass_kg, volume_m3 = EXCLUDED.volume_m3,
-           standard_volume_m3 = EXCLUDED.standard_volume_m3, energy_j = EXCLUDED.energy_j, coverage = EXCLUDED.coverage,
-           flags = EXCLUDED.flags, uncertainty_percent = EXCLUDED.uncertainty_percent, status = EXCLUDED.status, computed_at = now()`,
-        [ctx.meterRunId, `${month}-01`, total.start, total.end, total.hours, total.flowTimeS, total.massKg, total.volumeM3, total.standardVolumeM3,
-          total.energyJ, total.coverage, total.flags, total.uncertaintyPercent, total.status],
-      );
+      await this.savePeriodTotal('monthly_totals', 'month', `${month}-01`, ctx, contractMonthBounds(month, ctx.timeZone, ctx.contractHour), nowMs);
     }
+  }
+
+  /** Rolls the hourly records of one contract day or month up and stores the total. */
+  private async savePeriodTotal(
+    table: 'daily_totals' | 'monthly_totals',
+    keyColumn: 'contract_day' | 'month',
+    key: string,
+    ctx: MeterRunContext,
+    bounds: { startMs: number; endMs: number; hours: number },
+    nowMs: number,
+  ) {
+    const total = rollUpRecords(await this.recordsIn(ctx.meterRunId, bounds.startMs, bounds.endMs), bounds, { nowMs });
+    await this.pool.query(
+      `INSERT INTO ${table} (meter_run_id, ${keyColumn}, start, "end", hours, flow_time_s, mass_kg, volume_m3, standard_volume_m3,
+         energy_j, coverage, flags, uncertainty_percent, status, computed_at)
+       VALUES ($1, $2, $3, $4, $5, $6, $7, $8, $9, $10, $11, $12, $13, $14, now())
+       ON CONFLICT (meter_run_id, ${keyColumn}) DO UPDATE SET start = EXCLUDED.start, "end" = EXCLUDED."end", hours = EXCLUDED.hours,
+         flow_time_s = EXCLUDED.flow_time_s, mass_kg = EXCLUDED.mass_kg, volume_m3 = EXCLUDED.volume_m3,
+         standard_volume_m3 = EXCLUDED.standard_volume_m3, energy_j = EXCLUDED.energy_j, coverage = EXCLUDED.coverage,
+         flags = EXCLUDED.flags, uncertainty_percent = EXCLUDED.uncertainty_percent, status = EXCLUDED.status, computed_at = now()`,
+      [ctx.meterRunId, key, total.start, total.end, total.hours, total.flowTimeS, total.massKg, total.volumeM3, total.standardVolumeM3,
+        total.energyJ, total.coverage, total.flags, total.uncertaintyPercent, total.status],
+    );
   }
 
   private async recordsIn(meterRunId: string, startMs: number, endMs: number): Promise<RollUpRecord[]> {
