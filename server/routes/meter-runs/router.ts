@@ -29,8 +29,14 @@ export function meterRunsRouter(sequelize: Sequelize, hooks: MeterRunHooks) {
   router.get('/', requireCapability('view'), async (req, res) => {
     const q = validate(z.object({ siteId: z.string().regex(/^\d+$/).optional() }), req.query, 'query');
     const runs = await MeterRun.findAll({ where: q.siteId ? { siteId: q.siteId } : {}, order: [['tag', 'ASC']] });
-    const configs = await Promise.all(runs.map((m) => currentConfig(String(m.id))));
-    res.json(runs.map((m, i) => presentMeterRun(m, configs[i])));
+    // The configuration in force now, for every meter run in one query (newest first per run).
+    const versions = await ConfigVersion.findAll({
+      where: { meterRunId: runs.map((m) => m.id), effectiveFrom: { [Op.lte]: new Date() } },
+      order: [['effectiveFrom', 'DESC']],
+    });
+    const current = new Map<string, ConfigVersion>();
+    for (const v of versions) if (!current.has(String(v.meterRunId))) current.set(String(v.meterRunId), v);
+    res.json(runs.map((m) => presentMeterRun(m, current.get(String(m.id)))));
   });
 
   router.get('/:id', requireCapability('view'), async (req, res) => {
