@@ -4,13 +4,9 @@
  * named under its field, whether this form or the server found it.
  */
 import { useState } from 'react';
-import { StyleSheet, View } from 'react-native';
 
-import { AppText } from '@/components/ui/AppText';
-import { Button } from '@/components/ui/Button';
 import { ChoiceGroup } from '@/components/ui/ChoiceGroup';
-import { TextField } from '@/components/ui/TextField';
-import { colors, radius, space } from '@/constants/theme';
+import { ReasonDialog } from '@/components/ui/ReasonDialog';
 
 /** Choices up to the server's limit of a day (server/routes/alarms/schema.ts MAX_SHELVE_MINUTES). */
 const durations = [
@@ -36,60 +32,25 @@ interface ShelveDialogProps {
 
 export function ShelveDialog({ subject, busy, fieldError, onConfirm, onCancel }: ShelveDialogProps) {
   const [minutes, setMinutes] = useState<Duration>('60');
-  const [reason, setReason] = useState('');
-  const [reasonProblem, setReasonProblem] = useState<string | null>(null);
   const chosen = durations.find((d) => d.value === minutes)!;
-
-  const confirm = () => {
-    if (!reason.trim()) {
-      setReasonProblem('Say why the alarm is shelved (for example "transmitter being calibrated").');
-      return;
-    }
-    onConfirm(Number(minutes), reason.trim());
-  };
 
   const serverReason = fieldError?.field === 'reason' ? fieldError.message : undefined;
   const serverOther = fieldError && fieldError.field !== 'reason' ? fieldError.message : undefined;
   return (
-    <View style={styles.box} testID="shelve-dialog" role="group" aria-label="Shelve the alarm">
-      <AppText variant="bodyStrong">{`Shelve ${subject}`}</AppText>
-      <AppText variant="caption" tone="muted">
-        A shelved alarm is not announced for the time chosen; its condition is still tracked, and it comes back by itself when the time is over.
-      </AppText>
+    <ReasonDialog
+      title={`Shelve ${subject}`}
+      explanation="A shelved alarm is not announced for the time chosen; its condition is still tracked, and it comes back by itself when the time is over."
+      ariaLabel="Shelve the alarm"
+      testIDPrefix="shelve"
+      missingReason='Say why the alarm is shelved (for example "transmitter being calibrated").'
+      reasonError={serverReason}
+      otherError={serverOther}
+      confirmLabel={`Shelve for ${chosen.label}`}
+      busy={busy}
+      onConfirm={(reason) => onConfirm(Number(minutes), reason)}
+      onCancel={onCancel}
+    >
       <ChoiceGroup label="For how long" options={durations} value={minutes} onChange={setMinutes} testIDPrefix="shelve-minutes" />
-      <TextField
-        label="Reason (required)"
-        value={reason}
-        onChangeText={(text) => {
-          setReason(text);
-          setReasonProblem(null);
-        }}
-        error={reasonProblem ?? serverReason}
-        testID="shelve-reason"
-        maxLength={500}
-        onSubmitEditing={confirm}
-      />
-      {serverOther ? (
-        <AppText variant="caption" tone="alarm" testID="shelve-error">
-          {`▲ ${serverOther}`}
-        </AppText>
-      ) : null}
-      <View style={styles.actions}>
-        <Button label={`Shelve for ${chosen.label}`} variant="primary" busy={busy} onPress={confirm} testID="shelve-confirm" />
-        <Button label="Cancel" variant="quiet" onPress={onCancel} testID="shelve-cancel" />
-      </View>
-    </View>
+    </ReasonDialog>
   );
 }
-
-const styles = StyleSheet.create({
-  box: {
-    gap: space.md,
-    padding: space.md,
-    backgroundColor: colors.surfaceRaised,
-    borderWidth: 1,
-    borderColor: colors.borderStrong,
-    borderRadius: radius.sm,
-  },
-  actions: { flexDirection: 'row', flexWrap: 'wrap', gap: space.sm },
-});

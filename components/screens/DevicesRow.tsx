@@ -8,7 +8,7 @@ import { StyleSheet, View } from 'react-native';
 
 import { formatTimestamp } from '@/components/format/formatTimestamp';
 import { AppText } from '@/components/ui/AppText';
-import { Button } from '@/components/ui/Button';
+import { DisableEnableActions } from '@/components/ui/DisableEnableActions';
 import { StateBadge } from '@/components/ui/StateBadge';
 import { colors, radius, space } from '@/constants/theme';
 import { useSetDeviceDisabled, type Device } from '@/hooks/api/devices';
@@ -45,30 +45,17 @@ export function DevicesRow({ device }: { device: Device }) {
         </AppText>
       ) : null}
 
-      {confirming ? (
-        <View style={styles.editor}>
-          <AppText>{`Disable ${device.name}? It is refused the next time it signs in, until enabled again. Its readings stay.`}</AppText>
-          <View style={styles.actions}>
-            <Button
-              label="Disable"
-              size="compact"
-              variant="primary"
-              busy={update.isPending}
-              onPress={() => update.mutate({ id: device.id, disabled: true }, { onSuccess: () => setConfirming(false) })}
-              testID={`${testID}-disable-confirm`}
-            />
-            <Button label="Cancel" size="compact" variant="quiet" onPress={() => setConfirming(false)} />
-          </View>
-        </View>
-      ) : (
-        <View style={styles.actions}>
-          {device.disabled ? (
-            <Button label="Enable" size="compact" busy={update.isPending} onPress={() => update.mutate({ id: device.id, disabled: false })} testID={`${testID}-enable`} />
-          ) : (
-            <Button label="Disable" size="compact" onPress={() => setConfirming(true)} testID={`${testID}-disable`} />
-          )}
-        </View>
-      )}
+      <DisableEnableActions
+        disabled={device.disabled}
+        confirming={confirming}
+        question={`Disable ${device.name}? It is refused the next time it signs in, until enabled again. Its readings stay.`}
+        busy={update.isPending}
+        onAskToDisable={() => setConfirming(true)}
+        onConfirmDisable={() => update.mutate({ id: device.id, disabled: true }, { onSuccess: () => setConfirming(false) })}
+        onCancel={() => setConfirming(false)}
+        onEnable={() => update.mutate({ id: device.id, disabled: false })}
+        testIDs={{ disable: `${testID}-disable`, confirm: `${testID}-disable-confirm`, enable: `${testID}-enable` }}
+      />
     </View>
   );
 }
@@ -86,6 +73,4 @@ const styles = StyleSheet.create({
   summary: { flexDirection: 'row', flexWrap: 'wrap', gap: space.md, justifyContent: 'space-between' },
   who: { flexGrow: 1, flexShrink: 1, minWidth: 180 },
   facts: { alignItems: 'flex-start', minWidth: 160 },
-  editor: { gap: space.sm },
-  actions: { flexDirection: 'row', flexWrap: 'wrap', gap: space.sm },
 });

@@ -17,13 +17,13 @@ import type { Site } from '@/hooks/api/sites';
 import type { ElementSpec } from '@/shared/flow/flow-types';
 import type { FluidSpec } from '@/shared/fluids/fluid-types';
 import { configVersionSchema } from '@/shared/schemas/setup';
-import { ElementFields, elementFieldLabels } from './ElementFields';
+import { ElementAndFluidSections } from './ElementAndFluidSections';
+import { elementFieldLabels } from './ElementFields';
 import { draftFromElement, elementFromDraft, emptyElementDraft, type ElementDraft } from './elementDraft';
 import { FieldRow } from './FieldRow';
-import { FluidFields, fluidFieldLabels } from './FluidFields';
+import { fluidFieldLabels } from './FluidFields';
 import { draftFromFluid, emptyFluidDraft, fluidFromDraft, type FluidDraft } from './fluidDraft';
 import { FormErrorSummary } from './FormErrorSummary';
-import { FormSection } from './FormSection';
 import { fieldErrorFromServer, fieldErrorsFromZod, fieldTestID, type FieldErrors } from './formFields';
 import { formatOnSiteClock, siteClockNow, zonedIso } from './zonedTime';
 
@@ -130,28 +130,16 @@ export function ConfigVersionForm({ meterRun, site, onDone, onCancel }: ConfigVe
         multiline
         numberOfLines={2}
       />
-      <FormSection title="Primary element from then on">
-        <ElementFields
-          draft={element}
-          onChange={(next) => {
-            setElement(next);
-            touched();
-          }}
-          errors={shown}
-          testPrefix={prefix}
-        />
-      </FormSection>
-      <FormSection title="Fluid from then on">
-        <FluidFields
-          draft={fluid}
-          onChange={(next) => {
-            setFluid(next);
-            touched();
-          }}
-          errors={shown}
-          testPrefix={prefix}
-        />
-      </FormSection>
+      <ElementAndFluidSections
+        element={element}
+        fluid={fluid}
+        onElementChange={setElement}
+        onFluidChange={setFluid}
+        onEdited={touched}
+        errors={shown}
+        testPrefix={prefix}
+        titles={{ element: 'Primary element from then on', fluid: 'Fluid from then on' }}
+      />
       <Notice>
         A version dated in the past recomputes this meter run’s hourly records, contract days and monthly totals from that moment on (closed months excepted); hours before it keep the version then in force. A version dated ahead takes effect when its time comes.
       </Notice>

@@ -13,10 +13,11 @@ import { space } from '@/constants/theme';
 import { useCreateMeterRun, type MeterRun } from '@/hooks/api/meterRuns';
 import type { Site } from '@/hooks/api/sites';
 import { meterRunSchema } from '@/shared/schemas/setup';
-import { ElementFields, elementFieldLabels } from './ElementFields';
+import { ElementAndFluidSections } from './ElementAndFluidSections';
+import { elementFieldLabels } from './ElementFields';
 import { elementFromDraft, emptyElementDraft, type ElementDraft } from './elementDraft';
 import { FieldRow } from './FieldRow';
-import { FluidFields, fluidFieldLabels } from './FluidFields';
+import { fluidFieldLabels } from './FluidFields';
 import { emptyFluidDraft, fluidFromDraft, type FluidDraft } from './fluidDraft';
 import { FormErrorSummary } from './FormErrorSummary';
 import { FormSection } from './FormSection';
@@ -147,29 +148,17 @@ export function MeterRunForm({ site, onDone }: MeterRunFormProps) {
         </View>
       </FieldRow>
 
-      <FormSection title="Primary element" testID={`${prefix}-element`}>
-        <ElementFields
-          draft={element}
-          onChange={(next) => {
-            setElement(next);
-            touched();
-          }}
-          errors={shown}
-          testPrefix={prefix}
-        />
-      </FormSection>
-
-      <FormSection title="Fluid" testID={`${prefix}-fluid`}>
-        <FluidFields
-          draft={fluid}
-          onChange={(next) => {
-            setFluid(next);
-            touched();
-          }}
-          errors={shown}
-          testPrefix={prefix}
-        />
-      </FormSection>
+      <ElementAndFluidSections
+        element={element}
+        fluid={fluid}
+        onElementChange={setElement}
+        onFluidChange={setFluid}
+        onEdited={touched}
+        errors={shown}
+        testPrefix={prefix}
+        titles={{ element: 'Primary element', fluid: 'Fluid' }}
+        sectionTestIDs={{ element: `${prefix}-element`, fluid: `${prefix}-fluid` }}
+      />
 
       <FormSection
         title="Data handling"

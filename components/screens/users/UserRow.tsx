@@ -10,6 +10,7 @@ import { formatTimestamp } from '@/components/format/formatTimestamp';
 import { AppText } from '@/components/ui/AppText';
 import { Button } from '@/components/ui/Button';
 import { ChoiceGroup } from '@/components/ui/ChoiceGroup';
+import { DisableEnableActions } from '@/components/ui/DisableEnableActions';
 import { roleLabel, roles, type Role } from '@/constants/roles';
 import { colors, radius, space } from '@/constants/theme';
 import { useUpdateUser, type User, type UserChange } from '@/hooks/api/users';
@@ -61,16 +62,18 @@ export function UserRow({ user, isSelf }: UserRowProps) {
             <Button label="Cancel" size="compact" variant="quiet" onPress={() => setMode('view')} />
           </View>
         </View>
-      ) : mode === 'confirm-disable' ? (
-        <View style={styles.editor}>
-          <AppText>{`Disable ${user.name}? They are signed out and cannot sign in until enabled again. Their records stay.`}</AppText>
-          <View style={styles.actions}>
-            <Button label="Disable" size="compact" variant="primary" busy={update.isPending} onPress={() => apply({ disabled: true })} testID={`user-disable-confirm-${user.email}`} />
-            <Button label="Cancel" size="compact" variant="quiet" onPress={() => setMode('view')} />
-          </View>
-        </View>
       ) : (
-        <View style={styles.actions}>
+        <DisableEnableActions
+          disabled={user.disabled}
+          confirming={mode === 'confirm-disable'}
+          question={`Disable ${user.name}? They are signed out and cannot sign in until enabled again. Their records stay.`}
+          busy={update.isPending}
+          onAskToDisable={() => setMode('confirm-disable')}
+          onConfirmDisable={() => apply({ disabled: true })}
+          onCancel={() => setMode('view')}
+          onEnable={() => apply({ disabled: false })}
+          testIDs={{ disable: `user-disable-${user.email}`, confirm: `user-disable-confirm-${user.email}`, enable: `user-enable-${user.email}` }}
+        >
           <Button
             label="Change role"
             size="compact"
@@ -80,12 +83,7 @@ export function UserRow({ user, isSelf }: UserRowProps) {
             }}
             testID={`user-change-role-${user.email}`}
           />
-          {user.disabled ? (
-            <Button label="Enable" size="compact" busy={update.isPending} onPress={() => apply({ disabled: false })} testID={`user-enable-${user.email}`} />
-          ) : (
-            <Button label="Disable" size="compact" onPress={() => setMode('confirm-disable')} testID={`user-disable-${user.email}`} />
-          )}
-        </View>
+        </DisableEnableActions>
       )}
     </View>
   );
