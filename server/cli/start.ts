@@ -44,6 +44,9 @@ async function main() {
     }
     process.exit(code);
   };
+  // A stray failure in background work (a job, an evaluation) is logged; it must not take the
+  // historian down with it.
+  process.on('unhandledRejection', (reason) => console.error('[tallyrun] unhandled rejection:', reason));
   process.on('SIGINT', () => void shutdown(0));
   process.on('SIGTERM', () => void shutdown(0));
 
