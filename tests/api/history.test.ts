@@ -186,3 +186,26 @@ describe('bad CSV input', () => {
     expect(res.body.error.field).toBe('file');
   });
 });
+
+describe('totals windows', () => {
+  it('takes plain dates as the start of that date in the site zone', async () => {
+    const f = await createMeterRun(api, { timeZone: 'America/Denver', contractHour: 9 });
+    // 2026-11-01 to 2026-11-04 local: the contract days that start on 1, 2 and 3 November at 09:00
+    // (the one that started on 31 October at 09:00 MDT also overlaps the window's first hours).
+    const res = await api.get(`/api/meter-runs/${f.meterRun.id}/totals?interval=day&from=2026-11-01&to=2026-11-04`);
+    expect(res.status).toBe(200);
+    expect(res.body.map((d: { start: string }) => d.start)).toEqual([
+      '2026-10-31T15:00:00.000Z',
+      '2026-11-01T16:00:00.000Z',
+      '2026-11-02T16:00:00.000Z',
+      '2026-11-03T16:00:00.000Z',
+    ]);
+  });
+
+  it('names the field when a window bound is not a time', async () => {
+    const f = await createMeterRun(api);
+    const res = await api.get(`/api/meter-runs/${f.meterRun.id}/totals?interval=day&from=yesterday&to=2026-11-04`);
+    expect(res.status).toBe(400);
+    expect(res.body.error.field).toBe('from');
+  });
+});

@@ -1,6 +1,7 @@
 import { Router } from 'express';
 import type { Pool } from 'pg';
 import { z } from 'zod';
+import { DateTime } from 'luxon';
 import { requireCapability } from '../../auth/passport';
 import { badRequest, notFound } from '../../errors';
 import { validate } from '../validate';
@@ -55,13 +56,16 @@ export function meterRunHistoryRouter(pool: Pool) {
 
   router.get('/:id/totals', requireCapability('view'), async (req, res) => {
     if (!/^\d+$/.test(String(req.params.id))) throw notFound('Meter run');
-    const q = validate(z.object({ interval: z.enum(['hour', 'day', 'month'], { error: 'must be hour, day or month' }), from: isoTime, to: isoTime }), req.query, 'query');
-    const fromMs = Date.parse(q.from);
-    const toMs = Date.parse(q.to);
+    // from/to: an instant (ISO 8601 with an offset), or a plain date meaning that date's start in the site's zone.
+    const when = z.union([isoTime, z.iso.date()], { error: 'must be ISO 8601 with an offset or Z, or a date YYYY-MM-DD' });
+    const q = validate(z.object({ interval: z.enum(['hour', 'day', 'month'], { error: 'must be hour, day or month' }), from: when, to: when }), req.query, 'query');
+    const { timeZone, contractHour } = await site(String(req.params.id));
+    const instant = (value: string) => (value.length === 10 ? DateTime.fromISO(value, { zone: timeZone }).toMillis() : Date.parse(value));
+    const fromMs = instant(q.from);
+    const toMs = instant(q.to);
     if (toMs <= fromMs) throw badRequest('to: must be after from', 'to');
     const limits = { hour: 62 * dayMs, day: 3700 * dayMs, month: 3700 * dayMs };
     if (toMs - fromMs > limits[q.interval]) throw badRequest(`to: at most ${limits[q.interval] / dayMs} days of ${q.interval}ly totals per request`, 'to');
-    const { timeZone, contractHour } = await site(String(req.params.id));
     const table = { hour: 'hourly_records', day: 'daily_totals', month: 'monthly_totals' }[q.interval];
     const { rows } = await pool.query(
       `SELECT * FROM ${table} WHERE meter_run_id = $1 AND start < to_timestamp($3 / 1000.0) AND "end" > to_timestamp($2 / 1000.0) ORDER BY start`,
