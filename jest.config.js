@@ -16,7 +16,12 @@ module.exports = {
     {
       ...base,
       displayName: 'server',
-      testMatch: ['<rootDir>/server/**/*.test.ts', '<rootDir>/simulators/**/*.test.ts', '<rootDir>/tests/api/**/*.test.ts', '<rootDir>/tests/mqtt/**/*.test.ts'],
+      testMatch: [
+        '<rootDir>/server/**/*.test.ts',
+        '<rootDir>/simulators/**/*.test.ts',
+        '<rootDir>/tests/api/**/*.test.ts',
+        '<rootDir>/tests/mqtt/**/*.test.ts',
+      ],
     },
     { ...base, displayName: 'browser', testMatch: ['<rootDir>/tests/browser/**/*.test.ts'] },
   ],

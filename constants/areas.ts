@@ -43,21 +43,125 @@ export interface Area {
 type AreaEntry = Omit<Area, 'roles'>;
 
 const entries: readonly AreaEntry[] = [
-  { key: 'live', title: 'Live board', shortTitle: 'Live', href: '/', capability: 'view', primary: true, group: 'operations' },
-  { key: 'meter-runs', title: 'Meter runs', shortTitle: 'Runs', href: '/meter-runs', capability: 'view', primary: true, group: 'operations' },
-  { key: 'alarms', title: 'Alarms', shortTitle: 'Alarms', href: '/alarms', capability: 'view', primary: true, group: 'operations' },
-  { key: 'totals', title: 'Totals & month end', shortTitle: 'Totals', href: '/totals', capability: 'view', primary: true, group: 'operations' },
-  { key: 'imports', title: 'Imports', shortTitle: 'Imports', href: '/imports', capability: 'importData', primary: false, group: 'engineering' },
-  { key: 'setup', title: 'Set-up', shortTitle: 'Set-up', href: '/setup', capability: 'configure', primary: false, group: 'engineering' },
+  {
+    key: 'live',
+    title: 'Live board',
+    shortTitle: 'Live',
+    href: '/',
+    capability: 'view',
+    primary: true,
+    group: 'operations',
+  },
+  {
+    key: 'meter-runs',
+    title: 'Meter runs',
+    shortTitle: 'Runs',
+    href: '/meter-runs',
+    capability: 'view',
+    primary: true,
+    group: 'operations',
+  },
+  {
+    key: 'alarms',
+    title: 'Alarms',
+    shortTitle: 'Alarms',
+    href: '/alarms',
+    capability: 'view',
+    primary: true,
+    group: 'operations',
+  },
+  {
+    key: 'totals',
+    title: 'Totals & month end',
+    shortTitle: 'Totals',
+    href: '/totals',
+    capability: 'view',
+    primary: true,
+    group: 'operations',
+  },
+  {
+    key: 'imports',
+    title: 'Imports',
+    shortTitle: 'Imports',
+    href: '/imports',
+    capability: 'importData',
+    primary: false,
+    group: 'engineering',
+  },
+  {
+    key: 'setup',
+    title: 'Set-up',
+    shortTitle: 'Set-up',
+    href: '/setup',
+    capability: 'configure',
+    primary: false,
+    group: 'engineering',
+  },
   // Finding readings low in range is part of keeping transmitters right: the set-up people's job.
-  { key: 'range-check', title: 'Range check', shortTitle: 'Range', href: '/range-check', capability: 'configure', primary: false, group: 'engineering' },
+  {
+    key: 'range-check',
+    title: 'Range check',
+    shortTitle: 'Range',
+    href: '/range-check',
+    capability: 'configure',
+    primary: false,
+    group: 'engineering',
+  },
   // How a meter run's recorded flow sat in its DP span, and what to change: the same people's job.
-  { key: 'range-health', title: 'Range health', shortTitle: 'Health', href: '/range-health', capability: 'configure', primary: false, group: 'engineering' },
-  { key: 'corrections', title: 'Corrections', shortTitle: 'Corrections', href: '/corrections', capability: 'proposeCorrection', primary: false, group: 'engineering' },
-  { key: 'audit', title: 'Audit log', shortTitle: 'Audit', href: '/audit', capability: 'readAuditLog', primary: false, group: 'administration' },
-  { key: 'users', title: 'Users', shortTitle: 'Users', href: '/users', capability: 'administer', primary: false, group: 'administration' },
-  { key: 'devices', title: 'Devices', shortTitle: 'Devices', href: '/devices', capability: 'administer', primary: false, group: 'administration' },
-  { key: 'mail', title: 'Mail outbox', shortTitle: 'Mail', href: '/mail', capability: 'administer', primary: false, group: 'administration' },
+  {
+    key: 'range-health',
+    title: 'Range health',
+    shortTitle: 'Health',
+    href: '/range-health',
+    capability: 'configure',
+    primary: false,
+    group: 'engineering',
+  },
+  {
+    key: 'corrections',
+    title: 'Corrections',
+    shortTitle: 'Corrections',
+    href: '/corrections',
+    capability: 'proposeCorrection',
+    primary: false,
+    group: 'engineering',
+  },
+  {
+    key: 'audit',
+    title: 'Audit log',
+    shortTitle: 'Audit',
+    href: '/audit',
+    capability: 'readAuditLog',
+    primary: false,
+    group: 'administration',
+  },
+  {
+    key: 'users',
+    title: 'Users',
+    shortTitle: 'Users',
+    href: '/users',
+    capability: 'administer',
+    primary: false,
+    group: 'administration',
+  },
+  {
+    key: 'devices',
+    title: 'Devices',
+    shortTitle: 'Devices',
+    href: '/devices',
+    capability: 'administer',
+    primary: false,
+    group: 'administration',
+  },
+  {
+    key: 'mail',
+    title: 'Mail outbox',
+    shortTitle: 'Mail',
+    href: '/mail',
+    capability: 'administer',
+    primary: false,
+    group: 'administration',
+  },
 ];
 
 export const areas: readonly Area[] = entries.map((entry) => ({ ...entry, roles: capabilities[entry.capability] }));
@@ -106,8 +210,7 @@ export function areaForPath(pathname: string): Area | undefined {
   const path = pathname.replace(/\/+$/, '') || '/';
   let best: Area | undefined;
   for (const area of areas) {
-    const matches =
-      area.href === '/' ? path === '/' : path === area.href || path.startsWith(`${area.href}/`);
+    const matches = area.href === '/' ? path === '/' : path === area.href || path.startsWith(`${area.href}/`);
     if (matches && (!best || area.href.length > best.href.length)) best = area;
   }
   return best;

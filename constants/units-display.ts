@@ -104,7 +104,11 @@ export function differentialPressureFromDisplay(value: number, set: DisplayUnitS
  * @param atmosphericPressurePa the site's atmospheric pressure (for gauge display)
  * @returns it in the display unit, gauge or absolute as the set says
  */
-export function staticPressureForDisplay(absolutePa: number, set: DisplayUnitSet, atmosphericPressurePa: number): number {
+export function staticPressureForDisplay(
+  absolutePa: number,
+  set: DisplayUnitSet,
+  atmosphericPressurePa: number,
+): number {
   return fromSI(set.staticPressure.gauge ? absolutePa - atmosphericPressurePa : absolutePa, set.staticPressure.unit);
 }
 
@@ -115,7 +119,12 @@ export function staticPressureForDisplay(absolutePa: number, set: DisplayUnitSet
  * @returns the absolute pressure, Pa
  */
 export function staticPressureFromDisplay(value: number, set: DisplayUnitSet, atmosphericPressurePa: number): number {
-  return absolutePressurePa(value, set.staticPressure.unit, set.staticPressure.gauge ? 'gauge' : 'absolute', atmosphericPressurePa);
+  return absolutePressurePa(
+    value,
+    set.staticPressure.unit,
+    set.staticPressure.gauge ? 'gauge' : 'absolute',
+    atmosphericPressurePa,
+  );
 }
 
 /**
@@ -151,10 +160,20 @@ export interface ReadingSource {
  * @param atmosphericPressurePa the site's atmospheric pressure (gauge readings, gauge display)
  * @returns the value on screen
  */
-export function readingForDisplay(value: number, source: ReadingSource, set: DisplayUnitSet, atmosphericPressurePa: number): number {
+export function readingForDisplay(
+  value: number,
+  source: ReadingSource,
+  set: DisplayUnitSet,
+  atmosphericPressurePa: number,
+): number {
   if (source.measures === 'temperature') return temperatureForDisplay(toSI(value, source.unit), set);
   if (source.measures === 'differential-pressure') return differentialPressureForDisplay(toSI(value, source.unit), set);
-  const absolutePa = absolutePressurePa(value, source.unit as PressureUnit, source.pressureReference ?? 'absolute', atmosphericPressurePa);
+  const absolutePa = absolutePressurePa(
+    value,
+    source.unit as PressureUnit,
+    source.pressureReference ?? 'absolute',
+    atmosphericPressurePa,
+  );
   return staticPressureForDisplay(absolutePa, set, atmosphericPressurePa);
 }
 
@@ -205,7 +224,10 @@ export function flowRateUnit(key: string): FlowRateUnit {
  * @param fluidKind the meter run's fluid
  * @returns the flow rate unit
  */
-export function defaultFlowRateUnit(displayUnits: DisplayUnits, fluidKind: FluidSpec['kind'] | undefined): FlowRateUnit {
+export function defaultFlowRateUnit(
+  displayUnits: DisplayUnits,
+  fluidKind: FluidSpec['kind'] | undefined,
+): FlowRateUnit {
   if (fluidKind === 'steam') return flowRateUnit(displayUnits === 'us' ? 'lb/h' : 't/h');
   if (fluidKind === 'water' || fluidKind === 'liquid') return flowRateUnit(displayUnits === 'us' ? 'bbl/d' : 'm3/h');
   return flowRateUnit(displayUnits === 'us' ? 'Mscf/d' : 'm3/h');
@@ -249,8 +271,14 @@ export function massFlowFromDisplay(value: number, unit: FlowRateUnit, baseDensi
  * @param baseDensityKgPerM3 the fluid's density at base conditions (needed between mass and volume)
  * @returns the flow in `to`, or null when mass and volume meet and the base density is unknown
  */
-export function convertFlowRate(value: number, from: FlowRateUnit, to: FlowRateUnit, baseDensityKgPerM3: number | null): number | null {
-  if (from.basis === to.basis) return fromSI((toSI(value, from.unit) / from.secondsPerPeriod) * to.secondsPerPeriod, to.unit);
+export function convertFlowRate(
+  value: number,
+  from: FlowRateUnit,
+  to: FlowRateUnit,
+  baseDensityKgPerM3: number | null,
+): number | null {
+  if (from.basis === to.basis)
+    return fromSI((toSI(value, from.unit) / from.secondsPerPeriod) * to.secondsPerPeriod, to.unit);
   if (baseDensityKgPerM3 === null || !(baseDensityKgPerM3 > 0)) return null;
   const massKgPerS = massFlowFromDisplay(value, from, baseDensityKgPerM3);
   return flowRateForDisplay({ massKgPerS, standardVolumeM3PerS: massKgPerS / baseDensityKgPerM3 }, to);

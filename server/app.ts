@@ -61,22 +61,36 @@ export function createApp(options: AppOptions): Express {
     ['/mail', mailRouter()],
     ['/calculations', calculationsRouter()],
     ['/sites', sitesRouter(sequelize)],
-    ['/meter-runs', meterRunsRouter(sequelize, {
-      configChanged: async (meterRunId, from) => {
-        setupChanged();
-        await services.history.queueHours([meterRunId], from.getTime(), Date.now());
-      },
-    })],
+    [
+      '/meter-runs',
+      meterRunsRouter(sequelize, {
+        configChanged: async (meterRunId, from) => {
+          setupChanged();
+          await services.history.queueHours([meterRunId], from.getTime(), Date.now());
+        },
+      }),
+    ],
     ['/meter-runs', meterRunHistoryRouter(services.pool)],
     ['/transmitters', transmittersRouter(sequelize, { changed: setupChanged })],
-    ['/devices', devicesRouter(sequelize, {
-      credentialsChanged: (username) => {
-        services.deviceAuth.forget();
-        // A disabled device is cut off now, not when it next signs in.
-        services.brokerControl.disconnect(username);
-      },
-    })],
-    ['/imports', importsRouter({ pool: services.pool, uploadDir: services.uploadDir, maxBytes: options.maxUploadBytes ?? 200e6, jobs: services.imports })],
+    [
+      '/devices',
+      devicesRouter(sequelize, {
+        credentialsChanged: (username) => {
+          services.deviceAuth.forget();
+          // A disabled device is cut off now, not when it next signs in.
+          services.brokerControl.disconnect(username);
+        },
+      }),
+    ],
+    [
+      '/imports',
+      importsRouter({
+        pool: services.pool,
+        uploadDir: services.uploadDir,
+        maxBytes: options.maxUploadBytes ?? 200e6,
+        jobs: services.imports,
+      }),
+    ],
     ['/readings', readingsRouter(services.pool)],
     ['/live', liveRouter(new LiveBoard(services.pool), services.live)],
     // Alarms (issue 5): the list and lifecycle, limits per meter run or transmitter, range health.
@@ -90,7 +104,9 @@ export function createApp(options: AppOptions): Express {
   api.use(authenticate);
   for (const [path, router] of signedInRoutes) api.use(path, router);
   app.locals.apiRoutes = listRoutes([...publicRoutes, ...signedInRoutes]);
-  api.use((req, _res, next) => next(new AppError(404, 'not_found', `No API route ${req.method} ${req.baseUrl}${req.path}.`)));
+  api.use((req, _res, next) =>
+    next(new AppError(404, 'not_found', `No API route ${req.method} ${req.baseUrl}${req.path}.`)),
+  );
   app.use('/api', api);
 
   if (options.webDir) serveWebClient(app, options.webDir);
@@ -104,12 +120,16 @@ const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
   if (err && typeof err === 'object' && 'type' in err) {
     const type = (err as { type: string }).type;
     if (type === 'entity.parse.failed')
-      return res.status(400).json(new AppError(400, 'invalid_json', 'The request body is not valid JSON.', 'body').toJSON());
+      return res
+        .status(400)
+        .json(new AppError(400, 'invalid_json', 'The request body is not valid JSON.', 'body').toJSON());
     if (type === 'entity.too.large')
       return res.status(413).json(new AppError(413, 'too_large', 'The request body is too large.', 'body').toJSON());
   }
   console.error(`[http] ${req.method} ${req.originalUrl}:`, err);
-  res.status(500).json(new AppError(500, 'internal', 'Something went wrong on the server; it has been logged.').toJSON());
+  res
+    .status(500)
+    .json(new AppError(500, 'internal', 'Something went wrong on the server; it has been logged.').toJSON());
 };
 
 /** `METHOD /api/path` of every route, read from the routers themselves (the role-matrix test uses it). */

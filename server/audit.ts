@@ -4,7 +4,14 @@ import type { SignedInUser } from './auth/passport';
 
 /** Writes one audit event (who, when, what, before, after), inside the caller's transaction. */
 export async function recordAuditEvent(
-  event: { actor: SignedInUser | null; action: string; entityType: string; entityId?: string; before?: unknown; after?: unknown },
+  event: {
+    actor: SignedInUser | null;
+    action: string;
+    entityType: string;
+    entityId?: string;
+    before?: unknown;
+    after?: unknown;
+  },
   transaction?: Transaction,
 ) {
   await AuditEvent.create(

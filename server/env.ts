@@ -15,13 +15,19 @@ const schema = z.object({
   /** When set, ingest subscribes to this external broker instead of embedding aedes. */
   MQTT_URL: z.string().url('MQTT_URL must be a URL such as mqtt://broker:1883').optional(),
   /** With an external MQTT 5 broker: share the subscription among several Tallyrun processes. */
-  MQTT_SHARED_GROUP: z.string().regex(/^[A-Za-z0-9_-]+$/).optional(),
+  MQTT_SHARED_GROUP: z
+    .string()
+    .regex(/^[A-Za-z0-9_-]+$/)
+    .optional(),
   SMTP_PORT: port(2525),
   DATABASE_URL: z.string().min(1, 'DATABASE_URL is required (npm start sets it for the private cluster)'),
   TALLYRUN_DATA_DIR: z.string().default('.tallyrun'),
   TALLYRUN_DEMO: flag('on'),
   TALLYRUN_SIMULATORS: flag('on'),
-  TALLYRUN_DEMO_PASSWORD: z.string().min(8, 'TALLYRUN_DEMO_PASSWORD must be at least 8 characters').default('tallyrun-demo'),
+  TALLYRUN_DEMO_PASSWORD: z
+    .string()
+    .min(8, 'TALLYRUN_DEMO_PASSWORD must be at least 8 characters')
+    .default('tallyrun-demo'),
   TALLYRUN_JWT_SECRET: z.string().min(16).optional(),
   TALLYRUN_TOKEN_HOURS: z.coerce.number().positive().default(12),
   TALLYRUN_LOGIN_LIMIT: z.coerce.number().int().positive().default(10),

@@ -42,9 +42,15 @@ export async function startServer(env: Env = readEnv()): Promise<RunningServer> 
     await seedDemoScenario(sequelize, { demoPassword: env.TALLYRUN_DEMO_PASSWORD });
   }
 
-  const services = createServices({ databaseUrl: env.DATABASE_URL, sequelize, dataDir: path.resolve(env.TALLYRUN_DATA_DIR) });
+  const services = createServices({
+    databaseUrl: env.DATABASE_URL,
+    sequelize,
+    dataDir: path.resolve(env.TALLYRUN_DATA_DIR),
+  });
   // An import cut short by a stop is reported as such; its committed batches stay.
-  await services.pool.query(`UPDATE imports SET status = 'failed', finished_at = now(), errors = errors || '[{"line": 0, "message": "the server stopped during this import; re-import the file (rows already stored count as duplicates)"}]'::jsonb WHERE status = 'running'`);
+  await services.pool.query(
+    `UPDATE imports SET status = 'failed', finished_at = now(), errors = errors || '[{"line": 0, "message": "the server stopped during this import; re-import the file (rows already stored count as duplicates)"}]'::jsonb WHERE status = 'running'`,
+  );
   await makePartitionsAhead(services.pool);
   services.history.start((ids) => {
     services.live.historyChanged(ids);
@@ -54,7 +60,14 @@ export async function startServer(env: Env = readEnv()): Promise<RunningServer> 
   const schedule = startSchedule({ pool: services.pool, history: services.history });
 
   const broker = env.MQTT_URL
-    ? { port: 0, ...(await startExternalBrokerIngest({ url: env.MQTT_URL, sharedGroup: env.MQTT_SHARED_GROUP, ingest: services.mqttIngest })) }
+    ? {
+        port: 0,
+        ...(await startExternalBrokerIngest({
+          url: env.MQTT_URL,
+          sharedGroup: env.MQTT_SHARED_GROUP,
+          ingest: services.mqttIngest,
+        })),
+      }
     : await startEmbeddedBroker({
         host: env.HOST,
         port: env.MQTT_PORT,
@@ -129,7 +142,10 @@ if (require.main === module) {
     .then((running) => {
       console.log(`[server] http ${running.url}  mqtt ${running.mqttPort}  smtp ${running.smtpPort}`);
       const shutdown = () => {
-        running.stop().then(() => process.exit(0), () => process.exit(1));
+        running.stop().then(
+          () => process.exit(0),
+          () => process.exit(1),
+        );
       };
       process.once('SIGINT', shutdown);
       process.once('SIGTERM', shutdown);

@@ -68,14 +68,18 @@ export class LiveBoard {
       const ts = latest.filter((t) => t.meter_run_id === run.id);
       const day = contractDayOf(nowMs, run.time_zone, run.contract_hour);
       const bounds = contractDayBounds(day, run.time_zone, run.contract_hour);
-      const today = (await this.pool.query(
-        `SELECT coalesce(sum(mass_kg), 0) AS m, coalesce(sum(standard_volume_m3), 0) AS v, sum(energy_j) AS e
+      const today = (
+        await this.pool.query(
+          `SELECT coalesce(sum(mass_kg), 0) AS m, coalesce(sum(standard_volume_m3), 0) AS v, sum(energy_j) AS e
            FROM hourly_records WHERE meter_run_id = $1 AND start >= to_timestamp($2 / 1000.0) AND start < to_timestamp($3 / 1000.0)`,
-        [run.id, bounds.startMs, bounds.endMs],
-      )).rows[0];
-      const fresh = (t: (typeof ts)[number]) => t.time && nowMs - (t.time as Date).getTime() <= run.hold_limit_s * 1000 && t.quality !== 2;
+          [run.id, bounds.startMs, bounds.endMs],
+        )
+      ).rows[0];
+      const fresh = (t: (typeof ts)[number]) =>
+        t.time && nowMs - (t.time as Date).getTime() <= run.hold_limit_s * 1000 && t.quality !== 2;
       const si = (t: (typeof ts)[number]) =>
-        toSI(t.value, t.unit) + (t.measures === 'static-pressure' && t.pressure_reference === 'gauge' ? run.atmospheric_pressure_pa : 0);
+        toSI(t.value, t.unit) +
+        (t.measures === 'static-pressure' && t.pressure_reference === 'gauge' ? run.atmospheric_pressure_pa : 0);
       const dps = ts.filter((t) => t.measures === 'differential-pressure');
       const p = ts.find((t) => t.measures === 'static-pressure' && fresh(t));
       const temp = ts.find((t) => t.measures === 'temperature' && fresh(t));
@@ -126,7 +130,8 @@ export class LiveBoard {
         if (!temp) warnings.push('no fresh temperature');
         if (!active) warnings.push('no fresh differential pressure');
       }
-      const share = (t: (typeof ts)[number]) => (t.time ? (t.value - t.lower_range) / (t.upper_range - t.lower_range) : null);
+      const share = (t: (typeof ts)[number]) =>
+        t.time ? (t.value - t.lower_range) / (t.upper_range - t.lower_range) : null;
       const newest = Math.max(...ts.map((t) => (t.time ? (t.time as Date).getTime() : 0)));
       board.push({
         meterRunId: run.id,

@@ -21,7 +21,8 @@ export function serveWebClient(app: Express, webDir: string) {
       const last = i === segments.length - 1;
       const entries = fs.existsSync(dir) ? fs.readdirSync(dir) : [];
       // A folder route (meter-runs/index.html) answers for its own path too.
-      if (last && entries.includes(segments[i]) && fs.existsSync(path.join(dir, segments[i], 'index.html'))) return res.sendFile(path.join(dir, segments[i], 'index.html'));
+      if (last && entries.includes(segments[i]) && fs.existsSync(path.join(dir, segments[i], 'index.html')))
+        return res.sendFile(path.join(dir, segments[i], 'index.html'));
       const literal = last ? `${segments[i]}.html` : segments[i];
       const dynamic = entries.find((e) => /^\[.+\]/.test(e) && (last ? e.endsWith('.html') : !e.endsWith('.html')));
       const pick = entries.includes(literal) ? literal : dynamic;

@@ -35,7 +35,9 @@ async function main() {
     const running = live;
     void running.stop().then(() => {
       const s = running.stats();
-      log(`live: stopped after ${s.ticks} ticks, ${s.messages} messages, ${s.readings} readings (${s.lateReadings} late, ${s.dropped} dropped)`);
+      log(
+        `live: stopped after ${s.ticks} ticks, ${s.messages} messages, ${s.readings} readings (${s.lateReadings} late, ${s.dropped} dropped)`,
+      );
       process.exit(0);
     });
   };
@@ -49,7 +51,10 @@ async function main() {
       if (!pool) log('back-fill: skipped (DATABASE_URL is not set)');
       else {
         const r = await backfillDemoHistory({ pool, timeline, shouldStop: () => stopping });
-        if (r.missingTags.length) log(`back-fill: ${r.missingTags.length} demo transmitters are not in the database (is the demo scenario seeded?): ${r.missingTags.join(' ')}`);
+        if (r.missingTags.length)
+          log(
+            `back-fill: ${r.missingTags.length} demo transmitters are not in the database (is the demo scenario seeded?): ${r.missingTags.join(' ')}`,
+          );
         log(
           r.fromMs === null
             ? `back-fill: nothing to add for ${r.transmitters} transmitters (demo month ${timeline.demoMonth}) in ${seconds(r.elapsedMs)}`

@@ -21,7 +21,12 @@ export function AlarmEventLog({ alarmId, timeZone }: AlarmEventLogProps) {
   const events = useAlarmEvents(alarmId, true);
   return (
     <View style={styles.log} testID={`alarm-log-${alarmId}`} role="list" aria-label="Alarm log">
-      <QueryState isPending={events.isPending} error={events.error} onRetry={() => void events.refetch()} noun="the alarm log" />
+      <QueryState
+        isPending={events.isPending}
+        error={events.error}
+        onRetry={() => void events.refetch()}
+        noun="the alarm log"
+      />
       {events.data?.length === 0 ? <AppText tone="muted">Nothing logged yet.</AppText> : null}
       {events.data?.map((event) => (
         <View key={event.id} style={styles.event} role="listitem">
@@ -31,7 +36,9 @@ export function AlarmEventLog({ alarmId, timeZone }: AlarmEventLogProps) {
           <View style={styles.what}>
             <AppText variant="bodyStrong">{`${actionInWords(event.action)} · by ${event.userEmail ?? 'Tallyrun'}`}</AppText>
             <AppText variant="caption" tone="muted">
-              {event.fromState ? `${stateInWords(event.fromState)} → ${stateInWords(event.toState)}` : stateInWords(event.toState)}
+              {event.fromState
+                ? `${stateInWords(event.fromState)} → ${stateInWords(event.toState)}`
+                : stateInWords(event.toState)}
             </AppText>
             {event.note ? <AppText variant="caption">{event.note}</AppText> : null}
           </View>

@@ -58,7 +58,9 @@ export function AlarmRow({ alarm, role, timeZone }: AlarmRowProps) {
   };
 
   const stateText =
-    alarm.state === 'shelved' && alarm.shelvedUntil ? `Shelved until ${at(alarm.shelvedUntil)}` : stateInWords(alarm.state);
+    alarm.state === 'shelved' && alarm.shelvedUntil
+      ? `Shelved until ${at(alarm.shelvedUntil)}`
+      : stateInWords(alarm.state);
   const priorityStyle = alarmStyle[alarm.priority];
 
   return (
@@ -81,13 +83,17 @@ export function AlarmRow({ alarm, role, timeZone }: AlarmRowProps) {
         </AppText>
       </View>
       <AppText variant="bodyStrong">{conditionInWords(alarm.condition)}</AppText>
-      <AppText tone="muted">{alarm.transmitterTag ? `${alarm.meterRunTag} · ${alarm.transmitterTag}` : alarm.meterRunTag}</AppText>
+      <AppText tone="muted">
+        {alarm.transmitterTag ? `${alarm.meterRunTag} · ${alarm.transmitterTag}` : alarm.meterRunTag}
+      </AppText>
       <AppText testID={`alarm-message-${alarm.id}`}>{alarm.message}</AppText>
       {alarm.clearedAt || alarm.acknowledgedAt || alarm.shelveReason ? (
         <AppText variant="caption" tone="muted">
           {[
             alarm.clearedAt ? `Condition cleared ${at(alarm.clearedAt)}` : null,
-            alarm.acknowledgedAt ? `Acknowledged ${at(alarm.acknowledgedAt)}${alarm.acknowledgedBy ? ` by ${alarm.acknowledgedBy}` : ''}` : null,
+            alarm.acknowledgedAt
+              ? `Acknowledged ${at(alarm.acknowledgedAt)}${alarm.acknowledgedBy ? ` by ${alarm.acknowledgedBy}` : ''}`
+              : null,
             alarm.state === 'shelved' && alarm.shelveReason ? `Shelved: ${alarm.shelveReason}` : null,
           ]
             .filter(Boolean)
@@ -107,16 +113,36 @@ export function AlarmRow({ alarm, role, timeZone }: AlarmRowProps) {
           />
         ) : null}
         {respond && shelvable.has(alarm.state) && dialog !== 'shelve' ? (
-          <Button label="Shelve…" onPress={() => setDialog('shelve')} testID={`alarm-shelve-${alarm.id}`} accessibilityLabel={`Shelve ${subject}`} />
+          <Button
+            label="Shelve…"
+            onPress={() => setDialog('shelve')}
+            testID={`alarm-shelve-${alarm.id}`}
+            accessibilityLabel={`Shelve ${subject}`}
+          />
         ) : null}
         {respond && alarm.state === 'shelved' ? (
-          <Button label="Unshelve" busy={action.isPending} onPress={() => run({ kind: 'unshelve' })} testID={`alarm-unshelve-${alarm.id}`} />
+          <Button
+            label="Unshelve"
+            busy={action.isPending}
+            onPress={() => run({ kind: 'unshelve' })}
+            testID={`alarm-unshelve-${alarm.id}`}
+          />
         ) : null}
         {maintain && alarm.state !== 'out-of-service' && alarm.state !== 'normal' && dialog !== 'out-of-service' ? (
-          <Button label="Out of service…" variant="quiet" onPress={() => setDialog('out-of-service')} testID={`alarm-oos-${alarm.id}`} />
+          <Button
+            label="Out of service…"
+            variant="quiet"
+            onPress={() => setDialog('out-of-service')}
+            testID={`alarm-oos-${alarm.id}`}
+          />
         ) : null}
         {maintain && alarm.state === 'out-of-service' ? (
-          <Button label="Return to service" busy={action.isPending} onPress={() => run({ kind: 'return-to-service' })} testID={`alarm-rts-${alarm.id}`} />
+          <Button
+            label="Return to service"
+            busy={action.isPending}
+            onPress={() => run({ kind: 'return-to-service' })}
+            testID={`alarm-rts-${alarm.id}`}
+          />
         ) : null}
         <Pressable
           role="button"

@@ -43,7 +43,9 @@ export function MeterRunAlarmsSection({ meterRunId, timeZone }: { meterRunId: st
       priority: (
         <PriorityBadge
           priority={alarm.priority}
-          emphasis={isUnacknowledged(alarm.state) ? 'unacknowledged' : isAnnunciated(alarm.state) ? 'acknowledged' : 'quiet'}
+          emphasis={
+            isUnacknowledged(alarm.state) ? 'unacknowledged' : isAnnunciated(alarm.state) ? 'acknowledged' : 'quiet'
+          }
         />
       ),
       condition: conditionInWords(alarm.condition),
@@ -56,9 +58,20 @@ export function MeterRunAlarmsSection({ meterRunId, timeZone }: { meterRunId: st
 
   return (
     <Panel title={engineering ? 'Alarm history and range health' : 'Alarm history'} testID="meter-run-alarms">
-      <QueryState isPending={alarms.isPending} error={alarms.error} onRetry={() => void alarms.refetch()} noun="its alarms" />
+      <QueryState
+        isPending={alarms.isPending}
+        error={alarms.error}
+        onRetry={() => void alarms.refetch()}
+        noun="its alarms"
+      />
       {alarms.data ? (
-        <DataTable columns={columns} rows={rows} label="Latest alarms of this meter run" emptyText="No alarm has been raised on this meter run." testID="meter-run-alarm-table" />
+        <DataTable
+          columns={columns}
+          rows={rows}
+          label="Latest alarms of this meter run"
+          emptyText="No alarm has been raised on this meter run."
+          testID="meter-run-alarm-table"
+        />
       ) : null}
       <View style={styles.links}>
         <Link href={{ pathname: '/alarms', params: { meterRunId, state: 'all' } }} testID="meter-run-alarms-link">
@@ -70,7 +83,10 @@ export function MeterRunAlarmsSection({ meterRunId, timeZone }: { meterRunId: st
           </Link>
         ) : null}
       </View>
-      <AppText variant="caption" tone="muted">{`The latest ${shown} in every state; times on the site's clock.`}</AppText>
+      <AppText
+        variant="caption"
+        tone="muted"
+      >{`The latest ${shown} in every state; times on the site's clock.`}</AppText>
     </Panel>
   );
 }

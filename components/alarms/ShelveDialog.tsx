@@ -50,7 +50,13 @@ export function ShelveDialog({ subject, busy, fieldError, onConfirm, onCancel }:
       onConfirm={(reason) => onConfirm(Number(minutes), reason)}
       onCancel={onCancel}
     >
-      <ChoiceGroup label="For how long" options={durations} value={minutes} onChange={setMinutes} testIDPrefix="shelve-minutes" />
+      <ChoiceGroup
+        label="For how long"
+        options={durations}
+        value={minutes}
+        onChange={setMinutes}
+        testIDPrefix="shelve-minutes"
+      />
     </ReasonDialog>
   );
 }

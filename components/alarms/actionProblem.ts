@@ -30,7 +30,10 @@ const conflictWords: Record<string, string> = {
  */
 export function actionProblem(error: unknown): ActionProblem {
   if (isApiError(error, 409)) {
-    return { tone: 'info', message: `${conflictWords[error.code] ?? error.message} The list now shows where it stands.` };
+    return {
+      tone: 'info',
+      message: `${conflictWords[error.code] ?? error.message} The list now shows where it stands.`,
+    };
   }
   if (isApiError(error, 403)) return { tone: 'alarm', message: 'Your role does not allow this action on alarms.' };
   if (isApiError(error, 400)) return { tone: 'alarm', message: error.message, field: error.field };

@@ -63,7 +63,8 @@ const actionWords: Record<string, string> = {
  * @returns it in words
  */
 export function actionInWords(action: string): string {
-  if (action.startsWith('raised-while-')) return `Condition again while ${stateInWords(action.slice('raised-while-'.length)).toLowerCase()}`;
+  if (action.startsWith('raised-while-'))
+    return `Condition again while ${stateInWords(action.slice('raised-while-'.length)).toLowerCase()}`;
   return actionWords[action] ?? action;
 }
 

@@ -25,8 +25,8 @@ const labelFont = `13px ${fontFamily.medium}, system-ui, sans-serif`;
 function rangeFor(fixed: [number | null, number | null] | undefined): uPlot.Scale.Range | undefined {
   if (!fixed) return undefined;
   return (_u, dataMin, dataMax) => {
-    const low = fixed[0] ?? (dataMin ?? 0);
-    let high = fixed[1] ?? (dataMax ?? 1);
+    const low = fixed[0] ?? dataMin ?? 0;
+    let high = fixed[1] ?? dataMax ?? 1;
     if (fixed[1] === null && dataMax !== null && dataMax !== undefined) high = dataMax + Math.abs(dataMax - low) * 0.05;
     return high > low ? [low, high] : [low, low + 1];
   };
@@ -187,14 +187,19 @@ function timeFormatting(timeZone: string | undefined) {
       const date = local(ts);
       if (increment >= 86_400) return dayMonth(date);
       const previous = i > 0 ? local(splits[i - 1]) : null;
-      return !previous || previous.getDate() !== date.getDate() ? `${hourMinute(date)}\n${dayMonth(date)}` : hourMinute(date);
+      return !previous || previous.getDate() !== date.getDate()
+        ? `${hourMinute(date)}\n${dayMonth(date)}`
+        : hourMinute(date);
     });
   const legend = (_u: uPlot, ts: number | null) => (ts === null || ts === undefined ? '—' : full(local(ts)));
   return { axis, legend };
 }
 
 /** Builds uPlot's options and aligned data from the chart's props. */
-function build(props: ChartProps, width: number): { options: uPlot.Options; data: uPlot.AlignedData; hiddenLegend: number[] } {
+function build(
+  props: ChartProps,
+  width: number,
+): { options: uPlot.Options; data: uPlot.AlignedData; hiddenLegend: number[] } {
   const { x, axes, series, zones = [], lines = [], markers = [] } = props;
   const isTime = x.kind === 'time';
   const time = timeFormatting(x.timeZone);
@@ -238,13 +243,23 @@ function build(props: ChartProps, width: number): { options: uPlot.Options; data
   const xRange = x.range;
   const fixedX = xRange ? { range: (): uPlot.Range.MinMax => xRange } : {};
   const scales: uPlot.Scales = {
-    x: isTime ? { time: true, ...fixedX } : x.kind === 'log' ? { time: false, distr: 3, log: 10, ...fixedX } : { time: false, ...fixedX },
+    x: isTime
+      ? { time: true, ...fixedX }
+      : x.kind === 'log'
+        ? { time: false, distr: 3, log: 10, ...fixedX }
+        : { time: false, ...fixedX },
   };
   for (const axis of axes) scales[axis.scale] = { auto: true, range: rangeFor(axis.range) };
 
   // On a phone the axes give up some room so the plot keeps most of the width.
   const narrow = width < 520;
-  const axisBase = { stroke: axisText, font, labelFont, ticks: { stroke: gridLine, width: 1 }, ...(narrow ? { labelSize: 18, labelGap: 0 } : {}) };
+  const axisBase = {
+    stroke: axisText,
+    font,
+    labelFont,
+    ticks: { stroke: gridLine, width: 1 },
+    ...(narrow ? { labelSize: 18, labelGap: 0 } : {}),
+  };
   const uAxes: uPlot.Axis[] = [
     {
       ...axisBase,
@@ -320,7 +335,15 @@ export function Chart(props: ChartProps) {
       </View>
     );
   }
-  return <div ref={container} role="figure" aria-label={props.title} data-testid={props.testID} style={{ width: '100%', minWidth: 0 }} />;
+  return (
+    <div
+      ref={container}
+      role="figure"
+      aria-label={props.title}
+      data-testid={props.testID}
+      style={{ width: '100%', minWidth: 0 }}
+    />
+  );
 }
 
 const styles = StyleSheet.create({

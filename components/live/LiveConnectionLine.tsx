@@ -16,7 +16,12 @@ interface LiveConnectionLineProps {
 }
 
 function clock(ms: number): string {
-  return new Date(ms).toLocaleTimeString(undefined, { hour: '2-digit', minute: '2-digit', second: '2-digit', hour12: false });
+  return new Date(ms).toLocaleTimeString(undefined, {
+    hour: '2-digit',
+    minute: '2-digit',
+    second: '2-digit',
+    hour12: false,
+  });
 }
 
 export function LiveConnectionLine({ connection, receivedAtMs, nowMs }: LiveConnectionLineProps) {
@@ -61,5 +66,11 @@ export function LiveConnectionLine({ connection, receivedAtMs, nowMs }: LiveConn
 }
 
 const styles = StyleSheet.create({
-  line: { flexDirection: 'row', flexWrap: 'wrap', alignItems: 'center', gap: space.md, justifyContent: 'space-between' },
+  line: {
+    flexDirection: 'row',
+    flexWrap: 'wrap',
+    alignItems: 'center',
+    gap: space.md,
+    justifyContent: 'space-between',
+  },
 });

@@ -42,7 +42,13 @@ function dayStartLabel(row: LiveBoardRow): string {
   const start = new Date(row.todayStart);
   if (Number.isNaN(start.getTime())) return '';
   try {
-    return start.toLocaleTimeString(undefined, { timeZone: row.timeZone, hour: '2-digit', minute: '2-digit', hour12: false, timeZoneName: 'short' });
+    return start.toLocaleTimeString(undefined, {
+      timeZone: row.timeZone,
+      hour: '2-digit',
+      minute: '2-digit',
+      hour12: false,
+      timeZoneName: 'short',
+    });
   } catch {
     return start.toISOString();
   }
@@ -84,7 +90,12 @@ export function LiveRunCard({ row, family, displayUnits, ageS, states, width }: 
         {states.length ? (
           <View style={styles.states} testID={`${testID}-states`}>
             {states.map((state, index) => (
-              <StateBadge key={`${state.key}-${index}`} priority={state.priority} label={state.label} testID={`${testID}-state-${state.key}`} />
+              <StateBadge
+                key={`${state.key}-${index}`}
+                priority={state.priority}
+                label={state.label}
+                testID={`${testID}-state-${state.key}`}
+              />
             ))}
           </View>
         ) : null}
@@ -119,7 +130,11 @@ export function LiveRunCard({ row, family, displayUnits, ageS, states, width }: 
               </AppText>
             </View>
             {figures.energy ? (
-              <AppText variant="caption" tone="muted" tabular>{`${formatFigure(figures.energy.value)} ${figures.energy.unit}`}</AppText>
+              <AppText
+                variant="caption"
+                tone="muted"
+                tabular
+              >{`${formatFigure(figures.energy.value)} ${figures.energy.unit}`}</AppText>
             ) : null}
           </View>
         </View>

@@ -49,16 +49,26 @@ export function isLowInRange(share: number | null): boolean {
 export function runStates(row: LiveBoardRow, ageS: number | null, staleAfterS: number): RunState[] {
   const states: RunState[] = [];
   if (row.dpShareOfSpan !== null && row.dpShareOfSpan > 1) {
-    states.push({ key: 'dp-over-range', priority: 'high', label: `DP over range (${formatShare(row.dpShareOfSpan)} of span)` });
+    states.push({
+      key: 'dp-over-range',
+      priority: 'high',
+      label: `DP over range (${formatShare(row.dpShareOfSpan)} of span)`,
+    });
   }
   const stale = ageS !== null && ageS > staleAfterS;
   if (ageS === null) states.push({ key: 'no-readings', priority: 'medium', label: 'No readings yet' });
-  else if (stale) states.push({ key: 'stale', priority: 'medium', label: `Stale: newest reading ${formatAge(ageS)} old` });
+  else if (stale)
+    states.push({ key: 'stale', priority: 'medium', label: `Stale: newest reading ${formatAge(ageS)} old` });
   // With no readings at all, or none recent, the server's "no fresh ..." warnings only repeat that.
   const implied = (warning: string) => ageS === null || (stale && /^no fresh /.test(warning));
-  for (const warning of row.warnings) if (!implied(warning)) states.push({ key: 'warning', priority: 'medium', label: warning });
+  for (const warning of row.warnings)
+    if (!implied(warning)) states.push({ key: 'warning', priority: 'medium', label: warning });
   if (isLowInRange(row.dpShareOfSpan)) {
-    states.push({ key: 'dp-low-in-range', priority: lowInRangePriority, label: `DP low in range (${formatShare(row.dpShareOfSpan ?? 0)} of span)` });
+    states.push({
+      key: 'dp-low-in-range',
+      priority: lowInRangePriority,
+      label: `DP low in range (${formatShare(row.dpShareOfSpan ?? 0)} of span)`,
+    });
   }
   return states;
 }

@@ -20,8 +20,16 @@ const dayMs = 86_400_000;
 /** The window from the start of the contract day `days − 1` days ago to the end of today's. */
 function lastDaysWindow(site: Site): { from: string; to: string } {
   const now = Date.now();
-  const today = contractDayBounds(contractDayOf(now, site.timeZone, site.contractHour), site.timeZone, site.contractHour);
-  const first = contractDayBounds(contractDayOf(today.startMs - (days - 1) * dayMs + dayMs / 2, site.timeZone, site.contractHour), site.timeZone, site.contractHour);
+  const today = contractDayBounds(
+    contractDayOf(now, site.timeZone, site.contractHour),
+    site.timeZone,
+    site.contractHour,
+  );
+  const first = contractDayBounds(
+    contractDayOf(today.startMs - (days - 1) * dayMs + dayMs / 2, site.timeZone, site.contractHour),
+    site.timeZone,
+    site.contractHour,
+  );
   return { from: new Date(first.startMs).toISOString(), to: new Date(today.endMs).toISOString() };
 }
 
@@ -59,11 +67,29 @@ export function DailyTotalsPanel({ meterRunId, site }: { meterRunId: string; sit
     <Panel
       title={`Daily totals (last ${days} contract days)`}
       testID="daily-totals"
-      actions={<Button label="Refresh" size="compact" busy={totals.isFetching && !totals.isPending} onPress={() => void totals.refetch()} />}
+      actions={
+        <Button
+          label="Refresh"
+          size="compact"
+          busy={totals.isFetching && !totals.isPending}
+          onPress={() => void totals.refetch()}
+        />
+      }
     >
-      <QueryState isPending={totals.isPending} error={totals.error} onRetry={() => void totals.refetch()} noun="daily totals" />
+      <QueryState
+        isPending={totals.isPending}
+        error={totals.error}
+        onRetry={() => void totals.refetch()}
+        noun="daily totals"
+      />
       {totals.data ? (
-        <DataTable columns={columns} rows={rows} label="Daily totals by contract day" emptyText="No contract days in this window." testID="daily-table" />
+        <DataTable
+          columns={columns}
+          rows={rows}
+          label="Daily totals by contract day"
+          emptyText="No contract days in this window."
+          testID="daily-table"
+        />
       ) : null}
       <AppText variant="caption" tone="muted">
         {`Each contract day starts at ${String(site.contractHour).padStart(2, '0')}:00 site time (23 or 25 hours on clock-change days). Volume at base conditions. A day with nothing recorded shows zero with coverage 0. U: expanded uncertainty (k = 2).`}

@@ -33,7 +33,11 @@ interface HourlyRecordsPanelProps {
 export function HourlyRecordsPanel({ meterRunId, site }: HourlyRecordsPanelProps) {
   const [day, setDay] = useState(() => contractDayOf(Date.now(), site.timeZone, site.contractHour));
   const bounds = contractDayBounds(day, site.timeZone, site.contractHour);
-  const records = useHourlyRecords(meterRunId, new Date(bounds.startMs).toISOString(), new Date(bounds.endMs).toISOString());
+  const records = useHourlyRecords(
+    meterRunId,
+    new Date(bounds.startMs).toISOString(),
+    new Date(bounds.endMs).toISOString(),
+  );
   const today = contractDayOf(Date.now(), site.timeZone, site.contractHour);
   const set = unitsFor(site.displayUnits);
 
@@ -60,8 +64,14 @@ export function HourlyRecordsPanel({ meterRunId, site }: HourlyRecordsPanelProps
       flowTime: formatNumber(record.flowTimeS / 60, 3),
       ...totalCells(record, set),
       dp: record.averageDpPa === null ? '—' : formatNumber(differentialPressureForDisplay(record.averageDpPa, set)),
-      pressure: record.averagePressurePa === null ? '—' : formatNumber(staticPressureForDisplay(record.averagePressurePa, set, site.atmosphericPressurePa)),
-      temperature: record.averageTemperatureK === null ? '—' : formatNumber(temperatureForDisplay(record.averageTemperatureK, set), 3),
+      pressure:
+        record.averagePressurePa === null
+          ? '—'
+          : formatNumber(staticPressureForDisplay(record.averagePressurePa, set, site.atmosphericPressurePa)),
+      temperature:
+        record.averageTemperatureK === null
+          ? '—'
+          : formatNumber(temperatureForDisplay(record.averageTemperatureK, set), 3),
       flags: <FlagList flags={record.flags} />,
     },
   }));
@@ -69,7 +79,12 @@ export function HourlyRecordsPanel({ meterRunId, site }: HourlyRecordsPanelProps
   return (
     <Panel title="Hourly records" testID="hourly-records">
       <View style={styles.dayRow}>
-        <Button label="‹ Previous day" size="compact" onPress={() => setDay(contractDayOf(bounds.startMs - 1, site.timeZone, site.contractHour))} testID="hourly-previous-day" />
+        <Button
+          label="‹ Previous day"
+          size="compact"
+          onPress={() => setDay(contractDayOf(bounds.startMs - 1, site.timeZone, site.contractHour))}
+          testID="hourly-previous-day"
+        />
         <AppText variant="bodyStrong" testID="hourly-day" style={styles.day}>
           {`Contract day ${day} (${bounds.hours} h from ${formatSiteTime(bounds.startMs, site.timeZone, 'HH:mm ZZZZ')})`}
         </AppText>
@@ -81,7 +96,12 @@ export function HourlyRecordsPanel({ meterRunId, site }: HourlyRecordsPanelProps
           testID="hourly-next-day"
         />
       </View>
-      <QueryState isPending={records.isPending} error={records.error} onRetry={() => void records.refetch()} noun="hourly records" />
+      <QueryState
+        isPending={records.isPending}
+        error={records.error}
+        onRetry={() => void records.refetch()}
+        noun="hourly records"
+      />
       {records.data ? (
         <DataTable
           columns={columns}
@@ -92,7 +112,9 @@ export function HourlyRecordsPanel({ meterRunId, site }: HourlyRecordsPanelProps
         />
       ) : null}
       <AppText variant="caption" tone="muted">
-        Averages are flow-dependent: taken over the flowing time, with no-flow time left out. U: expanded uncertainty (k = 2) of the hour's quantity. Provisional: the hour is not over yet; closed: its month is locked. Times on the site's clock.
+        Averages are flow-dependent: taken over the flowing time, with no-flow time left out. U: expanded uncertainty (k
+        = 2) of the hour's quantity. Provisional: the hour is not over yet; closed: its month is locked. Times on the
+        site's clock.
       </AppText>
     </Panel>
   );

@@ -32,7 +32,11 @@ const measuresLabel: Record<Transmitter['measures'], string> = {
   'static-pressure': 'Static pressure',
   temperature: 'Temperature',
 };
-const roleLabel: Record<Transmitter['stackRole'], string> = { single: 'single', low: 'low range (stacked)', high: 'high range (stacked)' };
+const roleLabel: Record<Transmitter['stackRole'], string> = {
+  single: 'single',
+  low: 'low range (stacked)',
+  high: 'high range (stacked)',
+};
 
 /** Line data fields the set-up may hold, in words. */
 const lineLabels: Record<string, string> = {
@@ -69,14 +73,18 @@ interface MeterRunHeaderProps {
 
 export function MeterRunHeader({ run, site, transmitters, today }: MeterRunHeaderProps) {
   const set = unitsFor(site?.displayUnits ?? 'si');
-  const length = (m: number | undefined) => (m === undefined ? '—' : `${formatNumber(m / set.length.metresPerUnit)} ${set.length.label}`);
+  const length = (m: number | undefined) =>
+    m === undefined ? '—' : `${formatNumber(m / set.length.metresPerUnit)} ${set.length.label}`;
   const element = run.element;
   const beta = element ? betaOf(element) : null;
-  const lineEntries = Object.entries(run.line).filter(([, value]) => value !== undefined && value !== null && value !== '');
+  const lineEntries = Object.entries(run.line).filter(
+    ([, value]) => value !== undefined && value !== null && value !== '',
+  );
 
   const rows = transmitters.map((t) => {
     const calibration = calibrationState(t.calibrationDue, today);
-    const pressureSuffix = t.measures === 'static-pressure' ? (t.pressureReference === 'gauge' ? ' gauge' : ' abs') : '';
+    const pressureSuffix =
+      t.measures === 'static-pressure' ? (t.pressureReference === 'gauge' ? ' gauge' : ' abs') : '';
     return {
       key: t.id,
       testID: `transmitter-row-${t.tag}`,
@@ -87,7 +95,10 @@ export function MeterRunHeader({ run, site, transmitters, today }: MeterRunHeade
         role: t.measures === 'differential-pressure' ? roleLabel[t.stackRole] : '—',
         accuracy: `±${formatPlain(t.accuracyPercentOfSpan)}`,
         calibration: (
-          <AppText variant={calibration.abnormal ? 'bodyStrong' : 'body'} style={calibration.abnormal ? styles.abnormal : null}>
+          <AppText
+            variant={calibration.abnormal ? 'bodyStrong' : 'body'}
+            style={calibration.abnormal ? styles.abnormal : null}
+          >
             {calibration.text}
           </AppText>
         ),
@@ -100,7 +111,12 @@ export function MeterRunHeader({ run, site, transmitters, today }: MeterRunHeade
       <Panel title={`${run.tag} · ${run.name}`} testID="meter-run-header">
         <View style={styles.facts}>
           <Fact label="Site" value={site ? `${site.code} · ${site.name}` : '…'} />
-          {site ? <Fact label="Contract day" value={`from ${String(site.contractHour).padStart(2, '0')}:00, ${site.timeZone}`} /> : null}
+          {site ? (
+            <Fact
+              label="Contract day"
+              value={`from ${String(site.contractHour).padStart(2, '0')}:00, ${site.timeZone}`}
+            />
+          ) : null}
           {site ? (
             <Fact
               label="Base conditions"
@@ -110,9 +126,17 @@ export function MeterRunHeader({ run, site, transmitters, today }: MeterRunHeade
           <Fact label="Primary element" value={element ? elementName(element) : 'not configured'} />
           <Fact label="β" value={beta === null ? '—' : beta.toFixed(4)} />
           <Fact label="Pipe D" value={length(element?.pipeDiameterM)} />
-          {element?.kind === 'cone' ? <Fact label="Cone dc" value={length(element.coneDiameterM)} /> : <Fact label="Bore d" value={length(element?.boreDiameterM)} />}
-          {element?.dischargeCoefficient !== undefined ? <Fact label="C (fixed)" value={String(element.dischargeCoefficient)} /> : null}
-          {element?.calibration ? <Fact label="Calibration" value={`${element.calibration.length} points of C against Re_D`} /> : null}
+          {element?.kind === 'cone' ? (
+            <Fact label="Cone dc" value={length(element.coneDiameterM)} />
+          ) : (
+            <Fact label="Bore d" value={length(element?.boreDiameterM)} />
+          )}
+          {element?.dischargeCoefficient !== undefined ? (
+            <Fact label="C (fixed)" value={String(element.dischargeCoefficient)} />
+          ) : null}
+          {element?.calibration ? (
+            <Fact label="Calibration" value={`${element.calibration.length} points of C against Re_D`} />
+          ) : null}
           <Fact label="Fluid" value={run.fluid ? fluidName(run.fluid) : '—'} />
           <Fact label="Hold limit · gap limit" value={`${run.holdLimitS} s · ${run.maxGapS} s`} />
         </View>
@@ -127,14 +151,27 @@ export function MeterRunHeader({ run, site, transmitters, today }: MeterRunHeade
               <Fact
                 key={key}
                 label={lineLabels[key] ?? key}
-                value={key === 'insideDiameterM' && typeof value === 'number' ? length(value) : typeof value === 'boolean' ? (value ? 'yes' : 'no') : String(value)}
+                value={
+                  key === 'insideDiameterM' && typeof value === 'number'
+                    ? length(value)
+                    : typeof value === 'boolean'
+                      ? value
+                        ? 'yes'
+                        : 'no'
+                      : String(value)
+                }
               />
             ))}
           </View>
         ) : null}
       </Panel>
       <Panel title="Transmitters" testID="meter-run-transmitters">
-        <DataTable columns={transmitterColumns} rows={rows} label={`Transmitters of ${run.tag}`} emptyText="No transmitters yet." />
+        <DataTable
+          columns={transmitterColumns}
+          rows={rows}
+          label={`Transmitters of ${run.tag}`}
+          emptyText="No transmitters yet."
+        />
         {transmitters.some((t) => t.stackRole !== 'single') ? (
           <AppText variant="caption" tone="muted">
             {`Stacked pair: the high-range transmitter is used above ${Math.round(run.stackSwitchUpShare * 100)} % of the low-range span and the low-range one again below ${Math.round(run.stackSwitchDownShare * 100)} %.`}

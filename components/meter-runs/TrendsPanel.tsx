@@ -23,7 +23,11 @@ import { trendCharts } from './trendCharts';
 
 type WindowChoice = '24h' | '7d' | '30d' | 'custom';
 const hourMs = 3_600_000;
-const windowLengthMs: Record<Exclude<WindowChoice, 'custom'>, number> = { '24h': 24 * hourMs, '7d': 7 * 24 * hourMs, '30d': 30 * 24 * hourMs };
+const windowLengthMs: Record<Exclude<WindowChoice, 'custom'>, number> = {
+  '24h': 24 * hourMs,
+  '7d': 7 * 24 * hourMs,
+  '30d': 30 * 24 * hourMs,
+};
 const windowOptions: { value: WindowChoice; label: string }[] = [
   { value: '24h', label: 'Last 24 h' },
   { value: '7d', label: '7 days' },
@@ -64,7 +68,8 @@ export function TrendsPanel({ run, transmitters, displayUnits, atmosphericPressu
   const trend = useTrend(run.id, from, to);
 
   const charts = useMemo(
-    () => (trend.data ? trendCharts(trend.data, { run, transmitters, displayUnits, atmosphericPressurePa, timeZone }) : null),
+    () =>
+      trend.data ? trendCharts(trend.data, { run, transmitters, displayUnits, atmosphericPressurePa, timeZone }) : null,
     [trend.data, run, transmitters, displayUnits, atmosphericPressurePa, timeZone],
   );
 
@@ -86,7 +91,8 @@ export function TrendsPanel({ run, transmitters, displayUnits, atmosphericPressu
     if (fromMs === null) found.from = 'Enter a time as YYYY-MM-DD HH:mm (site time).';
     if (toMs === null) found.to = 'Enter a time as YYYY-MM-DD HH:mm (site time).';
     if (fromMs !== null && toMs !== null && toMs <= fromMs) found.to = 'Must be after the start.';
-    if (fromMs !== null && toMs !== null && toMs - fromMs > longestCustomMs) found.to = 'Choose a window of at most a year.';
+    if (fromMs !== null && toMs !== null && toMs - fromMs > longestCustomMs)
+      found.to = 'Choose a window of at most a year.';
     setProblems(found);
     if (found.from || found.to || fromMs === null || toMs === null) return;
     setTrendWindow({ fromMs, toMs });
@@ -101,16 +107,45 @@ export function TrendsPanel({ run, transmitters, displayUnits, atmosphericPressu
     <Panel
       title="Trends"
       testID="meter-run-trends"
-      actions={<Button label="Refresh" size="compact" busy={trend.isFetching && !trend.isPending} onPress={refresh} testID="trend-refresh" />}
+      actions={
+        <Button
+          label="Refresh"
+          size="compact"
+          busy={trend.isFetching && !trend.isPending}
+          onPress={refresh}
+          testID="trend-refresh"
+        />
+      }
     >
-      <ChoiceGroup label="Window" options={windowOptions} value={choice} onChange={choose} testIDPrefix="trend-window" />
+      <ChoiceGroup
+        label="Window"
+        options={windowOptions}
+        value={choice}
+        onChange={choose}
+        testIDPrefix="trend-window"
+      />
       {choice === 'custom' ? (
         <View style={styles.custom}>
           <View style={styles.customField}>
-            <TextField label="From (site time)" value={fromText} onChangeText={setFromText} error={problems.from} testID="trend-from" autoCapitalize="none" />
+            <TextField
+              label="From (site time)"
+              value={fromText}
+              onChangeText={setFromText}
+              error={problems.from}
+              testID="trend-from"
+              autoCapitalize="none"
+            />
           </View>
           <View style={styles.customField}>
-            <TextField label="To (site time)" value={toText} onChangeText={setToText} error={problems.to} testID="trend-to" autoCapitalize="none" onSubmitEditing={applyCustom} />
+            <TextField
+              label="To (site time)"
+              value={toText}
+              onChangeText={setToText}
+              error={problems.to}
+              testID="trend-to"
+              autoCapitalize="none"
+              onSubmitEditing={applyCustom}
+            />
           </View>
           <View style={styles.customAction}>
             <Button label="Show" variant="primary" onPress={applyCustom} testID="trend-apply" />
@@ -123,7 +158,10 @@ export function TrendsPanel({ run, transmitters, displayUnits, atmosphericPressu
       <QueryState isPending={trend.isPending} error={trend.error} onRetry={() => void trend.refetch()} noun="trends" />
       {charts ? (
         <View style={styles.charts}>
-          <TrendBlock heading="Differential pressure" note="Hatched: the bottom 10 % of each transmitter's span, where its error as a share of the reading grows. Dashed lines: each span's upper range value.">
+          <TrendBlock
+            heading="Differential pressure"
+            note="Hatched: the bottom 10 % of each transmitter's span, where its error as a share of the reading grows. Dashed lines: each span's upper range value."
+          >
             <Chart {...charts.dp} testID="trend-chart-dp" />
           </TrendBlock>
           <TrendBlock heading="Static pressure">
@@ -132,7 +170,10 @@ export function TrendsPanel({ run, transmitters, displayUnits, atmosphericPressu
           <TrendBlock heading="Temperature">
             <Chart {...charts.temperature} testID="trend-chart-temperature" />
           </TrendBlock>
-          <TrendBlock heading="Flow" note="Each hour's flow from its hourly record (total over the hour divided by the hour's length).">
+          <TrendBlock
+            heading="Flow"
+            note="Each hour's flow from its hourly record (total over the hour divided by the hour's length)."
+          >
             <Chart {...charts.flow} testID="trend-chart-flow" />
           </TrendBlock>
         </View>

@@ -7,7 +7,12 @@ import type { FluidSpec } from '@/shared/fluids';
 import { DEFAULT_REFERENCE_TEMPERATURE_K, prepareElement, type ElementSpec } from '@/shared/flow';
 import { fromSI } from '@/shared/units';
 
-const elementNames: Record<ElementSpec['kind'], string> = { orifice: 'Orifice', venturi: 'Venturi', nozzle: 'Nozzle', cone: 'Cone' };
+const elementNames: Record<ElementSpec['kind'], string> = {
+  orifice: 'Orifice',
+  venturi: 'Venturi',
+  nozzle: 'Nozzle',
+  cone: 'Cone',
+};
 const subtypeNames: Record<string, string> = {
   flange: 'flange taps',
   corner: 'corner taps',
@@ -37,7 +42,13 @@ export function betaOf(element: ElementSpec): number | null {
  */
 export function elementName(element: ElementSpec): string {
   const subtype = element.taps ?? element.venturiType ?? element.nozzleType;
-  const detail = subtype ? subtypeNames[subtype] ?? subtype : element.kind === 'cone' ? (element.calibration ? 'calibrated' : 'uncalibrated') : undefined;
+  const detail = subtype
+    ? (subtypeNames[subtype] ?? subtype)
+    : element.kind === 'cone'
+      ? element.calibration
+        ? 'calibrated'
+        : 'uncalibrated'
+      : undefined;
   return detail ? `${elementNames[element.kind]}, ${detail}` : elementNames[element.kind];
 }
 

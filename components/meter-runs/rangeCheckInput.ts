@@ -14,18 +14,46 @@ import {
   type FlowRateUnit,
 } from '@/constants/units-display';
 import { fluidState, type FluidSpec, type FluidState } from '@/shared/fluids';
-import { rangeCheck, rangeCheckCurve, type ElementSpec, type RangeCheckInput, type RangeCheckResult } from '@/shared/flow';
-import { elementSpecSchema, flowCaseErrorFromEngine, flowConditionsSchema, fluidSpecSchema } from '@/shared/schemas/flow-case';
+import {
+  rangeCheck,
+  rangeCheckCurve,
+  type ElementSpec,
+  type RangeCheckInput,
+  type RangeCheckResult,
+} from '@/shared/flow';
+import {
+  elementSpecSchema,
+  flowCaseErrorFromEngine,
+  flowConditionsSchema,
+  fluidSpecSchema,
+} from '@/shared/schemas/flow-case';
 import { transmitterSchema } from '@/shared/schemas/setup';
 import type { RangeCheckValues } from './rangeCheckValues';
 
 /** Form fields that can carry a problem; `span0`/`accuracy1` are the transmitters' fields. */
 export type RangeCheckField =
-  | 'elementKind' | 'pipeDiameter' | 'boreDiameter' | 'coneDiameter' | 'dischargeCoefficient'
-  | 'composition' | 'molarMass' | 'compressibility' | 'isentropicExponent' | 'viscosity'
-  | 'liquidDensity' | 'liquidReferenceTemperature' | 'liquidExpansion'
-  | 'staticPressure' | 'temperature' | 'minimumFlow' | 'normalFlow' | 'maximumFlow' | 'uncertaintyLimit'
-  | `span${number}` | `accuracy${number}` | 'form';
+  | 'elementKind'
+  | 'pipeDiameter'
+  | 'boreDiameter'
+  | 'coneDiameter'
+  | 'dischargeCoefficient'
+  | 'composition'
+  | 'molarMass'
+  | 'compressibility'
+  | 'isentropicExponent'
+  | 'viscosity'
+  | 'liquidDensity'
+  | 'liquidReferenceTemperature'
+  | 'liquidExpansion'
+  | 'staticPressure'
+  | 'temperature'
+  | 'minimumFlow'
+  | 'normalFlow'
+  | 'maximumFlow'
+  | 'uncertaintyLimit'
+  | `span${number}`
+  | `accuracy${number}`
+  | 'form';
 
 export type Problems = Partial<Record<RangeCheckField, string>>;
 
@@ -68,10 +96,18 @@ function numberOf(text: string): number | undefined {
 /** "methane 0.965222" per line (also "methane: 0.965222" or "methane=0.965222"). */
 function parseComposition(text: string): Record<string, number> | string {
   const composition: Record<string, number> = {};
-  for (const line of text.split(/\n|;/).map((l) => l.trim()).filter(Boolean)) {
+  for (const line of text
+    .split(/\n|;/)
+    .map((l) => l.trim())
+    .filter(Boolean)) {
     const match = /^([A-Za-z0-9 _-]+?)\s*[:=\s]\s*([0-9.eE+-]+)$/.exec(line);
     if (!match) return `Write one component per line, e.g. "methane 0.965222" (not "${line}").`;
-    composition[match[1].trim().toLowerCase().replace(/[\s_]+/g, '-')] = Number(match[2]);
+    composition[
+      match[1]
+        .trim()
+        .toLowerCase()
+        .replace(/[\s_]+/g, '-')
+    ] = Number(match[2]);
   }
   return composition;
 }
@@ -116,7 +152,9 @@ export function runRangeCheck(values: RangeCheckValues): { problems: Problems; r
       for (const issue of parsed.error.issues) {
         const field = elementFields[String(issue.path[0])] ?? 'elementKind';
         // The schema says it in metres; the form is in mm or in.
-        const message = /must be below pipeDiameterM/.test(issue.message) ? `Must be smaller than the pipe diameter D (${values.pipeDiameter} ${set.length.label}).` : issue.message;
+        const message = /must be below pipeDiameterM/.test(issue.message)
+          ? `Must be smaller than the pipe diameter D (${values.pipeDiameter} ${set.length.label}).`
+          : issue.message;
         problems[field] ??= message;
       }
     }
@@ -126,27 +164,37 @@ export function runRangeCheck(values: RangeCheckValues): { problems: Problems; r
   let fluidDraft: Record<string, unknown> = { kind: values.fluidKind };
   const kappa = need('isentropicExponent', values.isentropicExponent, true);
   const viscosityMilli = need('viscosity', values.viscosity, true);
-  const overrides = { ...(kappa !== undefined ? { isentropicExponent: kappa } : {}), ...(viscosityMilli !== undefined ? { viscosityPaS: viscosityMilli / 1000 } : {}) };
+  const overrides = {
+    ...(kappa !== undefined ? { isentropicExponent: kappa } : {}),
+    ...(viscosityMilli !== undefined ? { viscosityPaS: viscosityMilli / 1000 } : {}),
+  };
   if (values.fluidKind === 'natural-gas') {
     const composition = parseComposition(values.composition);
     if (typeof composition === 'string') problems.composition = composition;
     else fluidDraft = { ...fluidDraft, composition };
   } else if (values.fluidKind === 'ideal-gas') {
     const molarMass = need('molarMass', values.molarMass);
-    fluidDraft = { ...fluidDraft, molarMassKgPerMol: molarMass === undefined ? undefined : molarMass / 1000, compressibility: need('compressibility', values.compressibility, true) };
+    fluidDraft = {
+      ...fluidDraft,
+      molarMassKgPerMol: molarMass === undefined ? undefined : molarMass / 1000,
+      compressibility: need('compressibility', values.compressibility, true),
+    };
   } else if (values.fluidKind === 'liquid') {
     const referenceTemperature = need('liquidReferenceTemperature', values.liquidReferenceTemperature);
     fluidDraft = {
       ...fluidDraft,
       densityKgPerM3: need('liquidDensity', values.liquidDensity),
-      referenceTemperatureK: referenceTemperature === undefined ? undefined : temperatureFromDisplay(referenceTemperature, set),
+      referenceTemperatureK:
+        referenceTemperature === undefined ? undefined : temperatureFromDisplay(referenceTemperature, set),
       expansionPerK: need('liquidExpansion', values.liquidExpansion) ?? 0,
     };
   }
   let fluid: FluidSpec | null = null;
   const parsedFluid = fluidSpecSchema.safeParse({ ...fluidDraft, ...overrides });
   if (parsedFluid.success) fluid = parsedFluid.data as FluidSpec;
-  else for (const issue of parsedFluid.error.issues) problems[fluidFields[String(issue.path[0])] ?? 'composition'] ??= issue.message;
+  else
+    for (const issue of parsedFluid.error.issues)
+      problems[fluidFields[String(issue.path[0])] ?? 'composition'] ??= issue.message;
 
   // Transmitters: the set-up schema, as if each were a DP transmitter ranged from zero.
   const transmitters = values.transmitters.map((t, i) => {
@@ -154,27 +202,45 @@ export function runRangeCheck(values: RangeCheckValues): { problems: Problems; r
     const accuracy = need(`accuracy${i}`, t.accuracy);
     if (span === undefined || accuracy === undefined) return null;
     const parsed = transmitterSchema.safeParse({
-      meterRunId: '1', tag: 'RANGE-CHECK', measures: 'differential-pressure', unit: set.differentialPressure.unit,
-      lowerRange: 0, upperRange: span, accuracyPercentOfSpan: accuracy,
+      meterRunId: '1',
+      tag: 'RANGE-CHECK',
+      measures: 'differential-pressure',
+      unit: set.differentialPressure.unit,
+      lowerRange: 0,
+      upperRange: span,
+      accuracyPercentOfSpan: accuracy,
     });
     if (!parsed.success) {
       for (const issue of parsed.error.issues) {
         const field = issue.path[0] === 'accuracyPercentOfSpan' ? `accuracy${i}` : `span${i}`;
-        problems[field as RangeCheckField] ??= issue.path[0] === 'upperRange' ? 'The span must be above zero.' : issue.message;
+        problems[field as RangeCheckField] ??=
+          issue.path[0] === 'upperRange' ? 'The span must be above zero.' : issue.message;
       }
       return null;
     }
-    return { spanPa: differentialPressureFromDisplay(span, set), accuracyPercentOfSpan: accuracy, unit: set.differentialPressure.unit };
+    return {
+      spanPa: differentialPressureFromDisplay(span, set),
+      accuracyPercentOfSpan: accuracy,
+      unit: set.differentialPressure.unit,
+    };
   });
 
   // Conditions: the flow case's schema, with the largest span as the DP it must stay below.
   const pressure = need('staticPressure', values.staticPressure);
   const temperature = need('temperature', values.temperature);
-  const staticPressurePa = pressure === undefined ? undefined : staticPressureFromDisplay(pressure, set, values.atmosphericPressurePa);
+  const staticPressurePa =
+    pressure === undefined ? undefined : staticPressureFromDisplay(pressure, set, values.atmosphericPressurePa);
   const temperatureK = temperature === undefined ? undefined : temperatureFromDisplay(temperature, set);
-  const largest = transmitters.reduce<{ i: number; spanPa: number } | null>((best, t, i) => (t && (!best || t.spanPa > best.spanPa) ? { i, spanPa: t.spanPa } : best), null);
+  const largest = transmitters.reduce<{ i: number; spanPa: number } | null>(
+    (best, t, i) => (t && (!best || t.spanPa > best.spanPa) ? { i, spanPa: t.spanPa } : best),
+    null,
+  );
   if (staticPressurePa !== undefined && temperatureK !== undefined) {
-    const parsed = flowConditionsSchema.safeParse({ differentialPressurePa: largest?.spanPa ?? 1, staticPressurePa, temperatureK });
+    const parsed = flowConditionsSchema.safeParse({
+      differentialPressurePa: largest?.spanPa ?? 1,
+      staticPressurePa,
+      temperatureK,
+    });
     if (!parsed.success) {
       for (const issue of parsed.error.issues) {
         const path = String(issue.path[0]);
@@ -186,7 +252,8 @@ export function runRangeCheck(values: RangeCheckValues): { problems: Problems; r
   }
 
   const limit = need('uncertaintyLimit', values.uncertaintyLimit);
-  if (limit !== undefined && !(limit > 0 && limit < 100)) problems.uncertaintyLimit = 'Give a limit between 0 and 100 %.';
+  if (limit !== undefined && !(limit > 0 && limit < 100))
+    problems.uncertaintyLimit = 'Give a limit between 0 and 100 %.';
 
   // Flows: in the chosen unit; a volume at base conditions needs the fluid's base density.
   const flowUnit = flowRateUnit(values.flowUnitKey);
@@ -201,14 +268,24 @@ export function runRangeCheck(values: RangeCheckValues): { problems: Problems; r
     if (maximum < normal) problems.maximumFlow ??= 'The maximum flow must not be below the normal flow.';
   }
 
-  if (Object.keys(problems).length > 0 || !element || !fluid || staticPressurePa === undefined || temperatureK === undefined || limit === undefined) {
+  if (
+    Object.keys(problems).length > 0 ||
+    !element ||
+    !fluid ||
+    staticPressurePa === undefined ||
+    temperatureK === undefined ||
+    limit === undefined
+  ) {
     return { problems, run: null };
   }
 
   let state: FluidState;
   let baseDensityKgPerM3: number | null = null;
   try {
-    state = fluidState(fluid, staticPressurePa, temperatureK, { pressurePa: values.basePressurePa, temperatureK: values.baseTemperatureK });
+    state = fluidState(fluid, staticPressurePa, temperatureK, {
+      pressurePa: values.basePressurePa,
+      temperatureK: values.baseTemperatureK,
+    });
     baseDensityKgPerM3 = state.baseDensityKgPerM3;
   } catch (error) {
     return { problems: { [fieldOfEngineError(error)]: messageOf(error) }, run: null };

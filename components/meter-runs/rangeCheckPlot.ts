@@ -13,7 +13,9 @@ import type { RangeCheckRun } from './rangeCheckInput';
 function roundLogEnd(value: number, down: boolean): number {
   const decade = Math.pow(10, Math.floor(Math.log10(value)));
   const steps = [1, 2, 5, 10].map((s) => s * decade);
-  return down ? [...steps].reverse().find((s) => s <= value * (1 + 1e-12)) ?? decade : steps.find((s) => s >= value * (1 - 1e-12)) ?? 10 * decade;
+  return down
+    ? ([...steps].reverse().find((s) => s <= value * (1 + 1e-12)) ?? decade)
+    : (steps.find((s) => s >= value * (1 - 1e-12)) ?? 10 * decade);
 }
 
 /** The DP axis shows a little over full span, so an over-range curve is seen to leave it. */
@@ -26,7 +28,10 @@ const shareAxisTopPercent = 120;
 export function rangeCheckPlot(run: RangeCheckRun): ChartProps {
   const { curve, input, flowUnit, baseDensityKgPerM3, result } = run;
   const flowOf = (massKgPerS: number) =>
-    flowRateForDisplay({ massKgPerS, standardVolumeM3PerS: baseDensityKgPerM3 ? massKgPerS / baseDensityKgPerM3 : null }, flowUnit) ?? massKgPerS;
+    flowRateForDisplay(
+      { massKgPerS, standardVolumeM3PerS: baseDensityKgPerM3 ? massKgPerS / baseDensityKgPerM3 : null },
+      flowUnit,
+    ) ?? massKgPerS;
   const x = curve.map((point) => flowOf(point.massFlowKgPerS));
   const limit = result.uncertaintyLimitPercent;
   const series: ChartSeries[] = input.transmitters.flatMap((t, i) => {
@@ -50,7 +55,12 @@ export function rangeCheckPlot(run: RangeCheckRun): ChartProps {
   });
   return {
     title: 'DP as a share of span and flow uncertainty against flow',
-    x: { values: x, kind: 'log', label: `Flow, ${flowUnit.label}`, range: [roundLogEnd(x[0], true), roundLogEnd(x[x.length - 1], false)] },
+    x: {
+      values: x,
+      kind: 'log',
+      label: `Flow, ${flowUnit.label}`,
+      range: [roundLogEnd(x[0], true), roundLogEnd(x[x.length - 1], false)],
+    },
     axes: [
       { scale: 'share', label: 'DP, % of span', side: 'left', range: [0, shareAxisTopPercent] },
       { scale: 'u', label: 'Flow uncertainty, % (k = 2)', side: 'right', range: [0, Math.max(4 * limit, 2)] },

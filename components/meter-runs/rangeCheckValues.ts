@@ -98,7 +98,10 @@ export const gulfCoastGasText = [
  * definition) and common base conditions, 15 °C / 101.325 kPa (ISO 13443) for SI and
  * 60 °F / 14.73 psia for US gas contracts (common practice).
  */
-const defaultSite: Record<DisplayUnits, { atmosphericPressurePa: number; basePressurePa: number; baseTemperatureK: number }> = {
+const defaultSite: Record<
+  DisplayUnits,
+  { atmosphericPressurePa: number; basePressurePa: number; baseTemperatureK: number }
+> = {
   si: { atmosphericPressurePa: 101_325, basePressurePa: 101_325, baseTemperatureK: toSI(15, 'degC') },
   us: { atmosphericPressurePa: 101_325, basePressurePa: toSI(14.73, 'psi'), baseTemperatureK: toSI(60, 'degF') },
 };
@@ -170,7 +173,8 @@ export function switchUnits(values: RangeCheckValues, to: DisplayUnits): RangeCh
   const temperature = (t: string) => convert(t, (v) => temperatureForDisplay(temperatureFromDisplay(v, from), next));
   const oldUnit = flowRateUnit(values.flowUnitKey);
   const newUnit = defaultFlowRateUnit(to, values.fluidKind);
-  const flow = (t: string) => (oldUnit.basis === newUnit.basis ? convert(t, (v) => convertFlowRate(v, oldUnit, newUnit, null) ?? v) : t);
+  const flow = (t: string) =>
+    oldUnit.basis === newUnit.basis ? convert(t, (v) => convertFlowRate(v, oldUnit, newUnit, null) ?? v) : t;
   const site = values.meterRunId ? {} : defaultSite[to];
   return {
     ...values,
@@ -180,7 +184,9 @@ export function switchUnits(values: RangeCheckValues, to: DisplayUnits): RangeCh
     boreDiameter: length(values.boreDiameter),
     coneDiameter: length(values.coneDiameter),
     liquidReferenceTemperature: temperature(values.liquidReferenceTemperature),
-    staticPressure: convert(values.staticPressure, (v) => staticPressureForDisplay(staticPressureFromDisplay(v, from, atm), next, atm)),
+    staticPressure: convert(values.staticPressure, (v) =>
+      staticPressureForDisplay(staticPressureFromDisplay(v, from, atm), next, atm),
+    ),
     temperature: temperature(values.temperature),
     flowUnitKey: oldUnit.basis === newUnit.basis ? newUnit.key : values.flowUnitKey,
     minimumFlow: flow(values.minimumFlow),
@@ -202,7 +208,12 @@ export function switchUnits(values: RangeCheckValues, to: DisplayUnits): RangeCh
  * @param transmitters its transmitters (the DP ones are used, high range first)
  * @returns the prefilled values
  */
-export function prefillFromMeterRun(values: RangeCheckValues, run: MeterRun, site: Site, transmitters: readonly Transmitter[]): RangeCheckValues {
+export function prefillFromMeterRun(
+  values: RangeCheckValues,
+  run: MeterRun,
+  site: Site,
+  transmitters: readonly Transmitter[],
+): RangeCheckValues {
   const inSiteUnits = switchUnits(values, site.displayUnits);
   const set = unitsFor(site.displayUnits);
   const next: RangeCheckValues = {
@@ -215,7 +226,17 @@ export function prefillFromMeterRun(values: RangeCheckValues, run: MeterRun, sit
   const element = run.element;
   if (element) {
     const length = (m: number | undefined) => (m === undefined ? '' : shown(m / set.length.metresPerUnit));
-    const { kind, taps, venturiType, nozzleType, pipeDiameterM, boreDiameterM, coneDiameterM, dischargeCoefficient, ...extras } = element;
+    const {
+      kind,
+      taps,
+      venturiType,
+      nozzleType,
+      pipeDiameterM,
+      boreDiameterM,
+      coneDiameterM,
+      dischargeCoefficient,
+      ...extras
+    } = element;
     Object.assign(next, {
       elementKind: kind,
       taps: taps ?? next.taps,
@@ -233,7 +254,10 @@ export function prefillFromMeterRun(values: RangeCheckValues, run: MeterRun, sit
     next.fluidKind = fluid.kind;
     next.isentropicExponent = fluid.isentropicExponent === undefined ? '' : String(fluid.isentropicExponent);
     next.viscosity = fluid.viscosityPaS === undefined ? '' : shown(fluid.viscosityPaS * 1000);
-    if (fluid.kind === 'natural-gas') next.composition = Object.entries(fluid.composition).map(([name, x]) => `${name} ${x}`).join('\n');
+    if (fluid.kind === 'natural-gas')
+      next.composition = Object.entries(fluid.composition)
+        .map(([name, x]) => `${name} ${x}`)
+        .join('\n');
     if (fluid.kind === 'ideal-gas') {
       next.molarMass = shown(fluid.molarMassKgPerMol * 1000);
       next.compressibility = String(fluid.compressibility ?? 1);
@@ -280,8 +304,14 @@ export function prefillOperatingPoint(values: RangeCheckValues, point: RecordedO
   };
   return {
     ...values,
-    staticPressure: point.pressurePa === null ? values.staticPressure : shown(staticPressureForDisplay(point.pressurePa, set, values.atmosphericPressurePa)),
-    temperature: point.temperatureK === null ? values.temperature : String(Number(temperatureForDisplay(point.temperatureK, set).toFixed(1))),
+    staticPressure:
+      point.pressurePa === null
+        ? values.staticPressure
+        : shown(staticPressureForDisplay(point.pressurePa, set, values.atmosphericPressurePa)),
+    temperature:
+      point.temperatureK === null
+        ? values.temperature
+        : String(Number(temperatureForDisplay(point.temperatureK, set).toFixed(1))),
     minimumFlow: flow(point.minimumKgPerS, values.minimumFlow),
     normalFlow: flow(point.normalKgPerS, values.normalFlow),
     maximumFlow: flow(point.maximumKgPerS, values.maximumFlow),

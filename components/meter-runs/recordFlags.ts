@@ -13,15 +13,60 @@ export interface RecordFlag {
 }
 
 const known: Record<string, RecordFlag> = {
-  'low-in-range': { label: 'Low in range', shape: '▼', level: 'attention', meaning: 'DP spent time below 10 % of the span, where its error as a share of the reading grows.' },
-  'over-range': { label: 'Over range', shape: '▲', level: 'attention', meaning: 'DP went above the transmitter’s upper range value.' },
-  'outside-standard-limits': { label: 'Outside standard limits', shape: '◆', level: 'attention', meaning: 'Reynolds number, pressure ratio or geometry outside the standard’s limits.' },
-  'missing-data': { label: 'Missing data', shape: '○', level: 'attention', meaning: 'Part of the period had no valid inputs (see coverage).' },
-  'bad-quality': { label: 'Bad quality', shape: '✕', level: 'attention', meaning: 'Readings marked bad were left out.' },
-  'calculation-error': { label: 'Calculation error', shape: '✕', level: 'attention', meaning: 'The flow could not be computed for part of the period.' },
-  substituted: { label: 'Substituted', shape: '◇', level: 'note', meaning: 'Some readings are substitutes, not measurements.' },
-  'config-changed': { label: 'Configuration changed', shape: '△', level: 'note', meaning: 'A configuration version took effect in this period.' },
-  'energy-unavailable': { label: 'No energy', shape: '–', level: 'note', meaning: 'No heating value for this fluid, so no energy figure.' },
+  'low-in-range': {
+    label: 'Low in range',
+    shape: '▼',
+    level: 'attention',
+    meaning: 'DP spent time below 10 % of the span, where its error as a share of the reading grows.',
+  },
+  'over-range': {
+    label: 'Over range',
+    shape: '▲',
+    level: 'attention',
+    meaning: 'DP went above the transmitter’s upper range value.',
+  },
+  'outside-standard-limits': {
+    label: 'Outside standard limits',
+    shape: '◆',
+    level: 'attention',
+    meaning: 'Reynolds number, pressure ratio or geometry outside the standard’s limits.',
+  },
+  'missing-data': {
+    label: 'Missing data',
+    shape: '○',
+    level: 'attention',
+    meaning: 'Part of the period had no valid inputs (see coverage).',
+  },
+  'bad-quality': {
+    label: 'Bad quality',
+    shape: '✕',
+    level: 'attention',
+    meaning: 'Readings marked bad were left out.',
+  },
+  'calculation-error': {
+    label: 'Calculation error',
+    shape: '✕',
+    level: 'attention',
+    meaning: 'The flow could not be computed for part of the period.',
+  },
+  substituted: {
+    label: 'Substituted',
+    shape: '◇',
+    level: 'note',
+    meaning: 'Some readings are substitutes, not measurements.',
+  },
+  'config-changed': {
+    label: 'Configuration changed',
+    shape: '△',
+    level: 'note',
+    meaning: 'A configuration version took effect in this period.',
+  },
+  'energy-unavailable': {
+    label: 'No energy',
+    shape: '–',
+    level: 'note',
+    meaning: 'No heating value for this fluid, so no energy figure.',
+  },
 };
 
 /**

@@ -11,7 +11,8 @@ import { DateTime } from 'luxon';
  * @returns the instant on the site's clock
  */
 export function formatSiteTime(iso: string | number, timeZone: string, format = 'd LLL HH:mm'): string {
-  const time = typeof iso === 'number' ? DateTime.fromMillis(iso, { zone: timeZone }) : DateTime.fromISO(iso, { zone: timeZone });
+  const time =
+    typeof iso === 'number' ? DateTime.fromMillis(iso, { zone: timeZone }) : DateTime.fromISO(iso, { zone: timeZone });
   return time.isValid ? time.toFormat(format) : String(iso);
 }
 

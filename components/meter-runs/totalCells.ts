@@ -17,7 +17,10 @@ const statusWords: Record<string, string> = {
  * @param set the site's display units
  * @returns text for the mass, standard volume, energy, coverage, uncertainty and status columns
  */
-export function totalCells(total: Total, set: DisplayUnitSet): Record<'mass' | 'volume' | 'energy' | 'coverage' | 'uncertainty' | 'status', string> {
+export function totalCells(
+  total: Total,
+  set: DisplayUnitSet,
+): Record<'mass' | 'volume' | 'energy' | 'coverage' | 'uncertainty' | 'status', string> {
   return {
     mass: formatNumber(fromSI(total.massKg, set.mass.unit)),
     volume: formatNumber(fromSI(total.standardVolumeM3, set.standardVolume.unit)),

@@ -64,7 +64,10 @@ function buildChart(
   const chosen = trend.series.filter((s) => s.measures === measures);
   let highest = -Infinity;
   const buckets: BucketSeries[] = chosen.map((s, i) => {
-    const source = { ...s, pressureReference: context.transmitters.find((t) => t.id === s.transmitterId)?.pressureReference };
+    const source = {
+      ...s,
+      pressureReference: context.transmitters.find((t) => t.id === s.transmitterId)?.pressureReference,
+    };
     const shown = (v: number) => readingForDisplay(v, source, set, context.atmosphericPressurePa);
     return {
       label: `${s.tag}${roleWords[s.stackRole]}`,
@@ -86,7 +89,10 @@ function buildChart(
       axes: [{ scale, label: unit, side: 'left' }],
       series: aligned.series,
       syncKey: `meter-run-${context.run.id}`,
-      emptyText: chosen.length === 0 ? `No ${title.toLowerCase()} transmitter on this meter run.` : `No ${title.toLowerCase()} readings in this window.`,
+      emptyText:
+        chosen.length === 0
+          ? `No ${title.toLowerCase()} transmitter on this meter run.`
+          : `No ${title.toLowerCase()} readings in this window.`,
     },
     highest,
   };
@@ -114,7 +120,11 @@ export function trendCharts(trend: Trend, context: TrendContext): TrendChartSet 
     const upper = shown(s.upperRange);
     top = Math.max(top, upper);
     zones.push({ scale: 'dp', from: lower, to: lower + 0.1 * (upper - lower), label: `bottom 10 % of ${s.tag}` });
-    lines.push({ scale: 'dp', value: upper, label: `${s.tag} span ${formatPlain(upper)} ${set.differentialPressure.label}` });
+    lines.push({
+      scale: 'dp',
+      value: upper,
+      label: `${s.tag} span ${formatPlain(upper)} ${set.differentialPressure.label}`,
+    });
   }
   dp.chart.zones = zones;
   dp.chart.lines = lines;
@@ -129,7 +139,11 @@ export function trendCharts(trend: Trend, context: TrendContext): TrendChartSet 
   const steps = hourlySteps(
     trend.flow.map((hour) => ({
       x: seconds(hour.time),
-      value: flowRateForDisplay({ massKgPerS: hour.massFlowKgPerS, standardVolumeM3PerS: hour.standardVolumeFlowM3PerS }, rateUnit) ?? 0,
+      value:
+        flowRateForDisplay(
+          { massKgPerS: hour.massFlowKgPerS, standardVolumeM3PerS: hour.standardVolumeFlowM3PerS },
+          rateUnit,
+        ) ?? 0,
     })),
   );
   const flow: ChartProps = {

@@ -74,7 +74,10 @@ export function alignBuckets(series: readonly BucketSeries[], gapS: number): { x
  * @param hourS length of a step, s (3600)
  * @returns x values and y values for a stepped series
  */
-export function hourlySteps(hours: readonly { x: number; value: number }[], hourS = 3600): { x: number[]; values: (number | null)[] } {
+export function hourlySteps(
+  hours: readonly { x: number; value: number }[],
+  hourS = 3600,
+): { x: number[]; values: (number | null)[] } {
   const x: number[] = [];
   const values: (number | null)[] = [];
   hours.forEach((hour, i) => {

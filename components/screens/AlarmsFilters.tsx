@@ -43,23 +43,36 @@ interface AlarmsFiltersProps {
 export function describeFilters(filters: AlarmFilters, sites: readonly Site[], meterRuns: readonly MeterRun[]): string {
   const state = stateChoices.find((c) => c.value === filters.state)?.label ?? filters.state;
   const priority = priorityChoices.find((c) => c.value === (filters.priority ?? ''))?.label ?? 'Any priority';
-  const site = filters.siteId ? (sites.find((s) => s.id === filters.siteId)?.code ?? `site ${filters.siteId}`) : 'all sites';
-  const run = filters.meterRunId ? (meterRuns.find((r) => r.id === filters.meterRunId)?.tag ?? `meter run ${filters.meterRunId}`) : null;
+  const site = filters.siteId
+    ? (sites.find((s) => s.id === filters.siteId)?.code ?? `site ${filters.siteId}`)
+    : 'all sites';
+  const run = filters.meterRunId
+    ? (meterRuns.find((r) => r.id === filters.meterRunId)?.tag ?? `meter run ${filters.meterRunId}`)
+    : null;
   return [state, priority.toLowerCase(), site, run].filter(Boolean).join(' · ');
 }
 
 export function AlarmsFilters({ filters, sites, meterRuns, onChange, folded: startFolded }: AlarmsFiltersProps) {
   const [folded, setFolded] = useState(startFolded);
-  const siteOptions = [{ value: '', label: 'All sites' }, ...sites.map((site) => ({ value: site.id, label: site.code }))];
+  const siteOptions = [
+    { value: '', label: 'All sites' },
+    ...sites.map((site) => ({ value: site.id, label: site.code })),
+  ];
   const inSite = filters.siteId ? meterRuns.filter((run) => run.siteId === filters.siteId) : [];
-  const runOptions = [{ value: '', label: 'All meter runs' }, ...inSite.map((run) => ({ value: run.id, label: run.tag }))];
+  const runOptions = [
+    { value: '', label: 'All meter runs' },
+    ...inSite.map((run) => ({ value: run.id, label: run.tag })),
+  ];
   // A meter run given by the address whose site's list is not shown still reads as chosen.
   const chosenRun = filters.meterRunId ? meterRuns.find((run) => run.id === filters.meterRunId) : undefined;
 
   if (folded) {
     return (
       <View style={styles.folded} testID="alarm-filters">
-        <AppText style={styles.summary} testID="alarm-filters-summary">{`Showing: ${describeFilters(filters, sites, meterRuns)}`}</AppText>
+        <AppText
+          style={styles.summary}
+          testID="alarm-filters-summary"
+        >{`Showing: ${describeFilters(filters, sites, meterRuns)}`}</AppText>
         <Button label="Filter" size="compact" onPress={() => setFolded(false)} testID="alarm-filters-open" />
       </View>
     );
@@ -68,7 +81,11 @@ export function AlarmsFilters({ filters, sites, meterRuns, onChange, folded: sta
     <Panel
       title="Filter"
       testID="alarm-filters"
-      actions={startFolded ? <Button label="Done" size="compact" onPress={() => setFolded(true)} testID="alarm-filters-close" /> : undefined}
+      actions={
+        startFolded ? (
+          <Button label="Done" size="compact" onPress={() => setFolded(true)} testID="alarm-filters-close" />
+        ) : undefined
+      }
     >
       <ChoiceGroup
         label="State"
@@ -88,7 +105,9 @@ export function AlarmsFilters({ filters, sites, meterRuns, onChange, folded: sta
         label="Site"
         options={siteOptions}
         value={filters.siteId ?? ''}
-        onChange={(siteId) => onChange({ ...filters, siteId: siteId === '' ? undefined : siteId, meterRunId: undefined })}
+        onChange={(siteId) =>
+          onChange({ ...filters, siteId: siteId === '' ? undefined : siteId, meterRunId: undefined })
+        }
         testIDPrefix="alarm-filter-site"
       />
       {filters.siteId ? (
@@ -102,7 +121,13 @@ export function AlarmsFilters({ filters, sites, meterRuns, onChange, folded: sta
       ) : chosenRun || filters.meterRunId ? (
         <View style={styles.chosen}>
           <AppText>{`Meter run ${chosenRun?.tag ?? filters.meterRunId}`}</AppText>
-          <Button label="All meter runs" size="compact" variant="quiet" onPress={() => onChange({ ...filters, meterRunId: undefined })} testID="alarm-filter-meter-run-clear" />
+          <Button
+            label="All meter runs"
+            size="compact"
+            variant="quiet"
+            onPress={() => onChange({ ...filters, meterRunId: undefined })}
+            testID="alarm-filter-meter-run-clear"
+          />
         </View>
       ) : null}
     </Panel>

@@ -37,7 +37,9 @@ export interface AlarmsScreenParams {
 export function filtersFromParams(params: AlarmsScreenParams): AlarmFilters {
   const digits = (value: string | undefined) => (value && /^\d+$/.test(value) ? value : undefined);
   const state = stateChoices.find((choice) => choice.value === params.state)?.value ?? 'open';
-  const priority = ALARM_PRIORITIES.includes(params.priority as AlarmPriority) ? (params.priority as AlarmPriority) : undefined;
+  const priority = ALARM_PRIORITIES.includes(params.priority as AlarmPriority)
+    ? (params.priority as AlarmPriority)
+    : undefined;
   return { state, priority, siteId: digits(params.siteId), meterRunId: digits(params.meterRunId) };
 }
 
@@ -47,7 +49,10 @@ export function AlarmsScreen({ params }: { params: AlarmsScreenParams }) {
   const [filters, setFilters] = useState<AlarmFilters>(() => filtersFromParams(params));
   // A link to another view of the list (the banner, a meter run's history) changes the address only.
   const { state, siteId, meterRunId, priority } = params;
-  useEffect(() => setFilters(filtersFromParams({ state, siteId, meterRunId, priority })), [state, siteId, meterRunId, priority]);
+  useEffect(
+    () => setFilters(filtersFromParams({ state, siteId, meterRunId, priority })),
+    [state, siteId, meterRunId, priority],
+  );
   const alarms = useAlarms({ ...filters, limit: listLimit });
   const sites = useSites();
   const meterRuns = useMeterRuns();
@@ -65,14 +70,33 @@ export function AlarmsScreen({ params }: { params: AlarmsScreenParams }) {
 
   return (
     <Screen lead={lead} testID="alarms-screen">
-      <AlarmsFilters filters={filters} sites={sites.data ?? []} meterRuns={meterRuns.data ?? []} onChange={change} folded={phone} />
-      <QueryState isPending={alarms.isPending} error={alarms.error} onRetry={() => void alarms.refetch()} noun="alarms" />
+      <AlarmsFilters
+        filters={filters}
+        sites={sites.data ?? []}
+        meterRuns={meterRuns.data ?? []}
+        onChange={change}
+        folded={phone}
+      />
+      <QueryState
+        isPending={alarms.isPending}
+        error={alarms.error}
+        onRetry={() => void alarms.refetch()}
+        noun="alarms"
+      />
       {alarms.data ? (
         <View style={styles.head}>
           <AppText variant="title" role="heading" aria-level={2} style={styles.count} testID="alarm-count">
-            {list.length === 0 ? 'No alarms' : `${list.length}${list.length >= listLimit ? '+' : ''} alarm${list.length === 1 ? '' : 's'}`}
+            {list.length === 0
+              ? 'No alarms'
+              : `${list.length}${list.length >= listLimit ? '+' : ''} alarm${list.length === 1 ? '' : 's'}`}
           </AppText>
-          <Button label="Refresh" size="compact" busy={alarms.isFetching && !alarms.isPending} onPress={() => void alarms.refetch()} testID="alarm-refresh" />
+          <Button
+            label="Refresh"
+            size="compact"
+            busy={alarms.isFetching && !alarms.isPending}
+            onPress={() => void alarms.refetch()}
+            testID="alarm-refresh"
+          />
         </View>
       ) : null}
       {alarms.data && list.length === 0 ? (
@@ -83,11 +107,19 @@ export function AlarmsScreen({ params }: { params: AlarmsScreenParams }) {
       <View style={styles.list} role="list" aria-label="Alarms" testID="alarm-list">
         {/* Times are on each site's clock, so rows wait for the sites. */}
         {(sites.data || sites.error ? list : []).map((alarm) => (
-          <AlarmRow key={alarm.id} alarm={alarm} role={user.role} timeZone={siteById.get(alarm.siteId)?.timeZone ?? 'UTC'} />
+          <AlarmRow
+            key={alarm.id}
+            alarm={alarm}
+            role={user.role}
+            timeZone={siteById.get(alarm.siteId)?.timeZone ?? 'UTC'}
+          />
         ))}
       </View>
       {list.length >= listLimit ? (
-        <AppText variant="caption" tone="muted">{`Only the newest ${listLimit} are listed: narrow the filter to see older ones.`}</AppText>
+        <AppText
+          variant="caption"
+          tone="muted"
+        >{`Only the newest ${listLimit} are listed: narrow the filter to see older ones.`}</AppText>
       ) : null}
     </Screen>
   );

@@ -14,10 +14,22 @@ export function AuditLogScreen() {
     <Screen lead="Every change to set-up, readings, corrections, periods and users, with who made it and when: the trail to show an auditor. Read only.">
       <Panel
         title={events.data ? `Latest events (${list.length})` : 'Latest events'}
-        actions={<Button label="Refresh" size="compact" busy={events.isFetching && !events.isPending} onPress={() => void events.refetch()} />}
+        actions={
+          <Button
+            label="Refresh"
+            size="compact"
+            busy={events.isFetching && !events.isPending}
+            onPress={() => void events.refetch()}
+          />
+        }
         testID="audit-list"
       >
-        <QueryState isPending={events.isPending} error={events.error} onRetry={() => void events.refetch()} noun="the audit log" />
+        <QueryState
+          isPending={events.isPending}
+          error={events.error}
+          onRetry={() => void events.refetch()}
+          noun="the audit log"
+        />
         {events.data && list.length === 0 ? <AppText tone="muted">Nothing has been recorded yet.</AppText> : null}
         {list.map((event) => (
           <AuditEventRow key={event.id} event={event} />

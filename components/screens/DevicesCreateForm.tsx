@@ -31,7 +31,8 @@ export function DevicesCreateForm() {
   const serverError = create.error instanceof ApiError ? create.error : null;
   const serverField = serverError?.field === 'name' || serverError?.field === 'siteId' ? serverError.field : null;
   const shown: Partial<Record<Field, string>> = { ...problems };
-  if (serverError && serverField && !shown[serverField]) shown[serverField] = serverError.message.replace(`${serverField}: `, '');
+  if (serverError && serverField && !shown[serverField])
+    shown[serverField] = serverError.message.replace(`${serverField}: `, '');
 
   const submit = () => {
     const parsed = deviceSchema.safeParse({ name, siteId });
@@ -54,7 +55,8 @@ export function DevicesCreateForm() {
     return (
       <Panel title="Device created" testID="device-created">
         <Notice tone="alarm" title="Store this password now: it will not be shown again">
-          Tallyrun keeps only a hash of it. Put it into the device’s configuration before you leave this page. If it is lost, create a new device and disable this one.
+          Tallyrun keeps only a hash of it. Put it into the device’s configuration before you leave this page. If it is
+          lost, create a new device and disable this one.
         </Notice>
         <View style={styles.secret}>
           <AppText variant="label">User name</AppText>
@@ -74,7 +76,12 @@ export function DevicesCreateForm() {
           {`It may publish readings only under its own site’s topics: tallyrun/${siteCode}/<transmitter tag>, QoS 1, payload {"t": "<ISO 8601>", "v": <value>, "q": "good"}.`}
         </AppText>
         <View style={styles.actions}>
-          <Button label="I have stored it" variant="primary" onPress={() => create.reset()} testID="device-created-done" />
+          <Button
+            label="I have stored it"
+            variant="primary"
+            onPress={() => create.reset()}
+            testID="device-created-done"
+          />
         </View>
       </Panel>
     );
@@ -122,7 +129,13 @@ export function DevicesCreateForm() {
         </View>
       )}
       <View style={styles.actions}>
-        <Button label="Create device" variant="primary" onPress={submit} busy={create.isPending} testID="device-create-submit" />
+        <Button
+          label="Create device"
+          variant="primary"
+          onPress={submit}
+          busy={create.isPending}
+          testID="device-create-submit"
+        />
       </View>
     </Panel>
   );

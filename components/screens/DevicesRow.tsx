@@ -23,7 +23,10 @@ export function DevicesRow({ device }: { device: Device }) {
       <View style={styles.summary}>
         <View style={styles.who}>
           <AppText variant="bodyStrong">{device.name}</AppText>
-          <AppText tone="muted" selectable>{`${device.siteCode ?? `site ${device.siteId}`} · ${device.username}`}</AppText>
+          <AppText
+            tone="muted"
+            selectable
+          >{`${device.siteCode ?? `site ${device.siteId}`} · ${device.username}`}</AppText>
         </View>
         <View style={styles.facts}>
           <AppText variant="label" testID={`${testID}-status`}>
@@ -37,7 +40,9 @@ export function DevicesRow({ device }: { device: Device }) {
       <AppText variant="caption" tabular testID={`${testID}-counts`}>
         {`${device.acceptedCount.toLocaleString()} readings accepted · ${device.rejectedCount.toLocaleString()} rejected`}
       </AppText>
-      {device.lastRejection ? <StateBadge priority="low" variant="inline" label={`Last rejection: ${device.lastRejection}`} /> : null}
+      {device.lastRejection ? (
+        <StateBadge priority="low" variant="inline" label={`Last rejection: ${device.lastRejection}`} />
+      ) : null}
 
       {update.error ? (
         <AppText variant="caption" tone="alarm" role="alert">
@@ -51,7 +56,9 @@ export function DevicesRow({ device }: { device: Device }) {
         question={`Disable ${device.name}? It is refused the next time it signs in, until enabled again. Its readings stay.`}
         busy={update.isPending}
         onAskToDisable={() => setConfirming(true)}
-        onConfirmDisable={() => update.mutate({ id: device.id, disabled: true }, { onSuccess: () => setConfirming(false) })}
+        onConfirmDisable={() =>
+          update.mutate({ id: device.id, disabled: true }, { onSuccess: () => setConfirming(false) })
+        }
         onCancel={() => setConfirming(false)}
         onEnable={() => update.mutate({ id: device.id, disabled: false })}
         testIDs={{ disable: `${testID}-disable`, confirm: `${testID}-disable-confirm`, enable: `${testID}-enable` }}

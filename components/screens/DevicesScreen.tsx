@@ -20,11 +20,23 @@ export function DevicesScreen() {
         list={(style) => (
           <Panel
             title={devices.data ? `Devices (${enabled} enabled of ${list.length})` : 'Devices'}
-            actions={<Button label="Refresh" size="compact" busy={devices.isFetching && !devices.isPending} onPress={() => void devices.refetch()} />}
+            actions={
+              <Button
+                label="Refresh"
+                size="compact"
+                busy={devices.isFetching && !devices.isPending}
+                onPress={() => void devices.refetch()}
+              />
+            }
             style={style}
             testID="device-list"
           >
-            <QueryState isPending={devices.isPending} error={devices.error} onRetry={() => void devices.refetch()} noun="devices" />
+            <QueryState
+              isPending={devices.isPending}
+              error={devices.error}
+              onRetry={() => void devices.refetch()}
+              noun="devices"
+            />
             {devices.data && list.length === 0 ? <AppText tone="muted">No devices yet.</AppText> : null}
             {list.map((device) => (
               <DevicesRow key={device.id} device={device} />

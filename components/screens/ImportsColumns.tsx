@@ -13,11 +13,24 @@ interface Column {
 }
 
 const readingColumns: Column[] = [
-  { name: 'time', required: true, meaning: 'ISO 8601 with an offset or Z, e.g. 2026-11-01T09:00:00-07:00 or 2026-11-01T16:00:00Z. A time without an offset is refused: the site clock would be a guess.' },
+  {
+    name: 'time',
+    required: true,
+    meaning:
+      'ISO 8601 with an offset or Z, e.g. 2026-11-01T09:00:00-07:00 or 2026-11-01T16:00:00Z. A time without an offset is refused: the site clock would be a guess.',
+  },
   { name: 'tag', required: true, meaning: 'the transmitter’s tag as set up, e.g. KFG-101-DPL.' },
-  { name: 'value', required: true, meaning: 'the reading in the transmitter’s own unit (gauge or absolute as the transmitter is set up).' },
+  {
+    name: 'value',
+    required: true,
+    meaning: 'the reading in the transmitter’s own unit (gauge or absolute as the transmitter is set up).',
+  },
   { name: 'quality', required: false, meaning: 'good, uncertain, bad or substituted; good when left empty.' },
-  { name: 'unit', required: false, meaning: 'if given, it must be the transmitter’s unit; a row in another unit is refused, not converted.' },
+  {
+    name: 'unit',
+    required: false,
+    meaning: 'if given, it must be the transmitter’s unit; a row in another unit is refused, not converted.',
+  },
 ];
 
 const totalColumns: Column[] = [
@@ -34,8 +47,10 @@ const totalColumns: Column[] = [
 ];
 
 const examples: Record<ImportKind, string> = {
-  readings: 'time,tag,value,quality\n2026-11-01T09:00:00-07:00,KFG-101-DPL,18.4,good\n2026-11-01T09:00:00-07:00,KFG-101-PT,812.5,\n2026-11-01T09:00:05-07:00,KFG-101-DPL,18.6,good',
-  'field-totals': 'start,end,meterRun,quantity,value,unit\n2026-11-01T06:00:00+01:00,2026-11-02T06:00:00+01:00,BPM-EF1,standard-volume,4210.5,m3',
+  readings:
+    'time,tag,value,quality\n2026-11-01T09:00:00-07:00,KFG-101-DPL,18.4,good\n2026-11-01T09:00:00-07:00,KFG-101-PT,812.5,\n2026-11-01T09:00:05-07:00,KFG-101-DPL,18.6,good',
+  'field-totals':
+    'start,end,meterRun,quantity,value,unit\n2026-11-01T06:00:00+01:00,2026-11-02T06:00:00+01:00,BPM-EF1,standard-volume,4210.5,m3',
 };
 
 export function ImportsColumns({ kind }: { kind: ImportKind }) {

@@ -57,7 +57,13 @@ export function ImportsDetail({ item }: { item: Import }) {
       <AppText variant="label" testID="import-status" aria-live="polite">
         {running ? '… Importing' : item.status === 'done' ? '✓ Finished' : '▲ Stopped before the end'}
       </AppText>
-      <ProgressBar share={share} label={running ? progressLabel(item) : `${formatBytes(item.bytesTotal)} read · ${formatCount(item.rowsRead)} rows`} testID="import-progress" />
+      <ProgressBar
+        share={share}
+        label={
+          running ? progressLabel(item) : `${formatBytes(item.bytesTotal)} read · ${formatCount(item.rowsRead)} rows`
+        }
+        testID="import-progress"
+      />
 
       {item.status === 'failed' ? (
         <Notice tone="alarm" title="The import stopped">
@@ -88,7 +94,12 @@ export function ImportsDetail({ item }: { item: Import }) {
               </AppText>
             </View>
             {lines.map((error, index) => (
-              <View key={`${error.line}-${index}`} style={styles.tableRow} role="row" testID={`import-error-${error.line}`}>
+              <View
+                key={`${error.line}-${index}`}
+                style={styles.tableRow}
+                role="row"
+                testID={`import-error-${error.line}`}
+              >
                 <AppText tabular style={styles.lineCell} role="cell">
                   {String(error.line)}
                 </AppText>
@@ -102,7 +113,11 @@ export function ImportsDetail({ item }: { item: Import }) {
             <View style={styles.more}>
               <Button
                 size="compact"
-                label={showAll ? `Show the first ${firstLinesShown}` : `Show all ${formatCount(item.errors.length)} listed lines`}
+                label={
+                  showAll
+                    ? `Show the first ${firstLinesShown}`
+                    : `Show all ${formatCount(item.errors.length)} listed lines`
+                }
                 onPress={() => setShowAll((all) => !all)}
               />
             </View>
@@ -129,8 +144,20 @@ const styles = StyleSheet.create({
     borderRadius: radius.sm,
   },
   rejected: { gap: space.sm },
-  table: { borderWidth: 1, borderColor: colors.divider, borderRadius: radius.sm, backgroundColor: colors.surfaceRaised },
-  tableRow: { flexDirection: 'row', gap: space.md, paddingHorizontal: space.sm, paddingVertical: space.xs, borderTopWidth: 1, borderTopColor: colors.divider },
+  table: {
+    borderWidth: 1,
+    borderColor: colors.divider,
+    borderRadius: radius.sm,
+    backgroundColor: colors.surfaceRaised,
+  },
+  tableRow: {
+    flexDirection: 'row',
+    gap: space.md,
+    paddingHorizontal: space.sm,
+    paddingVertical: space.xs,
+    borderTopWidth: 1,
+    borderTopColor: colors.divider,
+  },
   tableHead: { borderTopWidth: 0, backgroundColor: colors.surface },
   lineCell: { width: 56 },
   reasonCell: { flex: 1 },

@@ -29,7 +29,12 @@ export function ImportsFilePicker({ file, onChange, disabled }: ImportsFilePicke
           event.currentTarget.value = '';
         }}
       />
-      <Button label={file ? 'Choose another file…' : 'Choose a CSV file…'} onPress={() => input.current?.click()} disabled={disabled} testID="import-choose" />
+      <Button
+        label={file ? 'Choose another file…' : 'Choose a CSV file…'}
+        onPress={() => input.current?.click()}
+        disabled={disabled}
+        testID="import-choose"
+      />
       <AppText tone={file ? 'default' : 'muted'} testID="import-chosen" style={styles.name}>
         {file ? `${file.name} (${formatBytes(file.blob.size)})` : 'No file chosen'}
       </AppText>

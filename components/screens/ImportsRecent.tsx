@@ -30,7 +30,12 @@ export function ImportsRecent({ imports, selectedId, onSelect }: ImportsRecentPr
             aria-pressed={selected}
             aria-label={`${item.filename}, ${statusText[item.status]}: show its counts and rejected lines`}
             onPress={() => onSelect(item.id)}
-            style={({ hovered, focused }: WebPressableState) => [styles.row, selected && styles.rowSelected, hovered && !selected && styles.rowHovered, focused && styles.focused]}
+            style={({ hovered, focused }: WebPressableState) => [
+              styles.row,
+              selected && styles.rowSelected,
+              hovered && !selected && styles.rowHovered,
+              focused && styles.focused,
+            ]}
           >
             <View style={styles.top}>
               <AppText variant="bodyStrong" numberOfLines={1} style={styles.name}>

@@ -100,7 +100,12 @@ export function ImportsScreen() {
 
   const detailPanel = selectedId ? (
     <Panel title="Import" testID="import-current">
-      <QueryState isPending={selected.isPending} error={selected.error} onRetry={() => void selected.refetch()} noun="the import" />
+      <QueryState
+        isPending={selected.isPending}
+        error={selected.error}
+        onRetry={() => void selected.refetch()}
+        noun="the import"
+      />
       {selected.data ? <ImportsDetail item={selected.data} /> : null}
     </Panel>
   ) : null;
@@ -108,11 +113,23 @@ export function ImportsScreen() {
   const recentPanel = (
     <Panel
       title="Recent imports"
-      actions={<Button label="Refresh" size="compact" busy={imports.isFetching && !imports.isPending} onPress={() => void imports.refetch()} />}
+      actions={
+        <Button
+          label="Refresh"
+          size="compact"
+          busy={imports.isFetching && !imports.isPending}
+          onPress={() => void imports.refetch()}
+        />
+      }
       testID="import-recent"
       style={wide && styles.recentWide}
     >
-      <QueryState isPending={imports.isPending} error={imports.error} onRetry={() => void imports.refetch()} noun="imports" />
+      <QueryState
+        isPending={imports.isPending}
+        error={imports.error}
+        onRetry={() => void imports.refetch()}
+        noun="imports"
+      />
       {imports.data ? <ImportsRecent imports={imports.data} selectedId={selectedId} onSelect={setSelectedId} /> : null}
     </Panel>
   );

@@ -67,7 +67,10 @@ function AttentionPanel({ entries }: { entries: BoardEntry[] }) {
     <Panel title={`Needs attention (${attention.length} of ${entries.length})`} testID="live-attention">
       {others.map(({ row, states }) => (
         <Link key={row.meterRunId} href={`/meter-runs/${encodeURIComponent(row.meterRunId)}`} asChild>
-          <Pressable style={styles.attentionRow} aria-label={`${row.tag}: ${states.map((state) => state.label).join('; ')}`}>
+          <Pressable
+            style={styles.attentionRow}
+            aria-label={`${row.tag}: ${states.map((state) => state.label).join('; ')}`}
+          >
             <AppText variant="bodyStrong" style={styles.attentionTag}>
               {row.tag}
             </AppText>
@@ -122,7 +125,9 @@ export function LiveBoardScreen() {
         noun="the live board"
       />
       {board.data && entries.length === 0 ? (
-        <Notice title="No meter runs yet">Engineers add sites, meter runs and transmitters under Set-up; they appear here once they exist.</Notice>
+        <Notice title="No meter runs yet">
+          Engineers add sites, meter runs and transmitters under Set-up; they appear here once they exist.
+        </Notice>
       ) : null}
       {groups.length > 0 ? <AttentionPanel entries={entries} /> : null}
       {groups.map((group) => (
@@ -163,6 +168,12 @@ export function LiveBoardScreen() {
 const styles = StyleSheet.create({
   site: { gap: space.md },
   siteHeading: { gap: space.xxs, borderBottomWidth: 1, borderBottomColor: colors.divider, paddingBottom: space.xs },
-  attentionRow: { flexDirection: 'row', alignItems: 'center', gap: space.md, paddingVertical: space.xs, flexWrap: 'wrap' },
+  attentionRow: {
+    flexDirection: 'row',
+    alignItems: 'center',
+    gap: space.md,
+    paddingVertical: space.xs,
+    flexWrap: 'wrap',
+  },
   attentionTag: { minWidth: 96 },
 });

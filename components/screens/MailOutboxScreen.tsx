@@ -40,10 +40,22 @@ export function MailOutboxScreen() {
     <Screen lead="Alarm notices, month-end messages and other mail Tallyrun sent. On this installation mail is captured here rather than delivered.">
       <Panel
         title={mail.data ? `Messages (${list.length})` : 'Messages'}
-        actions={<Button label="Refresh" size="compact" busy={mail.isFetching && !mail.isPending} onPress={() => void mail.refetch()} />}
+        actions={
+          <Button
+            label="Refresh"
+            size="compact"
+            busy={mail.isFetching && !mail.isPending}
+            onPress={() => void mail.refetch()}
+          />
+        }
         testID="mail-list"
       >
-        <QueryState isPending={mail.isPending} error={mail.error} onRetry={() => void mail.refetch()} noun="the outbox" />
+        <QueryState
+          isPending={mail.isPending}
+          error={mail.error}
+          onRetry={() => void mail.refetch()}
+          noun="the outbox"
+        />
         {mail.data && list.length === 0 ? <AppText tone="muted">No mail has been sent yet.</AppText> : null}
         {list.map((item) => (
           <MailRow key={item.id} mail={item} />

@@ -49,8 +49,18 @@ export function MeterRunScreen({ meterRunId }: { meterRunId: string }) {
         </Link>
       </View>
       <QueryState isPending={run.isPending} error={run.error} onRetry={() => void run.refetch()} noun="the meter run" />
-      <QueryState isPending={run.isSuccess && site.isPending} error={site.error} onRetry={() => void site.refetch()} noun="its site" />
-      <QueryState isPending={transmitters.isPending} error={transmitters.error} onRetry={() => void transmitters.refetch()} noun="its transmitters" />
+      <QueryState
+        isPending={run.isSuccess && site.isPending}
+        error={site.error}
+        onRetry={() => void site.refetch()}
+        noun="its site"
+      />
+      <QueryState
+        isPending={transmitters.isPending}
+        error={transmitters.error}
+        onRetry={() => void transmitters.refetch()}
+        noun="its transmitters"
+      />
       {ready ? (
         <>
           <MeterRunHeader

@@ -72,8 +72,8 @@ export function MeterRunsScreen() {
   const list = runs.data ?? [];
   const siteById = new Map((sites.data ?? []).map((site) => [site.id, site]));
   // By site, in the order the server lists sites (by code); meter runs by tag within each.
-  const siteIds = [...new Set([...(sites.data ?? []).map((site) => site.id), ...list.map((run) => run.siteId)])].filter((id) =>
-    list.some((run) => run.siteId === id),
+  const siteIds = [...new Set([...(sites.data ?? []).map((site) => site.id), ...list.map((run) => run.siteId)])].filter(
+    (id) => list.some((run) => run.siteId === id),
   );
 
   return (
@@ -91,7 +91,11 @@ export function MeterRunsScreen() {
         const site = siteById.get(siteId);
         const inSite = list.filter((run) => run.siteId === siteId);
         return (
-          <Panel key={siteId} title={site ? `${site.code} · ${site.name}` : `Site ${siteId}`} testID={`meter-run-site-${site?.code ?? siteId}`}>
+          <Panel
+            key={siteId}
+            title={site ? `${site.code} · ${site.name}` : `Site ${siteId}`}
+            testID={`meter-run-site-${site?.code ?? siteId}`}
+          >
             {site ? (
               <AppText variant="caption" tone="muted">
                 {`${site.timeZone} · contract day from ${String(site.contractHour).padStart(2, '0')}:00 · ${site.displayUnits === 'us' ? 'US customary units' : 'SI units'} · ${inSite.length} meter run${inSite.length === 1 ? '' : 's'}`}

@@ -24,7 +24,13 @@ export function NotFoundScreen() {
 }
 
 const styles = StyleSheet.create({
-  page: { flex: 1, alignItems: 'center', justifyContent: 'center', padding: space.lg, backgroundColor: colors.background },
+  page: {
+    flex: 1,
+    alignItems: 'center',
+    justifyContent: 'center',
+    padding: space.lg,
+    backgroundColor: colors.background,
+  },
   box: {
     gap: space.md,
     padding: space.xl,

@@ -7,8 +7,19 @@
 import { useQueryClient } from '@tanstack/react-query';
 import { useState } from 'react';
 
-import { runRangeCheck, type Problems, type RangeCheckField, type RangeCheckRun } from '@/components/meter-runs/rangeCheckInput';
-import { defaultValues, prefillFromMeterRun, prefillOperatingPoint, switchUnits, type RangeCheckValues } from '@/components/meter-runs/rangeCheckValues';
+import {
+  runRangeCheck,
+  type Problems,
+  type RangeCheckField,
+  type RangeCheckRun,
+} from '@/components/meter-runs/rangeCheckInput';
+import {
+  defaultValues,
+  prefillFromMeterRun,
+  prefillOperatingPoint,
+  switchUnits,
+  type RangeCheckValues,
+} from '@/components/meter-runs/rangeCheckValues';
 import { recordedOperatingPoint } from '@/components/meter-runs/recordedOperatingPoint';
 import { Notice } from '@/components/ui/Notice';
 import { QueryState } from '@/components/ui/QueryState';
@@ -69,7 +80,13 @@ export function RangeCheckScreen() {
         const converted = convertFlowRate(value, from, to, density);
         return converted === null ? text : String(Number(converted.toPrecision(6)));
       };
-      return { ...current, flowUnitKey: key, minimumFlow: convert(current.minimumFlow), normalFlow: convert(current.normalFlow), maximumFlow: convert(current.maximumFlow) };
+      return {
+        ...current,
+        flowUnitKey: key,
+        minimumFlow: convert(current.minimumFlow),
+        normalFlow: convert(current.normalFlow),
+        maximumFlow: convert(current.maximumFlow),
+      };
     });
     setStale(true);
   };
@@ -83,11 +100,18 @@ export function RangeCheckScreen() {
     const meterRun = meterRuns.data?.find((r) => r.id === meterRunId);
     const site = meterRun ? sites.data?.find((s) => s.id === meterRun.siteId) : undefined;
     if (!meterRun || !site) return;
-    const prefilled = prefillFromMeterRun(values, meterRun, site, (transmitters.data ?? []).filter((t) => t.meterRunId === meterRunId));
+    const prefilled = prefillFromMeterRun(
+      values,
+      meterRun,
+      site,
+      (transmitters.data ?? []).filter((t) => t.meterRunId === meterRunId),
+    );
     setValues(prefilled);
     setProblems({});
     setStale(true);
-    setPrefillNote(`Filled in from ${meterRun.tag}: element, fluid, site conditions and DP transmitters. Looking for its recorded operating point…`);
+    setPrefillNote(
+      `Filled in from ${meterRun.tag}: element, fluid, site conditions and DP transmitters. Looking for its recorded operating point…`,
+    );
     // The operating point from the last 30 days of hourly records, when there are any.
     const to = new Date();
     const from = new Date(to.getTime() - recordedDays * 86_400_000);
@@ -96,7 +120,9 @@ export function RangeCheckScreen() {
       .then((records) => {
         const point = recordedOperatingPoint(records);
         if (!point) {
-          setPrefillNote(`Filled in from ${meterRun.tag}: element, fluid, site conditions and DP transmitters. It has no flowing hours in the last ${recordedDays} days: enter its operating pressure, temperature and flow range.`);
+          setPrefillNote(
+            `Filled in from ${meterRun.tag}: element, fluid, site conditions and DP transmitters. It has no flowing hours in the last ${recordedDays} days: enter its operating pressure, temperature and flow range.`,
+          );
           return;
         }
         setValues((current) => (current.meterRunId === meterRunId ? prefillOperatingPoint(current, point) : current));
@@ -104,7 +130,11 @@ export function RangeCheckScreen() {
           `Filled in from ${meterRun.tag}: element, fluid, site conditions and DP transmitters; pressure, temperature and the flow range (lowest, median and highest flowing rate) from ${point.hours} recorded hours of the last ${recordedDays} days. Adjust them to the range you plan for.`,
         );
       })
-      .catch((error: Error) => setPrefillNote(`Filled in from ${meterRun.tag}, but its hourly records could not be read (${error.message}): enter its operating point.`));
+      .catch((error: Error) =>
+        setPrefillNote(
+          `Filled in from ${meterRun.tag}, but its hourly records could not be read (${error.message}): enter its operating point.`,
+        ),
+      );
   };
 
   return (
@@ -113,9 +143,16 @@ export function RangeCheckScreen() {
       testID="range-check-screen"
     >
       <Notice title="Caution">
-        This tool supports, and does not replace, licensed measurement practice and the standards that apply to your meter. Re-ranging or adding a transmitter means working on pressurised lines: follow your site procedures, local codes and the equipment maker's instructions.
+        This tool supports, and does not replace, licensed measurement practice and the standards that apply to your
+        meter. Re-ranging or adding a transmitter means working on pressurised lines: follow your site procedures, local
+        codes and the equipment maker's instructions.
       </Notice>
-      <QueryState isPending={meterRuns.isPending} error={meterRuns.error} onRetry={() => void meterRuns.refetch()} noun="meter runs" />
+      <QueryState
+        isPending={meterRuns.isPending}
+        error={meterRuns.error}
+        onRetry={() => void meterRuns.refetch()}
+        noun="meter runs"
+      />
       {prefillNote ? <Notice testID="range-check-prefill">{prefillNote}</Notice> : null}
       <RangeCheckForm
         values={values}
@@ -130,7 +167,11 @@ export function RangeCheckScreen() {
       />
       {run ? (
         <>
-          {stale ? <Notice testID="range-check-stale">The case has changed since this answer: check the range again to update it.</Notice> : null}
+          {stale ? (
+            <Notice testID="range-check-stale">
+              The case has changed since this answer: check the range again to update it.
+            </Notice>
+          ) : null}
           <RangeCheckResults run={run} displayUnits={values.displayUnits} />
         </>
       ) : null}

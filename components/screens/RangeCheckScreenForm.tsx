@@ -64,7 +64,17 @@ interface RangeCheckFormProps {
   wide: boolean;
 }
 
-function Section({ title, children, wide, testID }: { title: string; children: ReactNode; wide: boolean; testID?: string }) {
+function Section({
+  title,
+  children,
+  wide,
+  testID,
+}: {
+  title: string;
+  children: ReactNode;
+  wide: boolean;
+  testID?: string;
+}) {
   return (
     <Panel title={title} style={wide ? styles.sectionWide : null} testID={testID}>
       {children}
@@ -72,9 +82,23 @@ function Section({ title, children, wide, testID }: { title: string; children: R
   );
 }
 
-export function RangeCheckForm({ values, problems, meterRuns, onEdit, onUnits, onFlowUnit, onPickMeterRun, onSubmit, wide }: RangeCheckFormProps) {
+export function RangeCheckForm({
+  values,
+  problems,
+  meterRuns,
+  onEdit,
+  onUnits,
+  onFlowUnit,
+  onPickMeterRun,
+  onSubmit,
+  wide,
+}: RangeCheckFormProps) {
   const set = unitsFor(values.displayUnits);
-  const text = (field: Exclude<RangeCheckField, `span${number}` | `accuracy${number}` | 'form' | 'elementKind'>, label: string, hint?: string) => (
+  const text = (
+    field: Exclude<RangeCheckField, `span${number}` | `accuracy${number}` | 'form' | 'elementKind'>,
+    label: string,
+    hint?: string,
+  ) => (
     <TextField
       label={label}
       hint={hint}
@@ -107,7 +131,13 @@ export function RangeCheckForm({ values, problems, meterRuns, onEdit, onUnits, o
         ) : (
           <AppText tone="muted">No meter runs yet: enter the case by hand.</AppText>
         )}
-        <ChoiceGroup label="Units" options={unitOptions} value={values.displayUnits} onChange={onUnits} testIDPrefix="range-check-units" />
+        <ChoiceGroup
+          label="Units"
+          options={unitOptions}
+          value={values.displayUnits}
+          onChange={onUnits}
+          testIDPrefix="range-check-units"
+        />
       </Section>
 
       <Section title="Primary element" wide={wide}>
@@ -119,29 +149,63 @@ export function RangeCheckForm({ values, problems, meterRuns, onEdit, onUnits, o
           testIDPrefix="range-check-element"
         />
         {values.elementKind === 'orifice' ? (
-          <ChoiceGroup label="Pressure taps" options={tapOptions} value={values.taps} onChange={(taps) => onEdit({ taps }, 'elementKind')} testIDPrefix="range-check-taps" />
+          <ChoiceGroup
+            label="Pressure taps"
+            options={tapOptions}
+            value={values.taps}
+            onChange={(taps) => onEdit({ taps }, 'elementKind')}
+            testIDPrefix="range-check-taps"
+          />
         ) : null}
         {values.elementKind === 'venturi' ? (
-          <ChoiceGroup label="Convergent" options={venturiOptions} value={values.venturiType} onChange={(venturiType) => onEdit({ venturiType }, 'elementKind')} testIDPrefix="range-check-venturi" />
+          <ChoiceGroup
+            label="Convergent"
+            options={venturiOptions}
+            value={values.venturiType}
+            onChange={(venturiType) => onEdit({ venturiType }, 'elementKind')}
+            testIDPrefix="range-check-venturi"
+          />
         ) : null}
         {values.elementKind === 'nozzle' ? (
-          <ChoiceGroup label="Nozzle" options={nozzleOptions} value={values.nozzleType} onChange={(nozzleType) => onEdit({ nozzleType }, 'elementKind')} testIDPrefix="range-check-nozzle" />
+          <ChoiceGroup
+            label="Nozzle"
+            options={nozzleOptions}
+            value={values.nozzleType}
+            onChange={(nozzleType) => onEdit({ nozzleType }, 'elementKind')}
+            testIDPrefix="range-check-nozzle"
+          />
         ) : null}
         {problems.elementKind ? (
-          <AppText variant="caption" tone="alarm" testID="range-check-elementKind-error">{`▲ ${problems.elementKind}`}</AppText>
+          <AppText
+            variant="caption"
+            tone="alarm"
+            testID="range-check-elementKind-error"
+          >{`▲ ${problems.elementKind}`}</AppText>
         ) : null}
         {text('pipeDiameter', `Pipe inside diameter D, ${set.length.label}`)}
         {values.elementKind === 'cone'
           ? text('coneDiameter', `Cone diameter dc, ${set.length.label}`)
           : text('boreDiameter', `Bore (throat) diameter d, ${set.length.label}`)}
-        {text('dischargeCoefficient', 'Discharge coefficient C (optional)', values.elementKind === 'cone' ? 'Blank: the calibration curve if there is one, else 0.82 (uncalibrated).' : 'Blank: the standard’s C for this element.')}
+        {text(
+          'dischargeCoefficient',
+          'Discharge coefficient C (optional)',
+          values.elementKind === 'cone'
+            ? 'Blank: the calibration curve if there is one, else 0.82 (uncalibrated).'
+            : 'Blank: the standard’s C for this element.',
+        )}
         {extras.length > 0 ? (
           <AppText variant="caption" tone="muted">{`Also kept from the meter run: ${extras.join(', ')}.`}</AppText>
         ) : null}
       </Section>
 
       <Section title="Fluid" wide={wide}>
-        <ChoiceGroup label="Fluid" options={fluidOptions} value={values.fluidKind} onChange={(fluidKind) => onEdit({ fluidKind }, 'composition')} testIDPrefix="range-check-fluid" />
+        <ChoiceGroup
+          label="Fluid"
+          options={fluidOptions}
+          value={values.fluidKind}
+          onChange={(fluidKind) => onEdit({ fluidKind }, 'composition')}
+          testIDPrefix="range-check-fluid"
+        />
         {values.fluidKind === 'natural-gas' ? (
           <TextField
             label="Composition, mole fractions"
@@ -176,9 +240,21 @@ export function RangeCheckForm({ values, problems, meterRuns, onEdit, onUnits, o
       </Section>
 
       <Section title="Operating conditions" wide={wide}>
-        {text('staticPressure', `Static pressure, ${set.staticPressure.label}`, set.staticPressure.gauge ? `Gauge, on an atmosphere of ${formatNumber(fromSI(values.atmosphericPressurePa, set.staticPressure.unit))} ${set.staticPressure.unit}a.` : 'Absolute, at the upstream tap.')}
+        {text(
+          'staticPressure',
+          `Static pressure, ${set.staticPressure.label}`,
+          set.staticPressure.gauge
+            ? `Gauge, on an atmosphere of ${formatNumber(fromSI(values.atmosphericPressurePa, set.staticPressure.unit))} ${set.staticPressure.unit}a.`
+            : 'Absolute, at the upstream tap.',
+        )}
         {text('temperature', `Temperature, ${set.temperature.label}`)}
-        <ChoiceGroup label="Flow unit" options={flowUnitOptions} value={values.flowUnitKey} onChange={onFlowUnit} testIDPrefix="range-check-flow-unit" />
+        <ChoiceGroup
+          label="Flow unit"
+          options={flowUnitOptions}
+          value={values.flowUnitKey}
+          onChange={onFlowUnit}
+          testIDPrefix="range-check-flow-unit"
+        />
         {text('minimumFlow', 'Minimum flow')}
         {text('normalFlow', 'Normal flow')}
         {text('maximumFlow', 'Maximum flow')}
@@ -187,7 +263,11 @@ export function RangeCheckForm({ values, problems, meterRuns, onEdit, onUnits, o
       <Section title="DP transmitters" wide={wide}>
         {values.transmitters.map((t, i) => (
           <View key={i} style={styles.transmitter} testID={`range-check-transmitter-${i}`}>
-            <AppText variant="bodyStrong">{values.transmitters.length > 1 ? `Transmitter ${i + 1}${i === 0 ? ' (high range)' : ' (low range)'}` : 'Transmitter 1'}</AppText>
+            <AppText variant="bodyStrong">
+              {values.transmitters.length > 1
+                ? `Transmitter ${i + 1}${i === 0 ? ' (high range)' : ' (low range)'}`
+                : 'Transmitter 1'}
+            </AppText>
             <TextField
               label={`Span (upper range value from zero), ${set.differentialPressure.label}`}
               value={t.span}
@@ -213,20 +293,34 @@ export function RangeCheckForm({ values, problems, meterRuns, onEdit, onUnits, o
             <Button
               label="Add a low-range transmitter"
               size="compact"
-              onPress={() => onEdit({ transmitters: [...values.transmitters, { span: '', accuracy: values.transmitters[0]?.accuracy ?? '0.075' }] })}
+              onPress={() =>
+                onEdit({
+                  transmitters: [
+                    ...values.transmitters,
+                    { span: '', accuracy: values.transmitters[0]?.accuracy ?? '0.075' },
+                  ],
+                })
+              }
               testID="range-check-add-transmitter"
             />
           ) : (
-            <Button label="Remove transmitter 2" size="compact" variant="quiet" onPress={() => onEdit({ transmitters: values.transmitters.slice(0, 1) })} />
+            <Button
+              label="Remove transmitter 2"
+              size="compact"
+              variant="quiet"
+              onPress={() => onEdit({ transmitters: values.transmitters.slice(0, 1) })}
+            />
           )}
         </View>
-        {text('uncertaintyLimit', 'Flow uncertainty limit, % (k = 2)', 'Expanded uncertainty the meter run must meet, e.g. 1 %.')}
+        {text(
+          'uncertaintyLimit',
+          'Flow uncertainty limit, % (k = 2)',
+          'Expanded uncertainty the meter run must meet, e.g. 1 %.',
+        )}
       </Section>
 
       <View style={[styles.submit, wide && styles.submitWide]}>
-        {problems.form ? (
-          <AppText tone="alarm" testID="range-check-form-error">{`▲ ${problems.form}`}</AppText>
-        ) : null}
+        {problems.form ? <AppText tone="alarm" testID="range-check-form-error">{`▲ ${problems.form}`}</AppText> : null}
         <Button label="Check the range" variant="primary" onPress={onSubmit} testID="range-check-submit" />
       </View>
     </View>

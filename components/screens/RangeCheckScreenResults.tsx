@@ -45,20 +45,32 @@ export function RangeCheckResults({ run, displayUnits }: RangeCheckResultsProps)
   const flowText = (massKgPerS: number | null) =>
     massKgPerS === null
       ? '—'
-      : formatNumber(flowRateForDisplay({ massKgPerS, standardVolumeM3PerS: baseDensityKgPerM3 ? massKgPerS / baseDensityKgPerM3 : null }, flowUnit));
+      : formatNumber(
+          flowRateForDisplay(
+            { massKgPerS, standardVolumeM3PerS: baseDensityKgPerM3 ? massKgPerS / baseDensityKgPerM3 : null },
+            flowUnit,
+          ),
+        );
   const flowWithUnit = (massKgPerS: number) => `${flowText(massKgPerS)} ${flowUnit.label}`;
   const dpText = (pa: number) => formatNumber(differentialPressureForDisplay(pa, set));
   const spanText = (pa: number) => formatPlain(Number(differentialPressureForDisplay(pa, set).toPrecision(4)));
-  const spanName = (spanPa: number, i: number) => `transmitter ${i + 1} (0–${spanText(spanPa)} ${set.differentialPressure.label})`;
+  const spanName = (spanPa: number, i: number) =>
+    `transmitter ${i + 1} (0–${spanText(spanPa)} ${set.differentialPressure.label})`;
   const plot = useMemo(() => rangeCheckPlot(run), [run]);
   const minimum = result.flows[0];
   const maximum = result.flows[2];
 
   // In plain words, one sentence per finding.
   const sentences = result.transmitters.map((t, i) => {
-    const parts = [`${spanName(t.spanPa, i)[0].toUpperCase()}${spanName(t.spanPa, i).slice(1)} reaches full span at ${flowWithUnit(t.flowAtFullSpanKgPerS)}; its DP falls below 10 % of span below ${flowWithUnit(t.flowAtTenPercentSpanKgPerS)}.`];
-    if (t.minimumFlowWithinLimitKgPerS === null || t.turndown === null) parts.push(`At no flow within its span does it keep the flow within ±${formatPlain(limit)} %.`);
-    else parts.push(`It keeps the flow within ±${formatPlain(limit)} % down to ${flowWithUnit(t.minimumFlowWithinLimitKgPerS)}: a turndown of ${formatNumber(t.turndown, 3)} : 1 from full span.`);
+    const parts = [
+      `${spanName(t.spanPa, i)[0].toUpperCase()}${spanName(t.spanPa, i).slice(1)} reaches full span at ${flowWithUnit(t.flowAtFullSpanKgPerS)}; its DP falls below 10 % of span below ${flowWithUnit(t.flowAtTenPercentSpanKgPerS)}.`,
+    ];
+    if (t.minimumFlowWithinLimitKgPerS === null || t.turndown === null)
+      parts.push(`At no flow within its span does it keep the flow within ±${formatPlain(limit)} %.`);
+    else
+      parts.push(
+        `It keeps the flow within ±${formatPlain(limit)} % down to ${flowWithUnit(t.minimumFlowWithinLimitKgPerS)}: a turndown of ${formatNumber(t.turndown, 3)} : 1 from full span.`,
+      );
     if (!t.coversMaximumFlow) parts.push(`It does not reach the maximum flow (over range there).`);
     return parts.join(' ');
   });
@@ -107,7 +119,11 @@ export function RangeCheckResults({ run, displayUnits }: RangeCheckResultsProps)
             t.overRange ? (
               <Marked key="u" text="over range" abnormal />
             ) : (
-              <Marked key="u" text={`${t.flowUncertaintyPercent > limit ? '◆ ' : ''}±${formatNumber(t.flowUncertaintyPercent, 3)}`} abnormal={t.flowUncertaintyPercent > limit} />
+              <Marked
+                key="u"
+                text={`${t.flowUncertaintyPercent > limit ? '◆ ' : ''}±${formatNumber(t.flowUncertaintyPercent, 3)}`}
+                abnormal={t.flowUncertaintyPercent > limit}
+              />
             ),
           ],
         ]),
@@ -127,9 +143,18 @@ export function RangeCheckResults({ run, displayUnits }: RangeCheckResultsProps)
     testID: `range-check-transmitter-row-${i}`,
     cells: {
       name: `${i + 1}: 0–${spanText(t.spanPa)} ${set.differentialPressure.label}`,
-      full: <Marked text={flowText(t.flowAtFullSpanKgPerS)} abnormal={false} testID={`range-check-flow-at-full-${i}`} />,
-      tenth: <Marked text={flowText(t.flowAtTenPercentSpanKgPerS)} abnormal={false} testID={`range-check-flow-at-10-${i}`} />,
-      lowest: t.minimumFlowWithinLimitKgPerS === null ? <Marked text="◆ never" abnormal /> : flowText(t.minimumFlowWithinLimitKgPerS),
+      full: (
+        <Marked text={flowText(t.flowAtFullSpanKgPerS)} abnormal={false} testID={`range-check-flow-at-full-${i}`} />
+      ),
+      tenth: (
+        <Marked text={flowText(t.flowAtTenPercentSpanKgPerS)} abnormal={false} testID={`range-check-flow-at-10-${i}`} />
+      ),
+      lowest:
+        t.minimumFlowWithinLimitKgPerS === null ? (
+          <Marked text="◆ never" abnormal />
+        ) : (
+          flowText(t.minimumFlowWithinLimitKgPerS)
+        ),
       turndown: t.turndown === null ? '—' : `${formatNumber(t.turndown, 3)} : 1`,
     },
   }));
@@ -155,13 +180,23 @@ export function RangeCheckResults({ run, displayUnits }: RangeCheckResultsProps)
         </Notice>
       )}
       <Panel title="At the minimum, normal and maximum flow">
-        <DataTable columns={flowColumns} rows={flowRows} label="DP, share of span and flow uncertainty at each flow" testID="range-check-flows" />
+        <DataTable
+          columns={flowColumns}
+          rows={flowRows}
+          label="DP, share of span and flow uncertainty at each flow"
+          testID="range-check-flows"
+        />
         <AppText variant="caption" tone="muted">
           {`β ${result.beta.toFixed(4)}, density ${formatNumber(result.densityKgPerM3)} kg/m³ at the operating conditions. ▼ low: below 10 % of span. ◆: above the ±${formatPlain(limit)} % limit. Flow uncertainty is expanded (k = 2): the element's C and ε from ISO 5167 and the DP transmitter's accuracy as a share of the reading; diameters and density are taken as exact here.`}
         </AppText>
       </Panel>
       <Panel title="What each transmitter covers">
-        <DataTable columns={coverageColumns} rows={coverageRows} label="Coverage of each transmitter" testID="range-check-coverage" />
+        <DataTable
+          columns={coverageColumns}
+          rows={coverageRows}
+          label="Coverage of each transmitter"
+          testID="range-check-coverage"
+        />
       </Panel>
       <Panel title="DP and flow uncertainty against flow" testID="range-check-plot">
         <AppText variant="caption" tone="muted">

@@ -39,9 +39,15 @@ interface NumberRow {
 }
 
 /** Each number the advice can carry: its words and how it is shown. */
-function numberRows(numbers: Numbers, report: RangeHealth, set: DisplayUnitSet, displayUnits: DisplayUnits): NumberRow[] {
+function numberRows(
+  numbers: Numbers,
+  report: RangeHealth,
+  set: DisplayUnitSet,
+  displayUnits: DisplayUnits,
+): NumberRow[] {
   const massUnit = flowRateUnit(displayUnits === 'us' ? 'lb/h' : 't/h');
-  const flow = (v: number) => `${formatNumber(flowRateForDisplay({ massKgPerS: v, standardVolumeM3PerS: null }, massUnit))} ${massUnit.label}`;
+  const flow = (v: number) =>
+    `${formatNumber(flowRateForDisplay({ massKgPerS: v, standardVolumeM3PerS: null }, massUnit))} ${massUnit.label}`;
   const dp = (v: number) => `${formatNumber(differentialPressureForDisplay(v, set))} ${set.differentialPressure.label}`;
   const share = (v: number) => `${formatNumber(v * 100, 3)} %`;
   const percent = (v: number) => `${formatNumber(v, 3)} %`;
@@ -91,7 +97,12 @@ export function RangeHealthAdvice({ report, set, displayUnits }: RangeHealthAdvi
         <AppText testID="range-health-recommendation-text">{recommendation.text}</AppText>
       </Notice>
       {rows.length ? (
-        <View style={styles.numbers} role="list" aria-label="The numbers behind the recommendation" testID="range-health-numbers">
+        <View
+          style={styles.numbers}
+          role="list"
+          aria-label="The numbers behind the recommendation"
+          testID="range-health-numbers"
+        >
           <AppText variant="label">What it rests on</AppText>
           {rows.map((row) => (
             <View key={row.key} style={styles.number} role="listitem" testID={`range-health-number-${row.key}`}>
@@ -113,7 +124,9 @@ export function RangeHealthAdvice({ report, set, displayUnits }: RangeHealthAdvi
       ) : null}
       {recommendation.kind !== 'none' && recommendation.kind !== 'unavailable' ? (
         <Notice title="Caution">
-          This supports, and does not replace, licensed measurement practice and the standards that apply to your meter. Re-ranging or adding a transmitter, or changing an element, means working on pressurised lines: follow your site procedures, local codes and the equipment maker’s instructions.
+          This supports, and does not replace, licensed measurement practice and the standards that apply to your meter.
+          Re-ranging or adding a transmitter, or changing an element, means working on pressurised lines: follow your
+          site procedures, local codes and the equipment maker’s instructions.
         </Notice>
       ) : null}
     </Panel>

@@ -27,7 +27,10 @@ function useLowInRangeLimitText(meterRunId: string): string | null {
   if (!low) return null;
   const { thresholdShareOfSpan, onDelayS, enabled } = low.limits;
   if (!enabled) return 'The DP-low-in-range alarm is switched off on this meter run.';
-  const source = low.source === 'default' ? 'the default' : `set for this ${low.source === 'transmitter' ? 'transmitter' : 'meter run'}`;
+  const source =
+    low.source === 'default'
+      ? 'the default'
+      : `set for this ${low.source === 'transmitter' ? 'transmitter' : 'meter run'}`;
   return `The DP-low-in-range alarm is raised below ${percentText(thresholdShareOfSpan ?? 0.1, 0)} of span held for ${formatPlain(onDelayS / 60)} min while there is flow (${source}).`;
 }
 
@@ -64,16 +67,23 @@ export function RangeHealthBands({ report, set }: RangeHealthBandsProps) {
       part: `${band.uncertaintyContributionPercent.toFixed(2)} %`,
     },
   }));
-  const sum = (pick: (b: RangeHealth['bands'][number]) => number) => report.bands.reduce((total, b) => total + pick(b), 0);
+  const sum = (pick: (b: RangeHealth['bands'][number]) => number) =>
+    report.bands.reduce((total, b) => total + pick(b), 0);
   rows.push({
     key: 'total',
     testID: 'range-health-band-total',
     cells: {
       band: 'Period',
       time: formatNumber(report.flowTimeS / 3600, 4),
-      timeShare: share(sum((b) => b.flowTimeShare), 'range-health-time-share-total'),
+      timeShare: share(
+        sum((b) => b.flowTimeShare),
+        'range-health-time-share-total',
+      ),
       volume: volume(report.standardVolumeM3),
-      volumeShare: share(sum((b) => b.standardVolumeShare), 'range-health-volume-share-total'),
+      volumeShare: share(
+        sum((b) => b.standardVolumeShare),
+        'range-health-volume-share-total',
+      ),
       u: report.uncertaintyPercent === null ? '—' : `±${formatNumber(report.uncertaintyPercent, 3)} %`,
       part: `${sum((b) => b.uncertaintyContributionPercent).toFixed(2)} %`,
     },
@@ -82,10 +92,17 @@ export function RangeHealthBands({ report, set }: RangeHealthBandsProps) {
   return (
     <Panel title="Where the flow sat in the DP span" testID="range-health-bands">
       <AppText variant="caption" tone="muted">
-        Bands of the span of the DP transmitter in use at each moment. A band’s U is the mass-weighted expanded uncertainty of the flow measured in it; its part of U is its share of mass × its U, and the parts add up to the period’s U.
+        Bands of the span of the DP transmitter in use at each moment. A band’s U is the mass-weighted expanded
+        uncertainty of the flow measured in it; its part of U is its share of mass × its U, and the parts add up to the
+        period’s U.
       </AppText>
       <Chart {...plot} testID="range-health-band-chart" />
-      <DataTable columns={columns} rows={rows} label="Shares of flowing time and volume by band of the DP span" testID="range-health-band-table" />
+      <DataTable
+        columns={columns}
+        rows={rows}
+        label="Shares of flowing time and volume by band of the DP span"
+        testID="range-health-band-table"
+      />
       {limitText ? (
         <AppText variant="caption" tone="muted" testID="range-health-alarm-limit">
           {limitText}

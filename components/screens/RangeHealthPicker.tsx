@@ -42,7 +42,11 @@ export interface Period {
  */
 export function lastDays(days: number, nowMs: number): Period {
   const toMs = Math.ceil(nowMs / hourMs) * hourMs;
-  return { choice: String(days) as PeriodChoice, from: new Date(toMs - days * dayMs).toISOString(), to: new Date(toMs).toISOString() };
+  return {
+    choice: String(days) as PeriodChoice,
+    from: new Date(toMs - days * dayMs).toISOString(),
+    to: new Date(toMs).toISOString(),
+  };
 }
 
 const limitChoices = [
@@ -62,7 +66,16 @@ interface RangeHealthPickerProps {
   onLimit: (limitPercent: string) => void;
 }
 
-export function RangeHealthPicker({ sites, meterRuns, meterRunId, onMeterRun, period, onPeriod, limitPercent, onLimit }: RangeHealthPickerProps) {
+export function RangeHealthPicker({
+  sites,
+  meterRuns,
+  meterRunId,
+  onMeterRun,
+  period,
+  onPeriod,
+  limitPercent,
+  onLimit,
+}: RangeHealthPickerProps) {
   const chosenRun = meterRuns.find((run) => run.id === meterRunId);
   const [siteId, setSiteId] = useState<string>(chosenRun?.siteId ?? (sites.length === 1 ? sites[0].id : ''));
   const shownSiteId = chosenRun?.siteId ?? siteId;
@@ -81,7 +94,8 @@ export function RangeHealthPicker({ sites, meterRuns, meterRunId, onMeterRun, pe
     // The last day is included: the period ends at the following midnight on the site's clock.
     const toMs = toDayMs === null ? null : toDayMs + dayMs;
     if (fromMs !== null && toMs !== null && toMs <= fromMs) found.to = 'The last day must not be before the first.';
-    if (fromMs !== null && toMs !== null && toMs - fromMs > maxDays * dayMs) found.to = `At most ${maxDays} days at a time.`;
+    if (fromMs !== null && toMs !== null && toMs - fromMs > maxDays * dayMs)
+      found.to = `At most ${maxDays} days at a time.`;
     setProblems(found);
     if (Object.keys(found).length === 0 && fromMs !== null && toMs !== null) {
       onPeriod({ choice: 'custom', from: new Date(fromMs).toISOString(), to: new Date(toMs).toISOString() });
@@ -127,17 +141,40 @@ export function RangeHealthPicker({ sites, meterRuns, meterRunId, onMeterRun, pe
       {period.choice === 'custom' ? (
         <View style={styles.dates}>
           <View style={styles.date}>
-            <TextField label="First day (site clock)" placeholder="YYYY-MM-DD" value={fromText} onChangeText={setFromText} error={problems.from} testID="range-health-from" autoCapitalize="none" />
+            <TextField
+              label="First day (site clock)"
+              placeholder="YYYY-MM-DD"
+              value={fromText}
+              onChangeText={setFromText}
+              error={problems.from}
+              testID="range-health-from"
+              autoCapitalize="none"
+            />
           </View>
           <View style={styles.date}>
-            <TextField label="Last day (included)" placeholder="YYYY-MM-DD" value={toText} onChangeText={setToText} error={problems.to} testID="range-health-to" autoCapitalize="none" onSubmitEditing={applyDates} />
+            <TextField
+              label="Last day (included)"
+              placeholder="YYYY-MM-DD"
+              value={toText}
+              onChangeText={setToText}
+              error={problems.to}
+              testID="range-health-to"
+              autoCapitalize="none"
+              onSubmitEditing={applyDates}
+            />
           </View>
           <View style={styles.apply}>
             <Button label="Show" variant="primary" onPress={applyDates} testID="range-health-apply" />
           </View>
         </View>
       ) : null}
-      <ChoiceGroup label="Uncertainty limit for the recommendation (k = 2)" options={limitChoices} value={limitPercent as (typeof limitChoices)[number]['value']} onChange={onLimit} testIDPrefix="range-health-limit" />
+      <ChoiceGroup
+        label="Uncertainty limit for the recommendation (k = 2)"
+        options={limitChoices}
+        value={limitPercent as (typeof limitChoices)[number]['value']}
+        onChange={onLimit}
+        testIDPrefix="range-health-limit"
+      />
     </Panel>
   );
 }

@@ -8,7 +8,7 @@ import { DateTime } from 'luxon';
 
 import type { ChartProps } from '@/components/charts/chartTypes';
 import type { BandShare, MonthHealth } from '@/hooks/api/rangeHealth';
-import { dpBandNames } from '@/hooks/api/rangeHealth';
+import { type dpBandNames } from '@/hooks/api/rangeHealth';
 import { DP_BANDS } from '@/shared/range-health/band-shares';
 
 /** Where the over-range band is drawn on the span axis (it has no upper end). */
@@ -54,15 +54,41 @@ export function bandSharesPlot(bands: readonly BandShare[]): ChartProps {
   };
   return {
     title: 'Share of flowing time and of volume in each band of the DP span, with each band’s part of the uncertainty',
-    x: { values: edges, kind: 'linear', label: 'DP, % of span in use (over range: 100–110)', range: [0, overRangeDrawnToPercent] },
+    x: {
+      values: edges,
+      kind: 'linear',
+      label: 'DP, % of span in use (over range: 100–110)',
+      range: [0, overRangeDrawnToPercent],
+    },
     axes: [
       { scale: 'share', label: 'Share, %', side: 'left', range: [0, null] },
       { scale: 'u', label: 'Part of U, %', side: 'right', range: [0, null] },
     ],
     series: [
-      { label: 'Flowing time', values: steps((b) => b.flowTimeShare * 100), scale: 'share', rank: 0, stepped: true, significant: 3 },
-      { label: 'Volume at base', values: steps((b) => b.standardVolumeShare * 100), scale: 'share', rank: 1, stepped: true, significant: 3 },
-      { label: 'Part of U (k = 2)', values: steps((b) => b.uncertaintyContributionPercent), scale: 'u', rank: 2, stepped: true, significant: 3 },
+      {
+        label: 'Flowing time',
+        values: steps((b) => b.flowTimeShare * 100),
+        scale: 'share',
+        rank: 0,
+        stepped: true,
+        significant: 3,
+      },
+      {
+        label: 'Volume at base',
+        values: steps((b) => b.standardVolumeShare * 100),
+        scale: 'share',
+        rank: 1,
+        stepped: true,
+        significant: 3,
+      },
+      {
+        label: 'Part of U (k = 2)',
+        values: steps((b) => b.uncertaintyContributionPercent),
+        scale: 'u',
+        rank: 2,
+        stepped: true,
+        significant: 3,
+      },
     ],
     markers: [10, 25, 50, 100].map((x) => ({ x, label: `${x} %` })),
     height: 240,
@@ -83,20 +109,39 @@ const cumulative = [
  * @param period the report's period, ISO, for the chart's x range
  * @returns the stacked trend chart's props
  */
-export function monthlyTrendPlot(months: readonly MonthHealth[], timeZone: string, period: { from: string; to: string }): ChartProps {
+export function monthlyTrendPlot(
+  months: readonly MonthHealth[],
+  timeZone: string,
+  period: { from: string; to: string },
+): ChartProps {
   const startS = (month: string) => DateTime.fromFormat(month, 'yyyy-MM', { zone: timeZone }).toSeconds();
   const fromS = Date.parse(period.from) / 1000;
   const toS = Date.parse(period.to) / 1000;
   // A month is drawn from the later of its first day and the period's start, to the next one.
   const x = months.map((m) => Math.max(startS(m.month), fromS));
   const series = cumulative.map((line, rank) => {
-    const values = months.map((m) => line.bands.reduce((sum, band) => sum + (m.bands[band]?.flowTimeShare ?? 0), 0) * 100);
-    return { label: line.label, values: [...values, values[values.length - 1] ?? null], scale: 'share', rank, stepped: true, significant: 3 };
+    const values = months.map(
+      (m) => line.bands.reduce((sum, band) => sum + (m.bands[band]?.flowTimeShare ?? 0), 0) * 100,
+    );
+    return {
+      label: line.label,
+      values: [...values, values[values.length - 1] ?? null],
+      scale: 'share',
+      rank,
+      stepped: true,
+      significant: 3,
+    };
   });
   return {
     title: 'Monthly shares of flowing time below each edge of the DP span',
     // From the first month with flow, so a single month is not a sliver at the edge of the period.
-    x: { values: months.length ? [...x, toS] : [], kind: 'time', label: 'Contract month', timeZone, range: months.length ? [x[0], toS] : undefined },
+    x: {
+      values: months.length ? [...x, toS] : [],
+      kind: 'time',
+      label: 'Contract month',
+      timeZone,
+      range: months.length ? [x[0], toS] : undefined,
+    },
     axes: [{ scale: 'share', label: 'Share of flowing time, %', side: 'left', range: [0, 100] }],
     series,
     height: 240,

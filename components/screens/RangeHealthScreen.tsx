@@ -30,10 +30,14 @@ const defaultDays = 30;
 export function RangeHealthScreen({ meterRunId: initialMeterRunId }: { meterRunId?: string }) {
   const sites = useSites();
   const meterRuns = useMeterRuns();
-  const [meterRunId, setMeterRunId] = useState<string | null>(initialMeterRunId && /^\d+$/.test(initialMeterRunId) ? initialMeterRunId : null);
+  const [meterRunId, setMeterRunId] = useState<string | null>(
+    initialMeterRunId && /^\d+$/.test(initialMeterRunId) ? initialMeterRunId : null,
+  );
   const [period, setPeriod] = useState<Period>(() => lastDays(defaultDays, Date.now()));
   const [limitPercent, setLimitPercent] = useState('1');
-  const report = useRangeHealth(meterRunId ? { meterRunId, from: period.from, to: period.to, uncertaintyLimitPercent: Number(limitPercent) } : null);
+  const report = useRangeHealth(
+    meterRunId ? { meterRunId, from: period.from, to: period.to, uncertaintyLimitPercent: Number(limitPercent) } : null,
+  );
 
   const run = meterRuns.data?.find((r) => r.id === meterRunId);
   const site = sites.data?.find((s) => s.id === run?.siteId);
@@ -51,7 +55,12 @@ export function RangeHealthScreen({ meterRunId: initialMeterRunId }: { meterRunI
       lead="How a meter run's flow sat in the span of its DP transmitters: the share of flowing time and of volume in each band, per transmitter of a stacked pair, what each band adds to the uncertainty, the trend month by month, and what to change."
       testID="range-health-screen"
     >
-      <QueryState isPending={meterRuns.isPending || sites.isPending} error={meterRuns.error ?? sites.error} onRetry={() => void meterRuns.refetch()} noun="meter runs" />
+      <QueryState
+        isPending={meterRuns.isPending || sites.isPending}
+        error={meterRuns.error ?? sites.error}
+        onRetry={() => void meterRuns.refetch()}
+        noun="meter runs"
+      />
       {meterRuns.data && sites.data ? (
         <RangeHealthPicker
           sites={sites.data}
@@ -65,7 +74,14 @@ export function RangeHealthScreen({ meterRunId: initialMeterRunId }: { meterRunI
         />
       ) : null}
       {!meterRunId ? <AppText tone="muted">Choose a meter run for its report.</AppText> : null}
-      {meterRunId ? <QueryState isPending={report.isPending} error={report.error} onRetry={() => void report.refetch()} noun="the range health report" /> : null}
+      {meterRunId ? (
+        <QueryState
+          isPending={report.isPending}
+          error={report.error}
+          onRetry={() => void report.refetch()}
+          noun="the range health report"
+        />
+      ) : null}
       {data && site ? (
         <>
           <AppText testID="range-health-summary">
@@ -79,7 +95,8 @@ export function RangeHealthScreen({ meterRunId: initialMeterRunId }: { meterRunI
             </>
           ) : (
             <Notice title="No flow in this period" testID="range-health-no-flow">
-              The hourly records of this period have no flowing time, so there are no shares to show. Choose a longer period, or check that readings arrive.
+              The hourly records of this period have no flowing time, so there are no shares to show. Choose a longer
+              period, or check that readings arrive.
             </Notice>
           )}
           <RangeHealthAdvice report={data} set={set} displayUnits={site.displayUnits} />

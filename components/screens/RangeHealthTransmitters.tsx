@@ -23,16 +23,31 @@ const bandFill: Record<(typeof dpBandNames)[number], string> = {
   over: colors.surfaceRaised,
 };
 
-const roleWords: Record<TransmitterHealth['stackRole'], string> = { single: 'single', low: 'low range', high: 'high range' };
+const roleWords: Record<TransmitterHealth['stackRole'], string> = {
+  single: 'single',
+  low: 'low range',
+  high: 'high range',
+};
 
 function StackedShareBar({ transmitter }: { transmitter: TransmitterHealth }) {
   return (
     <View style={styles.barBlock}>
-      <View style={styles.bar} role="img" aria-label={`${transmitter.tag}: ${transmitter.bands.map((b) => `${bandInWords(b.band)} ${percentText(b.flowTimeShare)}`).join(', ')} of its flowing time`}>
+      <View
+        style={styles.bar}
+        role="img"
+        aria-label={`${transmitter.tag}: ${transmitter.bands.map((b) => `${bandInWords(b.band)} ${percentText(b.flowTimeShare)}`).join(', ')} of its flowing time`}
+      >
         {transmitter.bands
           .filter((b) => b.flowTimeShare > 0)
           .map((b) => (
-            <View key={b.band} style={[styles.segment, { flexGrow: b.flowTimeShare, backgroundColor: bandFill[b.band] }, b.band === 'over' && styles.over]} />
+            <View
+              key={b.band}
+              style={[
+                styles.segment,
+                { flexGrow: b.flowTimeShare, backgroundColor: bandFill[b.band] },
+                b.band === 'over' && styles.over,
+              ]}
+            />
           ))}
       </View>
     </View>
@@ -78,7 +93,12 @@ export function RangeHealthTransmitters({ report }: { report: RangeHealth }) {
           </View>
         ))}
       </View>
-      <DataTable columns={columns} rows={rows} label="Shares by band of each DP transmitter's span" testID="range-health-transmitter-table" />
+      <DataTable
+        columns={columns}
+        rows={rows}
+        label="Shares by band of each DP transmitter's span"
+        testID="range-health-transmitter-table"
+      />
       {report.attribution.apportionedFlowTimeS > 0 ? (
         <AppText variant="caption" tone="muted">
           {`${formatNumber(report.attribution.apportionedFlowTimeS / 3600, 3)} h of flowing time fell in hours when the pair switched; those hours are shared out by each transmitter's time in use.`}

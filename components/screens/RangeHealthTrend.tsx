@@ -39,10 +39,17 @@ export function RangeHealthTrend({ report, timeZone }: { report: RangeHealth; ti
   return (
     <Panel title="Month by month" testID="range-health-trend">
       <AppText variant="caption" tone="muted">
-        Each line is the share of the month’s flowing time below an edge of the span; the gaps between lines are the bands. Lines rising from month to month mean the flow is drifting down the span.
+        Each line is the share of the month’s flowing time below an edge of the span; the gaps between lines are the
+        bands. Lines rising from month to month mean the flow is drifting down the span.
       </AppText>
       <Chart {...plot} testID="range-health-trend-chart" />
-      <DataTable columns={columns} rows={rows} label="Shares of flowing time by band, month by month" emptyText="No month in this period has flowing time." testID="range-health-month-table" />
+      <DataTable
+        columns={columns}
+        rows={rows}
+        label="Shares of flowing time by band, month by month"
+        emptyText="No month in this period has flowing time."
+        testID="range-health-month-table"
+      />
     </Panel>
   );
 }

@@ -48,16 +48,30 @@ function Details({ run, site }: { run: MeterRun; site: Site }) {
   return (
     <Panel
       title={`${run.tag} · ${run.name}`}
-      actions={editing ? null : <Button label="Edit details" size="compact" onPress={() => setEditing(true)} testID="run-edit" />}
+      actions={
+        editing ? null : (
+          <Button label="Edit details" size="compact" onPress={() => setEditing(true)} testID="run-edit" />
+        )
+      }
       testID="run-summary"
     >
       {editing ? (
-        <MeterRunDetailsForm meterRun={run} site={site} onDone={() => setEditing(false)} onCancel={() => setEditing(false)} />
+        <MeterRunDetailsForm
+          meterRun={run}
+          site={site}
+          onDone={() => setEditing(false)}
+          onCancel={() => setEditing(false)}
+        />
       ) : (
         <View style={styles.facts}>
           <AppText>{`${describeElement(run.element, unit)} · ${describeFluid(run.fluid)}`}</AppText>
-          <AppText variant="caption" tone="muted">{`Hold limit ${run.holdLimitS} s · longest gap ${run.maxGapS} s · stacked pair switches up at ${Math.round(run.stackSwitchUpShare * 100)} % and down at ${Math.round(run.stackSwitchDownShare * 100)} % of the low range`}</AppText>
-          <AppText variant="caption" tone="muted">{lineSummary(run)}</AppText>
+          <AppText
+            variant="caption"
+            tone="muted"
+          >{`Hold limit ${run.holdLimitS} s · longest gap ${run.maxGapS} s · stacked pair switches up at ${Math.round(run.stackSwitchUpShare * 100)} % and down at ${Math.round(run.stackSwitchDownShare * 100)} % of the low range`}</AppText>
+          <AppText variant="caption" tone="muted">
+            {lineSummary(run)}
+          </AppText>
         </View>
       )}
     </Panel>
@@ -70,13 +84,23 @@ function Transmitters({ run, site }: { run: MeterRun; site: Site }) {
   const dp = list.filter((t) => t.measures === 'differential-pressure');
   const missing = [
     dp.length === 0 && 'a DP transmitter',
-    !list.some((t) => t.measures === 'static-pressure') && run.fluid?.kind !== 'water' && run.fluid?.kind !== 'liquid' && 'a static pressure transmitter',
+    !list.some((t) => t.measures === 'static-pressure') &&
+      run.fluid?.kind !== 'water' &&
+      run.fluid?.kind !== 'liquid' &&
+      'a static pressure transmitter',
     !list.some((t) => t.measures === 'temperature') && 'a temperature transmitter',
   ].filter(Boolean);
   return (
     <Panel title={transmitters.data ? `Transmitters (${list.length})` : 'Transmitters'} testID="tx-list">
-      <QueryState isPending={transmitters.isPending} error={transmitters.error} onRetry={() => void transmitters.refetch()} noun="transmitters" />
-      {transmitters.data && missing.length ? <Notice>{`Still needed for live flow: ${missing.join(', ')}.`}</Notice> : null}
+      <QueryState
+        isPending={transmitters.isPending}
+        error={transmitters.error}
+        onRetry={() => void transmitters.refetch()}
+        noun="transmitters"
+      />
+      {transmitters.data && missing.length ? (
+        <Notice>{`Still needed for live flow: ${missing.join(', ')}.`}</Notice>
+      ) : null}
       {list.map((transmitter) => (
         <TransmitterRow key={transmitter.id} transmitter={transmitter} />
       ))}
@@ -102,13 +126,30 @@ function Versions({ run, site }: { run: MeterRun; site: Site }) {
   return (
     <Panel
       title={versions.data ? `Configuration versions (${versions.data.length})` : 'Configuration versions'}
-      actions={adding ? null : <Button label="Add a version" size="compact" onPress={() => { setAdded(false); setAdding(true); }} testID="version-add" />}
+      actions={
+        adding ? null : (
+          <Button
+            label="Add a version"
+            size="compact"
+            onPress={() => {
+              setAdded(false);
+              setAdding(true);
+            }}
+            testID="version-add"
+          />
+        )
+      }
       testID="version-list"
     >
       <AppText variant="caption" tone="muted">
-        The element and fluid in force at each moment. An element swap, a new gas analysis or a corrected diameter is a new version with the time it took effect.
+        The element and fluid in force at each moment. An element swap, a new gas analysis or a corrected diameter is a
+        new version with the time it took effect.
       </AppText>
-      {added ? <Notice testID="version-create-done">Version added. Hours from its effective time on are being recomputed.</Notice> : null}
+      {added ? (
+        <Notice testID="version-create-done">
+          Version added. Hours from its effective time on are being recomputed.
+        </Notice>
+      ) : null}
       {adding ? (
         <ConfigVersionForm
           meterRun={run}
@@ -120,9 +161,19 @@ function Versions({ run, site }: { run: MeterRun; site: Site }) {
           onCancel={() => setAdding(false)}
         />
       ) : null}
-      <QueryState isPending={versions.isPending} error={versions.error} onRetry={() => void versions.refetch()} noun="configuration versions" />
+      <QueryState
+        isPending={versions.isPending}
+        error={versions.error}
+        onRetry={() => void versions.refetch()}
+        noun="configuration versions"
+      />
       {versions.data ? (
-        <ConfigVersionList versions={versions.data} currentId={run.configVersionId} timeZone={site.timeZone} lengthUnit={site.displayUnits === 'us' ? 'in' : 'mm'} />
+        <ConfigVersionList
+          versions={versions.data}
+          currentId={run.configVersionId}
+          timeZone={site.timeZone}
+          lengthUnit={site.displayUnits === 'us' ? 'in' : 'mm'}
+        />
       ) : null}
     </Panel>
   );

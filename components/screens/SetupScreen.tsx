@@ -24,7 +24,11 @@ function SiteRow({ site, meterRunCount }: { site: Site; meterRunCount: number | 
   return (
     <View style={styles.row} testID={`site-row-${site.code}`}>
       <Link href={href} asChild>
-        <Pressable style={styles.rowLink} aria-label={`${site.code} ${site.name}: open its meter runs`} testID={`site-open-${site.code}`}>
+        <Pressable
+          style={styles.rowLink}
+          aria-label={`${site.code} ${site.name}: open its meter runs`}
+          testID={`site-open-${site.code}`}
+        >
           <View style={styles.rowTitle}>
             <AppText variant="bodyStrong">{site.code}</AppText>
             <AppText style={styles.rowName}>{site.name}</AppText>
@@ -56,7 +60,11 @@ export function SetupScreen() {
   for (const run of runs.data ?? []) counts.set(run.siteId, (counts.get(run.siteId) ?? 0) + 1);
 
   const listPanel = (
-    <Panel title={sites.data ? `Sites (${sites.data.length})` : 'Sites'} testID="site-list" style={wide && styles.listWide}>
+    <Panel
+      title={sites.data ? `Sites (${sites.data.length})` : 'Sites'}
+      testID="site-list"
+      style={wide && styles.listWide}
+    >
       <QueryState isPending={sites.isPending} error={sites.error} onRetry={() => void sites.refetch()} noun="sites" />
       {sites.data && sites.data.length === 0 ? <AppText tone="muted">No sites yet. Add the first one.</AppText> : null}
       {(sites.data ?? []).map((site) => (

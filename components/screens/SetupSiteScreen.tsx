@@ -25,9 +25,15 @@ import { useSites, type Site } from '@/hooks/api/sites';
 
 function siteFacts(site: Site): string {
   const us = site.displayUnits === 'us';
-  const pressure = us ? `${fromSI(site.basePressurePa, 'psi').toFixed(3)} psia` : `${fromSI(site.basePressurePa, 'kPa').toFixed(3)} kPa`;
-  const temperature = us ? `${fromSI(site.baseTemperatureK, 'degF').toFixed(2)} °F` : `${fromSI(site.baseTemperatureK, 'degC').toFixed(2)} °C`;
-  const atmosphere = us ? `${fromSI(site.atmosphericPressurePa, 'psi').toFixed(3)} psia` : `${fromSI(site.atmosphericPressurePa, 'kPa').toFixed(3)} kPa`;
+  const pressure = us
+    ? `${fromSI(site.basePressurePa, 'psi').toFixed(3)} psia`
+    : `${fromSI(site.basePressurePa, 'kPa').toFixed(3)} kPa`;
+  const temperature = us
+    ? `${fromSI(site.baseTemperatureK, 'degF').toFixed(2)} °F`
+    : `${fromSI(site.baseTemperatureK, 'degC').toFixed(2)} °C`;
+  const atmosphere = us
+    ? `${fromSI(site.atmosphericPressurePa, 'psi').toFixed(3)} psia`
+    : `${fromSI(site.atmosphericPressurePa, 'kPa').toFixed(3)} kPa`;
   return `${site.timeZone} · contract day from ${String(site.contractHour).padStart(2, '0')}:00 · base ${pressure}, ${temperature} · atmosphere ${atmosphere} · ${us ? 'US customary' : 'SI'} units`;
 }
 
@@ -35,13 +41,20 @@ function MeterRunRow({ run, site }: { run: MeterRun; site: Site }) {
   const unit = site.displayUnits === 'us' ? 'in' : 'mm';
   return (
     <Link href={`/setup?meterRun=${encodeURIComponent(run.id)}`} asChild>
-      <Pressable style={styles.row} testID={`run-row-${run.tag}`} aria-label={`${run.tag} ${run.name}: open its transmitters and configuration versions`}>
+      <Pressable
+        style={styles.row}
+        testID={`run-row-${run.tag}`}
+        aria-label={`${run.tag} ${run.name}: open its transmitters and configuration versions`}
+      >
         <View style={styles.rowTitle}>
           <AppText variant="bodyStrong">{run.tag}</AppText>
           <AppText style={styles.rowName}>{run.name}</AppText>
           <AppText variant="label">›</AppText>
         </View>
-        <AppText variant="caption" tone="muted">{`${describeElement(run.element, unit)} · ${describeFluid(run.fluid)}`}</AppText>
+        <AppText
+          variant="caption"
+          tone="muted"
+        >{`${describeElement(run.element, unit)} · ${describeFluid(run.fluid)}`}</AppText>
       </Pressable>
     </Link>
   );
@@ -57,8 +70,18 @@ export function SetupSiteScreen({ siteId }: { siteId: string }) {
     return (
       <Screen>
         <Breadcrumbs crumbs={[{ label: 'Set-up', href: '/setup' }, { label: 'Site' }]} />
-        <QueryState isPending={sites.isPending} error={sites.error} onRetry={() => void sites.refetch()} noun="the site" />
-        {sites.data ? <Notice tone="alarm" title="No such site">{`There is no site ${siteId}. It may have been given another id; go back to Set-up.`}</Notice> : null}
+        <QueryState
+          isPending={sites.isPending}
+          error={sites.error}
+          onRetry={() => void sites.refetch()}
+          noun="the site"
+        />
+        {sites.data ? (
+          <Notice
+            tone="alarm"
+            title="No such site"
+          >{`There is no site ${siteId}. It may have been given another id; go back to Set-up.`}</Notice>
+        ) : null}
       </Screen>
     );
   }
@@ -68,13 +91,26 @@ export function SetupSiteScreen({ siteId }: { siteId: string }) {
       <Breadcrumbs crumbs={[{ label: 'Set-up', href: '/setup' }, { label: `${site.code} · ${site.name}` }]} />
       <Panel
         title={`${site.code} · ${site.name}`}
-        actions={editing ? null : <Button label="Edit site" size="compact" onPress={() => setEditing(true)} testID="site-edit" />}
+        actions={
+          editing ? null : (
+            <Button label="Edit site" size="compact" onPress={() => setEditing(true)} testID="site-edit" />
+          )
+        }
         testID="site-summary"
       >
-        {editing ? <SiteForm site={site} onDone={() => setEditing(false)} onCancel={() => setEditing(false)} /> : <AppText tone="muted">{siteFacts(site)}</AppText>}
+        {editing ? (
+          <SiteForm site={site} onDone={() => setEditing(false)} onCancel={() => setEditing(false)} />
+        ) : (
+          <AppText tone="muted">{siteFacts(site)}</AppText>
+        )}
       </Panel>
       <Panel title={runs.data ? `Meter runs (${runs.data.length})` : 'Meter runs'} testID="run-list">
-        <QueryState isPending={runs.isPending} error={runs.error} onRetry={() => void runs.refetch()} noun="meter runs" />
+        <QueryState
+          isPending={runs.isPending}
+          error={runs.error}
+          onRetry={() => void runs.refetch()}
+          noun="meter runs"
+        />
         {runs.data && runs.data.length === 0 ? <AppText tone="muted">No meter runs at this site yet.</AppText> : null}
         {(runs.data ?? []).map((run) => (
           <MeterRunRow key={run.id} run={run} site={site} />

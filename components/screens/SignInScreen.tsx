@@ -1,6 +1,6 @@
 /** Sign-in: email and password for a session; the guard in app/_layout.tsx moves on from here. */
 import { useRef, useState } from 'react';
-import { ScrollView, StyleSheet, TextInput, View } from 'react-native';
+import { ScrollView, StyleSheet, type TextInput, View } from 'react-native';
 
 import { BrandMark } from '@/components/shell/BrandMark';
 import { AppText } from '@/components/ui/AppText';

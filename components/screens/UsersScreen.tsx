@@ -19,8 +19,17 @@ export function UsersScreen() {
     <Screen lead="Everyone who can sign in, and their role. Roles decide which areas and actions each person gets; disabling someone keeps their history in the audit log.">
       <ListWithCreateForm
         list={(style) => (
-          <Panel title={users.data ? `People (${active} active of ${list.length})` : 'People'} style={style} testID="user-list">
-            <QueryState isPending={users.isPending} error={users.error} onRetry={() => void users.refetch()} noun="users" />
+          <Panel
+            title={users.data ? `People (${active} active of ${list.length})` : 'People'}
+            style={style}
+            testID="user-list"
+          >
+            <QueryState
+              isPending={users.isPending}
+              error={users.error}
+              onRetry={() => void users.refetch()}
+              noun="users"
+            />
             {users.data && list.length === 0 ? <AppText tone="muted">No users yet.</AppText> : null}
             {list.map((user) => (
               <UserRow key={user.id} user={user} isSelf={user.id === me.id || user.email === me.email} />

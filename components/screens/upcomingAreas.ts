@@ -16,8 +16,7 @@ export interface UpcomingArea {
 
 export const upcomingAreas: Partial<Record<AreaKey, UpcomingArea>> = {
   totals: {
-    lead:
-      'Hourly, contract-day and monthly totals per meter run and site (mass, actual volume, volume at base conditions, energy) with coverage, flags and uncertainty, and the balance groups beside them.',
+    lead: 'Hourly, contract-day and monthly totals per meter run and site (mass, actual volume, volume at base conditions, energy) with coverage, flags and uncertainty, and the balance groups beside them.',
     actions: [
       {
         capability: 'closePeriod',
@@ -37,8 +36,7 @@ export const upcomingAreas: Partial<Record<AreaKey, UpcomingArea>> = {
     ],
   },
   corrections: {
-    lead:
-      'Propose a substitution or an adjustment for a period of a meter run, with a reason; another engineer or an administrator approves or rejects it. A closed month cannot be corrected.',
+    lead: 'Propose a substitution or an adjustment for a period of a meter run, with a reason; another engineer or an administrator approves or rejects it. A closed month cannot be corrected.',
     actions: [
       {
         capability: 'approveCorrection',

@@ -51,9 +51,13 @@ export function ConfigVersionForm({ meterRun, site, onDone, onCancel }: ConfigVe
   const [effective, setEffective] = useState(() => siteClockNow(site.timeZone, Date.now()));
   const [reason, setReason] = useState('');
   const [element, setElement] = useState<ElementDraft>(() =>
-    meterRun.element ? draftFromElement(meterRun.element as ElementSpec, lengthUnit) : { ...emptyElementDraft, lengthUnit },
+    meterRun.element
+      ? draftFromElement(meterRun.element as ElementSpec, lengthUnit)
+      : { ...emptyElementDraft, lengthUnit },
   );
-  const [fluid, setFluid] = useState<FluidDraft>(() => (meterRun.fluid ? draftFromFluid(meterRun.fluid as FluidSpec) : emptyFluidDraft));
+  const [fluid, setFluid] = useState<FluidDraft>(() =>
+    meterRun.fluid ? draftFromFluid(meterRun.fluid as FluidSpec) : emptyFluidDraft,
+  );
   const [errors, setErrors] = useState<FieldErrors>({});
 
   const effectiveFrom = zonedIso(effective.date, effective.time, site.timeZone);
@@ -66,7 +70,12 @@ export function ConfigVersionForm({ meterRun, site, onDone, onCancel }: ConfigVe
   };
 
   const submit = () => {
-    const parsed = configVersionSchema.safeParse({ effectiveFrom, element: elementFromDraft(element), fluid: fluidFromDraft(fluid), reason });
+    const parsed = configVersionSchema.safeParse({
+      effectiveFrom,
+      element: elementFromDraft(element),
+      fluid: fluidFromDraft(fluid),
+      reason,
+    });
     if (!parsed.success) {
       setErrors(fieldErrorsFromZod(parsed.error));
       return;
@@ -141,10 +150,18 @@ export function ConfigVersionForm({ meterRun, site, onDone, onCancel }: ConfigVe
         titles={{ element: 'Primary element from then on', fluid: 'Fluid from then on' }}
       />
       <Notice>
-        A version dated in the past recomputes this meter run’s hourly records, contract days and monthly totals from that moment on (closed months excepted); hours before it keep the version then in force. A version dated ahead takes effect when its time comes.
+        A version dated in the past recomputes this meter run’s hourly records, contract days and monthly totals from
+        that moment on (closed months excepted); hours before it keep the version then in force. A version dated ahead
+        takes effect when its time comes.
       </Notice>
       <View style={styles.actions}>
-        <Button label={backDated ? 'Add version and recompute' : 'Add version'} variant="primary" onPress={submit} busy={create.isPending} testID={`${prefix}-submit`} />
+        <Button
+          label={backDated ? 'Add version and recompute' : 'Add version'}
+          variant="primary"
+          onPress={submit}
+          busy={create.isPending}
+          testID={`${prefix}-submit`}
+        />
         {onCancel ? <Button label="Cancel" variant="quiet" onPress={onCancel} /> : null}
       </View>
     </View>

@@ -28,13 +28,27 @@ export function ConfigVersionList({ versions, currentId, timeZone, lengthUnit }:
         const current = version.id === currentId;
         const future = Date.parse(version.effectiveFrom) > Date.now();
         return (
-          <View key={version.id} style={[styles.row, current && styles.rowCurrent]} testID={`version-row-${version.id}`}>
+          <View
+            key={version.id}
+            style={[styles.row, current && styles.rowCurrent]}
+            testID={`version-row-${version.id}`}
+          >
             <View style={styles.title}>
-              <AppText variant="bodyStrong" tabular>{`From ${formatOnSiteClock(version.effectiveFrom, timeZone)}`}</AppText>
-              {current ? <AppText variant="label">● In force</AppText> : future ? <AppText variant="label">○ Takes effect later</AppText> : null}
+              <AppText
+                variant="bodyStrong"
+                tabular
+              >{`From ${formatOnSiteClock(version.effectiveFrom, timeZone)}`}</AppText>
+              {current ? (
+                <AppText variant="label">● In force</AppText>
+              ) : future ? (
+                <AppText variant="label">○ Takes effect later</AppText>
+              ) : null}
             </View>
             <AppText variant="caption">{`${describeElement(version.element, lengthUnit)} · ${describeFluid(version.fluid)}`}</AppText>
-            <AppText variant="caption" tone="muted">{`Reason: ${version.reason ?? '—'} · recorded ${formatTimestamp(version.createdAt)}`}</AppText>
+            <AppText
+              variant="caption"
+              tone="muted"
+            >{`Reason: ${version.reason ?? '—'} · recorded ${formatTimestamp(version.createdAt)}`}</AppText>
           </View>
         );
       })}

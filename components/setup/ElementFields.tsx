@@ -14,7 +14,14 @@ import { space } from '@/constants/theme';
 import { UNCALIBRATED_CONE_DISCHARGE_COEFFICIENT } from '@/shared/flow/cone-discharge-coefficient';
 import { DEFAULT_REFERENCE_TEMPERATURE_K } from '@/shared/flow/thermal-expansion';
 import { prepareElement } from '@/shared/flow/prepare-element';
-import type { ElementKind, ElementSpec, MaterialName, NozzleType, OrificeTaps, VenturiType } from '@/shared/flow/flow-types';
+import type {
+  ElementKind,
+  ElementSpec,
+  MaterialName,
+  NozzleType,
+  OrificeTaps,
+  VenturiType,
+} from '@/shared/flow/flow-types';
 import { elementSpecSchema } from '@/shared/schemas/flow-case';
 import { elementFromDraft, type ElementDraft } from './elementDraft';
 import { FieldRow } from './FieldRow';
@@ -87,26 +94,70 @@ interface ElementFieldsProps {
 }
 
 export function ElementFields({ draft, onChange, errors, testPrefix }: ElementFieldsProps) {
-  const set = <K extends keyof ElementDraft>(key: K) => (value: ElementDraft[K]) => onChange({ ...draft, [key]: value });
+  const set =
+    <K extends keyof ElementDraft>(key: K) =>
+    (value: ElementDraft[K]) =>
+      onChange({ ...draft, [key]: value });
   const id = (key: string) => fieldTestID(testPrefix, `element.${key}`);
   const error = (key: string) => errorFor(errors, `element.${key}`);
   const geometry = geometryOf(draft);
   const changeLengthUnit = (unit: LengthUnit) => {
-    const convert = (text: string) => convertNumberText(text, (value) => lengthFromMetres(lengthToMetres(value, draft.lengthUnit), unit));
-    onChange({ ...draft, lengthUnit: unit, pipeDiameter: convert(draft.pipeDiameter), boreDiameter: convert(draft.boreDiameter), coneDiameter: convert(draft.coneDiameter) });
+    const convert = (text: string) =>
+      convertNumberText(text, (value) => lengthFromMetres(lengthToMetres(value, draft.lengthUnit), unit));
+    onChange({
+      ...draft,
+      lengthUnit: unit,
+      pipeDiameter: convert(draft.pipeDiameter),
+      boreDiameter: convert(draft.boreDiameter),
+      coneDiameter: convert(draft.coneDiameter),
+    });
   };
   const unitLabel = draft.lengthUnit;
 
   return (
     <View style={styles.group}>
-      <ChoiceGroup label="Kind" options={kindOptions} value={draft.kind} onChange={set('kind')} testIDPrefix={id('kind')} />
-      {draft.kind === 'orifice' ? <ChoiceGroup label="Pressure taps" options={tapsOptions} value={draft.taps} onChange={set('taps')} testIDPrefix={id('taps')} /> : null}
-      {draft.kind === 'venturi' ? (
-        <ChoiceGroup label="Venturi type" options={venturiOptions} value={draft.venturiType} onChange={set('venturiType')} testIDPrefix={id('venturiType')} />
+      <ChoiceGroup
+        label="Kind"
+        options={kindOptions}
+        value={draft.kind}
+        onChange={set('kind')}
+        testIDPrefix={id('kind')}
+      />
+      {draft.kind === 'orifice' ? (
+        <ChoiceGroup
+          label="Pressure taps"
+          options={tapsOptions}
+          value={draft.taps}
+          onChange={set('taps')}
+          testIDPrefix={id('taps')}
+        />
       ) : null}
-      {draft.kind === 'nozzle' ? <ChoiceGroup label="Nozzle type" options={nozzleOptions} value={draft.nozzleType} onChange={set('nozzleType')} testIDPrefix={id('nozzleType')} /> : null}
+      {draft.kind === 'venturi' ? (
+        <ChoiceGroup
+          label="Venturi type"
+          options={venturiOptions}
+          value={draft.venturiType}
+          onChange={set('venturiType')}
+          testIDPrefix={id('venturiType')}
+        />
+      ) : null}
+      {draft.kind === 'nozzle' ? (
+        <ChoiceGroup
+          label="Nozzle type"
+          options={nozzleOptions}
+          value={draft.nozzleType}
+          onChange={set('nozzleType')}
+          testIDPrefix={id('nozzleType')}
+        />
+      ) : null}
 
-      <ChoiceGroup label="Diameters typed in" options={lengthUnits} value={draft.lengthUnit} onChange={changeLengthUnit} testIDPrefix={id('lengthUnit')} />
+      <ChoiceGroup
+        label="Diameters typed in"
+        options={lengthUnits}
+        value={draft.lengthUnit}
+        onChange={changeLengthUnit}
+        testIDPrefix={id('lengthUnit')}
+      />
       <FieldRow>
         <NumberField
           label={`Pipe inside diameter D (${unitLabel})`}
@@ -154,14 +205,27 @@ export function ElementFields({ draft, onChange, errors, testPrefix }: ElementFi
 
       <FieldRow>
         <View style={styles.choice}>
-          <ChoiceGroup label="Pipe material" options={materialOptions} value={draft.pipeMaterial} onChange={set('pipeMaterial')} testIDPrefix={id('pipeMaterial')} />
+          <ChoiceGroup
+            label="Pipe material"
+            options={materialOptions}
+            value={draft.pipeMaterial}
+            onChange={set('pipeMaterial')}
+            testIDPrefix={id('pipeMaterial')}
+          />
         </View>
         <View style={styles.choice}>
-          <ChoiceGroup label="Element material" options={materialOptions} value={draft.elementMaterial} onChange={set('elementMaterial')} testIDPrefix={id('elementMaterial')} />
+          <ChoiceGroup
+            label="Element material"
+            options={materialOptions}
+            value={draft.elementMaterial}
+            onChange={set('elementMaterial')}
+            testIDPrefix={id('elementMaterial')}
+          />
         </View>
       </FieldRow>
       <AppText variant="caption" tone="muted">
-        Materials correct the diameters for thermal expansion at the flowing temperature; without them the diameters are used as measured.
+        Materials correct the diameters for thermal expansion at the flowing temperature; without them the diameters are
+        used as measured.
       </AppText>
 
       <FieldRow>
@@ -170,7 +234,11 @@ export function ElementFields({ draft, onChange, errors, testPrefix }: ElementFi
           value={draft.dischargeCoefficient}
           onChangeText={set('dischargeCoefficient')}
           error={error('dischargeCoefficient')}
-          hint={draft.kind === 'cone' ? `Empty with no curve: ${UNCALIBRATED_CONE_DISCHARGE_COEFFICIENT}, the uncalibrated cone value.` : 'Empty: C from the standard’s equation.'}
+          hint={
+            draft.kind === 'cone'
+              ? `Empty with no curve: ${UNCALIBRATED_CONE_DISCHARGE_COEFFICIENT}, the uncalibrated cone value.`
+              : 'Empty: C from the standard’s equation.'
+          }
           testID={id('dischargeCoefficient')}
         />
         <View style={styles.calibration}>

@@ -54,10 +54,14 @@ interface FluidFieldsProps {
 
 function CompositionFields({ draft, onChange, errors, testPrefix }: FluidFieldsProps) {
   const [showAll, setShowAll] = useState(() => otherComponents.some((name) => draft.composition[name]));
-  const sum = Object.values(compositionFromDraft(draft)).reduce((total, value) => total + (Number.isFinite(value) ? value : 0), 0);
+  const sum = Object.values(compositionFromDraft(draft)).reduce(
+    (total, value) => total + (Number.isFinite(value) ? value : 0),
+    0,
+  );
   const off = Math.abs(sum - 1) > sumTolerance;
   const percent = draft.compositionUnit === 'percent';
-  const setComponent = (name: DetailComponent) => (text: string) => onChange({ ...draft, composition: { ...draft.composition, [name]: text } });
+  const setComponent = (name: DetailComponent) => (text: string) =>
+    onChange({ ...draft, composition: { ...draft.composition, [name]: text } });
   const error = errorFor(errors, 'fluid.composition');
   const names = showAll ? [...commonComponents, ...otherComponents] : commonComponents;
 
@@ -72,7 +76,10 @@ function CompositionFields({ draft, onChange, errors, testPrefix }: FluidFieldsP
           // mol % = 100 × mole fraction: the amounts typed keep their meaning.
           const factor = compositionUnit === 'percent' ? 100 : 0.01;
           const composition = Object.fromEntries(
-            Object.entries(draft.composition).map(([name, text]) => [name, convertNumberText(text ?? '', (value) => value * factor)]),
+            Object.entries(draft.composition).map(([name, text]) => [
+              name,
+              convertNumberText(text ?? '', (value) => value * factor),
+            ]),
           );
           onChange({ ...draft, compositionUnit, composition });
         }}
@@ -95,11 +102,21 @@ function CompositionFields({ draft, onChange, errors, testPrefix }: FluidFieldsP
         <AppText variant="label" tabular testID={fieldTestID(testPrefix, 'fluid.composition-sum')}>
           {percent ? `Sum ${(sum * 100).toFixed(2)} mol %` : `Sum ${sum.toFixed(4)}`}
         </AppText>
-        {off && sum > 0 ? <StateBadge priority="low" variant="inline" label={`must add up to ${percent ? '100 mol %' : '1'} (within ${percent ? '1 mol %' : '0.01'})`} /> : null}
+        {off && sum > 0 ? (
+          <StateBadge
+            priority="low"
+            variant="inline"
+            label={`must add up to ${percent ? '100 mol %' : '1'} (within ${percent ? '1 mol %' : '0.01'})`}
+          />
+        ) : null}
         <Button
           size="compact"
           variant="quiet"
-          label={showAll ? 'Show the usual components only' : `Show all ${commonComponents.length + otherComponents.length} components`}
+          label={
+            showAll
+              ? 'Show the usual components only'
+              : `Show all ${commonComponents.length + otherComponents.length} components`
+          }
           onPress={() => setShowAll((all) => !all)}
         />
       </View>
@@ -114,17 +131,27 @@ function CompositionFields({ draft, onChange, errors, testPrefix }: FluidFieldsP
 
 export function FluidFields(props: FluidFieldsProps) {
   const { draft, onChange, errors, testPrefix } = props;
-  const set = <K extends keyof FluidDraft>(key: K) => (value: FluidDraft[K]) => onChange({ ...draft, [key]: value });
+  const set =
+    <K extends keyof FluidDraft>(key: K) =>
+    (value: FluidDraft[K]) =>
+      onChange({ ...draft, [key]: value });
   const id = (key: string) => fieldTestID(testPrefix, `fluid.${key}`);
   const error = (key: string) => errorFor(errors, `fluid.${key}`);
 
   return (
     <View style={styles.group}>
-      <ChoiceGroup label="Kind" options={kindOptions} value={draft.kind} onChange={set('kind')} testIDPrefix={id('kind')} />
+      <ChoiceGroup
+        label="Kind"
+        options={kindOptions}
+        value={draft.kind}
+        onChange={set('kind')}
+        testIDPrefix={id('kind')}
+      />
       {draft.kind === 'natural-gas' ? (
         <>
           <AppText variant="caption" tone="muted">
-            Density and compressibility from AGA 8 DETAIL, heating value from ISO 6976, both from this composition: take it from the latest gas analysis.
+            Density and compressibility from AGA 8 DETAIL, heating value from ISO 6976, both from this composition: take
+            it from the latest gas analysis.
           </AppText>
           <CompositionFields {...props} />
         </>
@@ -136,15 +163,48 @@ export function FluidFields(props: FluidFieldsProps) {
       ) : null}
       {draft.kind === 'ideal-gas' ? (
         <FieldRow>
-          <NumberField label="Molar mass (g/mol)" value={draft.molarMassGPerMol} onChangeText={set('molarMassGPerMol')} error={error('molarMassKgPerMol')} hint="Air 28.97" testID={id('molarMassKgPerMol')} />
-          <NumberField label="Compressibility Z (optional)" value={draft.compressibility} onChangeText={set('compressibility')} error={error('compressibility')} hint="Empty: 1" testID={id('compressibility')} />
+          <NumberField
+            label="Molar mass (g/mol)"
+            value={draft.molarMassGPerMol}
+            onChangeText={set('molarMassGPerMol')}
+            error={error('molarMassKgPerMol')}
+            hint="Air 28.97"
+            testID={id('molarMassKgPerMol')}
+          />
+          <NumberField
+            label="Compressibility Z (optional)"
+            value={draft.compressibility}
+            onChangeText={set('compressibility')}
+            error={error('compressibility')}
+            hint="Empty: 1"
+            testID={id('compressibility')}
+          />
         </FieldRow>
       ) : null}
       {draft.kind === 'liquid' ? (
         <FieldRow>
-          <NumberField label="Density (kg/m³)" value={draft.densityKgPerM3} onChangeText={set('densityKgPerM3')} error={error('densityKgPerM3')} testID={id('densityKgPerM3')} />
-          <NumberField label="at temperature (°C)" value={draft.referenceTemperatureC} onChangeText={set('referenceTemperatureC')} error={error('referenceTemperatureK')} testID={id('referenceTemperatureK')} />
-          <NumberField label="Volumetric expansion (1/K)" value={draft.expansionPerK} onChangeText={set('expansionPerK')} error={error('expansionPerK')} hint="e.g. 0.0009 for a light oil" testID={id('expansionPerK')} />
+          <NumberField
+            label="Density (kg/m³)"
+            value={draft.densityKgPerM3}
+            onChangeText={set('densityKgPerM3')}
+            error={error('densityKgPerM3')}
+            testID={id('densityKgPerM3')}
+          />
+          <NumberField
+            label="at temperature (°C)"
+            value={draft.referenceTemperatureC}
+            onChangeText={set('referenceTemperatureC')}
+            error={error('referenceTemperatureK')}
+            testID={id('referenceTemperatureK')}
+          />
+          <NumberField
+            label="Volumetric expansion (1/K)"
+            value={draft.expansionPerK}
+            onChangeText={set('expansionPerK')}
+            error={error('expansionPerK')}
+            hint="e.g. 0.0009 for a light oil"
+            testID={id('expansionPerK')}
+          />
         </FieldRow>
       ) : null}
       <FieldRow>

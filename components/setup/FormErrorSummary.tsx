@@ -19,7 +19,13 @@ export function FormErrorSummary({ errors, labels, general, testID }: FormErrorS
   const entries = Object.entries(errors);
   if (entries.length === 0 && !general) return null;
   return (
-    <Notice tone="alarm" title={entries.length ? `Check ${entries.length === 1 ? 'this field' : `these ${entries.length} fields`}` : 'Not saved'} testID={testID}>
+    <Notice
+      tone="alarm"
+      title={
+        entries.length ? `Check ${entries.length === 1 ? 'this field' : `these ${entries.length} fields`}` : 'Not saved'
+      }
+      testID={testID}
+    >
       {general ? <AppText>{general}</AppText> : null}
       {entries.map(([path, message]) => (
         <AppText key={path}>{`${labels[path] ?? path}: ${message}`}</AppText>

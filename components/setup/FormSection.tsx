@@ -24,7 +24,13 @@ export function FormSection({ title, description, children, folded = false, test
           {title}
         </AppText>
         {folded ? (
-          <Button size="compact" variant="quiet" label={open ? 'Hide' : 'Show'} onPress={() => setOpen((value) => !value)} testID={testID ? `${testID}-toggle` : undefined} />
+          <Button
+            size="compact"
+            variant="quiet"
+            label={open ? 'Hide' : 'Show'}
+            onPress={() => setOpen((value) => !value)}
+            testID={testID ? `${testID}-toggle` : undefined}
+          />
         ) : null}
       </View>
       {description && open ? (

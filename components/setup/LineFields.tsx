@@ -11,7 +11,15 @@ import { TextField } from '@/components/ui/TextField';
 import { space } from '@/constants/theme';
 import type { MeterRunInput } from '@/shared/schemas/setup';
 import { FieldRow } from './FieldRow';
-import { convertNumberText, errorFor, fieldTestID, numberText, optionalText, parseNumberText, type FieldErrors } from './formFields';
+import {
+  convertNumberText,
+  errorFor,
+  fieldTestID,
+  numberText,
+  optionalText,
+  parseNumberText,
+  type FieldErrors,
+} from './formFields';
 import { NumberField } from './NumberField';
 import { lengthFromMetres, lengthToMetres, lengthUnits, type LengthUnit } from './unitChoices';
 
@@ -99,7 +107,8 @@ export function draftFromLine(line: Record<string, unknown>, lengthUnit: LengthU
   const number = (key: string) => (typeof line[key] === 'number' ? numberText(line[key] as number) : '');
   return {
     lengthUnit,
-    insideDiameter: typeof line.insideDiameterM === 'number' ? numberText(lengthFromMetres(line.insideDiameterM, lengthUnit)) : '',
+    insideDiameter:
+      typeof line.insideDiameterM === 'number' ? numberText(lengthFromMetres(line.insideDiameterM, lengthUnit)) : '',
     nominalSize: text('nominalSize'),
     schedule: text('schedule'),
     flangeClass: text('flangeClass'),
@@ -122,12 +131,23 @@ interface LineFieldsProps {
 }
 
 export function LineFields({ draft, onChange, errors, testPrefix }: LineFieldsProps) {
-  const set = <K extends keyof LineDraft>(key: K) => (value: LineDraft[K]) => onChange({ ...draft, [key]: value });
+  const set =
+    <K extends keyof LineDraft>(key: K) =>
+    (value: LineDraft[K]) =>
+      onChange({ ...draft, [key]: value });
   const id = (key: string) => fieldTestID(testPrefix, `line.${key}`);
   const error = (key: string) => errorFor(errors, `line.${key}`);
   const text = (key: keyof LineDraft & keyof Line, label: string, hint?: string) => (
     <View style={styles.field}>
-      <TextField label={label} value={draft[key] as string} onChangeText={set(key) as (text: string) => void} error={error(key)} hint={hint} testID={id(key)} autoCorrect={false} />
+      <TextField
+        label={label}
+        value={draft[key] as string}
+        onChangeText={set(key) as (text: string) => void}
+        error={error(key)}
+        hint={hint}
+        testID={id(key)}
+        autoCorrect={false}
+      />
     </View>
   );
 
@@ -144,7 +164,9 @@ export function LineFields({ draft, onChange, errors, testPrefix }: LineFieldsPr
             onChange({
               ...draft,
               lengthUnit: unit,
-              insideDiameter: convertNumberText(draft.insideDiameter, (value) => lengthFromMetres(lengthToMetres(value, draft.lengthUnit), unit)),
+              insideDiameter: convertNumberText(draft.insideDiameter, (value) =>
+                lengthFromMetres(lengthToMetres(value, draft.lengthUnit), unit),
+              ),
             })
           }
           error={error('insideDiameterM')}

@@ -17,11 +17,23 @@ import { lineSchema, meterRunSchema } from '@/shared/schemas/setup';
 import { FieldRow } from './FieldRow';
 import { FormErrorSummary } from './FormErrorSummary';
 import { FormSection } from './FormSection';
-import { fieldErrorFromServer, fieldErrorsFromZod, fieldTestID, numberText, parseNumberText, type FieldErrors } from './formFields';
+import {
+  fieldErrorFromServer,
+  fieldErrorsFromZod,
+  fieldTestID,
+  numberText,
+  parseNumberText,
+  type FieldErrors,
+} from './formFields';
 import { draftFromLine, LineFields, lineFieldLabels, lineFromDraft, type LineDraft } from './LineFields';
 import { NumberField } from './NumberField';
 
-const labels: Record<string, string> = { name: 'Name', holdLimitS: 'Hold limit', maxGapS: 'Longest gap', ...lineFieldLabels };
+const labels: Record<string, string> = {
+  name: 'Name',
+  holdLimitS: 'Hold limit',
+  maxGapS: 'Longest gap',
+  ...lineFieldLabels,
+};
 
 /** The PATCH body's own fields, checked with the same rules as the meter run schema. */
 const { name: nameRule, holdLimitS: holdLimitRule, maxGapS: maxGapRule } = meterRunSchema.shape;
@@ -40,13 +52,21 @@ export function MeterRunDetailsForm({ meterRun, site, onDone, onCancel }: MeterR
   const [name, setName] = useState(meterRun.name);
   const [holdLimit, setHoldLimit] = useState(numberText(meterRun.holdLimitS));
   const [maxGap, setMaxGap] = useState(numberText(meterRun.maxGapS));
-  const [line, setLine] = useState<LineDraft>(() => draftFromLine(meterRun.line, site.displayUnits === 'us' ? 'in' : 'mm'));
+  const [line, setLine] = useState<LineDraft>(() =>
+    draftFromLine(meterRun.line, site.displayUnits === 'us' ? 'in' : 'mm'),
+  );
   const [errors, setErrors] = useState<FieldErrors>({});
 
-  const limitsChanged = parseNumberText(holdLimit) !== meterRun.holdLimitS || parseNumberText(maxGap) !== meterRun.maxGapS;
+  const limitsChanged =
+    parseNumberText(holdLimit) !== meterRun.holdLimitS || parseNumberText(maxGap) !== meterRun.maxGapS;
 
   const submit = () => {
-    const parsed = changeSchema.safeParse({ name, holdLimitS: parseNumberText(holdLimit), maxGapS: parseNumberText(maxGap), line: lineFromDraft(line) });
+    const parsed = changeSchema.safeParse({
+      name,
+      holdLimitS: parseNumberText(holdLimit),
+      maxGapS: parseNumberText(maxGap),
+      line: lineFromDraft(line),
+    });
     if (!parsed.success) {
       setErrors(fieldErrorsFromZod(parsed.error));
       return;
@@ -62,22 +82,45 @@ export function MeterRunDetailsForm({ meterRun, site, onDone, onCancel }: MeterR
 
   return (
     <View style={styles.form} testID={prefix}>
-      <FormErrorSummary errors={shown} labels={labels} general={update.error && !serverErrors ? update.error.message : null} />
+      <FormErrorSummary
+        errors={shown}
+        labels={labels}
+        general={update.error && !serverErrors ? update.error.message : null}
+      />
       <TextField label="Name" value={name} onChangeText={setName} error={shown.name} testID={id('name')} />
       <FieldRow>
-        <NumberField label="Hold limit (s)" value={holdLimit} onChangeText={setHoldLimit} error={shown.holdLimitS} testID={id('holdLimitS')} />
-        <NumberField label="Longest gap (s)" value={maxGap} onChangeText={setMaxGap} error={shown.maxGapS} testID={id('maxGapS')} />
+        <NumberField
+          label="Hold limit (s)"
+          value={holdLimit}
+          onChangeText={setHoldLimit}
+          error={shown.holdLimitS}
+          testID={id('holdLimitS')}
+        />
+        <NumberField
+          label="Longest gap (s)"
+          value={maxGap}
+          onChangeText={setMaxGap}
+          error={shown.maxGapS}
+          testID={id('maxGapS')}
+        />
       </FieldRow>
       {limitsChanged ? (
         <Notice title="This recomputes the whole history">
-          The hold limit and the longest gap decide which time counts as flow and which as missing: a change recomputes every hour of this meter run (closed months excepted).
+          The hold limit and the longest gap decide which time counts as flow and which as missing: a change recomputes
+          every hour of this meter run (closed months excepted).
         </Notice>
       ) : null}
       <FormSection title="Line data">
         <LineFields draft={line} onChange={setLine} errors={shown} testPrefix={prefix} />
       </FormSection>
       <View style={styles.actions}>
-        <Button label="Save details" variant="primary" onPress={submit} busy={update.isPending} testID={`${prefix}-submit`} />
+        <Button
+          label="Save details"
+          variant="primary"
+          onPress={submit}
+          busy={update.isPending}
+          testID={`${prefix}-submit`}
+        />
         {onCancel ? <Button label="Cancel" variant="quiet" onPress={onCancel} /> : null}
       </View>
     </View>

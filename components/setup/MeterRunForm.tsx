@@ -21,7 +21,14 @@ import { fluidFieldLabels } from './FluidFields';
 import { emptyFluidDraft, fluidFromDraft, type FluidDraft } from './fluidDraft';
 import { FormErrorSummary } from './FormErrorSummary';
 import { FormSection } from './FormSection';
-import { fieldErrorFromServer, fieldErrorsFromZod, fieldTestID, optionalText, parseNumberText, type FieldErrors } from './formFields';
+import {
+  fieldErrorFromServer,
+  fieldErrorsFromZod,
+  fieldTestID,
+  optionalText,
+  parseNumberText,
+  type FieldErrors,
+} from './formFields';
 import { emptyLineDraft, LineFields, lineFieldLabels, lineFromDraft, type LineDraft } from './LineFields';
 import { NumberField } from './NumberField';
 import { zonedIso } from './zonedTime';
@@ -74,9 +81,15 @@ export function MeterRunForm({ site, onDone }: MeterRunFormProps) {
   const create = useCreateMeterRun();
   const prefix = 'run-create';
   const [run, setRun] = useState<RunDraft>(emptyRunDraft);
-  const [element, setElement] = useState<ElementDraft>(() => ({ ...emptyElementDraft, lengthUnit: site.displayUnits === 'us' ? 'in' : 'mm' }));
+  const [element, setElement] = useState<ElementDraft>(() => ({
+    ...emptyElementDraft,
+    lengthUnit: site.displayUnits === 'us' ? 'in' : 'mm',
+  }));
   const [fluid, setFluid] = useState<FluidDraft>(emptyFluidDraft);
-  const [line, setLine] = useState<LineDraft>(() => ({ ...emptyLineDraft, lengthUnit: site.displayUnits === 'us' ? 'in' : 'mm' }));
+  const [line, setLine] = useState<LineDraft>(() => ({
+    ...emptyLineDraft,
+    lengthUnit: site.displayUnits === 'us' ? 'in' : 'mm',
+  }));
   const [errors, setErrors] = useState<FieldErrors>({});
   const [added, setAdded] = useState<string | null>(null);
 
@@ -144,7 +157,14 @@ export function MeterRunForm({ site, onDone }: MeterRunFormProps) {
           />
         </View>
         <View style={styles.field}>
-          <TextField label="Name" value={run.name} onChangeText={editRun('name')} error={shown.name} hint="e.g. Pad 4 wellhead" testID={id('name')} />
+          <TextField
+            label="Name"
+            value={run.name}
+            onChangeText={editRun('name')}
+            error={shown.name}
+            hint="e.g. Pad 4 wellhead"
+            testID={id('name')}
+          />
         </View>
       </FieldRow>
 
@@ -165,8 +185,20 @@ export function MeterRunForm({ site, onDone }: MeterRunFormProps) {
         description="The hold limit is how long a static pressure or temperature reading may stand in for the next; a gap between readings longer than the longest gap counts as missing time, not flow. A stacked pair switches up to the high-range DP above the first share of the low-range span and back below the second (hysteresis)."
       >
         <FieldRow>
-          <NumberField label="Hold limit (s)" value={run.holdLimitS} onChangeText={editRun('holdLimitS')} error={shown.holdLimitS} testID={id('holdLimitS')} />
-          <NumberField label="Longest gap (s)" value={run.maxGapS} onChangeText={editRun('maxGapS')} error={shown.maxGapS} testID={id('maxGapS')} />
+          <NumberField
+            label="Hold limit (s)"
+            value={run.holdLimitS}
+            onChangeText={editRun('holdLimitS')}
+            error={shown.holdLimitS}
+            testID={id('holdLimitS')}
+          />
+          <NumberField
+            label="Longest gap (s)"
+            value={run.maxGapS}
+            onChangeText={editRun('maxGapS')}
+            error={shown.maxGapS}
+            testID={id('maxGapS')}
+          />
           <NumberField
             label="Switch up at (% of low span)"
             value={run.switchUpPercent}
@@ -192,15 +224,33 @@ export function MeterRunForm({ site, onDone }: MeterRunFormProps) {
       >
         <FieldRow>
           <View style={styles.field}>
-            <TextField label="Date" value={run.effectiveDate} onChangeText={editRun('effectiveDate')} error={shown.effectiveFrom} hint="YYYY-MM-DD" testID={id('effectiveFrom')} />
+            <TextField
+              label="Date"
+              value={run.effectiveDate}
+              onChangeText={editRun('effectiveDate')}
+              error={shown.effectiveFrom}
+              hint="YYYY-MM-DD"
+              testID={id('effectiveFrom')}
+            />
           </View>
           <View style={styles.field}>
-            <TextField label="Time" value={run.effectiveTime} onChangeText={editRun('effectiveTime')} hint="HH:MM, 24 h" testID={id('effectiveTime')} />
+            <TextField
+              label="Time"
+              value={run.effectiveTime}
+              onChangeText={editRun('effectiveTime')}
+              hint="HH:MM, 24 h"
+              testID={id('effectiveTime')}
+            />
           </View>
         </FieldRow>
       </FormSection>
 
-      <FormSection title="Line data (optional)" description="For the record and the audit: the flow equation uses the element’s diameters." folded testID={`${prefix}-line`}>
+      <FormSection
+        title="Line data (optional)"
+        description="For the record and the audit: the flow equation uses the element’s diameters."
+        folded
+        testID={`${prefix}-line`}
+      >
         <LineFields
           draft={line}
           onChange={(next) => {
@@ -213,7 +263,13 @@ export function MeterRunForm({ site, onDone }: MeterRunFormProps) {
       </FormSection>
 
       <View style={styles.actions}>
-        <Button label="Add meter run" variant="primary" onPress={submit} busy={create.isPending} testID={`${prefix}-submit`} />
+        <Button
+          label="Add meter run"
+          variant="primary"
+          onPress={submit}
+          busy={create.isPending}
+          testID={`${prefix}-submit`}
+        />
       </View>
     </View>
   );

@@ -24,7 +24,19 @@ interface NumberFieldProps<U extends string> {
   compact?: boolean;
 }
 
-export function NumberField<U extends string>({ label, value, onChangeText, error, hint, testID, units, unit, onChangeUnit, editable, compact }: NumberFieldProps<U>) {
+export function NumberField<U extends string>({
+  label,
+  value,
+  onChangeText,
+  error,
+  hint,
+  testID,
+  units,
+  unit,
+  onChangeUnit,
+  editable,
+  compact,
+}: NumberFieldProps<U>) {
   const unitLabel = units?.find((option) => option.value === unit)?.label;
   return (
     <View style={[styles.wrap, compact && styles.compact]}>

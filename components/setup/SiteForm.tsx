@@ -15,7 +15,15 @@ import { useCreateSite, useUpdateSite, type Site } from '@/hooks/api/sites';
 import { siteSchema } from '@/shared/schemas/setup';
 import { FieldRow } from './FieldRow';
 import { FormErrorSummary } from './FormErrorSummary';
-import { convertNumberText, fieldErrorFromServer, fieldErrorsFromZod, fieldTestID, numberText, parseNumberText, type FieldErrors } from './formFields';
+import {
+  convertNumberText,
+  fieldErrorFromServer,
+  fieldErrorsFromZod,
+  fieldTestID,
+  numberText,
+  parseNumberText,
+  type FieldErrors,
+} from './formFields';
 import { NumberField } from './NumberField';
 import {
   absolutePressureUnits,
@@ -137,10 +145,17 @@ export function SiteForm({ site, onDone, onCancel }: SiteFormProps) {
   };
 
   /** A new unit for a value field: the typed number is converted so the quantity stays the same. */
-  const changeUnit = <V extends 'basePressure' | 'baseTemperature' | 'atmosphericPressure'>(field: V, unit: SiteDraft[`${V}Unit`]) => {
+  const changeUnit = <V extends 'basePressure' | 'baseTemperature' | 'atmosphericPressure'>(
+    field: V,
+    unit: SiteDraft[`${V}Unit`],
+  ) => {
     setDraft((current) => {
       const from = current[`${field}Unit`];
-      return { ...current, [`${field}Unit`]: unit, [field]: convertNumberText(current[field], (value) => fromSI(toSI(value, from), unit)) };
+      return {
+        ...current,
+        [`${field}Unit`]: unit,
+        [field]: convertNumberText(current[field], (value) => fromSI(toSI(value, from), unit)),
+      };
     });
   };
 
@@ -182,7 +197,11 @@ export function SiteForm({ site, onDone, onCancel }: SiteFormProps) {
             value={draft.code}
             onChangeText={(text) => edit('code', text)}
             error={shown.code}
-            hint={site ? 'Part of every MQTT topic of the site: it cannot be changed.' : 'Short, e.g. KFG. It becomes part of MQTT topics.'}
+            hint={
+              site
+                ? 'Part of every MQTT topic of the site: it cannot be changed.'
+                : 'Short, e.g. KFG. It becomes part of MQTT topics.'
+            }
             testID={id('code')}
             autoCapitalize="characters"
             autoCorrect={false}
@@ -190,7 +209,13 @@ export function SiteForm({ site, onDone, onCancel }: SiteFormProps) {
           />
         </View>
         <View style={styles.field}>
-          <TextField label="Name" value={draft.name} onChangeText={(text) => edit('name', text)} error={shown.name} testID={id('name')} />
+          <TextField
+            label="Name"
+            value={draft.name}
+            onChangeText={(text) => edit('name', text)}
+            error={shown.name}
+            testID={id('name')}
+          />
         </View>
       </FieldRow>
       <FieldRow>
@@ -248,9 +273,21 @@ export function SiteForm({ site, onDone, onCancel }: SiteFormProps) {
           testID={id('atmosphericPressurePa')}
         />
       </FieldRow>
-      <ChoiceGroup label="Units on screen" options={displayUnitOptions} value={draft.displayUnits} onChange={(value) => edit('displayUnits', value)} testIDPrefix={id('displayUnits')} />
+      <ChoiceGroup
+        label="Units on screen"
+        options={displayUnitOptions}
+        value={draft.displayUnits}
+        onChange={(value) => edit('displayUnits', value)}
+        testIDPrefix={id('displayUnits')}
+      />
       <View style={styles.actions}>
-        <Button label={site ? 'Save site' : 'Add site'} variant="primary" onPress={submit} busy={mutation.isPending} testID={`${prefix}-submit`} />
+        <Button
+          label={site ? 'Save site' : 'Add site'}
+          variant="primary"
+          onPress={submit}
+          busy={mutation.isPending}
+          testID={`${prefix}-submit`}
+        />
         {onCancel ? <Button label="Cancel" variant="quiet" onPress={onCancel} /> : null}
       </View>
     </View>

@@ -17,7 +17,14 @@ import { useCreateTransmitter, type Transmitter } from '@/hooks/api/transmitters
 import { transmitterSchema } from '@/shared/schemas/setup';
 import { FieldRow } from './FieldRow';
 import { FormErrorSummary } from './FormErrorSummary';
-import { fieldErrorFromServer, fieldErrorsFromZod, fieldTestID, optionalText, parseNumberText, type FieldErrors } from './formFields';
+import {
+  fieldErrorFromServer,
+  fieldErrorsFromZod,
+  fieldTestID,
+  optionalText,
+  parseNumberText,
+  type FieldErrors,
+} from './formFields';
 import { NumberField } from './NumberField';
 import { measuresLabel, unitLabel, unitsFor, type Measures, type TransmitterUnitCode } from './transmitterUnits';
 
@@ -33,7 +40,10 @@ interface TransmitterDraft {
   calibrationDue: string;
 }
 
-const measuresOptions = (Object.keys(measuresLabel) as Measures[]).map((value) => ({ value, label: measuresLabel[value] }));
+const measuresOptions = (Object.keys(measuresLabel) as Measures[]).map((value) => ({
+  value,
+  label: measuresLabel[value],
+}));
 const referenceOptions = [
   { value: 'absolute' as const, label: 'Absolute' },
   { value: 'gauge' as const, label: 'Gauge (adds the site’s atmosphere)' },
@@ -141,7 +151,10 @@ export function TransmitterForm({ meterRun, existing, us, onDone }: TransmitterF
     const parsed = transmitterSchema.safeParse(body);
     const roleProblem = draft.measures === 'differential-pressure' ? dpRoleProblem(draft.stackRole, existing) : null;
     if (!parsed.success || roleProblem) {
-      setErrors({ ...(parsed.success ? {} : fieldErrorsFromZod(parsed.error)), ...(roleProblem ? { stackRole: roleProblem } : {}) });
+      setErrors({
+        ...(parsed.success ? {} : fieldErrorsFromZod(parsed.error)),
+        ...(roleProblem ? { stackRole: roleProblem } : {}),
+      });
       return;
     }
     setErrors({});
@@ -174,25 +187,65 @@ export function TransmitterForm({ meterRun, existing, us, onDone }: TransmitterF
         autoCapitalize="characters"
         autoCorrect={false}
       />
-      <ChoiceGroup label="Measures" options={measuresOptions} value={draft.measures} onChange={(value) => edit('measures', value)} testIDPrefix={id('measures')} />
+      <ChoiceGroup
+        label="Measures"
+        options={measuresOptions}
+        value={draft.measures}
+        onChange={(value) => edit('measures', value)}
+        testIDPrefix={id('measures')}
+      />
       <View style={styles.group}>
-        <ChoiceGroup label="Unit" options={unitOptions} value={draft.unit} onChange={(value) => edit('unit', value)} testIDPrefix={id('unit')} />
+        <ChoiceGroup
+          label="Unit"
+          options={unitOptions}
+          value={draft.unit}
+          onChange={(value) => edit('unit', value)}
+          testIDPrefix={id('unit')}
+        />
         {shown.unit ? (
           <AppText variant="caption" tone="alarm" testID={`${id('unit')}-error`}>{`▲ ${shown.unit}`}</AppText>
         ) : null}
       </View>
       {draft.measures === 'static-pressure' ? (
-        <ChoiceGroup label="Reference" options={referenceOptions} value={draft.pressureReference} onChange={(value) => edit('pressureReference', value)} testIDPrefix={id('pressureReference')} />
+        <ChoiceGroup
+          label="Reference"
+          options={referenceOptions}
+          value={draft.pressureReference}
+          onChange={(value) => edit('pressureReference', value)}
+          testIDPrefix={id('pressureReference')}
+        />
       ) : null}
       <FieldRow>
-        <NumberField label={`Lower range value (${unitLabel[draft.unit]})`} value={draft.lowerRange} onChangeText={(text) => edit('lowerRange', text)} error={shown.lowerRange} testID={id('lowerRange')} />
-        <NumberField label={`Upper range value (${unitLabel[draft.unit]})`} value={draft.upperRange} onChangeText={(text) => edit('upperRange', text)} error={shown.upperRange} testID={id('upperRange')} />
+        <NumberField
+          label={`Lower range value (${unitLabel[draft.unit]})`}
+          value={draft.lowerRange}
+          onChangeText={(text) => edit('lowerRange', text)}
+          error={shown.lowerRange}
+          testID={id('lowerRange')}
+        />
+        <NumberField
+          label={`Upper range value (${unitLabel[draft.unit]})`}
+          value={draft.upperRange}
+          onChangeText={(text) => edit('upperRange', text)}
+          error={shown.upperRange}
+          testID={id('upperRange')}
+        />
       </FieldRow>
       {draft.measures === 'differential-pressure' ? (
         <View style={styles.group}>
-          <ChoiceGroup label="Stacked pair" options={stackOptions} value={draft.stackRole} onChange={(value) => edit('stackRole', value)} testIDPrefix={id('stackRole')} />
+          <ChoiceGroup
+            label="Stacked pair"
+            options={stackOptions}
+            value={draft.stackRole}
+            onChange={(value) => edit('stackRole', value)}
+            testIDPrefix={id('stackRole')}
+          />
           {shown.stackRole ? (
-            <AppText variant="caption" tone="alarm" testID={`${id('stackRole')}-error`}>{`▲ ${shown.stackRole}`}</AppText>
+            <AppText
+              variant="caption"
+              tone="alarm"
+              testID={`${id('stackRole')}-error`}
+            >{`▲ ${shown.stackRole}`}</AppText>
           ) : null}
         </View>
       ) : null}
@@ -217,7 +270,13 @@ export function TransmitterForm({ meterRun, existing, us, onDone }: TransmitterF
         </View>
       </FieldRow>
       <View style={styles.actions}>
-        <Button label="Add transmitter" variant="primary" onPress={submit} busy={create.isPending} testID={`${prefix}-submit`} />
+        <Button
+          label="Add transmitter"
+          variant="primary"
+          onPress={submit}
+          busy={create.isPending}
+          testID={`${prefix}-submit`}
+        />
       </View>
     </View>
   );

@@ -15,7 +15,14 @@ import { useUpdateTransmitter, type Transmitter } from '@/hooks/api/transmitters
 import { FieldRow } from './FieldRow';
 import { FormErrorSummary } from './FormErrorSummary';
 import { transmitterSchema } from '@/shared/schemas/setup';
-import { fieldErrorFromServer, fieldErrorsFromZod, numberText, optionalText, parseNumberText, type FieldErrors } from './formFields';
+import {
+  fieldErrorFromServer,
+  fieldErrorsFromZod,
+  numberText,
+  optionalText,
+  parseNumberText,
+  type FieldErrors,
+} from './formFields';
 import { NumberField } from './NumberField';
 import { measuresLabel, rangeLabel, unitLabel, type TransmitterUnitCode } from './transmitterUnits';
 
@@ -29,11 +36,16 @@ function calibrationState(due: string | null, nowMs: number): { priority: 'mediu
   if (Number.isNaN(dueMs)) return null;
   const days = Math.floor((dueMs - nowMs) / millisecondsPerDay);
   if (days < 0) return { priority: 'medium', label: `Calibration overdue since ${due}` };
-  if (days <= dueSoonDays) return { priority: 'low', label: `Calibration due ${due} (in ${days} day${days === 1 ? '' : 's'})` };
+  if (days <= dueSoonDays)
+    return { priority: 'low', label: `Calibration due ${due} (in ${days} day${days === 1 ? '' : 's'})` };
   return null;
 }
 
-const stackWords = { single: '', low: ' · LOW range of the stacked pair', high: ' · HIGH range of the stacked pair' } as const;
+const stackWords = {
+  single: '',
+  low: ' · LOW range of the stacked pair',
+  high: ' · HIGH range of the stacked pair',
+} as const;
 
 export function TransmitterRow({ transmitter }: { transmitter: Transmitter }) {
   const update = useUpdateTransmitter();
@@ -65,7 +77,11 @@ export function TransmitterRow({ transmitter }: { transmitter: Transmitter }) {
       calibrationDue: optionalText(due) ?? null,
     };
     // The whole transmitter as it would be after the change, checked as the server checks it.
-    const parsed = transmitterSchema.safeParse({ ...transmitter, ...change, calibrationDue: change.calibrationDue ?? undefined });
+    const parsed = transmitterSchema.safeParse({
+      ...transmitter,
+      ...change,
+      calibrationDue: change.calibrationDue ?? undefined,
+    });
     const found = parsed.success ? {} : fieldErrorsFromZod(parsed.error);
     setErrors(found);
     if (Object.keys(found).length) return;
@@ -79,7 +95,10 @@ export function TransmitterRow({ transmitter }: { transmitter: Transmitter }) {
     <View style={styles.row} testID={testID}>
       <View style={styles.title}>
         <AppText variant="bodyStrong">{transmitter.tag}</AppText>
-        <AppText tone="muted" style={styles.what}>{`${measuresLabel[transmitter.measures]}${stackWords[transmitter.stackRole]}`}</AppText>
+        <AppText
+          tone="muted"
+          style={styles.what}
+        >{`${measuresLabel[transmitter.measures]}${stackWords[transmitter.stackRole]}`}</AppText>
       </View>
       <AppText variant="caption" tabular testID={`${testID}-range`}>
         {`${rangeLabel(transmitter.lowerRange, transmitter.upperRange, transmitter.unit)}${
@@ -91,22 +110,60 @@ export function TransmitterRow({ transmitter }: { transmitter: Transmitter }) {
         <View style={styles.editor}>
           <FormErrorSummary
             errors={shown}
-            labels={{ lowerRange: 'Lower range value', upperRange: 'Upper range value', accuracyPercentOfSpan: 'Accuracy', calibrationDue: 'Calibration due' }}
+            labels={{
+              lowerRange: 'Lower range value',
+              upperRange: 'Upper range value',
+              accuracyPercentOfSpan: 'Accuracy',
+              calibrationDue: 'Calibration due',
+            }}
             general={update.error && !serverErrors ? update.error.message : null}
           />
           <FieldRow>
-            <NumberField label={`Lower range value (${unit})`} value={lower} onChangeText={setLower} error={shown.lowerRange} testID={`${testID}-lowerRange`} />
-            <NumberField label={`Upper range value (${unit})`} value={upper} onChangeText={setUpper} error={shown.upperRange} testID={`${testID}-upperRange`} />
-            <NumberField label="Accuracy (% of span)" value={accuracy} onChangeText={setAccuracy} error={shown.accuracyPercentOfSpan} testID={`${testID}-accuracy`} />
+            <NumberField
+              label={`Lower range value (${unit})`}
+              value={lower}
+              onChangeText={setLower}
+              error={shown.lowerRange}
+              testID={`${testID}-lowerRange`}
+            />
+            <NumberField
+              label={`Upper range value (${unit})`}
+              value={upper}
+              onChangeText={setUpper}
+              error={shown.upperRange}
+              testID={`${testID}-upperRange`}
+            />
+            <NumberField
+              label="Accuracy (% of span)"
+              value={accuracy}
+              onChangeText={setAccuracy}
+              error={shown.accuracyPercentOfSpan}
+              testID={`${testID}-accuracy`}
+            />
             <View style={styles.field}>
-              <TextField label="Calibration due" value={due} onChangeText={setDue} error={shown.calibrationDue} hint="YYYY-MM-DD; empty to clear" testID={`${testID}-calibrationDue`} />
+              <TextField
+                label="Calibration due"
+                value={due}
+                onChangeText={setDue}
+                error={shown.calibrationDue}
+                hint="YYYY-MM-DD; empty to clear"
+                testID={`${testID}-calibrationDue`}
+              />
             </View>
           </FieldRow>
           <AppText variant="caption" tone="muted">
-            Change the range here once the transmitter itself has been re-ranged in the field: the range decides the share of span, low-in-range flags, stacked-pair switching and the uncertainty.
+            Change the range here once the transmitter itself has been re-ranged in the field: the range decides the
+            share of span, low-in-range flags, stacked-pair switching and the uncertainty.
           </AppText>
           <View style={styles.actions}>
-            <Button label="Save" size="compact" variant="primary" busy={update.isPending} onPress={save} testID={`${testID}-save`} />
+            <Button
+              label="Save"
+              size="compact"
+              variant="primary"
+              busy={update.isPending}
+              onPress={save}
+              testID={`${testID}-save`}
+            />
             <Button label="Cancel" size="compact" variant="quiet" onPress={() => setEditing(false)} />
           </View>
         </View>

@@ -3,7 +3,14 @@
  * becomes the element of a calculation case (shared/schemas/flow-case.ts elementSpecSchema,
  * diameters in metres), which the shared schema then checks.
  */
-import type { ElementKind, ElementSpec, MaterialName, NozzleType, OrificeTaps, VenturiType } from '@/shared/flow/flow-types';
+import type {
+  ElementKind,
+  ElementSpec,
+  MaterialName,
+  NozzleType,
+  OrificeTaps,
+  VenturiType,
+} from '@/shared/flow/flow-types';
 import { numberText, parseNumberText } from './formFields';
 import { fromSI, lengthFromMetres, lengthToMetres, optionalToSI, type LengthUnit } from './unitChoices';
 
@@ -47,7 +54,10 @@ export const emptyElementDraft: ElementDraft = {
  * @returns the points, with NaN where a line does not hold two numbers (the schema names it)
  */
 export function parseCalibration(text: string): { reynoldsNumber: number; dischargeCoefficient: number }[] | undefined {
-  const lines = text.split(/\r?\n/).map((line) => line.trim()).filter(Boolean);
+  const lines = text
+    .split(/\r?\n/)
+    .map((line) => line.trim())
+    .filter(Boolean);
   if (lines.length === 0) return undefined;
   return lines.map((line) => {
     const [re, c, extra] = line.split(/[\s,;]+/);
@@ -55,7 +65,8 @@ export function parseCalibration(text: string): { reynoldsNumber: number; discha
     const dischargeCoefficient = parseNumberText(c ?? '');
     return {
       reynoldsNumber: extra === undefined && reynoldsNumber !== undefined ? reynoldsNumber : Number.NaN,
-      dischargeCoefficient: extra === undefined && dischargeCoefficient !== undefined ? dischargeCoefficient : Number.NaN,
+      dischargeCoefficient:
+        extra === undefined && dischargeCoefficient !== undefined ? dischargeCoefficient : Number.NaN,
     };
   });
 }
@@ -89,7 +100,8 @@ export function elementFromDraft(draft: ElementDraft): Partial<ElementSpec> {
  * @returns the form's draft of it
  */
 export function draftFromElement(element: ElementSpec, lengthUnit: LengthUnit): ElementDraft {
-  const length = (metres: number | undefined) => (metres === undefined ? '' : numberText(lengthFromMetres(metres, lengthUnit)));
+  const length = (metres: number | undefined) =>
+    metres === undefined ? '' : numberText(lengthFromMetres(metres, lengthUnit));
   return {
     ...emptyElementDraft,
     kind: element.kind,
@@ -101,18 +113,25 @@ export function draftFromElement(element: ElementSpec, lengthUnit: LengthUnit): 
     boreDiameter: length(element.boreDiameterM),
     coneDiameter: length(element.coneDiameterM),
     dischargeCoefficient: numberText(element.dischargeCoefficient),
-    calibration: (element.calibration ?? []).map((point) => `${point.reynoldsNumber}, ${point.dischargeCoefficient}`).join('\n'),
+    calibration: (element.calibration ?? [])
+      .map((point) => `${point.reynoldsNumber}, ${point.dischargeCoefficient}`)
+      .join('\n'),
     pipeMaterial: element.pipeMaterial ?? '',
     elementMaterial: element.elementMaterial ?? '',
-    referenceTemperatureC: element.referenceTemperatureK === undefined ? '' : numberText(fromSI(element.referenceTemperatureK, 'degC')),
+    referenceTemperatureC:
+      element.referenceTemperatureK === undefined ? '' : numberText(fromSI(element.referenceTemperatureK, 'degC')),
   };
 }
 
 /** @returns a line such as "orifice, flange taps, D 102.3 mm, d 51.1 mm" for lists */
 export function describeElement(element: ElementSpec | undefined, lengthUnit: LengthUnit): string {
   if (!element) return 'no element';
-  const length = (metres: number | undefined) => (metres === undefined ? '?' : `${numberText(Number(lengthFromMetres(metres, lengthUnit).toPrecision(5)))} ${lengthUnit}`);
+  const length = (metres: number | undefined) =>
+    metres === undefined
+      ? '?'
+      : `${numberText(Number(lengthFromMetres(metres, lengthUnit).toPrecision(5)))} ${lengthUnit}`;
   const subtype = element.taps ? `${element.taps} taps` : (element.venturiType ?? element.nozzleType);
-  const inner = element.kind === 'cone' ? `cone ${length(element.coneDiameterM)}` : `d ${length(element.boreDiameterM)}`;
+  const inner =
+    element.kind === 'cone' ? `cone ${length(element.coneDiameterM)}` : `d ${length(element.boreDiameterM)}`;
   return [element.kind, subtype, `D ${length(element.pipeDiameterM)}`, inner].filter(Boolean).join(', ');
 }

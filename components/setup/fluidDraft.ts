@@ -54,7 +54,9 @@ export const commonComponents: readonly DetailComponent[] = [
   'carbon-dioxide',
   'hydrogen-sulfide',
 ];
-export const otherComponents: readonly DetailComponent[] = DETAIL_COMPONENTS.filter((name) => !commonComponents.includes(name));
+export const otherComponents: readonly DetailComponent[] = DETAIL_COMPONENTS.filter(
+  (name) => !commonComponents.includes(name),
+);
 
 /** 1 mol % = 0.01 mole fraction; 1 g/mol = 1e-3 kg/mol (the SI prefix milli). */
 const fractionPerPercent = 0.01;
@@ -123,7 +125,9 @@ export function draftFromFluid(fluid: FluidSpec): FluidDraft {
     viscosityPaS: numberText(fluid.viscosityPaS),
   };
   if (fluid.kind === 'natural-gas') {
-    draft.composition = Object.fromEntries(Object.entries(fluid.composition).map(([name, fraction]) => [name, numberText(fraction)]));
+    draft.composition = Object.fromEntries(
+      Object.entries(fluid.composition).map(([name, fraction]) => [name, numberText(fraction)]),
+    );
   } else if (fluid.kind === 'ideal-gas') {
     draft.molarMassGPerMol = numberText(fluid.molarMassKgPerMol / kilogramsPerGram);
     draft.compressibility = numberText(fluid.compressibility);
@@ -146,8 +150,10 @@ const kindWords: Record<FluidKind, string> = {
 /** @returns a line such as "natural gas, 10 components" for lists */
 export function describeFluid(fluid: FluidSpec | undefined): string {
   if (!fluid) return 'no fluid';
-  if (fluid.kind === 'natural-gas') return `${kindWords[fluid.kind]}, ${Object.keys(fluid.composition).length} components`;
-  if (fluid.kind === 'ideal-gas') return `${kindWords[fluid.kind]}, M ${numberText(fluid.molarMassKgPerMol / kilogramsPerGram)} g/mol`;
+  if (fluid.kind === 'natural-gas')
+    return `${kindWords[fluid.kind]}, ${Object.keys(fluid.composition).length} components`;
+  if (fluid.kind === 'ideal-gas')
+    return `${kindWords[fluid.kind]}, M ${numberText(fluid.molarMassKgPerMol / kilogramsPerGram)} g/mol`;
   if (fluid.kind === 'liquid') return `${kindWords[fluid.kind]}, ${numberText(fluid.densityKgPerM3)} kg/m³`;
   return kindWords[fluid.kind];
 }

@@ -34,5 +34,7 @@ export function formatOnSiteClock(iso: string, zone: string): string {
  */
 export function siteClockNow(zone: string, nowMs: number): { date: string; time: string } {
   const moment = DateTime.fromMillis(nowMs, { zone });
-  return moment.isValid ? { date: moment.toFormat('yyyy-LL-dd'), time: moment.toFormat('HH:mm') } : { date: '', time: '' };
+  return moment.isValid
+    ? { date: moment.toFormat('yyyy-LL-dd'), time: moment.toFormat('HH:mm') }
+    : { date: '', time: '' };
 }

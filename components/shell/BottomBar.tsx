@@ -21,13 +21,27 @@ interface BottomBarProps {
   onNavigate: () => void;
 }
 
-export function BottomBar({ primary, hasMore, moreOpen, moreCurrent, currentKey, onToggleMore, onNavigate }: BottomBarProps) {
+export function BottomBar({
+  primary,
+  hasMore,
+  moreOpen,
+  moreCurrent,
+  currentKey,
+  onToggleMore,
+  onNavigate,
+}: BottomBarProps) {
   const insets = useSafeAreaInsets();
   const moreMarked = moreOpen || moreCurrent;
   return (
     <View style={[styles.bar, { paddingBottom: insets.bottom }]} role="navigation" aria-label="Areas">
       {primary.map((area) => (
-        <NavItem key={area.key} area={area} current={!moreOpen && area.key === currentKey} placement="bar" onNavigate={onNavigate} />
+        <NavItem
+          key={area.key}
+          area={area}
+          current={!moreOpen && area.key === currentKey}
+          placement="bar"
+          onNavigate={onNavigate}
+        />
       ))}
       {hasMore ? (
         <Pressable
@@ -39,7 +53,11 @@ export function BottomBar({ primary, hasMore, moreOpen, moreCurrent, currentKey,
           style={[styles.more, moreMarked && styles.moreMarked]}
         >
           <View style={[styles.marker, moreMarked && styles.markerOn]} />
-          <AppText variant={moreMarked ? 'bodyStrong' : 'body'} tone={moreMarked ? 'onDark' : 'onDarkMuted'} style={styles.moreText}>
+          <AppText
+            variant={moreMarked ? 'bodyStrong' : 'body'}
+            tone={moreMarked ? 'onDark' : 'onDarkMuted'}
+            style={styles.moreText}
+          >
             {moreOpen ? 'Close' : 'More'}
           </AppText>
         </Pressable>
@@ -55,7 +73,13 @@ const styles = StyleSheet.create({
     borderTopWidth: 1,
     borderTopColor: colors.navSelected,
   },
-  more: { flex: 1, minHeight: layout.bottomBarHeight, alignItems: 'center', justifyContent: 'center', paddingHorizontal: space.xs },
+  more: {
+    flex: 1,
+    minHeight: layout.bottomBarHeight,
+    alignItems: 'center',
+    justifyContent: 'center',
+    paddingHorizontal: space.xs,
+  },
   moreMarked: { backgroundColor: colors.navSelected },
   moreText: { fontSize: 13, textAlign: 'center' },
   marker: { position: 'absolute', top: 0, left: space.md, right: space.md, height: 3 },

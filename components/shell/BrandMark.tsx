@@ -24,11 +24,28 @@ export function BrandMark({ onDark, size = 'regular' }: BrandMarkProps) {
       <View style={{ width: mark.size * k, height: mark.size * k }}>
         <View style={[styles.bar, { backgroundColor: ink, top: 2 * k, left: 0, right: 0, height: mark.wall * k }]} />
         <View style={[styles.bar, { backgroundColor: ink, bottom: 2 * k, left: 0, right: 0, height: mark.wall * k }]} />
-        <View style={[styles.bar, { backgroundColor: ink, top: 2 * k, left: plateLeft, width: mark.plate * k, height: (mark.boreTop - 2) * k }]} />
         <View
           style={[
             styles.bar,
-            { backgroundColor: ink, top: mark.boreBottom * k, left: plateLeft, width: mark.plate * k, height: (mark.size - 2 - mark.boreBottom) * k },
+            {
+              backgroundColor: ink,
+              top: 2 * k,
+              left: plateLeft,
+              width: mark.plate * k,
+              height: (mark.boreTop - 2) * k,
+            },
+          ]}
+        />
+        <View
+          style={[
+            styles.bar,
+            {
+              backgroundColor: ink,
+              top: mark.boreBottom * k,
+              left: plateLeft,
+              width: mark.plate * k,
+              height: (mark.size - 2 - mark.boreBottom) * k,
+            },
           ]}
         />
       </View>

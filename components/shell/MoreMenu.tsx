@@ -39,7 +39,13 @@ export function MoreMenu({ areas, currentKey, onClose }: MoreMenuProps) {
                 {group.title.toUpperCase()}
               </AppText>
               {group.areas.map((area) => (
-                <NavItem key={area.key} area={area} current={area.key === currentKey} placement="side" onNavigate={onClose} />
+                <NavItem
+                  key={area.key}
+                  area={area}
+                  current={area.key === currentKey}
+                  placement="side"
+                  onNavigate={onClose}
+                />
               ))}
             </View>
           ))}

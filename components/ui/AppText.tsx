@@ -21,12 +21,7 @@ const toneColor: Record<TextTone, string> = {
 };
 
 export function AppText({ variant = 'body', tone = 'default', tabular, style, ...rest }: AppTextProps) {
-  return (
-    <Text
-      {...rest}
-      style={[typeScale[variant], { color: toneColor[tone] }, tabular && styles.tabular, style]}
-    />
-  );
+  return <Text {...rest} style={[typeScale[variant], { color: toneColor[tone] }, tabular && styles.tabular, style]} />;
 }
 
 const styles = StyleSheet.create({

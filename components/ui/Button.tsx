@@ -60,7 +60,9 @@ export function Button({
       ]}
     >
       <View style={styles.content}>
-        {busy ? <ActivityIndicator size="small" color={variant === 'primary' ? colors.actionText : colors.text} /> : null}
+        {busy ? (
+          <ActivityIndicator size="small" color={variant === 'primary' ? colors.actionText : colors.text} />
+        ) : null}
         <AppText
           variant={size === 'compact' ? 'label' : 'bodyStrong'}
           tone={textTone}

@@ -18,7 +18,14 @@ interface ChoiceGroupProps<T extends string> {
   testIDPrefix?: string;
 }
 
-export function ChoiceGroup<T extends string>({ label, options, value, onChange, disabled, testIDPrefix }: ChoiceGroupProps<T>) {
+export function ChoiceGroup<T extends string>({
+  label,
+  options,
+  value,
+  onChange,
+  disabled,
+  testIDPrefix,
+}: ChoiceGroupProps<T>) {
   return (
     <View style={styles.group}>
       <AppText variant="label">{label}</AppText>

@@ -37,6 +37,15 @@ export function CopyButton({ text, what, testID }: CopyButtonProps) {
     }
   };
 
-  const label = state === 'copied' ? `✓ Copied` : state === 'unavailable' ? 'Cannot copy here: select the text' : `Copy ${what}`;
-  return <Button label={label} size="compact" onPress={() => void copy()} testID={testID} accessibilityLabel={`Copy ${what}`} />;
+  const label =
+    state === 'copied' ? `✓ Copied` : state === 'unavailable' ? 'Cannot copy here: select the text' : `Copy ${what}`;
+  return (
+    <Button
+      label={label}
+      size="compact"
+      onPress={() => void copy()}
+      testID={testID}
+      accessibilityLabel={`Copy ${what}`}
+    />
+  );
 }

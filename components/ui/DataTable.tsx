@@ -74,7 +74,11 @@ export function DataTable({ columns, rows, label, emptyText, testID }: DataTable
                 const content = row.cells[column.key];
                 const right = alignOf(column, index) === 'right';
                 return (
-                  <View key={column.key} role="cell" style={[styles.cell, { width: column.width }, right && styles.cellRight]}>
+                  <View
+                    key={column.key}
+                    role="cell"
+                    style={[styles.cell, { width: column.width }, right && styles.cellRight]}
+                  >
                     {typeof content === 'string' || typeof content === 'number' ? (
                       <AppText tabular style={right ? styles.right : null}>
                         {content}

@@ -45,7 +45,14 @@ export function DisableEnableActions({
       <View style={styles.editor}>
         <AppText>{question}</AppText>
         <View style={styles.actions}>
-          <Button label="Disable" size="compact" variant="primary" busy={busy} onPress={onConfirmDisable} testID={testIDs.confirm} />
+          <Button
+            label="Disable"
+            size="compact"
+            variant="primary"
+            busy={busy}
+            onPress={onConfirmDisable}
+            testID={testIDs.confirm}
+          />
           <Button label="Cancel" size="compact" variant="quiet" onPress={onCancel} />
         </View>
       </View>

@@ -18,11 +18,7 @@ interface NoticeProps {
 export function Notice({ tone = 'info', title, children, testID }: NoticeProps) {
   const alarm = tone === 'alarm';
   return (
-    <View
-      testID={testID}
-      role={alarm ? 'alert' : 'status'}
-      style={[styles.box, alarm ? styles.alarm : styles.info]}
-    >
+    <View testID={testID} role={alarm ? 'alert' : 'status'} style={[styles.box, alarm ? styles.alarm : styles.info]}>
       <AppText variant="bodyStrong" tone={alarm ? 'alarm' : 'muted'} aria-hidden style={styles.shape}>
         {alarm ? '▲' : 'i'}
       </AppText>

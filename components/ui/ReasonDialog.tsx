@@ -84,7 +84,13 @@ export function ReasonDialog({
         </AppText>
       ) : null}
       <View style={styles.actions}>
-        <Button label={confirmLabel} variant="primary" busy={busy} onPress={confirm} testID={`${testIDPrefix}-confirm`} />
+        <Button
+          label={confirmLabel}
+          variant="primary"
+          busy={busy}
+          onPress={confirm}
+          testID={`${testIDPrefix}-confirm`}
+        />
         <Button label="Cancel" variant="quiet" onPress={onCancel} testID={`${testIDPrefix}-cancel`} />
       </View>
     </View>

@@ -20,7 +20,10 @@ export function StateBadge({ priority, label, testID, variant = 'badge' }: State
   return (
     <View
       testID={testID}
-      style={[styles.row, variant === 'badge' && [styles.badge, { backgroundColor: style.surface, borderColor: style.color }]]}
+      style={[
+        styles.row,
+        variant === 'badge' && [styles.badge, { backgroundColor: style.surface, borderColor: style.color }],
+      ]}
     >
       <AppText variant="label" aria-hidden style={[styles.shape, { color: style.color }]}>
         {style.shape}

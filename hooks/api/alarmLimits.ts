@@ -38,7 +38,9 @@ const alarmLimitsSchema = z.object({
       limits: limitsSchema,
     }),
   ),
-  stored: z.array(z.looseObject({ id: id.optional(), condition: z.string(), transmitterId: id.nullable().optional() })).catch([]),
+  stored: z
+    .array(z.looseObject({ id: id.optional(), condition: z.string(), transmitterId: id.nullable().optional() }))
+    .catch([]),
 });
 export type MeterRunAlarmLimits = z.infer<typeof alarmLimitsSchema>;
 export type EffectiveAlarmLimit = MeterRunAlarmLimits['effective'][number];
@@ -52,7 +54,8 @@ export const alarmLimitKeys = {
 export function useAlarmLimits(meterRunId: string | undefined) {
   return useQuery({
     queryKey: alarmLimitKeys.meterRun(meterRunId ?? ''),
-    queryFn: ({ signal }) => apiRequest({ path: '/alarm-limits', query: { meterRunId }, schema: alarmLimitsSchema, signal }),
+    queryFn: ({ signal }) =>
+      apiRequest({ path: '/alarm-limits', query: { meterRunId }, schema: alarmLimitsSchema, signal }),
     enabled: meterRunId !== undefined,
   });
 }
@@ -69,7 +72,8 @@ export type AlarmLimitChange = {
 export function useSaveAlarmLimits() {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: (change: AlarmLimitChange) => apiRequest({ method: 'POST', path: '/alarm-limits', body: change, schema: alarmLimitsSchema }),
+    mutationFn: (change: AlarmLimitChange) =>
+      apiRequest({ method: 'POST', path: '/alarm-limits', body: change, schema: alarmLimitsSchema }),
     onSuccess: (limits) => queryClient.setQueryData(alarmLimitKeys.meterRun(limits.meterRunId), limits),
     onSettled: () => queryClient.invalidateQueries({ queryKey: alarmLimitKeys.all }),
   });
@@ -79,7 +83,8 @@ export function useSaveAlarmLimits() {
 export function useDeleteAlarmLimit() {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: (limitId: string) => apiRequest({ method: 'DELETE', path: `/alarm-limits/${encodeURIComponent(limitId)}`, schema: z.null() }),
+    mutationFn: (limitId: string) =>
+      apiRequest({ method: 'DELETE', path: `/alarm-limits/${encodeURIComponent(limitId)}`, schema: z.null() }),
     onSettled: () => queryClient.invalidateQueries({ queryKey: alarmLimitKeys.all }),
   });
 }

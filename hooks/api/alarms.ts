@@ -7,7 +7,13 @@
 import { keepPreviousData, useMutation, useQuery, useQueryClient, type QueryClient } from '@tanstack/react-query';
 import { z } from 'zod';
 
-import { ALARM_CONDITIONS, ALARM_PRIORITIES, ALARM_STATES, type AlarmPriority, type AlarmState } from '@/shared/alarms/alarm-codes';
+import {
+  ALARM_CONDITIONS,
+  ALARM_PRIORITIES,
+  ALARM_STATES,
+  type AlarmPriority,
+  type AlarmState,
+} from '@/shared/alarms/alarm-codes';
 import { apiRequest } from './client';
 
 const id = z.union([z.string(), z.number()]).transform(String);
@@ -95,7 +101,13 @@ export function useAlarms(filters: AlarmFilters) {
     queryFn: ({ signal }) =>
       apiRequest({
         path: '/alarms',
-        query: { state: stateQuery(filters.state), siteId: filters.siteId, meterRunId: filters.meterRunId, priority: filters.priority, limit: filters.limit },
+        query: {
+          state: stateQuery(filters.state),
+          siteId: filters.siteId,
+          meterRunId: filters.meterRunId,
+          priority: filters.priority,
+          limit: filters.limit,
+        },
         schema: z.array(alarmSchema),
         signal,
       }),
@@ -143,7 +155,8 @@ export function useNewestUnacknowledgedAlarm(enabled: boolean) {
 export function useAlarmEvents(alarmId: string, enabled: boolean) {
   return useQuery({
     queryKey: alarmKeys.events(alarmId),
-    queryFn: ({ signal }) => apiRequest({ path: `/alarms/${encodeURIComponent(alarmId)}/events`, schema: z.array(alarmEventSchema), signal }),
+    queryFn: ({ signal }) =>
+      apiRequest({ path: `/alarms/${encodeURIComponent(alarmId)}/events`, schema: z.array(alarmEventSchema), signal }),
     enabled,
   });
 }
@@ -193,7 +206,12 @@ export function useAlarmAction() {
   return useMutation({
     mutationFn: ({ alarmId, action }: { alarmId: string; action: AlarmAction }) => {
       const { path, body } = actionRequest(action);
-      return apiRequest({ method: 'POST', path: `/alarms/${encodeURIComponent(alarmId)}/${path}`, body, schema: alarmSchema });
+      return apiRequest({
+        method: 'POST',
+        path: `/alarms/${encodeURIComponent(alarmId)}/${path}`,
+        body,
+        schema: alarmSchema,
+      });
     },
     onSuccess: (alarm) => setAlarmInLists(queryClient, alarm),
     // A 409 means the alarm moved on (someone else acknowledged it, it returned to normal):

@@ -10,7 +10,10 @@ const auditEventSchema = z.object({
   actorEmail: z.string().nullable(),
   action: z.string(),
   entityType: z.string(),
-  entityId: z.union([z.string(), z.number()]).nullable().transform((value) => (value === null ? null : String(value))),
+  entityId: z
+    .union([z.string(), z.number()])
+    .nullable()
+    .transform((value) => (value === null ? null : String(value))),
   before: z.unknown(),
   after: z.unknown(),
 });

@@ -49,7 +49,9 @@ export function setDeviceInList(queryClient: QueryClient, device: Device): void 
     if (!list) return list;
     const index = list.findIndex((existing) => existing.id === device.id);
     if (index === -1) return [...list, device];
-    return list.map((existing) => (existing.id === device.id ? { ...device, siteCode: device.siteCode ?? existing.siteCode } : existing));
+    return list.map((existing) =>
+      existing.id === device.id ? { ...device, siteCode: device.siteCode ?? existing.siteCode } : existing,
+    );
   });
 }
 
@@ -62,7 +64,8 @@ export interface NewDevice {
 export function useCreateDevice() {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: (device: NewDevice) => apiRequest({ method: 'POST', path: '/devices', body: device, schema: createdDeviceSchema }),
+    mutationFn: (device: NewDevice) =>
+      apiRequest({ method: 'POST', path: '/devices', body: device, schema: createdDeviceSchema }),
     onSuccess: ({ password: _password, ...device }) => {
       // The password never goes into the cache: it is shown by the form that asked, then gone.
       setDeviceInList(queryClient, device);
@@ -76,7 +79,12 @@ export function useSetDeviceDisabled() {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: ({ id: deviceId, disabled }: { id: string; disabled: boolean }) =>
-      apiRequest({ method: 'PATCH', path: `/devices/${encodeURIComponent(deviceId)}`, body: { disabled }, schema: deviceSchema }),
+      apiRequest({
+        method: 'PATCH',
+        path: `/devices/${encodeURIComponent(deviceId)}`,
+        body: { disabled },
+        schema: deviceSchema,
+      }),
     onSuccess: (device) => {
       setDeviceInList(queryClient, device);
       void queryClient.invalidateQueries({ queryKey: deviceKeys.all });

@@ -18,7 +18,10 @@ export type ImportKind = (typeof importKinds)[number];
 export const importSchema = z.object({
   id: z.union([z.string(), z.number()]).transform(String),
   kind: z.enum(importKinds).catch('readings'),
-  filename: z.string().nullable().transform((name) => name ?? ''),
+  filename: z
+    .string()
+    .nullable()
+    .transform((name) => name ?? ''),
   status: z.enum(['running', 'done', 'failed']),
   bytesTotal: z.number(),
   bytesRead: z.number(),
@@ -65,7 +68,11 @@ export function useImport(importId: string | null) {
     queryKey: importKeys.detail(importId ?? ''),
     enabled: importId !== null,
     queryFn: async ({ signal }) => {
-      const found = await apiRequest({ path: `/imports/${encodeURIComponent(importId ?? '')}`, schema: importSchema, signal });
+      const found = await apiRequest({
+        path: `/imports/${encodeURIComponent(importId ?? '')}`,
+        schema: importSchema,
+        signal,
+      });
       if (found.status !== 'running') void queryClient.invalidateQueries({ queryKey: importKeys.list() });
       return found;
     },
@@ -80,7 +87,9 @@ export interface ImportFile {
 }
 
 async function errorFromUpload(response: Response): Promise<ApiError> {
-  const body = (await response.json().catch(() => null)) as { error?: { code?: string; message?: string; field?: string } } | null;
+  const body = (await response.json().catch(() => null)) as {
+    error?: { code?: string; message?: string; field?: string };
+  } | null;
   const error = body?.error;
   return new ApiError(
     response.status,
@@ -104,7 +113,9 @@ export function useStartImport() {
       try {
         response = await fetch(`${config.apiBaseUrl}/imports`, {
           method: 'POST',
-          headers: token ? { Authorization: `Bearer ${token}`, Accept: 'application/json' } : { Accept: 'application/json' },
+          headers: token
+            ? { Authorization: `Bearer ${token}`, Accept: 'application/json' }
+            : { Accept: 'application/json' },
           body: form,
         });
       } catch {
@@ -115,7 +126,8 @@ export function useStartImport() {
         throw await errorFromUpload(response);
       }
       const parsed = startedSchema.safeParse(await response.json().catch(() => null));
-      if (!parsed.success) throw new ApiError(response.status, 'unexpected_response', 'The server did not say which import it started.');
+      if (!parsed.success)
+        throw new ApiError(response.status, 'unexpected_response', 'The server did not say which import it started.');
       return parsed.data;
     },
     onSuccess: () => {

@@ -107,7 +107,9 @@ export class ServerSentEventParser {
   private line(line: string): ServerSentEvent | null {
     if (line === '') {
       // A blank line dispatches the event gathered so far; an event without data is dropped.
-      const event = this.dataLines.length ? { event: this.eventName || 'message', data: this.dataLines.join('\n') } : null;
+      const event = this.dataLines.length
+        ? { event: this.eventName || 'message', data: this.dataLines.join('\n') }
+        : null;
       this.eventName = '';
       this.dataLines = [];
       return event;

@@ -8,7 +8,10 @@ const mailSchema = z.object({
   id: z.union([z.string(), z.number()]).transform(String),
   to: z.union([z.string(), z.array(z.string())]).transform((to) => (Array.isArray(to) ? to.join(', ') : to)),
   subject: z.string(),
-  text: z.string().nullable().transform((text) => text ?? ''),
+  text: z
+    .string()
+    .nullable()
+    .transform((text) => text ?? ''),
   sentAt: z.string(),
 });
 export type Mail = z.infer<typeof mailSchema>;

@@ -55,7 +55,11 @@ const transmitterHealthSchema = z.object({
 });
 export type TransmitterHealth = z.infer<typeof transmitterHealthSchema>;
 
-const monthShareSchema = z.object({ flowTimeShare: z.number(), massShare: z.number(), standardVolumeShare: z.number() });
+const monthShareSchema = z.object({
+  flowTimeShare: z.number(),
+  massShare: z.number(),
+  standardVolumeShare: z.number(),
+});
 
 const monthSchema = z.object({
   /** Contract month, "YYYY-MM". */
@@ -68,7 +72,14 @@ const monthSchema = z.object({
 });
 export type MonthHealth = z.infer<typeof monthSchema>;
 
-export const recommendationKinds = ['none', 're-range', 'add-low-range-transmitter', 'resize-low-range-transmitter', 'change-element', 'unavailable'] as const;
+export const recommendationKinds = [
+  'none',
+  're-range',
+  'add-low-range-transmitter',
+  'resize-low-range-transmitter',
+  'change-element',
+  'unavailable',
+] as const;
 
 const recommendationSchema = z.object({
   kind: z.union([z.enum(recommendationKinds), z.string()]),
@@ -77,7 +88,9 @@ const recommendationSchema = z.object({
   rangeCheck: z
     .looseObject({
       rangeCovered: z.boolean(),
-      flows: z.array(z.looseObject({ label: z.string(), massFlowKgPerS: z.number(), differentialPressurePa: z.number() })),
+      flows: z.array(
+        z.looseObject({ label: z.string(), massFlowKgPerS: z.number(), differentialPressurePa: z.number() }),
+      ),
       warnings: z.array(z.looseObject({ code: z.string(), message: z.string() })).catch([]),
     })
     .optional(),

@@ -48,7 +48,8 @@ export function useSites() {
 export function useSite(siteId: string | undefined) {
   return useQuery({
     queryKey: siteKeys.detail(siteId ?? ''),
-    queryFn: ({ signal }) => apiRequest({ path: `/sites/${encodeURIComponent(siteId ?? '')}`, schema: siteResponseSchema, signal }),
+    queryFn: ({ signal }) =>
+      apiRequest({ path: `/sites/${encodeURIComponent(siteId ?? '')}`, schema: siteResponseSchema, signal }),
     enabled: siteId !== undefined,
   });
 }
@@ -75,7 +76,8 @@ export type SiteChange = Partial<SiteInput>;
 export function useCreateSite() {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: (site: NewSite) => apiRequest({ method: 'POST', path: '/sites', body: site, schema: siteResponseSchema }),
+    mutationFn: (site: NewSite) =>
+      apiRequest({ method: 'POST', path: '/sites', body: site, schema: siteResponseSchema }),
     onSuccess: (site) => refreshAfterSiteChange(queryClient, site),
   });
 }
@@ -85,7 +87,12 @@ export function useUpdateSite() {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: ({ id: siteId, change }: { id: string; change: SiteChange }) =>
-      apiRequest({ method: 'PATCH', path: `/sites/${encodeURIComponent(siteId)}`, body: change, schema: siteResponseSchema }),
+      apiRequest({
+        method: 'PATCH',
+        path: `/sites/${encodeURIComponent(siteId)}`,
+        body: change,
+        schema: siteResponseSchema,
+      }),
     onSuccess: (site) => refreshAfterSiteChange(queryClient, site),
   });
 }

@@ -38,7 +38,10 @@ export const hourlyRecordSchema = z.object({
   averageTemperatureK: z.number().nullable(),
   integralValue: z.number().nullable(),
   configVersionId: z.string().nullable(),
-  dpBands: z.record(z.string(), z.object({ timeS: z.number(), massKg: z.number() })).nullable().catch(null),
+  dpBands: z
+    .record(z.string(), z.object({ timeS: z.number(), massKg: z.number() }))
+    .nullable()
+    .catch(null),
   activeTransmitterTimeS: z.record(z.string(), z.number()).nullable().catch(null),
   computedAt: z.string(),
 });
@@ -48,7 +51,8 @@ export const totalKeys = {
   all: ['totals'] as const,
   totals: (meterRunId: string, interval: TotalInterval, from: string, to: string) =>
     [...totalKeys.all, meterRunId, interval, { from, to }] as const,
-  hourlyRecords: (meterRunId: string, from: string, to: string) => [...totalKeys.all, meterRunId, 'hourly-records', { from, to }] as const,
+  hourlyRecords: (meterRunId: string, from: string, to: string) =>
+    [...totalKeys.all, meterRunId, 'hourly-records', { from, to }] as const,
 };
 
 /**

@@ -50,7 +50,8 @@ export const defaultTrendBuckets = 600;
 
 export const trendKeys = {
   all: ['trends'] as const,
-  window: (meterRunId: string, from: string, to: string, buckets: number) => [...trendKeys.all, meterRunId, { from, to, buckets }] as const,
+  window: (meterRunId: string, from: string, to: string, buckets: number) =>
+    [...trendKeys.all, meterRunId, { from, to, buckets }] as const,
 };
 
 /**

@@ -8,7 +8,11 @@ import type { QueryClient } from '@tanstack/react-query';
  * @param key the list's query key
  * @param item the item as the server returned it
  */
-export function upsertInList<T extends { id: string }>(queryClient: QueryClient, key: readonly unknown[], item: T): void {
+export function upsertInList<T extends { id: string }>(
+  queryClient: QueryClient,
+  key: readonly unknown[],
+  item: T,
+): void {
   queryClient.setQueryData<T[]>(key, (list) => {
     if (!list) return list;
     return list.some((existing) => existing.id === item.id)

@@ -19,10 +19,12 @@ beforeAll(async () => {
 afterAll(() => t.close());
 
 const alarms = async (meterRunId: string) =>
-  (await t.services.pool.query(
-    `SELECT id::text, condition, transmitter_id::text, state, onset_at, raised_at, cleared_at, message, notify_status FROM alarms WHERE meter_run_id = $1 ORDER BY raised_at, id`,
-    [meterRunId],
-  )).rows;
+  (
+    await t.services.pool.query(
+      `SELECT id::text, condition, transmitter_id::text, state, onset_at, raised_at, cleared_at, message, notify_status FROM alarms WHERE meter_run_id = $1 ORDER BY raised_at, id`,
+      [meterRunId],
+    )
+  ).rows;
 const iso = (d: Date | null) => (d ? d.toISOString() : null);
 
 describe('AlarmEvaluator with readings through the pipeline', () => {
@@ -65,8 +67,22 @@ describe('AlarmEvaluator with readings through the pipeline', () => {
     // DP stuck at exactly 20.0000 kPa from 06:00 for an hour, then nothing from the DP for 30 min while P and T go on.
     await f.writeMinutes(T0, repeat(60, 0.4), { dpValue: () => 20 });
     const pAndT = Array.from({ length: 30 }, (_, i) => [
-      { meterRunId: f.meterRunId, timeZone: 'UTC', timeMs: T0 + (60 + i) * MIN, transmitterId: f.pt.id, value: 2 + (i % 3) * 1e-4, quality: 0 },
-      { meterRunId: f.meterRunId, timeZone: 'UTC', timeMs: T0 + (60 + i) * MIN, transmitterId: f.tt.id, value: 300 + (i % 2) * 0.01, quality: 0 },
+      {
+        meterRunId: f.meterRunId,
+        timeZone: 'UTC',
+        timeMs: T0 + (60 + i) * MIN,
+        transmitterId: f.pt.id,
+        value: 2 + (i % 3) * 1e-4,
+        quality: 0,
+      },
+      {
+        meterRunId: f.meterRunId,
+        timeZone: 'UTC',
+        timeMs: T0 + (60 + i) * MIN,
+        transmitterId: f.tt.id,
+        value: 300 + (i % 2) * 0.01,
+        quality: 0,
+      },
     ]).flat();
     await t.services.writer.write(pAndT, 'csv');
     await f.writeMinutes(T0 + 90 * MIN, repeat(5, 0.4));

@@ -20,7 +20,14 @@ import { EventEmitter } from 'node:events';
 import type { Pool, PoolClient } from 'pg';
 import { DateTime } from 'luxon';
 import { toSI } from '../../shared/units';
-import { initialAlarmWalkState, walkMeterRunAlarms, type AlarmWalkState, type WalkHour, type WalkReading, type WalkTransmitter } from '../../shared/alarms/meter-run-alarm-walk';
+import {
+  initialAlarmWalkState,
+  walkMeterRunAlarms,
+  type AlarmWalkState,
+  type WalkHour,
+  type WalkReading,
+  type WalkTransmitter,
+} from '../../shared/alarms/meter-run-alarm-walk';
 import { alarmMessage } from '../../shared/alarms/alarm-message';
 import type { Quality } from '../../shared/history/types';
 import { loadMeterRunContext, type MeterRunContext } from '../history/load-context';
@@ -55,7 +62,8 @@ export class AlarmEvaluator extends EventEmitter {
 
   /** The history worker recomputed these meter runs: judge their new readings (in the background). */
   meterRunsChanged(meterRunIds: string[]) {
-    for (const id of meterRunIds) void this.evaluate(id).catch((err) => console.error(`[alarms] meter run ${id}:`, err));
+    for (const id of meterRunIds)
+      void this.evaluate(id).catch((err) => console.error(`[alarms] meter run ${id}:`, err));
   }
 
   /**
@@ -68,7 +76,7 @@ export class AlarmEvaluator extends EventEmitter {
     const current = this.running.get(meterRunId);
     if (current) {
       this.again.add(meterRunId);
-      return current.then(() => (this.running.get(meterRunId) ?? Promise.resolve()));
+      return current.then(() => this.running.get(meterRunId) ?? Promise.resolve());
     }
     const run = (async () => {
       try {
@@ -103,14 +111,22 @@ export class AlarmEvaluator extends EventEmitter {
   private async evaluateOnce(meterRunId: string, clock: boolean) {
     const ctx = await loadMeterRunContext(this.pool, meterRunId);
     if (!ctx) return;
-    const tag = (await this.pool.query('SELECT tag FROM meter_runs WHERE id = $1', [meterRunId])).rows[0]?.tag as string;
-    const tags = new Map((await this.pool.query('SELECT id::text, tag FROM transmitters WHERE meter_run_id = $1', [meterRunId])).rows.map((r) => [r.id as string, r.tag as string]));
+    const tag = (await this.pool.query('SELECT tag FROM meter_runs WHERE id = $1', [meterRunId])).rows[0]
+      ?.tag as string;
+    const tags = new Map(
+      (await this.pool.query('SELECT id::text, tag FROM transmitters WHERE meter_run_id = $1', [meterRunId])).rows.map(
+        (r) => [r.id as string, r.tag as string],
+      ),
+    );
     const transmitters = walkTransmitters(ctx, tags);
     const limits = limitsResolver(await loadStoredLimits(this.pool, meterRunId));
     const latest: Record<string, number> = {};
     let first = Infinity;
     for (const t of transmitters) {
-      const { rows } = await this.pool.query('SELECT min(time) AS first, max(time) AS last FROM readings WHERE transmitter_id = $1', [t.id]);
+      const { rows } = await this.pool.query(
+        'SELECT min(time) AS first, max(time) AS last FROM readings WHERE transmitter_id = $1',
+        [t.id],
+      );
       if (rows[0].last) latest[t.id] = (rows[0].last as Date).getTime();
       if (rows[0].first) first = Math.min(first, (rows[0].first as Date).getTime());
     }
@@ -134,7 +150,9 @@ export class AlarmEvaluator extends EventEmitter {
         const hasReadings = Number.isFinite(horizon) && horizon > watermark;
         // Skip a stretch without readings in one step (sparse or back-filled data).
         const next = hasReadings ? await this.nextReadingMs(client, transmitters, watermark) : null;
-        const chunkEnd = hasReadings ? Math.min(horizon, Math.max(watermark, (next ?? horizon) - 1) + CHUNK_MS) : watermark;
+        const chunkEnd = hasReadings
+          ? Math.min(horizon, Math.max(watermark, (next ?? horizon) - 1) + CHUNK_MS)
+          : watermark;
         const lastChunk = !hasReadings || chunkEnd >= horizon;
         const readings = hasReadings ? await this.loadReadings(client, ctx, watermark - lookbackMs, chunkEnd) : [];
         const hours = await this.loadHours(client, meterRunId, state.recordsToMs, chunkEnd);
@@ -148,18 +166,27 @@ export class AlarmEvaluator extends EventEmitter {
           clockMs: clock && lastChunk ? nowMs : undefined,
           latestReadingMs: latest,
           limits,
-          meterRun: { maxGapS: ctx.maxGapS, stackSwitchUpShare: ctx.stackSwitchUpShare, stackSwitchDownShare: ctx.stackSwitchDownShare },
+          meterRun: {
+            maxGapS: ctx.maxGapS,
+            stackSwitchUpShare: ctx.stackSwitchUpShare,
+            stackSwitchDownShare: ctx.stackSwitchDownShare,
+          },
         });
         for (const signal of walked.signals) {
-          const applied = await applySignal(client, meterRunId, signal, limits(signal.condition, signal.transmitterId).priority, nowMs);
+          const applied = await applySignal(
+            client,
+            meterRunId,
+            signal,
+            limits(signal.condition, signal.transmitterId).priority,
+            nowMs,
+          );
           if (applied) touchedIds.push(applied.alarmId);
           if (applied?.raised) raisedIds.push(applied.alarmId);
         }
-        await client.query('UPDATE alarm_evaluations SET state = $2, watermark = to_timestamp($3 / 1000.0), updated_at = now() WHERE meter_run_id = $1', [
-          meterRunId,
-          JSON.stringify(walked.state),
-          walked.state.watermarkMs,
-        ]);
+        await client.query(
+          'UPDATE alarm_evaluations SET state = $2, watermark = to_timestamp($3 / 1000.0), updated_at = now() WHERE meter_run_id = $1',
+          [meterRunId, JSON.stringify(walked.state), walked.state.watermarkMs],
+        );
         await client.query('COMMIT');
         if (lastChunk) break;
       } catch (err) {
@@ -179,23 +206,40 @@ export class AlarmEvaluator extends EventEmitter {
     return Math.max(0, ...windows) + ctx.maxGapS * 1000;
   }
 
-  private async nextReadingMs(client: PoolClient, transmitters: WalkTransmitter[], afterMs: number): Promise<number | null> {
+  private async nextReadingMs(
+    client: PoolClient,
+    transmitters: WalkTransmitter[],
+    afterMs: number,
+  ): Promise<number | null> {
     let next = Infinity;
     for (const t of transmitters) {
-      const { rows } = await client.query('SELECT time FROM readings WHERE transmitter_id = $1 AND time > to_timestamp($2 / 1000.0) ORDER BY time LIMIT 1', [t.id, afterMs]);
+      const { rows } = await client.query(
+        'SELECT time FROM readings WHERE transmitter_id = $1 AND time > to_timestamp($2 / 1000.0) ORDER BY time LIMIT 1',
+        [t.id, afterMs],
+      );
       if (rows[0]) next = Math.min(next, (rows[0].time as Date).getTime());
     }
     return Number.isFinite(next) ? next : null;
   }
 
   private async lockState(client: PoolClient, meterRunId: string): Promise<AlarmWalkState> {
-    await client.query('INSERT INTO alarm_evaluations (meter_run_id, state) VALUES ($1, $2) ON CONFLICT (meter_run_id) DO NOTHING', [meterRunId, JSON.stringify(initialAlarmWalkState())]);
-    const { rows } = await client.query('SELECT state FROM alarm_evaluations WHERE meter_run_id = $1 FOR UPDATE', [meterRunId]);
+    await client.query(
+      'INSERT INTO alarm_evaluations (meter_run_id, state) VALUES ($1, $2) ON CONFLICT (meter_run_id) DO NOTHING',
+      [meterRunId, JSON.stringify(initialAlarmWalkState())],
+    );
+    const { rows } = await client.query('SELECT state FROM alarm_evaluations WHERE meter_run_id = $1 FOR UPDATE', [
+      meterRunId,
+    ]);
     return { ...initialAlarmWalkState(), ...(rows[0].state as AlarmWalkState) };
   }
 
   /** Readings of [fromMs, toMs] per transmitter in SI, plus the latest one before fromMs, merged in time order. */
-  private async loadReadings(client: PoolClient, ctx: MeterRunContext, fromMs: number, toMs: number): Promise<WalkReading[]> {
+  private async loadReadings(
+    client: PoolClient,
+    ctx: MeterRunContext,
+    fromMs: number,
+    toMs: number,
+  ): Promise<WalkReading[]> {
     const out: WalkReading[] = [];
     for (const t of ctx.transmitters) {
       const { rows } = await client.query(
@@ -204,14 +248,26 @@ export class AlarmEvaluator extends EventEmitter {
          (SELECT time, value, quality FROM readings WHERE transmitter_id = $1 AND time >= to_timestamp($2 / 1000.0) AND time <= to_timestamp($3 / 1000.0) ORDER BY time)`,
         [t.id, fromMs, toMs],
       );
-      const offset = t.measures === 'static-pressure' && t.pressureReference === 'gauge' ? ctx.atmosphericPressurePa : 0;
-      for (const r of rows) out.push({ transmitterId: t.id, timeMs: (r.time as Date).getTime(), value: toSI(r.value, t.unit) + offset, quality: qualityName[r.quality] ?? 'bad' });
+      const offset =
+        t.measures === 'static-pressure' && t.pressureReference === 'gauge' ? ctx.atmosphericPressurePa : 0;
+      for (const r of rows)
+        out.push({
+          transmitterId: t.id,
+          timeMs: (r.time as Date).getTime(),
+          value: toSI(r.value, t.unit) + offset,
+          quality: qualityName[r.quality] ?? 'bad',
+        });
     }
     return out.sort((a, b) => a.timeMs - b.timeMs);
   }
 
   /** Hourly records not yet judged, up to the horizon and before any hour still waiting to be recomputed. */
-  private async loadHours(client: PoolClient, meterRunId: string, fromMs: number | null, toMs: number): Promise<WalkHour[]> {
+  private async loadHours(
+    client: PoolClient,
+    meterRunId: string,
+    fromMs: number | null,
+    toMs: number,
+  ): Promise<WalkHour[]> {
     if (!Number.isFinite(toMs)) return [];
     const { rows } = await client.query(
       `SELECT start, "end", flow_time_s, flags FROM hourly_records h
@@ -220,7 +276,12 @@ export class AlarmEvaluator extends EventEmitter {
         ORDER BY start`,
       [meterRunId, fromMs ?? 0, toMs],
     );
-    return rows.map((r) => ({ startMs: (r.start as Date).getTime(), endMs: (r.end as Date).getTime(), flowTimeS: r.flow_time_s, flags: r.flags }));
+    return rows.map((r) => ({
+      startMs: (r.start as Date).getTime(),
+      endMs: (r.end as Date).getTime(),
+      flowTimeS: r.flow_time_s,
+      flags: r.flags,
+    }));
   }
 
   /**
@@ -239,12 +300,17 @@ export class AlarmEvaluator extends EventEmitter {
     const byRun = new Map<string, ReturnType<typeof limitsResolver>>();
     for (const r of rows) {
       let limits = byRun.get(r.meter_run_id);
-      if (!limits) byRun.set(r.meter_run_id, (limits = limitsResolver(await loadStoredLimits(this.pool, r.meter_run_id))));
+      if (!limits)
+        byRun.set(r.meter_run_id, (limits = limitsResolver(await loadStoredLimits(this.pool, r.meter_run_id))));
       const today = DateTime.fromMillis(nowMs, { zone: r.time_zone }).toISODate()!;
       const due: string | null = r.due;
       const dueLimits = limits('calibration-due', r.id);
       const overdueLimits = limits('calibration-overdue', r.id);
-      const soonFrom = due ? DateTime.fromISO(due).minus({ days: dueLimits.dueSoonDays ?? 14 }).toISODate()! : null;
+      const soonFrom = due
+        ? DateTime.fromISO(due)
+            .minus({ days: dueLimits.dueSoonDays ?? 14 })
+            .toISODate()!
+        : null;
       const overdue = due !== null && today > due && overdueLimits.enabled;
       const dueSoon = due !== null && soonFrom !== null && today >= soonFrom && today <= due && dueLimits.enabled;
       const detail = { calibrationDue: due };
@@ -252,7 +318,17 @@ export class AlarmEvaluator extends EventEmitter {
         ['calibration-due', dueSoon, dueLimits.priority],
         ['calibration-overdue', overdue, overdueLimits.priority],
       ] as const) {
-        const applied = await setClockCondition(this.pool, r.meter_run_id, r.id, condition, holds, priority, alarmMessage(condition, r.tag, detail), detail, nowMs);
+        const applied = await setClockCondition(
+          this.pool,
+          r.meter_run_id,
+          r.id,
+          condition,
+          holds,
+          priority,
+          alarmMessage(condition, r.tag, detail),
+          detail,
+          nowMs,
+        );
         if (applied) touched.push(applied.alarmId);
         if (applied?.raised) raised.push(applied.alarmId);
       }

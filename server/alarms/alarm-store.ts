@@ -62,7 +62,13 @@ const notifyStatusFor = (priority: AlarmPriority, raisedMs: number, nowMs: numbe
  * @param nowMs the clock (decides whether the raise is fresh enough to mail)
  * @returns the id of the alarm touched and whether a new one was raised, or null if nothing changed
  */
-export async function applySignal(db: Db, meterRunId: string, signal: AlarmSignal, priority: AlarmPriority, nowMs: number): Promise<{ alarmId: string; raised: boolean } | null> {
+export async function applySignal(
+  db: Db,
+  meterRunId: string,
+  signal: AlarmSignal,
+  priority: AlarmPriority,
+  nowMs: number,
+): Promise<{ alarmId: string; raised: boolean } | null> {
   const open = (
     await db.query(
       `SELECT id::text, state, condition_active FROM alarms
@@ -75,7 +81,17 @@ export async function applySignal(db: Db, meterRunId: string, signal: AlarmSigna
       const { rows } = await db.query(
         `INSERT INTO alarms (meter_run_id, transmitter_id, condition, priority, state, condition_active, onset_at, raised_at, message, detail, notify_status)
          VALUES ($1, $2, $3, $4, 'active-unacknowledged', true, to_timestamp($5 / 1000.0), to_timestamp($6 / 1000.0), $7, $8, $9) RETURNING id::text`,
-        [meterRunId, signal.transmitterId, signal.condition, priority, signal.onsetMs, signal.timeMs, signal.message, JSON.stringify(signal.detail), notifyStatusFor(priority, signal.timeMs, nowMs)],
+        [
+          meterRunId,
+          signal.transmitterId,
+          signal.condition,
+          priority,
+          signal.onsetMs,
+          signal.timeMs,
+          signal.message,
+          JSON.stringify(signal.detail),
+          notifyStatusFor(priority, signal.timeMs, nowMs),
+        ],
       );
       await logEvent(db, rows[0].id, signal.timeMs, 'raised', null, 'active-unacknowledged', null, signal.message);
       return { alarmId: rows[0].id, raised: true };
@@ -90,12 +106,24 @@ export async function applySignal(db: Db, meterRunId: string, signal: AlarmSigna
         WHERE id = $1`,
       [open.id, next.state, reactivated ? 1 : 0, signal.message, notifyStatusFor(priority, signal.timeMs, nowMs)],
     );
-    await logEvent(db, open.id, signal.timeMs, reactivated ? 'returned-to-alarm' : 'raised-while-' + open.state, open.state, next.state, null, signal.message);
+    await logEvent(
+      db,
+      open.id,
+      signal.timeMs,
+      reactivated ? 'returned-to-alarm' : 'raised-while-' + open.state,
+      open.state,
+      next.state,
+      null,
+      signal.message,
+    );
     return { alarmId: open.id, raised: reactivated };
   }
   if (!open || !open.condition_active) return null;
   const next = nextAlarmStatus({ state: open.state, conditionActive: true }, 'clear');
-  await db.query(`UPDATE alarms SET state = $2, condition_active = false, cleared_at = to_timestamp($3 / 1000.0) WHERE id = $1`, [open.id, next.state, signal.timeMs]);
+  await db.query(
+    `UPDATE alarms SET state = $2, condition_active = false, cleared_at = to_timestamp($3 / 1000.0) WHERE id = $1`,
+    [open.id, next.state, signal.timeMs],
+  );
   await logEvent(db, open.id, signal.timeMs, 'cleared', open.state, next.state);
   return { alarmId: open.id, raised: false };
 }
@@ -121,7 +149,12 @@ export async function applyAction(
   const client = await pool.connect();
   try {
     await client.query('BEGIN');
-    const row = (await client.query('SELECT id::text, state, condition_active, priority, raised_at FROM alarms WHERE id = $1 FOR UPDATE', [alarmId])).rows[0] as AlarmRow | undefined;
+    const row = (
+      await client.query(
+        'SELECT id::text, state, condition_active, priority, raised_at FROM alarms WHERE id = $1 FOR UPDATE',
+        [alarmId],
+      )
+    ).rows[0] as AlarmRow | undefined;
     if (!row) {
       await client.query('ROLLBACK');
       return null;
@@ -133,15 +166,28 @@ export async function applyAction(
       params.push(v);
       return `$${params.length}`;
     };
-    if (action === 'acknowledge') sets.push(`acknowledged_at = to_timestamp(${param(nowMs)} / 1000.0)`, `acknowledged_by = ${param(actor?.id ?? null)}`);
-    if (action === 'shelve') sets.push(`shelved_until = to_timestamp(${param(nowMs + (options.minutes ?? 0) * 60_000)} / 1000.0)`, `shelve_reason = ${param(options.reason ?? null)}`);
+    if (action === 'acknowledge')
+      sets.push(
+        `acknowledged_at = to_timestamp(${param(nowMs)} / 1000.0)`,
+        `acknowledged_by = ${param(actor?.id ?? null)}`,
+      );
+    if (action === 'shelve')
+      sets.push(
+        `shelved_until = to_timestamp(${param(nowMs + (options.minutes ?? 0) * 60_000)} / 1000.0)`,
+        `shelve_reason = ${param(options.reason ?? null)}`,
+      );
     if (action === 'unshelve' || action === 'return-to-service') {
       sets.push('shelved_until = NULL');
       // Back to active: it must be acknowledged again, and the people who follow it hear of it again.
-      if (next.state === 'active-unacknowledged') sets.push('acknowledged_at = NULL', 'acknowledged_by = NULL', `notify_status = ${param(row.priority === 'low' ? 'not-needed' : 'pending')}`);
+      if (next.state === 'active-unacknowledged')
+        sets.push(
+          'acknowledged_at = NULL',
+          'acknowledged_by = NULL',
+          `notify_status = ${param(row.priority === 'low' ? 'not-needed' : 'pending')}`,
+        );
     }
     await client.query(`UPDATE alarms SET ${sets.join(', ')} WHERE id = $1`, params);
-    const note = action === 'shelve' ? `${options.minutes} min: ${options.reason}` : options.reason ?? null;
+    const note = action === 'shelve' ? `${options.minutes} min: ${options.reason}` : (options.reason ?? null);
     await logEvent(client, alarmId, nowMs, actionName[action], row.state, next.state, actor, note);
     await client.query('COMMIT');
     return (await pool.query(`${ALARM_SELECT} WHERE a.id = $1`, [alarmId])).rows[0] as AlarmRow;
@@ -166,7 +212,10 @@ const actionName: Record<Exclude<AlarmAction, 'raise' | 'clear'>, string> = {
  * @returns the ids unshelved
  */
 export async function unshelveExpired(pool: Pool, nowMs = Date.now()): Promise<string[]> {
-  const { rows } = await pool.query(`SELECT id::text FROM alarms WHERE state = 'shelved' AND shelved_until <= to_timestamp($1 / 1000.0)`, [nowMs]);
+  const { rows } = await pool.query(
+    `SELECT id::text FROM alarms WHERE state = 'shelved' AND shelved_until <= to_timestamp($1 / 1000.0)`,
+    [nowMs],
+  );
   const done: string[] = [];
   for (const r of rows) {
     try {
@@ -192,9 +241,18 @@ export async function setClockCondition(
   nowMs: number,
 ): Promise<{ alarmId: string; raised: boolean } | null> {
   const open = (
-    await db.query(`SELECT condition_active FROM alarms WHERE meter_run_id = $1 AND transmitter_id = $2 AND condition = $3 AND state <> 'normal'`, [meterRunId, transmitterId, condition])
+    await db.query(
+      `SELECT condition_active FROM alarms WHERE meter_run_id = $1 AND transmitter_id = $2 AND condition = $3 AND state <> 'normal'`,
+      [meterRunId, transmitterId, condition],
+    )
   ).rows[0];
   const active = open?.condition_active ?? false;
   if (holds === active) return null;
-  return applySignal(db, meterRunId, { kind: holds ? 'raise' : 'clear', condition, transmitterId, timeMs: nowMs, onsetMs: nowMs, message, detail }, priority, nowMs);
+  return applySignal(
+    db,
+    meterRunId,
+    { kind: holds ? 'raise' : 'clear', condition, transmitterId, timeMs: nowMs, onsetMs: nowMs, message, detail },
+    priority,
+    nowMs,
+  );
 }

@@ -35,8 +35,14 @@ export async function loadStoredLimits(db: Pool | PoolClient, meterRunId: string
  * @param stored the meter run's stored settings
  * @returns the limits in force for a condition at a transmitter (or the meter run: null)
  */
-export function limitsResolver(stored: StoredLimits[]): (condition: AlarmCondition, transmitterId: string | null) => AlarmLimits {
+export function limitsResolver(
+  stored: StoredLimits[],
+): (condition: AlarmCondition, transmitterId: string | null) => AlarmLimits {
   const byKey = new Map(stored.map((s) => [`${s.condition}|${s.transmitterId ?? ''}`, s.settings]));
   return (condition, transmitterId) =>
-    effectiveAlarmLimits(condition, byKey.get(`${condition}|`), transmitterId ? byKey.get(`${condition}|${transmitterId}`) : undefined);
+    effectiveAlarmLimits(
+      condition,
+      byKey.get(`${condition}|`),
+      transmitterId ? byKey.get(`${condition}|${transmitterId}`) : undefined,
+    );
 }

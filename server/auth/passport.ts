@@ -46,7 +46,9 @@ export function createAuthenticator(secret: string): RequestHandler {
       if (err) return next(err);
       if (!user) {
         const expired = (info as { name?: string } | undefined)?.name === 'TokenExpiredError';
-        return next(expired ? unauthorized('Your session has expired; sign in again.', 'token_expired') : unauthorized());
+        return next(
+          expired ? unauthorized('Your session has expired; sign in again.', 'token_expired') : unauthorized(),
+        );
       }
       req.user = user;
       next();

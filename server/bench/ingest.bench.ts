@@ -29,17 +29,33 @@ const RUNS = 100;
 const DAYS = 365;
 
 const log = (s: string) => console.log(s);
-const rate = (n: number, ms: number) => (n / (ms / 1000));
+const rate = (n: number, ms: number) => n / (ms / 1000);
 const fmt = (x: number) => Math.round(x).toLocaleString('en-US');
 
-async function mqttLoad(port: number, username: string, password: string, messages: { topic: string; payload: string }[], clients = Number(process.env.BENCH_CLIENTS ?? 4), window = 1000) {
+async function mqttLoad(
+  port: number,
+  username: string,
+  password: string,
+  messages: { topic: string; payload: string }[],
+  clients = Number(process.env.BENCH_CLIENTS ?? 4),
+  window = 1000,
+) {
   const conns = await Promise.all(
-    Array.from({ length: clients }, () =>
-      new Promise<mqtt.MqttClient>((resolve, reject) => {
-        const c = mqtt.connect({ host: '127.0.0.1', port, protocolVersion: 4, username, password, reconnectPeriod: 0 });
-        c.once('connect', () => resolve(c));
-        c.once('error', reject);
-      }),
+    Array.from(
+      { length: clients },
+      () =>
+        new Promise<mqtt.MqttClient>((resolve, reject) => {
+          const c = mqtt.connect({
+            host: '127.0.0.1',
+            port,
+            protocolVersion: 4,
+            username,
+            password,
+            reconnectPeriod: 0,
+          });
+          c.once('connect', () => resolve(c));
+          c.once('error', reject);
+        }),
     ),
   );
   const started = performance.now();
@@ -79,29 +95,92 @@ async function main() {
   let url = process.env.DATABASE_URL;
   let cluster = null;
   if (!url) {
-    cluster = await ensureCluster({ dataDir, port: Number(process.env.TALLYRUN_PG_PORT ?? 54329), log: () => undefined });
+    cluster = await ensureCluster({
+      dataDir,
+      port: Number(process.env.TALLYRUN_PG_PORT ?? 54329),
+      log: () => undefined,
+    });
     await ensureDatabase(cluster.url('postgres'), 'tallyrun_bench', { fresh: true });
     url = cluster.url('tallyrun_bench');
   }
-  const server = await startServer(readEnv({ ...process.env, DATABASE_URL: url, PORT: '0', MQTT_PORT: '0', SMTP_PORT: '0', TALLYRUN_DEMO: 'off', TALLYRUN_DATA_DIR: fs.mkdtempSync(path.join(os.tmpdir(), 'tallyrun-bench-')), TALLYRUN_WEB_DIR: '/nonexistent' }));
+  const server = await startServer(
+    readEnv({
+      ...process.env,
+      DATABASE_URL: url,
+      PORT: '0',
+      MQTT_PORT: '0',
+      SMTP_PORT: '0',
+      TALLYRUN_DEMO: 'off',
+      TALLYRUN_DATA_DIR: fs.mkdtempSync(path.join(os.tmpdir(), 'tallyrun-bench-')),
+      TALLYRUN_WEB_DIR: '/nonexistent',
+    }),
+  );
   const pool = new Pool({ connectionString: url });
   try {
     // An admin and a signed-in client.
-    await pool.query(`INSERT INTO users (email, name, role, password_hash) VALUES ('bench@bench', 'Bench', 'admin', $1)`, [await hashPassword('bench-password')]);
-    const token = (await (await fetch(`${server.url}/api/auth/login`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ email: 'bench@bench', password: 'bench-password' }) })).json()).token;
+    await pool.query(
+      `INSERT INTO users (email, name, role, password_hash) VALUES ('bench@bench', 'Bench', 'admin', $1)`,
+      [await hashPassword('bench-password')],
+    );
+    const token = (
+      await (
+        await fetch(`${server.url}/api/auth/login`, {
+          method: 'POST',
+          headers: { 'content-type': 'application/json' },
+          body: JSON.stringify({ email: 'bench@bench', password: 'bench-password' }),
+        })
+      ).json()
+    ).token;
     const api = async (method: string, p: string, body?: unknown) => {
-      const res = await fetch(`${server.url}${p}`, { method, headers: { Authorization: `Bearer ${token}`, 'content-type': 'application/json' }, body: body ? JSON.stringify(body) : undefined });
+      const res = await fetch(`${server.url}${p}`, {
+        method,
+        headers: { Authorization: `Bearer ${token}`, 'content-type': 'application/json' },
+        body: body ? JSON.stringify(body) : undefined,
+      });
       return res.json();
     };
-    const site = await api('POST', '/api/sites', { code: 'BENCH', name: 'Bench', timeZone: 'UTC', contractHour: 0, basePressurePa: 101325, baseTemperatureK: 288.15, atmosphericPressurePa: 101325 });
+    const site = await api('POST', '/api/sites', {
+      code: 'BENCH',
+      name: 'Bench',
+      timeZone: 'UTC',
+      contractHour: 0,
+      basePressurePa: 101325,
+      baseTemperatureK: 288.15,
+      atmosphericPressurePa: 101325,
+    });
     const makeRun = async (tag: string) => {
       const run = await api('POST', '/api/meter-runs', {
-        siteId: site.id, tag, name: tag, effectiveFrom: '2020-01-01T00:00:00Z', holdLimitS: 3600, maxGapS: 900,
+        siteId: site.id,
+        tag,
+        name: tag,
+        effectiveFrom: '2020-01-01T00:00:00Z',
+        holdLimitS: 3600,
+        maxGapS: 900,
         element: { kind: 'orifice', taps: 'flange', pipeDiameterM: 0.3, boreDiameterM: 0.1 },
-        fluid: { kind: 'natural-gas', composition: { methane: 0.965222, nitrogen: 0.002595, 'carbon-dioxide': 0.005956, ethane: 0.018186, propane: 0.004596, isobutane: 0.000977, 'n-butane': 0.001007, isopentane: 0.000473, 'n-pentane': 0.000324, 'n-hexane': 0.000664 } },
+        fluid: {
+          kind: 'natural-gas',
+          composition: {
+            methane: 0.965222,
+            nitrogen: 0.002595,
+            'carbon-dioxide': 0.005956,
+            ethane: 0.018186,
+            propane: 0.004596,
+            isobutane: 0.000977,
+            'n-butane': 0.001007,
+            isopentane: 0.000473,
+            'n-pentane': 0.000324,
+            'n-hexane': 0.000664,
+          },
+        },
       });
-      const t = async (suffix: string, body: object) => api('POST', '/api/transmitters', { meterRunId: run.id, tag: `${tag}-${suffix}`, ...body });
-      return { run, dp: await t('DP', { measures: 'differential-pressure', unit: 'kPa', lowerRange: 0, upperRange: 50 }), pt: await t('PT', { measures: 'static-pressure', unit: 'MPa', lowerRange: 0, upperRange: 10 }), tt: await t('TT', { measures: 'temperature', unit: 'K', lowerRange: 200, upperRange: 400 }) };
+      const t = async (suffix: string, body: object) =>
+        api('POST', '/api/transmitters', { meterRunId: run.id, tag: `${tag}-${suffix}`, ...body });
+      return {
+        run,
+        dp: await t('DP', { measures: 'differential-pressure', unit: 'kPa', lowerRange: 0, upperRange: 50 }),
+        pt: await t('PT', { measures: 'static-pressure', unit: 'MPa', lowerRange: 0, upperRange: 10 }),
+        tt: await t('TT', { measures: 'temperature', unit: 'K', lowerRange: 200, upperRange: 400 }),
+      };
     };
     const device = await api('POST', '/api/devices', { name: 'bench RTU', siteId: site.id });
     const now = Date.now();
@@ -114,12 +193,20 @@ async function main() {
     };
 
     // 1. Broker-only base: the same aedes setup, credentials accepted, nothing stored.
-    const bare = await startEmbeddedBroker({ host: '127.0.0.1', port: 0, authenticate: async () => ({ id: '0', siteCode: 'BENCH' }), onPublish: async () => undefined });
+    const bare = await startEmbeddedBroker({
+      host: '127.0.0.1',
+      port: 0,
+      authenticate: async () => ({ id: '0', siteCode: 'BENCH' }),
+      onPublish: async () => undefined,
+    });
     const single = await makeRun('SINGLE');
     const singleMessages = Array.from({ length: SINGLE }, (_, i) => {
       const tr = [single.dp, single.pt, single.tt][i % 3];
       const v = tr === single.dp ? 20 : tr === single.pt ? 5 : 290;
-      return { topic: `tallyrun/BENCH/${tr.tag}`, payload: JSON.stringify({ t: now - 8 * 3600_000 + Math.floor(i / 3) * 1000, v, q: 'good' }) };
+      return {
+        topic: `tallyrun/BENCH/${tr.tag}`,
+        payload: JSON.stringify({ t: now - 8 * 3600_000 + Math.floor(i / 3) * 1000, v, q: 'good' }),
+      };
     });
     // Warm both paths up first (JIT, connections), then measure; the broker-only base is taken
     // before and after the stored run and the faster of the two kept, so the ratio is not flattered.
@@ -132,7 +219,12 @@ async function main() {
     const t0 = performance.now();
     await settle();
     const singleSettleMs = performance.now() - t0;
-    const stored = (await pool.query('SELECT count(*)::int AS n FROM readings r JOIN transmitters t ON t.id = r.transmitter_id WHERE t.meter_run_id = $1', [single.run.id])).rows[0].n;
+    const stored = (
+      await pool.query(
+        'SELECT count(*)::int AS n FROM readings r JOIN transmitters t ON t.id = r.transmitter_id WHERE t.meter_run_id = $1',
+        [single.run.id],
+      )
+    ).rows[0].n;
 
     // 2. Batches of 50 readings per message.
     const batched = await makeRun('BATCHED');
@@ -140,7 +232,12 @@ async function main() {
       const tr = [batched.dp, batched.pt, batched.tt][i % 3];
       const v = tr === batched.dp ? 20 : tr === batched.pt ? 5 : 290;
       const k = Math.floor(i / 3);
-      return { topic: `tallyrun/BENCH/${tr.tag}`, payload: JSON.stringify(Array.from({ length: 50 }, (_, j) => ({ t: now - 10 * 3600_000 + (k * 50 + j) * 200, v, q: 'good' }))) };
+      return {
+        topic: `tallyrun/BENCH/${tr.tag}`,
+        payload: JSON.stringify(
+          Array.from({ length: 50 }, (_, j) => ({ t: now - 10 * 3600_000 + (k * 50 + j) * 200, v, q: 'good' })),
+        ),
+      };
     });
     const batchMs = await mqttLoad(server.mqttPort, device.username, device.password, batchMessages, 4, 50);
     const t1 = performance.now();
@@ -162,7 +259,13 @@ async function main() {
     const form = new FormData();
     form.append('file', new Blob([lines.join('\n')], { type: 'text/csv' }), 'bench.csv');
     const t2 = performance.now();
-    const started = await (await fetch(`${server.url}/api/imports`, { method: 'POST', headers: { Authorization: `Bearer ${token}` }, body: form })).json();
+    const started = await (
+      await fetch(`${server.url}/api/imports`, {
+        method: 'POST',
+        headers: { Authorization: `Bearer ${token}` },
+        body: form,
+      })
+    ).json();
     let result;
     for (;;) {
       result = await api('GET', `/api/imports/${started.id}`);
@@ -177,11 +280,16 @@ async function main() {
     // with the server's own background work, so a single COPY can be unlucky).
     let copyMs = Infinity;
     for (let attempt = 0; attempt < 2; attempt++) {
-      await pool.query('DELETE FROM readings WHERE transmitter_id = ANY($1::bigint[])', [[csvRun.dp.id, csvRun.pt.id, csvRun.tt.id]]);
+      await pool.query('DELETE FROM readings WHERE transmitter_id = ANY($1::bigint[])', [
+        [csvRun.dp.id, csvRun.pt.id, csvRun.tt.id],
+      ]);
       await pool.query('VACUUM readings');
       const copyClient = await pool.connect();
       const t4 = performance.now();
-      await pipeline(Readable.from(copyRows), copyClient.query(copyFrom('COPY readings (transmitter_id, time, value, quality, source) FROM STDIN')));
+      await pipeline(
+        Readable.from(copyRows),
+        copyClient.query(copyFrom('COPY readings (transmitter_id, time, value, quality, source) FROM STDIN')),
+      );
       copyMs = Math.min(copyMs, performance.now() - t4);
       copyClient.release();
     }
@@ -190,7 +298,10 @@ async function main() {
     const day0 = Date.UTC(2025, 0, 1);
     const runIds: string[] = [];
     for (let i = 0; i < RUNS; i++) {
-      const { rows } = await pool.query(`INSERT INTO meter_runs (site_id, tag, name) VALUES ($1, $2, $2) RETURNING id::text`, [site.id, `TOT-${i}`]);
+      const { rows } = await pool.query(
+        `INSERT INTO meter_runs (site_id, tag, name) VALUES ($1, $2, $2) RETURNING id::text`,
+        [site.id, `TOT-${i}`],
+      );
       runIds.push(rows[0].id);
     }
     await pool.query(
@@ -221,14 +332,28 @@ async function main() {
     log('\nTallyrun ingest benchmark' + (quick ? ' (quick)' : ''));
     log(`  machine: ${os.cpus().length} cores, ${os.cpus()[0]?.model ?? ''}, node ${process.version}`);
     log(`  MQTT broker only (QoS 1, nothing stored)     ${fmt(bareRate)} msg/s`);
-    log(`  MQTT single readings committed               ${fmt(singleRate)} readings/s   ratio ${(singleRate / bareRate).toFixed(2)} × broker-only (goal ≥ 0.70); ${stored} stored`);
-    log(`     … with flow computed (history settled)     ${fmt(rate(SINGLE, singleMs + singleSettleMs))} readings/s   (settle ${singleSettleMs.toFixed(0)} ms)`);
-    log(`  MQTT batches of 50 committed                 ${fmt(batchRate)} readings/s   ratio ${(batchRate / copyRate).toFixed(2)} × raw COPY (goals ≥ 150,000/s, ≥ 0.35)`);
-    log(`     … with flow computed (history settled)     ${fmt(rate(batchReadings, batchMs + batchSettleMs))} readings/s   (settle ${batchSettleMs.toFixed(0)} ms)`);
-    log(`  CSV import over HTTP                         ${fmt(csvRate)} rows/s       ratio ${(csvRate / copyRate).toFixed(2)} × raw COPY (goal ≥ 0.50); ${result.rowsImported} imported`);
-    log(`     … with flow computed (history settled)     ${fmt(rate(CSV_ROWS, csvMs + csvSettleMs))} rows/s       (settle ${csvSettleMs.toFixed(0)} ms)`);
+    log(
+      `  MQTT single readings committed               ${fmt(singleRate)} readings/s   ratio ${(singleRate / bareRate).toFixed(2)} × broker-only (goal ≥ 0.70); ${stored} stored`,
+    );
+    log(
+      `     … with flow computed (history settled)     ${fmt(rate(SINGLE, singleMs + singleSettleMs))} readings/s   (settle ${singleSettleMs.toFixed(0)} ms)`,
+    );
+    log(
+      `  MQTT batches of 50 committed                 ${fmt(batchRate)} readings/s   ratio ${(batchRate / copyRate).toFixed(2)} × raw COPY (goals ≥ 150,000/s, ≥ 0.35)`,
+    );
+    log(
+      `     … with flow computed (history settled)     ${fmt(rate(batchReadings, batchMs + batchSettleMs))} readings/s   (settle ${batchSettleMs.toFixed(0)} ms)`,
+    );
+    log(
+      `  CSV import over HTTP                         ${fmt(csvRate)} rows/s       ratio ${(csvRate / copyRate).toFixed(2)} × raw COPY (goal ≥ 0.50); ${result.rowsImported} imported`,
+    );
+    log(
+      `     … with flow computed (history settled)     ${fmt(rate(CSV_ROWS, csvMs + csvSettleMs))} rows/s       (settle ${csvSettleMs.toFixed(0)} ms)`,
+    );
     log(`  raw COPY of the same rows (base)             ${fmt(copyRate)} rows/s`);
-    log(`  daily totals, ${RUNS} meter runs × ${DAYS} days over HTTP: p50 ${pct(50).toFixed(1)} ms, p95 ${pct(95).toFixed(1)} ms per request (goal p95 ≤ 50 ms)`);
+    log(
+      `  daily totals, ${RUNS} meter runs × ${DAYS} days over HTTP: p50 ${pct(50).toFixed(1)} ms, p95 ${pct(95).toFixed(1)} ms per request (goal p95 ≤ 50 ms)`,
+    );
   } finally {
     await pool.end();
     await server.stop();

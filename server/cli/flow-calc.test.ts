@@ -23,7 +23,13 @@ const molarMassFor15 = (15 * 8.314462618 * 300) / 2e6;
 
 const o2Case = {
   element: { kind: 'orifice', taps: 'flange', pipeDiameterM: 0.3, boreDiameterM: 0.1, referenceTemperatureK: 300 },
-  fluid: { kind: 'ideal-gas', molarMassKgPerMol: molarMassFor15, compressibility: 1, isentropicExponent: 1.2, viscosityPaS: 1.12e-5 },
+  fluid: {
+    kind: 'ideal-gas',
+    molarMassKgPerMol: molarMassFor15,
+    compressibility: 1,
+    isentropicExponent: 1.2,
+    viscosityPaS: 1.12e-5,
+  },
   conditions: { differentialPressurePa: 28000, staticPressurePa: 2e6, temperatureK: 300 },
 };
 
@@ -36,7 +42,14 @@ describe('flow-calc CLI', () => {
     expect(r.json.massFlowKgPerS * 3600).toBeCloseTo(15555.29024, 3);
     expect(r.json.dischargeCoefficient).toBeCloseTo(0.599031, 6);
     expect(r.json.expansibility).toBeCloseTo(0.9958616, 7);
-    for (const key of ['beta', 'reynoldsNumber', 'compressibility', 'baseDensityKgPerM3', 'volumeFlowM3PerS', 'standardVolumeFlowM3PerS']) {
+    for (const key of [
+      'beta',
+      'reynoldsNumber',
+      'compressibility',
+      'baseDensityKgPerM3',
+      'volumeFlowM3PerS',
+      'standardVolumeFlowM3PerS',
+    ]) {
       expect(r.json).toHaveProperty(key);
     }
     expect(Array.isArray(r.json.warnings)).toBe(true);
@@ -64,17 +77,24 @@ describe('flow-calc CLI', () => {
   });
 
   it('answers an engine error (an unknown gas component) with an error body and exit code 2', () => {
-    const r = run(JSON.stringify({ ...o2Case, fluid: { kind: 'natural-gas', composition: { methane: 0.9, unobtainium: 0.1 } } }));
+    const r = run(
+      JSON.stringify({ ...o2Case, fluid: { kind: 'natural-gas', composition: { methane: 0.9, unobtainium: 0.1 } } }),
+    );
     expect(r.status).toBe(2);
     expect(r.json.error.code).toBe('invalid_case');
     expect(r.json.error.message).toMatch(/unobtainium/);
-    expect(r.json.error.field).toBe("fluid.composition");
+    expect(r.json.error.field).toBe('fluid.composition');
   });
 });
 
 describe('npm run --silent flow-calc', () => {
   it('is wired to the same command: the O2 case through npm prints only the result JSON', () => {
-    const p = spawnSync('npm', ['run', '--silent', 'flow-calc'], { cwd: root, input: JSON.stringify(o2Case), encoding: 'utf8', timeout: 60000 });
+    const p = spawnSync('npm', ['run', '--silent', 'flow-calc'], {
+      cwd: root,
+      input: JSON.stringify(o2Case),
+      encoding: 'utf8',
+      timeout: 60000,
+    });
     expect(p.status).toBe(0);
     expect(JSON.parse(p.stdout).massFlowKgPerS * 3600).toBeCloseTo(15555.29024, 3);
   });

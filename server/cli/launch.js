@@ -12,7 +12,8 @@ const mode = process.argv[2] === 'test' ? 'test' : 'start';
 function installDependencies() {
   const marker = path.join(root, 'node_modules', '.package-lock.json');
   const lock = path.join(root, 'package-lock.json');
-  const fresh = fs.existsSync(marker) && (!fs.existsSync(lock) || fs.statSync(marker).mtimeMs >= fs.statSync(lock).mtimeMs);
+  const fresh =
+    fs.existsSync(marker) && (!fs.existsSync(lock) || fs.statSync(marker).mtimeMs >= fs.statSync(lock).mtimeMs);
   if (fresh && fs.existsSync(path.join(root, 'node_modules', '.bin', 'tsx'))) return;
   const args = fs.existsSync(lock) ? ['ci', '--no-audit', '--no-fund'] : ['install', '--no-audit', '--no-fund'];
   console.log(`[tallyrun] installing npm dependencies (npm ${args[0]}) ...`);
@@ -27,7 +28,10 @@ function installDependencies() {
 
 installDependencies();
 const tsx = path.join(root, 'node_modules', '.bin', 'tsx');
-const child = spawn(tsx, [path.join(__dirname, `${mode}.ts`), ...process.argv.slice(3)], { cwd: root, stdio: 'inherit' });
+const child = spawn(tsx, [path.join(__dirname, `${mode}.ts`), ...process.argv.slice(3)], {
+  cwd: root,
+  stdio: 'inherit',
+});
 // The terminal sends Ctrl-C to the whole foreground group; forward SIGTERM ourselves.
 process.on('SIGTERM', () => child.kill('SIGTERM'));
 process.on('SIGINT', () => {});

@@ -58,7 +58,12 @@ async function main() {
       databaseUrl = cluster.url('tallyrun');
     }
     exportWebClient(root, log);
-    const env = readEnv({ ...process.env, DATABASE_URL: databaseUrl, TALLYRUN_DATA_DIR: dataDir, TALLYRUN_WEB_DIR: path.join(root, 'dist') });
+    const env = readEnv({
+      ...process.env,
+      DATABASE_URL: databaseUrl,
+      TALLYRUN_DATA_DIR: dataDir,
+      TALLYRUN_WEB_DIR: path.join(root, 'dist'),
+    });
     server = await startServer(env);
 
     const simulatorEntry = path.join(root, 'simulators', 'index.ts');
@@ -67,7 +72,11 @@ async function main() {
         cwd: root,
         detached: true, // own process group, so Ctrl-C handling stays here and we stop it as a group
         stdio: ['ignore', 'inherit', 'inherit'],
-        env: { ...process.env, DATABASE_URL: databaseUrl, TALLYRUN_MQTT_URL: env.MQTT_URL ?? `mqtt://127.0.0.1:${server.mqttPort}` },
+        env: {
+          ...process.env,
+          DATABASE_URL: databaseUrl,
+          TALLYRUN_MQTT_URL: env.MQTT_URL ?? `mqtt://127.0.0.1:${server.mqttPort}`,
+        },
       });
     }
 

@@ -20,15 +20,20 @@ const isRoot = typeof process.getuid === 'function' && process.getuid() === 0;
 /** Debian packages the tests call: reference libraries (IAPWS-IF97, units) and the browser. */
 function ensureTestTools() {
   const missing: string[] = [];
-  const hasPython = (mod: string) => spawnSync('/usr/bin/python3', ['-c', `import ${mod}`], { stdio: 'ignore' }).status === 0;
+  const hasPython = (mod: string) =>
+    spawnSync('/usr/bin/python3', ['-c', `import ${mod}`], { stdio: 'ignore' }).status === 0;
   if (!hasPython('iapws')) missing.push('python3-iapws');
   if (!hasPython('pint')) missing.push('python3-pint');
   if (!fs.existsSync('/usr/bin/chromium')) missing.push('chromium');
   if (missing.length === 0) return;
-  if (!isRoot) throw new Error(`missing Debian packages for the tests: ${missing.join(' ')} (install them with apt-get)`);
+  if (!isRoot)
+    throw new Error(`missing Debian packages for the tests: ${missing.join(' ')} (install them with apt-get)`);
   log(`installing ${missing.join(', ')} from Debian (apt-get) ...`);
   execFileSync('apt-get', ['update', '-qq'], { stdio: 'inherit' });
-  execFileSync('apt-get', ['install', '-y', '-qq', ...missing], { stdio: 'inherit', env: { ...process.env, DEBIAN_FRONTEND: 'noninteractive' } });
+  execFileSync('apt-get', ['install', '-y', '-qq', ...missing], {
+    stdio: 'inherit',
+    env: { ...process.env, DEBIAN_FRONTEND: 'noninteractive' },
+  });
 }
 
 async function main(): Promise<number> {
@@ -112,7 +117,11 @@ async function main(): Promise<number> {
     let summary = { passed: 0, failed: 0, skipped: 0 };
     if (fs.existsSync(resultsFile)) {
       const r = JSON.parse(fs.readFileSync(resultsFile, 'utf8'));
-      summary = { passed: r.numPassedTests, failed: r.numFailedTests + (r.numRuntimeErrorTestSuites ?? 0), skipped: r.numPendingTests + r.numTodoTests };
+      summary = {
+        passed: r.numPassedTests,
+        failed: r.numFailedTests + (r.numRuntimeErrorTestSuites ?? 0),
+        skipped: r.numPendingTests + r.numTodoTests,
+      };
       // Keep only the latest run's results, as jest.json.
       fs.renameSync(resultsFile, path.join(root, '.test-results', 'jest.json'));
     }

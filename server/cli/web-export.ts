@@ -24,12 +24,16 @@ export function exportWebClient(root: string, log: (s: string) => void, options:
   if (!options.force && stampTime > newest) return 0;
   log('exporting the web client (expo export --platform web) ...');
   const started = Date.now();
-  const result = spawnSync(path.join(root, 'node_modules', '.bin', 'expo'), ['export', '--platform', 'web', '--output-dir', 'dist'], {
-    cwd: root,
-    stdio: ['ignore', 'pipe', 'pipe'],
-    encoding: 'utf8',
-    env: { ...process.env, EXPO_NO_TELEMETRY: '1', CI: '1' },
-  });
+  const result = spawnSync(
+    path.join(root, 'node_modules', '.bin', 'expo'),
+    ['export', '--platform', 'web', '--output-dir', 'dist'],
+    {
+      cwd: root,
+      stdio: ['ignore', 'pipe', 'pipe'],
+      encoding: 'utf8',
+      env: { ...process.env, EXPO_NO_TELEMETRY: '1', CI: '1' },
+    },
+  );
   if (result.status !== 0) throw new Error(`expo export failed:\n${result.stdout}\n${result.stderr}`);
   fs.writeFileSync(stamp, new Date().toISOString());
   const seconds = (Date.now() - started) / 1000;

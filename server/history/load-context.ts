@@ -56,7 +56,12 @@ export async function loadMeterRunContext(pool: Pool, meterRunId: string): Promi
     stackSwitchUpShare: r.stack_switch_up_share,
     stackSwitchDownShare: r.stack_switch_down_share,
     atmosphericPressurePa: r.atmospheric_pressure_pa,
-    configVersions: versions.rows.map((v) => ({ id: v.id, effectiveFromMs: (v.effective_from as Date).getTime(), element: v.element, fluid: v.fluid })),
+    configVersions: versions.rows.map((v) => ({
+      id: v.id,
+      effectiveFromMs: (v.effective_from as Date).getTime(),
+      element: v.element,
+      fluid: v.fluid,
+    })),
     transmitters: transmitters.rows.map((t) => ({
       id: t.id,
       measures: t.measures,
@@ -81,7 +86,12 @@ export interface ReadingSeries {
  * absolute with the site's atmospheric pressure), plus the latest reading of each transmitter
  * before fromMs, which covers the start of the window.
  */
-export async function loadReadings(pool: Pool, ctx: MeterRunContext, fromMs: number, toMs: number): Promise<ReadingSeries> {
+export async function loadReadings(
+  pool: Pool,
+  ctx: MeterRunContext,
+  fromMs: number,
+  toMs: number,
+): Promise<ReadingSeries> {
   const series: ReadingSeries = { dp: [], staticPressure: [], temperature: [] };
   for (const t of ctx.transmitters) {
     const { rows } = await pool.query(
@@ -91,7 +101,11 @@ export async function loadReadings(pool: Pool, ctx: MeterRunContext, fromMs: num
       [t.id, fromMs, toMs],
     );
     const offset = t.measures === 'static-pressure' && t.pressureReference === 'gauge' ? ctx.atmosphericPressurePa : 0;
-    const samples: Sample[] = rows.map((row) => ({ timeMs: (row.time as Date).getTime(), value: toSI(row.value, t.unit) + offset, quality: qualityName[row.quality] }));
+    const samples: Sample[] = rows.map((row) => ({
+      timeMs: (row.time as Date).getTime(),
+      value: toSI(row.value, t.unit) + offset,
+      quality: qualityName[row.quality],
+    }));
     samples.sort((a, b) => a.timeMs - b.timeMs);
     if (t.measures === 'differential-pressure') {
       series.dp.push({

@@ -1,6 +1,11 @@
 import type { Pool } from 'pg';
 import { computeHour } from '../../shared/history/compute-hour';
-import { contractDayBounds, contractDayOf, contractMonthBounds, hourStartsBetween } from '../../shared/history/contract-day';
+import {
+  contractDayBounds,
+  contractDayOf,
+  contractMonthBounds,
+  hourStartsBetween,
+} from '../../shared/history/contract-day';
 import { rollUpRecords } from '../../shared/history/roll-up';
 import type { HourlyRecord, RollUpRecord } from '../../shared/history/types';
 import { loadMeterRunContext, loadReadings, type MeterRunContext } from './load-context';
@@ -29,7 +34,9 @@ export class HistoryWorker {
   start(onChange?: (meterRunIds: string[]) => void) {
     this.onChange = onChange;
     // A claim left by a process that died is released.
-    void this.pool.query('UPDATE stale_hours SET claimed_at = NULL WHERE claimed_at IS NOT NULL').catch(() => undefined);
+    void this.pool
+      .query('UPDATE stale_hours SET claimed_at = NULL WHERE claimed_at IS NOT NULL')
+      .catch(() => undefined);
     const timer = setInterval(() => void this.drain(), 1000);
     this.timer = timer;
     (timer as unknown as { unref?: () => void }).unref?.();
@@ -80,7 +87,10 @@ export class HistoryWorker {
           break;
         }
         // Hours that got new readings while being computed wait for another round (a live hour: ten seconds).
-        await this.pool.query('UPDATE stale_hours SET claimed_at = NULL, first_queued_at = clock_timestamp() WHERE meter_run_id = $1 AND claimed_at IS NOT NULL', [claimed.meterRunId]);
+        await this.pool.query(
+          'UPDATE stale_hours SET claimed_at = NULL, first_queued_at = clock_timestamp() WHERE meter_run_id = $1 AND claimed_at IS NOT NULL',
+          [claimed.meterRunId],
+        );
       }
     } finally {
       this.running = false;
@@ -106,7 +116,10 @@ export class HistoryWorker {
       [this.timing.quietMs, this.timing.maxWaitMs],
     );
     if (!rows.length) return null;
-    return { meterRunId: rows[0].meter_run_id, hours: rows.map((r) => (r.start as Date).getTime()).sort((a, b) => a - b) };
+    return {
+      meterRunId: rows[0].meter_run_id,
+      hours: rows.map((r) => (r.start as Date).getTime()).sort((a, b) => a - b),
+    };
   }
 
   /** Recomputes the given hours of one meter run and the periods above them. */
@@ -143,7 +156,11 @@ export class HistoryWorker {
       records.push(record);
     }
     await this.saveHourlyRecords(meterRunId, records);
-    await this.rollUp(ctx, records.map((r) => r.startMs), nowMs);
+    await this.rollUp(
+      ctx,
+      records.map((r) => r.startMs),
+      nowMs,
+    );
   }
 
   private async previousStackChoice(meterRunId: string, beforeMs: number): Promise<'low' | 'high' | null> {
@@ -184,10 +201,24 @@ export class HistoryWorker {
     const days = new Set(hourStarts.map((h) => contractDayOf(h, ctx.timeZone, ctx.contractHour)));
     const months = new Set([...days].map((d) => d.slice(0, 7)));
     for (const day of days) {
-      await this.savePeriodTotal('daily_totals', 'contract_day', day, ctx, contractDayBounds(day, ctx.timeZone, ctx.contractHour), nowMs);
+      await this.savePeriodTotal(
+        'daily_totals',
+        'contract_day',
+        day,
+        ctx,
+        contractDayBounds(day, ctx.timeZone, ctx.contractHour),
+        nowMs,
+      );
     }
     for (const month of months) {
-      await this.savePeriodTotal('monthly_totals', 'month', `${month}-01`, ctx, contractMonthBounds(month, ctx.timeZone, ctx.contractHour), nowMs);
+      await this.savePeriodTotal(
+        'monthly_totals',
+        'month',
+        `${month}-01`,
+        ctx,
+        contractMonthBounds(month, ctx.timeZone, ctx.contractHour),
+        nowMs,
+      );
     }
   }
 
@@ -209,8 +240,22 @@ export class HistoryWorker {
          flow_time_s = EXCLUDED.flow_time_s, mass_kg = EXCLUDED.mass_kg, volume_m3 = EXCLUDED.volume_m3,
          standard_volume_m3 = EXCLUDED.standard_volume_m3, energy_j = EXCLUDED.energy_j, coverage = EXCLUDED.coverage,
          flags = EXCLUDED.flags, uncertainty_percent = EXCLUDED.uncertainty_percent, status = EXCLUDED.status, computed_at = now()`,
-      [ctx.meterRunId, key, total.start, total.end, total.hours, total.flowTimeS, total.massKg, total.volumeM3, total.standardVolumeM3,
-        total.energyJ, total.coverage, total.flags, total.uncertaintyPercent, total.status],
+      [
+        ctx.meterRunId,
+        key,
+        total.start,
+        total.end,
+        total.hours,
+        total.flowTimeS,
+        total.massKg,
+        total.volumeM3,
+        total.standardVolumeM3,
+        total.energyJ,
+        total.coverage,
+        total.flags,
+        total.uncertaintyPercent,
+        total.status,
+      ],
     );
   }
 
@@ -236,9 +281,16 @@ export class HistoryWorker {
 
   /** Queues every hour of every meter run in [fromMs, toMs) (the hourly sweep, a back-dated change). */
   async queueHours(meterRunIds: string[] | 'all', fromMs: number, toMs: number) {
-    const runs = meterRunIds === 'all'
-      ? (await this.pool.query('SELECT m.id::text, s.time_zone FROM meter_runs m JOIN sites s ON s.id = m.site_id')).rows
-      : (await this.pool.query('SELECT m.id::text, s.time_zone FROM meter_runs m JOIN sites s ON s.id = m.site_id WHERE m.id = ANY($1::bigint[])', [meterRunIds])).rows;
+    const runs =
+      meterRunIds === 'all'
+        ? (await this.pool.query('SELECT m.id::text, s.time_zone FROM meter_runs m JOIN sites s ON s.id = m.site_id'))
+            .rows
+        : (
+            await this.pool.query(
+              'SELECT m.id::text, s.time_zone FROM meter_runs m JOIN sites s ON s.id = m.site_id WHERE m.id = ANY($1::bigint[])',
+              [meterRunIds],
+            )
+          ).rows;
     for (const run of runs) {
       // Nothing before the meter run's first reading can change: start there.
       const first = await this.pool.query(

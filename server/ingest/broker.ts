@@ -2,10 +2,17 @@ import net from 'node:net';
 import type { AddressInfo } from 'node:net';
 
 /** Decides whether a device may connect with these credentials. */
-export type DeviceAuthenticator = (username: string, password: string) => Promise<{ id: string; siteCode: string } | null>;
+export type DeviceAuthenticator = (
+  username: string,
+  password: string,
+) => Promise<{ id: string; siteCode: string } | null>;
 
 /** Stores a message's readings; resolves once they are committed (then the broker sends PUBACK). */
-export type PublishHandler = (device: { id: string; siteCode: string }, topic: string, payload: Buffer) => Promise<unknown>;
+export type PublishHandler = (
+  device: { id: string; siteCode: string },
+  topic: string,
+  payload: Buffer,
+) => Promise<unknown>;
 
 export interface EmbeddedBroker {
   port: number;
@@ -52,7 +59,9 @@ export async function startEmbeddedBroker(options: {
   // callback, so an acknowledged reading is a committed reading. A database failure is passed
   // back as an error, which drops the connection unacknowledged and the device sends it again.
   aedes.authorizePublish = (client, packet, callback) => {
-    const device = client ? ((client as unknown as { device?: { id: string; siteCode: string } }).device ?? null) : null;
+    const device = client
+      ? ((client as unknown as { device?: { id: string; siteCode: string } }).device ?? null)
+      : null;
     if (!device) return callback(null); // the server's own publishes (live views)
     options.onPublish(device, packet.topic, packet.payload as Buffer).then(
       () => callback(null),
@@ -77,7 +86,9 @@ export async function startEmbeddedBroker(options: {
     port,
     aedes,
     disconnect(username: string) {
-      const clients = (aedes as unknown as { clients: Record<string, { close(): void; device?: { username?: string } }> }).clients;
+      const clients = (
+        aedes as unknown as { clients: Record<string, { close(): void; device?: { username?: string } }> }
+      ).clients;
       for (const client of Object.values(clients)) if (client.device?.username === username) client.close();
     },
     isUp: () => server.listening && !aedes.closed,

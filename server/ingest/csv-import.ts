@@ -38,7 +38,11 @@ function reject(p: Progress, line: number, message: string) {
  * a re-imported line (same tag and time) counts as a duplicate. The import's row is updated
  * after each committed batch, so the progress shown is what is really in the database.
  */
-export async function importReadingsCsv(deps: { pool: Pool; catalog: Catalog; writer: ReadingWriter; onStored?: (r: ValidReading[]) => void }, importId: string, file: string) {
+export async function importReadingsCsv(
+  deps: { pool: Pool; catalog: Catalog; writer: ReadingWriter; onStored?: (r: ValidReading[]) => void },
+  importId: string,
+  file: string,
+) {
   const p: Progress = { bytesRead: 0, rowsRead: 0, rowsImported: 0, duplicates: 0, rejected: 0, errors: [] };
   const input = fs.createReadStream(file, { highWaterMark: 1 << 20 });
   input.on('data', (chunk) => (p.bytesRead += chunk.length));
@@ -72,8 +76,17 @@ export async function importReadingsCsv(deps: { pool: Pool; catalog: Catalog; wr
       if (!columns) {
         const header = record.map((h) => h.trim().toLowerCase());
         const missing = ['time', 'tag', 'value'].filter((c) => !header.includes(c));
-        if (missing.length) throw new Error(`line ${line}: the header must name the columns time,tag,value[,quality][,unit]; missing ${missing.join(', ')}`);
-        columns = { time: header.indexOf('time'), tag: header.indexOf('tag'), value: header.indexOf('value'), quality: header.indexOf('quality'), unit: header.indexOf('unit') };
+        if (missing.length)
+          throw new Error(
+            `line ${line}: the header must name the columns time,tag,value[,quality][,unit]; missing ${missing.join(', ')}`,
+          );
+        columns = {
+          time: header.indexOf('time'),
+          tag: header.indexOf('tag'),
+          value: header.indexOf('value'),
+          quality: header.indexOf('quality'),
+          unit: header.indexOf('unit'),
+        };
         continue;
       }
       p.rowsRead++;
@@ -129,8 +142,12 @@ export async function importFieldTotalsCsv(deps: { pool: Pool }, importId: strin
   const p: Progress = { bytesRead: 0, rowsRead: 0, rowsImported: 0, duplicates: 0, rejected: 0, errors: [] };
   const input = fs.createReadStream(file);
   input.on('data', (chunk) => (p.bytesRead += chunk.length));
-  const parser = input.pipe(parse({ bom: true, trim: true, skip_empty_lines: true, relax_column_count: true, info: true }));
-  const runs = new Map((await deps.pool.query('SELECT id::text, tag FROM meter_runs')).rows.map((r) => [r.tag as string, r.id as string]));
+  const parser = input.pipe(
+    parse({ bom: true, trim: true, skip_empty_lines: true, relax_column_count: true, info: true }),
+  );
+  const runs = new Map(
+    (await deps.pool.query('SELECT id::text, tag FROM meter_runs')).rows.map((r) => [r.tag as string, r.id as string]),
+  );
   const column = { 'standard-volume': 'standard_volume_m3', mass: 'mass_kg', energy: 'energy_j' } as const;
   const expectedUnit = { 'standard-volume': 'volume', mass: 'mass', energy: 'energy' } as const;
   let header: string[] | null = null;
@@ -140,7 +157,10 @@ export async function importFieldTotalsCsv(deps: { pool: Pool }, importId: strin
       if (!header) {
         header = record.map((h) => h.toLowerCase());
         const missing = ['start', 'end', 'meterrun', 'quantity', 'value', 'unit'].filter((c) => !header!.includes(c));
-        if (missing.length) throw new Error(`line ${line}: the header must be start,end,meterRun,quantity,value,unit; missing ${missing.join(', ')}`);
+        if (missing.length)
+          throw new Error(
+            `line ${line}: the header must be start,end,meterRun,quantity,value,unit; missing ${missing.join(', ')}`,
+          );
         continue;
       }
       p.rowsRead++;
@@ -153,8 +173,10 @@ export async function importFieldTotalsCsv(deps: { pool: Pool }, importId: strin
       const quantity = row.quantity as keyof typeof column;
       const offset = /(Z|[+-]\d{2}:?\d{2})$/i;
       if (!runId) reject(p, line, `meterRun: unknown meter run ${row.meterrun}`);
-      else if (!offset.test(row.start) || Number.isNaN(start)) reject(p, line, 'start: must be ISO 8601 with an offset or Z');
-      else if (!offset.test(row.end) || Number.isNaN(end) || end <= start) reject(p, line, 'end: must be ISO 8601 with an offset, after start');
+      else if (!offset.test(row.start) || Number.isNaN(start))
+        reject(p, line, 'start: must be ISO 8601 with an offset or Z');
+      else if (!offset.test(row.end) || Number.isNaN(end) || end <= start)
+        reject(p, line, 'end: must be ISO 8601 with an offset, after start');
       else if (!(quantity in column)) reject(p, line, 'quantity: must be standard-volume, mass or energy');
       else if (row.value === '' || !Number.isFinite(value) || value < 0) reject(p, line, 'value: must be a number ≥ 0');
       else {

@@ -5,10 +5,16 @@ import type { Pool } from 'pg';
  * table every few seconds (a write per message would cost more than the reading itself).
  */
 export class DeviceCounters {
-  private pending = new Map<string, { accepted: number; rejected: number; lastRejection: string | null; seenMs: number }>();
+  private pending = new Map<
+    string,
+    { accepted: number; rejected: number; lastRejection: string | null; seenMs: number }
+  >();
   private timer: ReturnType<typeof setInterval>;
 
-  constructor(private readonly pool: Pool, intervalMs = 2000) {
+  constructor(
+    private readonly pool: Pool,
+    intervalMs = 2000,
+  ) {
     this.timer = setInterval(() => void this.flush().catch(() => undefined), intervalMs);
     (this.timer as unknown as { unref?: () => void }).unref?.();
   }

@@ -8,7 +8,10 @@ describe('cachedHourStartOf', () => {
     (zone) => {
       const cached = cachedHourStartOf();
       fc.assert(
-        fc.property(fc.integer({ min: Date.UTC(2020, 0, 1), max: Date.UTC(2030, 0, 1) }), (t) => cached(t, zone) === hourStartOf(t, zone)),
+        fc.property(
+          fc.integer({ min: Date.UTC(2020, 0, 1), max: Date.UTC(2030, 0, 1) }),
+          (t) => cached(t, zone) === hourStartOf(t, zone),
+        ),
         { numRuns: 2000 },
       );
     },

@@ -23,14 +23,19 @@ export function createMqttIngest(deps: {
   now?: () => number;
 }) {
   const now = deps.now ?? Date.now;
-  return async function ingest(device: { id: string; siteCode: string } | null, topic: string, payload: Buffer): Promise<IngestOutcome> {
+  return async function ingest(
+    device: { id: string; siteCode: string } | null,
+    topic: string,
+    payload: Buffer,
+  ): Promise<IngestOutcome> {
     const reject = (reason: string, count = 1): IngestOutcome => {
       if (device) deps.counters.count(device.id, 0, count, `${topic}: ${reason}`);
       return { accepted: 0, rejected: count, reasons: [reason] };
     };
     const where = parseTopic(topic);
     if (!where) return reject(`topic must be tallyrun/<site code>/<transmitter tag>`);
-    if (device && device.siteCode !== where.siteCode) return reject(`this device may publish only under tallyrun/${device.siteCode}/`);
+    if (device && device.siteCode !== where.siteCode)
+      return reject(`this device may publish only under tallyrun/${device.siteCode}/`);
     const transmitter = await deps.catalog.bySiteAndTag(where.siteCode, where.tag);
     if (!transmitter) return reject(`unknown transmitter ${where.tag} at site ${where.siteCode}`);
     const raw = parsePayload(payload);
@@ -44,7 +49,8 @@ export function createMqttIngest(deps: {
       else good.push(checked);
     }
     if (good.length) await deps.committer.submit(good);
-    if (device) deps.counters.count(device.id, good.length, reasons.length, reasons[0] ? `${topic}: ${reasons[0]}` : undefined);
+    if (device)
+      deps.counters.count(device.id, good.length, reasons.length, reasons[0] ? `${topic}: ${reasons[0]}` : undefined);
     if (good.length) deps.onStored?.(good);
     return { accepted: good.length, rejected: reasons.length, reasons };
   };

@@ -22,7 +22,8 @@ export function parsePayload(payload: Buffer | string): RawReading[] | string {
   if (items.length > 10_000) return 'payload: more than 10000 readings in one message';
   const out: RawReading[] = [];
   for (const item of items) {
-    if (!item || typeof item !== 'object' || Array.isArray(item)) return 'payload: each reading must be an object { "t", "v", "q" }';
+    if (!item || typeof item !== 'object' || Array.isArray(item))
+      return 'payload: each reading must be an object { "t", "v", "q" }';
     const o = item as Record<string, unknown>;
     out.push({ time: o.t, value: o.v, quality: o.q, unit: o.u });
   }

@@ -38,7 +38,9 @@ export async function ensureReadingPartition(pool: Pool, ms: number) {
         `WITH moved AS (DELETE FROM readings_default WHERE time >= $1 AND time < $2 RETURNING *) INSERT INTO ${name} SELECT * FROM moved`,
         [fromIso, toIso],
       );
-      await client.query(`ALTER TABLE readings ATTACH PARTITION ${name} FOR VALUES FROM ('${fromIso}') TO ('${toIso}')`);
+      await client.query(
+        `ALTER TABLE readings ATTACH PARTITION ${name} FOR VALUES FROM ('${fromIso}') TO ('${toIso}')`,
+      );
     }
     await client.query('COMMIT');
     return name;
@@ -119,7 +121,11 @@ export class ReadingWriter {
  * batches are still being written — low latency when quiet, big batches under load.
  */
 export class GroupCommitter {
-  private queue: { readings: ValidReading[]; resolve: (r: { inserted: number; duplicates: number }) => void; reject: (e: unknown) => void }[] = [];
+  private queue: {
+    readings: ValidReading[];
+    resolve: (r: { inserted: number; duplicates: number }) => void;
+    reject: (e: unknown) => void;
+  }[] = [];
   private scheduled = false;
   private inFlight = 0;
 
@@ -146,7 +152,10 @@ export class GroupCommitter {
       // Take whole messages up to maxBatch readings (a message is never split).
       let take = 0;
       let count = 0;
-      while (take < this.queue.length && (take === 0 || count + this.queue[take].readings.length <= this.options.maxBatch)) {
+      while (
+        take < this.queue.length &&
+        (take === 0 || count + this.queue[take].readings.length <= this.options.maxBatch)
+      ) {
         count += this.queue[take].readings.length;
         take++;
       }
@@ -157,7 +166,8 @@ export class GroupCommitter {
         .write(all, 'mqtt')
         .then(
           // Duplicates are known for the batch as a whole; each publisher learns its readings are stored.
-          (res) => batch.forEach((b) => b.resolve(batch.length === 1 ? res : { inserted: b.readings.length, duplicates: 0 })),
+          (res) =>
+            batch.forEach((b) => b.resolve(batch.length === 1 ? res : { inserted: b.readings.length, duplicates: 0 })),
           (err) => batch.forEach((b) => b.reject(err)),
         )
         .finally(() => {

@@ -3,17 +3,35 @@ import type { CatalogTransmitter } from './catalog';
 
 const now = Date.parse('2026-12-02T12:00:00Z');
 const base: CatalogTransmitter = {
-  id: '7', tag: 'PT-1', meterRunId: '3', siteId: '1', siteCode: 'S', timeZone: 'UTC', measures: 'static-pressure',
-  unit: 'psi', pressureReference: 'gauge', lowerRange: 0, upperRange: 1000, atmosphericPressurePa: 84_000,
+  id: '7',
+  tag: 'PT-1',
+  meterRunId: '3',
+  siteId: '1',
+  siteCode: 'S',
+  timeZone: 'UTC',
+  measures: 'static-pressure',
+  unit: 'psi',
+  pressureReference: 'gauge',
+  lowerRange: 0,
+  upperRange: 1000,
+  atmosphericPressurePa: 84_000,
 };
 
 describe('validateReading', () => {
   it('accepts an ISO time with an offset and converts it to epoch milliseconds', () => {
-    expect(validateReading({ time: '2026-12-02T05:00:00-07:00', value: 250 }, base, now)).toMatchObject({ timeMs: Date.parse('2026-12-02T12:00:00Z'), value: 250, quality: 0 });
+    expect(validateReading({ time: '2026-12-02T05:00:00-07:00', value: 250 }, base, now)).toMatchObject({
+      timeMs: Date.parse('2026-12-02T12:00:00Z'),
+      value: 250,
+      quality: 0,
+    });
   });
 
   it('accepts epoch milliseconds and a quality name in any letter case', () => {
-    expect(validateReading({ time: now - 1000, value: '12.5', quality: 'Substituted' }, base, now)).toMatchObject({ timeMs: now - 1000, value: 12.5, quality: 3 });
+    expect(validateReading({ time: now - 1000, value: '12.5', quality: 'Substituted' }, base, now)).toMatchObject({
+      timeMs: now - 1000,
+      value: 12.5,
+      quality: 3,
+    });
   });
 
   it.each([

@@ -33,10 +33,12 @@ export function validateReading(
 ): ValidReading | string {
   let timeMs: number;
   if (typeof raw.time === 'number') {
-    if (!Number.isFinite(raw.time) || !Number.isInteger(raw.time)) return 'time: epoch milliseconds must be a whole number';
+    if (!Number.isFinite(raw.time) || !Number.isInteger(raw.time))
+      return 'time: epoch milliseconds must be a whole number';
     timeMs = raw.time;
   } else if (typeof raw.time === 'string') {
-    if (!isoWithOffset.test(raw.time.trim())) return `time: "${raw.time}" must be ISO 8601 with an offset or Z (e.g. 2026-11-01T09:00:00-07:00)`;
+    if (!isoWithOffset.test(raw.time.trim()))
+      return `time: "${raw.time}" must be ISO 8601 with an offset or Z (e.g. 2026-11-01T09:00:00-07:00)`;
     timeMs = Date.parse(raw.time.trim());
     if (Number.isNaN(timeMs)) return `time: "${raw.time}" is not a valid date`;
   } else {
@@ -47,8 +49,16 @@ export function validateReading(
 
   let value: number;
   if (typeof raw.value === 'number') value = raw.value;
-  else if (typeof raw.value === 'string' && raw.value.trim() !== '' && /^[-+]?(\d+\.?\d*|\.\d+)([eE][-+]?\d+)?$/.test(raw.value.trim())) value = Number(raw.value);
-  else return raw.value === undefined || raw.value === '' ? 'value: is missing' : `value: ${JSON.stringify(raw.value)} is not a number`;
+  else if (
+    typeof raw.value === 'string' &&
+    raw.value.trim() !== '' &&
+    /^[-+]?(\d+\.?\d*|\.\d+)([eE][-+]?\d+)?$/.test(raw.value.trim())
+  )
+    value = Number(raw.value);
+  else
+    return raw.value === undefined || raw.value === ''
+      ? 'value: is missing'
+      : `value: ${JSON.stringify(raw.value)} is not a number`;
   if (!Number.isFinite(value)) return 'value: must be a finite number';
 
   let quality = 0;
@@ -64,11 +74,21 @@ export function validateReading(
   if (transmitter.measures === 'temperature') {
     if (toSI(value, transmitter.unit) <= 0) return `value: ${value} ${transmitter.unit} is at or below absolute zero`;
   } else if (transmitter.measures === 'static-pressure') {
-    const absolutePa = toSI(value, transmitter.unit) + (transmitter.pressureReference === 'gauge' ? transmitter.atmosphericPressurePa : 0);
+    const absolutePa =
+      toSI(value, transmitter.unit) +
+      (transmitter.pressureReference === 'gauge' ? transmitter.atmosphericPressurePa : 0);
     if (absolutePa <= 0) {
-      const floor = transmitter.pressureReference === 'gauge' ? fromSI(-transmitter.atmosphericPressurePa, transmitter.unit) : 0;
+      const floor =
+        transmitter.pressureReference === 'gauge' ? fromSI(-transmitter.atmosphericPressurePa, transmitter.unit) : 0;
       return `value: ${value} ${transmitter.unit} ${transmitter.pressureReference} is a negative absolute pressure (must be above ${floor.toPrecision(4)})`;
     }
   }
-  return { transmitterId: transmitter.id, meterRunId: transmitter.meterRunId, timeZone: transmitter.timeZone, timeMs, value, quality };
+  return {
+    transmitterId: transmitter.id,
+    meterRunId: transmitter.meterRunId,
+    timeZone: transmitter.timeZone,
+    timeMs,
+    value,
+    quality,
+  };
 }

@@ -22,7 +22,9 @@ export function startSchedule(deps: { pool: Pool; history: HistoryWorker }) {
   const tasks = [
     cron.schedule('1 * * * *', () => {
       const now = Date.now();
-      void deps.history.queueHours('all', now - 2 * hourMs, now).catch((err) => console.error('[jobs] hourly sweep:', err));
+      void deps.history
+        .queueHours('all', now - 2 * hourMs, now)
+        .catch((err) => console.error('[jobs] hourly sweep:', err));
     }),
     cron.schedule('10 0 * * *', () => {
       void makePartitionsAhead(deps.pool).catch((err) => console.error('[jobs] partitions:', err));

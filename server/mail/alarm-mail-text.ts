@@ -22,8 +22,10 @@ export interface MailSite {
   timeZone: string;
 }
 
-const local = (d: Date, site: MailSite) => `${DateTime.fromJSDate(d, { zone: site.timeZone }).toFormat('yyyy-LL-dd HH:mm')} ${site.timeZone}`;
-const line = (a: MailAlarm, site: MailSite) => `- [${a.priority.toUpperCase()}] ${a.meterRunTag}${a.transmitterTag ? ` / ${a.transmitterTag}` : ''}: ${a.condition}, raised ${local(a.raisedAt, site)} (${a.state}) — ${a.message}`;
+const local = (d: Date, site: MailSite) =>
+  `${DateTime.fromJSDate(d, { zone: site.timeZone }).toFormat('yyyy-LL-dd HH:mm')} ${site.timeZone}`;
+const line = (a: MailAlarm, site: MailSite) =>
+  `- [${a.priority.toUpperCase()}] ${a.meterRunTag}${a.transmitterTag ? ` / ${a.transmitterTag}` : ''}: ${a.condition}, raised ${local(a.raisedAt, site)} (${a.state}) — ${a.message}`;
 
 /** The usual caution: the mail may send someone to the line. */
 const CAUTION =
@@ -48,7 +50,12 @@ export function alarmMail(a: MailAlarm, site: MailSite): { subject: string; text
 }
 
 /** @returns subject and text of one mail that stands for many alarms at a site (an alarm flood, TRADE.md §7) */
-export function floodMail(alarms: MailAlarm[], site: MailSite, windowMinutes: number, countInWindow: number): { subject: string; text: string } {
+export function floodMail(
+  alarms: MailAlarm[],
+  site: MailSite,
+  windowMinutes: number,
+  countInWindow: number,
+): { subject: string; text: string } {
   const byCondition = new Map<string, number>();
   for (const a of alarms) byCondition.set(a.condition, (byCondition.get(a.condition) ?? 0) + 1);
   const shown = alarms.slice(0, 50);
@@ -71,7 +78,12 @@ export function floodMail(alarms: MailAlarm[], site: MailSite, windowMinutes: nu
 }
 
 /** @returns subject and text of the daily digest for a site's contract day */
-export function digestMail(site: MailSite, contractDay: string, raised: MailAlarm[], open: MailAlarm[]): { subject: string; text: string } {
+export function digestMail(
+  site: MailSite,
+  contractDay: string,
+  raised: MailAlarm[],
+  open: MailAlarm[],
+): { subject: string; text: string } {
   const count = (list: MailAlarm[], p: string) => list.filter((a) => a.priority === p).length;
   return {
     subject: `[Tallyrun] Alarm digest ${site.code} for contract day ${contractDay}: ${raised.length} raised, ${open.length} open`,

@@ -27,7 +27,8 @@ afterAll(async () => {
   await t.close();
 });
 
-const mailsAbout = async (text: string) => (await MailMessage.findAll()).filter((m) => m.subject.includes(text) || m.text.includes(text));
+const mailsAbout = async (text: string) =>
+  (await MailMessage.findAll()).filter((m) => m.subject.includes(text) || m.text.includes(text));
 
 describe('AlarmNotifier', () => {
   it('mails a new medium alarm to the engineers; it arrives in the stand-in and in the outbox (GET /api/mail)', async () => {
@@ -57,7 +58,15 @@ describe('AlarmNotifier', () => {
     const f = await alarmFixture(t, engineer.token);
     const now = Date.now();
     const notifier = new AlarmNotifier(t.services.pool, mailer, { floodCount: 1000 });
-    const signal = (kind: 'raise' | 'clear', timeMs: number) => ({ kind, condition: 'bad-quality' as const, transmitterId: f.pt.id, timeMs, onsetMs: timeMs, message: `${f.pt.tag} reports bad-quality readings.`, detail: {} });
+    const signal = (kind: 'raise' | 'clear', timeMs: number) => ({
+      kind,
+      condition: 'bad-quality' as const,
+      transmitterId: f.pt.id,
+      timeMs,
+      onsetMs: timeMs,
+      message: `${f.pt.tag} reports bad-quality readings.`,
+      detail: {},
+    });
     await applySignal(t.services.pool, f.meterRunId, signal('raise', now - 5 * MIN), 'medium', now);
     await notifier.run();
     await applySignal(t.services.pool, f.meterRunId, signal('clear', now - 4 * MIN), 'medium', now);
@@ -73,13 +82,31 @@ describe('AlarmNotifier', () => {
     let n = 0;
     for (const tr of [f.dp, f.pt, f.tt]) {
       for (const condition of conditions) {
-        await applySignal(t.services.pool, f.meterRunId, { kind: 'raise', condition, transmitterId: tr.id, timeMs: now - n * 10_000, onsetMs: now - n * 10_000, message: `${tr.tag} ${condition} (test)`, detail: {} }, 'medium', now);
+        await applySignal(
+          t.services.pool,
+          f.meterRunId,
+          {
+            kind: 'raise',
+            condition,
+            transmitterId: tr.id,
+            timeMs: now - n * 10_000,
+            onsetMs: now - n * 10_000,
+            message: `${tr.tag} ${condition} (test)`,
+            detail: {},
+          },
+          'medium',
+          now,
+        );
         n++;
       }
     }
     const result = await new AlarmNotifier(t.services.pool, mailer).run();
     expect(result.floodMails).toBeGreaterThanOrEqual(1);
-    const site = (await t.services.pool.query('SELECT code FROM sites s JOIN meter_runs m ON m.site_id = s.id WHERE m.id = $1', [f.meterRunId])).rows[0].code;
+    const site = (
+      await t.services.pool.query('SELECT code FROM sites s JOIN meter_runs m ON m.site_id = s.id WHERE m.id = $1', [
+        f.meterRunId,
+      ])
+    ).rows[0].code;
     const mails = await mailsAbout(site);
     expect(mails).toHaveLength(1);
     expect(mails[0].subject).toMatch(new RegExp(`Alarm flood at ${site}: 12 alarms`));
@@ -89,7 +116,21 @@ describe('AlarmNotifier', () => {
   it('sends one digest per site for the contract day just ended, within the hour after the contract hour', async () => {
     const f = await alarmFixture(t, engineer.token, { timeZone: 'America/Denver', contractHour: 9 });
     const dayStart = Date.parse('2026-10-20T09:00:00-06:00'); // contract day 2026-10-20 starts at 09:00 MDT
-    await applySignal(t.services.pool, f.meterRunId, { kind: 'raise', condition: 'stale', transmitterId: f.dp.id, timeMs: dayStart + 3_600_000, onsetMs: dayStart + 3_600_000, message: `${f.dp.tag} stale (test)`, detail: {} }, 'medium', Date.now());
+    await applySignal(
+      t.services.pool,
+      f.meterRunId,
+      {
+        kind: 'raise',
+        condition: 'stale',
+        transmitterId: f.dp.id,
+        timeMs: dayStart + 3_600_000,
+        onsetMs: dayStart + 3_600_000,
+        message: `${f.dp.tag} stale (test)`,
+        detail: {},
+      },
+      'medium',
+      Date.now(),
+    );
     const notifier = new AlarmNotifier(t.services.pool, mailer);
     const nextDay = dayStart + 24 * 3_600_000;
     expect(await notifier.sendDigests(nextDay - 60_000)).not.toContain(f.siteId); // before the contract hour

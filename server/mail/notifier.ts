@@ -44,7 +44,11 @@ const toMailAlarm = (r: Record<string, unknown>): MailAlarm => ({
   meterRunTag: r.meter_run_tag as string,
   transmitterTag: (r.transmitter_tag as string | null) ?? null,
 });
-const toSite = (r: Record<string, unknown>): MailSite => ({ code: r.site_code as string, name: r.site_name as string, timeZone: r.time_zone as string });
+const toSite = (r: Record<string, unknown>): MailSite => ({
+  code: r.site_code as string,
+  name: r.site_name as string,
+  timeZone: r.time_zone as string,
+});
 
 export class AlarmNotifier {
   private running: Promise<unknown> | null = null;
@@ -93,7 +97,9 @@ export class AlarmNotifier {
   }
 
   private async recipients(): Promise<string[]> {
-    const { rows } = await this.pool.query(`SELECT email FROM users WHERE role = 'engineer' AND NOT disabled ORDER BY email`);
+    const { rows } = await this.pool.query(
+      `SELECT email FROM users WHERE role = 'engineer' AND NOT disabled ORDER BY email`,
+    );
     return rows.map((r) => r.email as string);
   }
 
@@ -101,48 +107,83 @@ export class AlarmNotifier {
     const nowMs = this.now();
     let alarmMails = 0;
     let floodMails = 0;
-    const { rows } = await this.pool.query(`SELECT ${alarmColumns} ${alarmFrom} WHERE a.notify_status = 'pending' ORDER BY a.created_at, a.id`);
+    const { rows } = await this.pool.query(
+      `SELECT ${alarmColumns} ${alarmFrom} WHERE a.notify_status = 'pending' ORDER BY a.created_at, a.id`,
+    );
     if (!rows.length) return { alarmMails, floodMails };
     const to = await this.recipients();
     const mark = (ids: string[], status: string) =>
-      this.pool.query(`UPDATE alarms SET notify_status = $2, notified_at = CASE WHEN $2 IN ('sent', 'summarised') THEN to_timestamp($3 / 1000.0) ELSE notified_at END WHERE id = ANY($1::bigint[])`, [ids, status, nowMs]);
+      this.pool.query(
+        `UPDATE alarms SET notify_status = $2, notified_at = CASE WHEN $2 IN ('sent', 'summarised') THEN to_timestamp($3 / 1000.0) ELSE notified_at END WHERE id = ANY($1::bigint[])`,
+        [ids, status, nowMs],
+      );
     // Not (or no longer) news: shelved, out of service, normal again and acknowledged, or no one to tell.
-    const stale = rows.filter((r) => !['active-unacknowledged', 'active-acknowledged', 'returned-unacknowledged'].includes(r.state as string) || !to.length);
-    if (stale.length) await mark(stale.map((r) => r.id), 'not-needed');
+    const stale = rows.filter(
+      (r) =>
+        !['active-unacknowledged', 'active-acknowledged', 'returned-unacknowledged'].includes(r.state as string) ||
+        !to.length,
+    );
+    if (stale.length)
+      await mark(
+        stale.map((r) => r.id),
+        'not-needed',
+      );
     const bySite = new Map<string, Record<string, unknown>[]>();
     for (const r of rows) if (!stale.includes(r)) bySite.set(r.site_id, [...(bySite.get(r.site_id) ?? []), r]);
 
     for (const [siteId, pending] of bySite) {
       const site = toSite(pending[0]);
-      const recent = (await this.pool.query(
-        `SELECT count(*)::int AS n FROM alarms a JOIN meter_runs m ON m.id = a.meter_run_id WHERE m.site_id = $1 AND a.raised_at > to_timestamp($2 / 1000.0)`,
-        [siteId, nowMs - this.floodWindowMs],
-      )).rows[0].n as number;
-      const lastFlood = (await this.pool.query(`SELECT max(sent_at) AS t FROM alarm_mails WHERE site_id = $1 AND kind = 'flood'`, [siteId])).rows[0].t as Date | null;
+      const recent = (
+        await this.pool.query(
+          `SELECT count(*)::int AS n FROM alarms a JOIN meter_runs m ON m.id = a.meter_run_id WHERE m.site_id = $1 AND a.raised_at > to_timestamp($2 / 1000.0)`,
+          [siteId, nowMs - this.floodWindowMs],
+        )
+      ).rows[0].n as number;
+      const lastFlood = (
+        await this.pool.query(`SELECT max(sent_at) AS t FROM alarm_mails WHERE site_id = $1 AND kind = 'flood'`, [
+          siteId,
+        ])
+      ).rows[0].t as Date | null;
       const floodMailedRecently = lastFlood !== null && lastFlood.getTime() > nowMs - this.floodWindowMs;
       if (recent > this.floodCount || pending.length > this.floodCount || floodMailedRecently) {
         // A flood: one mail for all of them, at most one per window (the rest wait for the next one).
         if (floodMailedRecently) continue;
-        const mail = floodMail(pending.map(toMailAlarm), site, this.floodWindowMs / 60_000, Math.max(recent, pending.length));
+        const mail = floodMail(
+          pending.map(toMailAlarm),
+          site,
+          this.floodWindowMs / 60_000,
+          Math.max(recent, pending.length),
+        );
         await this.mailer.send({ to, ...mail });
-        await this.pool.query(`INSERT INTO alarm_mails (site_id, kind, recipients, subject, sent_at) VALUES ($1, 'flood', $2, $3, to_timestamp($4 / 1000.0))`, [siteId, to, mail.subject, nowMs]);
-        await mark(pending.map((r) => r.id as string), 'summarised');
+        await this.pool.query(
+          `INSERT INTO alarm_mails (site_id, kind, recipients, subject, sent_at) VALUES ($1, 'flood', $2, $3, to_timestamp($4 / 1000.0))`,
+          [siteId, to, mail.subject, nowMs],
+        );
+        await mark(
+          pending.map((r) => r.id as string),
+          'summarised',
+        );
         floodMails++;
         continue;
       }
       for (const r of pending) {
-        const mailedRecently = (await this.pool.query(
-          `SELECT 1 FROM alarm_mails x JOIN alarms b ON b.id = x.alarm_id
+        const mailedRecently = (
+          await this.pool.query(
+            `SELECT 1 FROM alarm_mails x JOIN alarms b ON b.id = x.alarm_id
             WHERE x.kind = 'alarm' AND b.meter_run_id = $1 AND b.transmitter_id IS NOT DISTINCT FROM $2::bigint AND b.condition = $3 AND x.sent_at > to_timestamp($4 / 1000.0) LIMIT 1`,
-          [r.meter_run_id, r.transmitter_id, r.condition, nowMs - this.intervalMs],
-        )).rowCount;
+            [r.meter_run_id, r.transmitter_id, r.condition, nowMs - this.intervalMs],
+          )
+        ).rowCount;
         if (mailedRecently) {
           await mark([r.id as string], 'not-needed');
           continue;
         }
         const mail = alarmMail(toMailAlarm(r), site);
         await this.mailer.send({ to, ...mail });
-        await this.pool.query(`INSERT INTO alarm_mails (site_id, kind, alarm_id, recipients, subject, sent_at) VALUES ($1, 'alarm', $2, $3, $4, to_timestamp($5 / 1000.0))`, [siteId, r.id, to, mail.subject, nowMs]);
+        await this.pool.query(
+          `INSERT INTO alarm_mails (site_id, kind, alarm_id, recipients, subject, sent_at) VALUES ($1, 'alarm', $2, $3, $4, to_timestamp($5 / 1000.0))`,
+          [siteId, r.id, to, mail.subject, nowMs],
+        );
         await mark([r.id as string], 'sent');
         alarmMails++;
       }
@@ -156,7 +197,9 @@ export class AlarmNotifier {
    * @returns the sites mailed
    */
   async sendDigests(nowMs = this.now()): Promise<string[]> {
-    const sites = (await this.pool.query('SELECT id::text, code, name, time_zone, contract_hour FROM sites ORDER BY id')).rows;
+    const sites = (
+      await this.pool.query('SELECT id::text, code, name, time_zone, contract_hour FROM sites ORDER BY id')
+    ).rows;
     const sent: string[] = [];
     for (const s of sites) {
       const today = contractDayBounds(contractDayOf(nowMs, s.time_zone, s.contract_hour), s.time_zone, s.contract_hour);
@@ -164,11 +207,18 @@ export class AlarmNotifier {
       const day = contractDayOf(today.startMs - 1, s.time_zone, s.contract_hour);
       const bounds = contractDayBounds(day, s.time_zone, s.contract_hour);
       const site: MailSite = { code: s.code, name: s.name, timeZone: s.time_zone };
-      const raised = (await this.pool.query(
-        `SELECT ${alarmColumns} ${alarmFrom} WHERE m.site_id = $1 AND a.raised_at >= to_timestamp($2 / 1000.0) AND a.raised_at < to_timestamp($3 / 1000.0) ORDER BY a.raised_at`,
-        [s.id, bounds.startMs, bounds.endMs],
-      )).rows.map(toMailAlarm);
-      const open = (await this.pool.query(`SELECT ${alarmColumns} ${alarmFrom} WHERE m.site_id = $1 AND a.state <> 'normal' ORDER BY a.priority, a.raised_at`, [s.id])).rows.map(toMailAlarm);
+      const raised = (
+        await this.pool.query(
+          `SELECT ${alarmColumns} ${alarmFrom} WHERE m.site_id = $1 AND a.raised_at >= to_timestamp($2 / 1000.0) AND a.raised_at < to_timestamp($3 / 1000.0) ORDER BY a.raised_at`,
+          [s.id, bounds.startMs, bounds.endMs],
+        )
+      ).rows.map(toMailAlarm);
+      const open = (
+        await this.pool.query(
+          `SELECT ${alarmColumns} ${alarmFrom} WHERE m.site_id = $1 AND a.state <> 'normal' ORDER BY a.priority, a.raised_at`,
+          [s.id],
+        )
+      ).rows.map(toMailAlarm);
       if (!raised.length && !open.length) continue;
       const to = await this.recipients();
       if (!to.length) continue;

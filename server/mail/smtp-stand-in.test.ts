@@ -14,7 +14,11 @@ it('stores a message sent through nodemailer, with its recipients, subject and t
   const mailer = createMailer({ host: '127.0.0.1', port: smtp.port });
   const subject = `Low in range at KFG-101 ${t.unique()} – 8 % of span`;
   try {
-    await mailer.send({ to: ['engineer@demo.tallyrun', 'engineer2@demo.tallyrun'], subject, text: 'DP has been below 10 % of span for 15 minutes.\nCheck the low-range transmitter.' });
+    await mailer.send({
+      to: ['engineer@demo.tallyrun', 'engineer2@demo.tallyrun'],
+      subject,
+      text: 'DP has been below 10 % of span for 15 minutes.\nCheck the low-range transmitter.',
+    });
   } finally {
     mailer.close();
     await smtp.close();
@@ -26,6 +30,7 @@ it('stores a message sent through nodemailer, with its recipients, subject and t
 });
 
 it('decodes a quoted-printable body and an encoded-word subject', async () => {
-  const raw = 'Subject: =?UTF-8?Q?Caf=C3=A9_meter?=\r\nContent-Transfer-Encoding: quoted-printable\r\n\r\n25 =C2=B0C and a soft=\r\n break\r\n';
+  const raw =
+    'Subject: =?UTF-8?Q?Caf=C3=A9_meter?=\r\nContent-Transfer-Encoding: quoted-printable\r\n\r\n25 =C2=B0C and a soft=\r\n break\r\n';
   expect(await parseMessage(raw)).toEqual({ subject: 'Café meter', text: '25 °C and a soft break' });
 });

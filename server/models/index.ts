@@ -11,5 +11,6 @@ export { User, AuditEvent, MailMessage, Site, MeterRun, ConfigVersion, Transmitt
 
 /** Binds every model to the connection; call once per process before using them. */
 export function initModels(sequelize: Sequelize) {
-  for (const model of [User, AuditEvent, MailMessage, Site, MeterRun, ConfigVersion, Transmitter, Device]) model.initModel(sequelize);
+  for (const model of [User, AuditEvent, MailMessage, Site, MeterRun, ConfigVersion, Transmitter, Device])
+    model.initModel(sequelize);
 }

@@ -1,7 +1,13 @@
 import { DateTime } from 'luxon';
 import { testApp } from '../test-support/app';
 import { checkPassword } from '../auth/passwords';
-import { configVersionSchema, lineSchema, meterRunSchema, siteSchema, transmitterSchema } from '../../shared/schemas/setup';
+import {
+  configVersionSchema,
+  lineSchema,
+  meterRunSchema,
+  siteSchema,
+  transmitterSchema,
+} from '../../shared/schemas/setup';
 import { DEMO_METER_RUNS, DEMO_SITES, DEMO_TRANSMITTERS, scenarioTimeline } from '../../simulators/scenario';
 import { demoScenarioRows, seedDemoScenario } from './demo-scenario';
 
@@ -27,14 +33,22 @@ async function demoCounts() {
   return {
     sites: (await rows('SELECT count(*)::int n FROM sites WHERE code IN (:siteCodes)', { siteCodes }))[0].n,
     meterRuns: (await rows('SELECT count(*)::int n FROM meter_runs WHERE tag IN (:runTags)', { runTags }))[0].n,
-    configVersions: (await rows('SELECT count(*)::int n FROM config_versions c JOIN meter_runs m ON m.id = c.meter_run_id WHERE m.tag IN (:runTags)', { runTags }))[0].n,
-    transmitters: (await rows('SELECT count(*)::int n FROM transmitters WHERE tag IN (:transmitterTags)', { transmitterTags }))[0].n,
+    configVersions: (
+      await rows(
+        'SELECT count(*)::int n FROM config_versions c JOIN meter_runs m ON m.id = c.meter_run_id WHERE m.tag IN (:runTags)',
+        { runTags },
+      )
+    )[0].n,
+    transmitters: (
+      await rows('SELECT count(*)::int n FROM transmitters WHERE tag IN (:transmitterTags)', { transmitterTags })
+    )[0].n,
     devices: (await rows('SELECT count(*)::int n FROM devices WHERE username IN (:usernames)', { usernames }))[0].n,
   };
 }
 async function tableCounts() {
   const out: Record<string, number> = {};
-  for (const table of ['sites', 'meter_runs', 'config_versions', 'transmitters', 'devices']) out[table] = (await rows(`SELECT count(*)::int n FROM ${table}`))[0].n;
+  for (const table of ['sites', 'meter_runs', 'config_versions', 'transmitters', 'devices'])
+    out[table] = (await rows(`SELECT count(*)::int n FROM ${table}`))[0].n;
   return out;
 }
 
@@ -51,23 +65,72 @@ describe('seedDemoScenario', () => {
   it('creates nothing on a second run and leaves every row count as it was', async () => {
     const before = await tableCounts();
     const second = await seedDemoScenario(ctx.sequelize, { demoPassword, nowMs });
-    expect(second).toEqual({ demoMonth: '2026-11', sites: 0, meterRuns: 0, configVersions: 0, transmitters: 0, devices: 0 });
+    expect(second).toEqual({
+      demoMonth: '2026-11',
+      sites: 0,
+      meterRuns: 0,
+      configVersions: 0,
+      transmitters: 0,
+      devices: 0,
+    });
     expect(await tableCounts()).toEqual(before);
   });
 
   it('stores rows that pass the shared set-up schemas', async () => {
     for (const s of await rows('SELECT * FROM sites WHERE code IN (:siteCodes)', { siteCodes })) {
-      expect(siteSchema.safeParse({ code: s.code, name: s.name, timeZone: s.time_zone, contractHour: s.contract_hour, basePressurePa: s.base_pressure_pa, baseTemperatureK: s.base_temperature_k, atmosphericPressurePa: s.atmospheric_pressure_pa, displayUnits: s.display_units }).success).toBe(true);
+      expect(
+        siteSchema.safeParse({
+          code: s.code,
+          name: s.name,
+          timeZone: s.time_zone,
+          contractHour: s.contract_hour,
+          basePressurePa: s.base_pressure_pa,
+          baseTemperatureK: s.base_temperature_k,
+          atmosphericPressurePa: s.atmospheric_pressure_pa,
+          displayUnits: s.display_units,
+        }).success,
+      ).toBe(true);
     }
     for (const m of await rows('SELECT * FROM meter_runs WHERE tag IN (:runTags)', { runTags })) {
-      const versions = await rows('SELECT * FROM config_versions WHERE meter_run_id = :id ORDER BY effective_from', { id: m.id });
+      const versions = await rows('SELECT * FROM config_versions WHERE meter_run_id = :id ORDER BY effective_from', {
+        id: m.id,
+      });
       expect(lineSchema.safeParse(m.line).success).toBe(true);
-      const parsed = meterRunSchema.safeParse({ siteId: String(m.site_id), tag: m.tag, name: m.name, element: versions[0].element, fluid: versions[0].fluid, holdLimitS: m.hold_limit_s, maxGapS: m.max_gap_s, stackSwitchUpShare: m.stack_switch_up_share, stackSwitchDownShare: m.stack_switch_down_share, line: m.line });
+      const parsed = meterRunSchema.safeParse({
+        siteId: String(m.site_id),
+        tag: m.tag,
+        name: m.name,
+        element: versions[0].element,
+        fluid: versions[0].fluid,
+        holdLimitS: m.hold_limit_s,
+        maxGapS: m.max_gap_s,
+        stackSwitchUpShare: m.stack_switch_up_share,
+        stackSwitchDownShare: m.stack_switch_down_share,
+        line: m.line,
+      });
       expect({ tag: m.tag, ok: parsed.success }).toEqual({ tag: m.tag, ok: true });
-      for (const v of versions) expect(configVersionSchema.safeParse({ effectiveFrom: (v.effective_from as Date).toISOString(), element: v.element, fluid: v.fluid, reason: v.reason }).success).toBe(true);
+      for (const v of versions)
+        expect(
+          configVersionSchema.safeParse({
+            effectiveFrom: (v.effective_from as Date).toISOString(),
+            element: v.element,
+            fluid: v.fluid,
+            reason: v.reason,
+          }).success,
+        ).toBe(true);
     }
     for (const t of await rows('SELECT * FROM transmitters WHERE tag IN (:transmitterTags)', { transmitterTags })) {
-      const parsed = transmitterSchema.safeParse({ meterRunId: String(t.meter_run_id), tag: t.tag, measures: t.measures, unit: t.unit, pressureReference: t.pressure_reference, lowerRange: t.lower_range, upperRange: t.upper_range, stackRole: t.stack_role, accuracyPercentOfSpan: t.accuracy_percent_of_span });
+      const parsed = transmitterSchema.safeParse({
+        meterRunId: String(t.meter_run_id),
+        tag: t.tag,
+        measures: t.measures,
+        unit: t.unit,
+        pressureReference: t.pressure_reference,
+        lowerRange: t.lower_range,
+        upperRange: t.upper_range,
+        stackRole: t.stack_role,
+        accuracyPercentOfSpan: t.accuracy_percent_of_span,
+      });
       expect({ tag: t.tag, ok: parsed.success }).toEqual({ tag: t.tag, ok: true });
     }
   });
@@ -82,7 +145,9 @@ describe('seedDemoScenario', () => {
   });
 
   it("records KFG-101's element change as a second configuration version at 14:00 Denver time on day 20, with a β 0.45 cone", async () => {
-    const versions = await rows("SELECT c.* FROM config_versions c JOIN meter_runs m ON m.id = c.meter_run_id WHERE m.tag = 'KFG-101' ORDER BY effective_from");
+    const versions = await rows(
+      "SELECT c.* FROM config_versions c JOIN meter_runs m ON m.id = c.meter_run_id WHERE m.tag = 'KFG-101' ORDER BY effective_from",
+    );
     expect(versions).toHaveLength(2);
     const local = DateTime.fromJSDate(versions[1].effective_from as Date, { zone: 'America/Denver' });
     expect([local.day, local.hour, local.minute]).toEqual([20, 14, 0]);
@@ -94,7 +159,10 @@ describe('seedDemoScenario', () => {
   it('dates the element change 2026-11-20T21:00Z for a seed run on 2 December 2026 (MST is UTC−7 after 1 November 2026)', () => {
     const { meterRuns } = demoScenarioRows(scenarioTimeline('2026-11'));
     const kfg101 = meterRuns.find((m) => m.run.tag === 'KFG-101')!;
-    expect(kfg101.versions.map((v) => v.effectiveFrom)).toEqual(['2026-11-01T16:00:00.000Z', '2026-11-20T21:00:00.000Z']);
+    expect(kfg101.versions.map((v) => v.effectiveFrom)).toEqual([
+      '2026-11-01T16:00:00.000Z',
+      '2026-11-20T21:00:00.000Z',
+    ]);
   });
 
   it('stores each device password bcrypt-hashed, derived from the demo password as `${demoPassword}-device`', async () => {
@@ -122,6 +190,8 @@ describe('seedDemoScenario', () => {
   });
 
   it('refuses to run without a demo password', async () => {
-    await expect(seedDemoScenario(ctx.sequelize, { demoPassword: '' })).rejects.toThrow(/seedDemoScenario: options.demoPassword/);
+    await expect(seedDemoScenario(ctx.sequelize, { demoPassword: '' })).rejects.toThrow(
+      /seedDemoScenario: options.demoPassword/,
+    );
   });
 });

@@ -51,10 +51,22 @@ export function demoScenarioRows(timeline: ScenarioTimeline) {
     const effectiveFrom = new Date(timeline.historyStartMs[run.siteCode]).toISOString();
     // siteId '1' stands in for the real id here: the schema checks its form only.
     const input = meterRunSchema.parse({ ...meterRunFields(run), siteId: '1', effectiveFrom });
-    const versions = [configVersionSchema.parse({ effectiveFrom, element: run.element, fluid: run.fluid, reason: 'first configuration (demo scenario)' })];
+    const versions = [
+      configVersionSchema.parse({
+        effectiveFrom,
+        element: run.element,
+        fluid: run.fluid,
+        reason: 'first configuration (demo scenario)',
+      }),
+    ];
     if (run.elementChange) {
       versions.push(
-        configVersionSchema.parse({ effectiveFrom: new Date(timeline.elementChangeMs[run.tag]).toISOString(), element: run.elementChange.element, fluid: run.fluid, reason: run.elementChange.reason }),
+        configVersionSchema.parse({
+          effectiveFrom: new Date(timeline.elementChangeMs[run.tag]).toISOString(),
+          element: run.elementChange.element,
+          fluid: run.fluid,
+          reason: run.elementChange.reason,
+        }),
       );
     }
     const transmitters = run.transmitters.map((t) => transmitterSchema.parse({ ...t, meterRunId: '1' }));
@@ -64,7 +76,13 @@ export function demoScenarioRows(timeline: ScenarioTimeline) {
 }
 
 function meterRunFields(run: ScenarioMeterRun) {
-  const { siteCode: _siteCode, transmitters: _transmitters, operating: _operating, elementChange: _elementChange, ...fields } = run;
+  const {
+    siteCode: _siteCode,
+    transmitters: _transmitters,
+    operating: _operating,
+    elementChange: _elementChange,
+    ...fields
+  } = run;
   return fields;
 }
 
@@ -76,25 +94,40 @@ function meterRunFields(run: ScenarioMeterRun) {
  *   demo month (the calendar month before, in the KFG zone)
  * @returns what was created (zeros on a second run)
  */
-export async function seedDemoScenario(sequelize: Sequelize, options: { demoPassword: string; nowMs?: number }): Promise<DemoScenarioSeedResult> {
+export async function seedDemoScenario(
+  sequelize: Sequelize,
+  options: { demoPassword: string; nowMs?: number },
+): Promise<DemoScenarioSeedResult> {
   if (!options || typeof options.demoPassword !== 'string' || options.demoPassword.length === 0) {
     throw new Error('seedDemoScenario: options.demoPassword is required');
   }
   const demoMonth = demoMonthAt(options.nowMs ?? Date.now(), KFG_SITE.timeZone);
   const rows = demoScenarioRows(scenarioTimeline(demoMonth));
-  const created: DemoScenarioSeedResult = { demoMonth, sites: 0, meterRuns: 0, configVersions: 0, transmitters: 0, devices: 0 };
+  const created: DemoScenarioSeedResult = {
+    demoMonth,
+    sites: 0,
+    meterRuns: 0,
+    configVersions: 0,
+    transmitters: 0,
+    devices: 0,
+  };
 
   // Hash outside the transaction (bcrypt takes a while) and only when a device is missing.
   const [existingDevices] = await sequelize.query('SELECT username FROM devices WHERE username IN (:usernames)', {
     replacements: { usernames: rows.sites.map((s) => s.device.username) },
   });
-  const missingDevices = rows.sites.filter((s) => !(existingDevices as { username: string }[]).some((d) => d.username === s.device.username));
+  const missingDevices = rows.sites.filter(
+    (s) => !(existingDevices as { username: string }[]).some((d) => d.username === s.device.username),
+  );
   const passwordHash = missingDevices.length ? await hashPassword(demoDevicePassword(options.demoPassword)) : '';
 
   await sequelize.transaction(async (transaction) => {
-    const q = (sql: string, replacements: Record<string, unknown> = {}) => sequelize.query(sql, { replacements, transaction }).then(([r]) => r as Record<string, unknown>[]);
+    const q = (sql: string, replacements: Record<string, unknown> = {}) =>
+      sequelize.query(sql, { replacements, transaction }).then(([r]) => r as Record<string, unknown>[]);
     await q('SELECT pg_advisory_xact_lock(:key)', { key: SEED_LOCK_KEY });
-    const engineer = (await q('SELECT id::text FROM users WHERE lower(email) = :email', { email: ELEMENT_CHANGE_ENGINEER }))[0] as { id: string } | undefined;
+    const engineer = (
+      await q('SELECT id::text FROM users WHERE lower(email) = :email', { email: ELEMENT_CHANGE_ENGINEER })
+    )[0] as { id: string } | undefined;
 
     const siteIds = new Map<string, string>();
     for (const { site } of rows.sites) {
@@ -108,7 +141,10 @@ export async function seedDemoScenario(sequelize: Sequelize, options: { demoPass
         created.sites++;
         await audit(q, null, 'site.create', 'site', String(inserted[0].id), site);
       }
-      siteIds.set(site.code, String((await q('SELECT id::text FROM sites WHERE code = :code', { code: site.code }))[0].id));
+      siteIds.set(
+        site.code,
+        String((await q('SELECT id::text FROM sites WHERE code = :code', { code: site.code }))[0].id),
+      );
     }
 
     for (const { run, input, versions, transmitters } of rows.meterRuns) {
@@ -119,7 +155,9 @@ export async function seedDemoScenario(sequelize: Sequelize, options: { demoPass
          ON CONFLICT (tag) DO NOTHING RETURNING id::text`,
         { ...input, siteId, line: JSON.stringify(input.line) },
       );
-      const meterRunId = inserted.length ? String(inserted[0].id) : String((await q('SELECT id::text FROM meter_runs WHERE tag = :tag', { tag: input.tag }))[0].id);
+      const meterRunId = inserted.length
+        ? String(inserted[0].id)
+        : String((await q('SELECT id::text FROM meter_runs WHERE tag = :tag', { tag: input.tag }))[0].id);
       if (inserted.length) {
         created.meterRuns++;
         await audit(q, null, 'meter-run.create', 'meter-run', meterRunId, { ...input, siteId });
@@ -129,7 +167,14 @@ export async function seedDemoScenario(sequelize: Sequelize, options: { demoPass
           await q(
             `INSERT INTO config_versions (meter_run_id, effective_from, element, fluid, reason, created_by)
              VALUES (:meterRunId, :effectiveFrom, CAST(:element AS jsonb), CAST(:fluid AS jsonb), :reason, :createdBy)`,
-            { meterRunId, effectiveFrom: v.effectiveFrom, element: JSON.stringify(v.element), fluid: JSON.stringify(v.fluid), reason: v.reason, createdBy: by?.id ?? null },
+            {
+              meterRunId,
+              effectiveFrom: v.effectiveFrom,
+              element: JSON.stringify(v.element),
+              fluid: JSON.stringify(v.fluid),
+              reason: v.reason,
+              createdBy: by?.id ?? null,
+            },
           );
           created.configVersions++;
           await audit(q, by, 'config-version.create', 'meter-run', meterRunId, v);
@@ -157,7 +202,11 @@ export async function seedDemoScenario(sequelize: Sequelize, options: { demoPass
       );
       if (row.length) {
         created.devices++;
-        await audit(q, null, 'device.create', 'device', String(row[0].id), { siteCode: site.code, name: device.name, username: device.username });
+        await audit(q, null, 'device.create', 'device', String(row[0].id), {
+          siteCode: site.code,
+          name: device.name,
+          username: device.username,
+        });
       }
     }
   });
@@ -167,10 +216,24 @@ export async function seedDemoScenario(sequelize: Sequelize, options: { demoPass
 type Query = (sql: string, replacements?: Record<string, unknown>) => Promise<Record<string, unknown>[]>;
 
 /** The seed's changes go into the audit trail like anyone's (actor null: the system). */
-async function audit(q: Query, actor: { id: string } | null, action: string, entityType: string, entityId: string, after: unknown) {
+async function audit(
+  q: Query,
+  actor: { id: string } | null,
+  action: string,
+  entityType: string,
+  entityId: string,
+  after: unknown,
+) {
   await q(
     `INSERT INTO audit_events (actor_id, actor_email, action, entity_type, entity_id, after)
      VALUES (:actorId, :actorEmail, :action, :entityType, :entityId, CAST(:after AS jsonb))`,
-    { actorId: actor?.id ?? null, actorEmail: actor ? ELEMENT_CHANGE_ENGINEER : null, action, entityType, entityId, after: JSON.stringify(after) },
+    {
+      actorId: actor?.id ?? null,
+      actorEmail: actor ? ELEMENT_CHANGE_ENGINEER : null,
+      action,
+      entityType,
+      entityId,
+      after: JSON.stringify(after),
+    },
   );
 }

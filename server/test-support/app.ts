@@ -28,7 +28,11 @@ export async function testApp(options: { loginLimit?: number } = {}) {
     const connection = connectDatabase(url);
     initModels(connection);
     await migrate(connection, url);
-    const services = createServices({ databaseUrl: url, sequelize: connection, dataDir: path.join(os.tmpdir(), 'tallyrun-jest') });
+    const services = createServices({
+      databaseUrl: url,
+      sequelize: connection,
+      dataDir: path.join(os.tmpdir(), 'tallyrun-jest'),
+    });
     shared = { sequelize: connection, services, users: 0 };
   }
   shared.users++;
@@ -55,7 +59,15 @@ export async function testApp(options: { loginLimit?: number } = {}) {
     return { id, email, password, role, token: issueToken({ id, role }, jwtSecret, 1) };
   }
 
-  return { app, sequelize, services, jwtSecret, signedIn, unique, http: () => request(app), close: async () => {
+  return {
+    app,
+    sequelize,
+    services,
+    jwtSecret,
+    signedIn,
+    unique,
+    http: () => request(app),
+    close: async () => {
       if (shared && --shared.users === 0) {
         shared = null;
         await services.close();

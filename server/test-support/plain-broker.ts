@@ -5,7 +5,12 @@
  */
 import { startEmbeddedBroker } from '../ingest/broker';
 
-startEmbeddedBroker({ host: '127.0.0.1', port: 0, authenticate: async (username) => ({ id: username, siteCode: '*' }), onPublish: async () => undefined }).then(
+startEmbeddedBroker({
+  host: '127.0.0.1',
+  port: 0,
+  authenticate: async (username) => ({ id: username, siteCode: '*' }),
+  onPublish: async () => undefined,
+}).then(
   (broker) => {
     // Any device may subscribe to anything on this stand-in.
     broker.aedes.authorizeSubscribe = (_client, subscription, callback) => callback(null, subscription);

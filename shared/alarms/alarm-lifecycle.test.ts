@@ -1,4 +1,4 @@
-import { AlarmTransitionError, nextAlarmStatus } from './alarm-lifecycle';
+import { type AlarmTransitionError, nextAlarmStatus } from './alarm-lifecycle';
 
 // The transitions of the ISA-18.2 / IEC 62682 state diagram (TRADE.md §7).
 const code = (fn: () => unknown) => {
@@ -26,12 +26,18 @@ describe('nextAlarmStatus', () => {
   });
 
   it('returns to alarm from returned-unacknowledged when the condition comes back', () => {
-    expect(nextAlarmStatus({ state: 'returned-unacknowledged', conditionActive: false }, 'raise').state).toBe('active-unacknowledged');
+    expect(nextAlarmStatus({ state: 'returned-unacknowledged', conditionActive: false }, 'raise').state).toBe(
+      'active-unacknowledged',
+    );
   });
 
   it('refuses a second acknowledge and an acknowledge of a normal alarm with distinct codes', () => {
-    expect(code(() => nextAlarmStatus({ state: 'active-acknowledged', conditionActive: true }, 'acknowledge'))).toBe('already_acknowledged');
-    expect(code(() => nextAlarmStatus({ state: 'normal', conditionActive: false }, 'acknowledge'))).toBe('already_normal');
+    expect(code(() => nextAlarmStatus({ state: 'active-acknowledged', conditionActive: true }, 'acknowledge'))).toBe(
+      'already_acknowledged',
+    );
+    expect(code(() => nextAlarmStatus({ state: 'normal', conditionActive: false }, 'acknowledge'))).toBe(
+      'already_normal',
+    );
   });
 
   it('keeps tracking the condition while shelved and unshelves to what the condition is', () => {
@@ -44,7 +50,9 @@ describe('nextAlarmStatus', () => {
   });
 
   it('refuses to shelve an alarm that is out of service or already shelved', () => {
-    expect(code(() => nextAlarmStatus({ state: 'out-of-service', conditionActive: true }, 'shelve'))).toBe('out_of_service');
+    expect(code(() => nextAlarmStatus({ state: 'out-of-service', conditionActive: true }, 'shelve'))).toBe(
+      'out_of_service',
+    );
     expect(code(() => nextAlarmStatus({ state: 'shelved', conditionActive: true }, 'shelve'))).toBe('already_shelved');
   });
 

@@ -1,4 +1,4 @@
-import { AlarmLimitError, DEFAULT_ALARM_LIMITS, checkAlarmLimits, effectiveAlarmLimits } from './alarm-limits';
+import { type AlarmLimitError, DEFAULT_ALARM_LIMITS, checkAlarmLimits, effectiveAlarmLimits } from './alarm-limits';
 import { ALARM_CONDITIONS } from './alarm-codes';
 
 const fieldOf = (fn: () => unknown) => {
@@ -15,16 +15,39 @@ describe('checkAlarmLimits', () => {
     for (const c of ALARM_CONDITIONS) expect(() => checkAlarmLimits(c, DEFAULT_ALARM_LIMITS[c])).not.toThrow();
   });
   it('refuses a negative delay, naming onDelayS or offDelayS', () => {
-    expect(fieldOf(() => checkAlarmLimits('dp-low-in-range', effectiveAlarmLimits('dp-low-in-range', { onDelayS: -1 })))).toBe('onDelayS');
-    expect(fieldOf(() => checkAlarmLimits('stale', effectiveAlarmLimits('stale', { offDelayS: -5 })))).toBe('offDelayS');
+    expect(
+      fieldOf(() => checkAlarmLimits('dp-low-in-range', effectiveAlarmLimits('dp-low-in-range', { onDelayS: -1 }))),
+    ).toBe('onDelayS');
+    expect(fieldOf(() => checkAlarmLimits('stale', effectiveAlarmLimits('stale', { offDelayS: -5 })))).toBe(
+      'offDelayS',
+    );
   });
   it('refuses a low-in-range share above 100 %, naming thresholdShareOfSpan', () => {
-    expect(fieldOf(() => checkAlarmLimits('dp-low-in-range', effectiveAlarmLimits('dp-low-in-range', { thresholdShareOfSpan: 1.2 })))).toBe('thresholdShareOfSpan');
+    expect(
+      fieldOf(() =>
+        checkAlarmLimits('dp-low-in-range', effectiveAlarmLimits('dp-low-in-range', { thresholdShareOfSpan: 1.2 })),
+      ),
+    ).toBe('thresholdShareOfSpan');
   });
   it('refuses a deadband wider than the range, naming deadbandShareOfSpan', () => {
-    expect(fieldOf(() => checkAlarmLimits('dp-low-in-range', effectiveAlarmLimits('dp-low-in-range', { deadbandShareOfSpan: 1.5 })))).toBe('deadbandShareOfSpan');
-    expect(fieldOf(() => checkAlarmLimits('dp-low-in-range', effectiveAlarmLimits('dp-low-in-range', { thresholdShareOfSpan: 0.9, deadbandShareOfSpan: 0.2 })))).toBe('deadbandShareOfSpan');
-    expect(fieldOf(() => checkAlarmLimits('dp-over-range', effectiveAlarmLimits('dp-over-range', { deadbandShareOfSpan: 1 })))).toBe('deadbandShareOfSpan');
+    expect(
+      fieldOf(() =>
+        checkAlarmLimits('dp-low-in-range', effectiveAlarmLimits('dp-low-in-range', { deadbandShareOfSpan: 1.5 })),
+      ),
+    ).toBe('deadbandShareOfSpan');
+    expect(
+      fieldOf(() =>
+        checkAlarmLimits(
+          'dp-low-in-range',
+          effectiveAlarmLimits('dp-low-in-range', { thresholdShareOfSpan: 0.9, deadbandShareOfSpan: 0.2 }),
+        ),
+      ),
+    ).toBe('deadbandShareOfSpan');
+    expect(
+      fieldOf(() =>
+        checkAlarmLimits('dp-over-range', effectiveAlarmLimits('dp-over-range', { deadbandShareOfSpan: 1 })),
+      ),
+    ).toBe('deadbandShareOfSpan');
   });
   it('refuses a field that does not belong to the condition', () => {
     expect(fieldOf(() => checkAlarmLimits('stale', { ...DEFAULT_ALARM_LIMITS.stale, windowS: 600 }))).toBe('windowS');

@@ -57,13 +57,42 @@ export const ALARM_LIMIT_FIELDS: Readonly<Record<AlarmCondition, readonly AlarmL
 export const DEFAULT_ALARM_LIMITS: Readonly<Record<AlarmCondition, AlarmLimits>> = {
   // 10 % of span: below it a 0.075 %-of-span device is worse than 0.75 % of reading (TRADE.md §6).
   // Deadband 2 % of span: clears at 12 %, wider than a transmitter's noise (0.1 % of span or less [mem]).
-  'dp-low-in-range': { enabled: true, priority: 'medium', onDelayS: 300, offDelayS: 60, thresholdShareOfSpan: 0.1, deadbandShareOfSpan: 0.02 },
+  'dp-low-in-range': {
+    enabled: true,
+    priority: 'medium',
+    onDelayS: 300,
+    offDelayS: 60,
+    thresholdShareOfSpan: 0.1,
+    deadbandShareOfSpan: 0.02,
+  },
   // Above 100 % of span the output saturates (4–20 mA limit near 20.8 mA, NAMUR NE 43 [mem]).
-  'dp-over-range': { enabled: true, priority: 'high', onDelayS: 60, offDelayS: 60, thresholdShareOfSpan: 1, deadbandShareOfSpan: 0.02 },
+  'dp-over-range': {
+    enabled: true,
+    priority: 'high',
+    onDelayS: 60,
+    offDelayS: 60,
+    thresholdShareOfSpan: 1,
+    deadbandShareOfSpan: 0.02,
+  },
   // 2 % of the low span: about 25 × a 0.075 % device's stated accuracy, so only a real fault trips it.
-  'stack-disagreement': { enabled: true, priority: 'medium', onDelayS: 300, offDelayS: 60, toleranceShareOfSpan: 0.02, deadbandShareOfSpan: 0.005 },
+  'stack-disagreement': {
+    enabled: true,
+    priority: 'medium',
+    onDelayS: 300,
+    offDelayS: 60,
+    toleranceShareOfSpan: 0.02,
+    deadbandShareOfSpan: 0.005,
+  },
   // 30 minutes without any variation (σ ≤ 0.001 % of span, far below any live signal's noise).
-  frozen: { enabled: true, priority: 'medium', onDelayS: 0, offDelayS: 0, windowS: 1800, minSamples: 5, maxStdDevShareOfSpan: 1e-5 },
+  frozen: {
+    enabled: true,
+    priority: 'medium',
+    onDelayS: 0,
+    offDelayS: 0,
+    windowS: 1800,
+    minSamples: 5,
+    maxStdDevShareOfSpan: 1e-5,
+  },
   // 10 minutes without a reading: twice the default sample gap of a meter run (300 s).
   stale: { enabled: true, priority: 'medium', onDelayS: 0, offDelayS: 0, maxAgeS: 600 },
   'bad-quality': { enabled: true, priority: 'medium', onDelayS: 30, offDelayS: 60 },
@@ -103,10 +132,12 @@ export function checkAlarmLimits(condition: AlarmCondition, limits: AlarmLimits)
   const number = (field: AlarmLimitField, test: (v: number) => boolean, rule: string) => {
     const v = limits[field];
     if (v === undefined) return;
-    if (typeof v !== 'number' || !Number.isFinite(v) || !test(v)) throw new AlarmLimitError(field, `${rule} (got ${String(v)})`);
+    if (typeof v !== 'number' || !Number.isFinite(v) || !test(v))
+      throw new AlarmLimitError(field, `${rule} (got ${String(v)})`);
   };
   if (typeof limits.enabled !== 'boolean') throw new AlarmLimitError('enabled', 'must be true or false');
-  if (!ALARM_PRIORITIES.includes(limits.priority)) throw new AlarmLimitError('priority', `must be one of ${ALARM_PRIORITIES.join(', ')}`);
+  if (!ALARM_PRIORITIES.includes(limits.priority))
+    throw new AlarmLimitError('priority', `must be one of ${ALARM_PRIORITIES.join(', ')}`);
   number('onDelayS', (v) => v >= 0, 'must be 0 or more seconds (a delay cannot be negative)');
   number('offDelayS', (v) => v >= 0, 'must be 0 or more seconds (a delay cannot be negative)');
   number('onDelayS', (v) => v <= 86_400, 'must be at most a day (86400 s)');
@@ -114,29 +145,48 @@ export function checkAlarmLimits(condition: AlarmCondition, limits: AlarmLimits)
   const threshold = limits.thresholdShareOfSpan;
   const deadband = limits.deadbandShareOfSpan ?? 0;
   number('deadbandShareOfSpan', (v) => v >= 0, 'must be 0 or more');
-  number('deadbandShareOfSpan', (v) => v < 1, 'must be narrower than the transmitter’s range (below 1 = 100 % of span)');
+  number(
+    'deadbandShareOfSpan',
+    (v) => v < 1,
+    'must be narrower than the transmitter’s range (below 1 = 100 % of span)',
+  );
   if (condition === 'dp-low-in-range') {
     number('thresholdShareOfSpan', (v) => v > 0 && v <= 1, 'must be above 0 and at most 1 (100 % of span)');
     if (threshold !== undefined && threshold + deadband > 1) {
-      throw new AlarmLimitError('deadbandShareOfSpan', `is wider than the range: threshold + deadband = ${threshold + deadband} would clear above 100 % of span`);
+      throw new AlarmLimitError(
+        'deadbandShareOfSpan',
+        `is wider than the range: threshold + deadband = ${threshold + deadband} would clear above 100 % of span`,
+      );
     }
   }
   if (condition === 'dp-over-range') {
     number('thresholdShareOfSpan', (v) => v > 0 && v <= 1.5, 'must be above 0 and at most 1.5 (150 % of span)');
     if (threshold !== undefined && deadband >= threshold) {
-      throw new AlarmLimitError('deadbandShareOfSpan', `is wider than the range: it must be below the threshold (${threshold})`);
+      throw new AlarmLimitError(
+        'deadbandShareOfSpan',
+        `is wider than the range: it must be below the threshold (${threshold})`,
+      );
     }
   }
   if (condition === 'stack-disagreement') {
-    number('toleranceShareOfSpan', (v) => v > 0 && v <= 1, 'must be above 0 and at most 1 (100 % of the low-range span)');
+    number(
+      'toleranceShareOfSpan',
+      (v) => v > 0 && v <= 1,
+      'must be above 0 and at most 1 (100 % of the low-range span)',
+    );
     const tolerance = limits.toleranceShareOfSpan;
-    if (tolerance !== undefined && deadband >= tolerance) throw new AlarmLimitError('deadbandShareOfSpan', `must be below the tolerance (${tolerance})`);
+    if (tolerance !== undefined && deadband >= tolerance)
+      throw new AlarmLimitError('deadbandShareOfSpan', `must be below the tolerance (${tolerance})`);
   }
   number('windowS', (v) => v >= 60 && v <= 7 * 86_400, 'must be between 60 s and 7 days');
   number('minSamples', (v) => Number.isInteger(v) && v >= 2, 'must be a whole number, 2 or more');
   number('maxStdDevShareOfSpan', (v) => v >= 0 && v < 1, 'must be 0 or more and below 1 (100 % of span)');
   number('maxAgeS', (v) => v > 0 && v <= 30 * 86_400, 'must be above 0 and at most 30 days');
-  number('dueSoonDays', (v) => Number.isInteger(v) && v >= 0 && v <= 366, 'must be a whole number of days from 0 to 366');
+  number(
+    'dueSoonDays',
+    (v) => Number.isInteger(v) && v >= 0 && v <= 366,
+    'must be a whole number of days from 0 to 366',
+  );
   return limits;
 }
 

@@ -8,7 +8,9 @@ describe('observeCondition', () => {
     const s = initialDelayTracker();
     expect(observeCondition(s, true, 1_000_000, delays)).toEqual([]);
     expect(observeCondition(s, true, 1_200_000, delays)).toEqual([]);
-    expect(observeCondition(s, true, 1_400_000, delays)).toEqual([{ kind: 'raise', timeMs: 1_300_000, onsetMs: 1_000_000 }]);
+    expect(observeCondition(s, true, 1_400_000, delays)).toEqual([
+      { kind: 'raise', timeMs: 1_300_000, onsetMs: 1_000_000 },
+    ]);
   });
 
   it('cancels a pending raise when the condition goes away within the on-delay', () => {
@@ -39,7 +41,9 @@ describe('observeCondition', () => {
 
   it('raises at once with no on-delay', () => {
     const s = initialDelayTracker();
-    expect(observeCondition(s, true, 42, { onDelayMs: 0, offDelayMs: 0 })).toEqual([{ kind: 'raise', timeMs: 42, onsetMs: 42 }]);
+    expect(observeCondition(s, true, 42, { onDelayMs: 0, offDelayMs: 0 })).toEqual([
+      { kind: 'raise', timeMs: 42, onsetMs: 42 },
+    ]);
   });
 
   it('survives a JSON round trip (the state is stored as jsonb)', () => {

@@ -64,7 +64,12 @@ export function advanceDelayTracker(state: DelayTrackerState, timeMs: number, de
  * @param delays on- and off-delay
  * @returns the transitions that happened up to and at timeMs, in time order
  */
-export function observeCondition(state: DelayTrackerState, raw: boolean | null, timeMs: number, delays: Delays): DelayTransition[] {
+export function observeCondition(
+  state: DelayTrackerState,
+  raw: boolean | null,
+  timeMs: number,
+  delays: Delays,
+): DelayTransition[] {
   const out: DelayTransition[] = [];
   const due = advanceDelayTracker(state, timeMs, delays);
   if (due) out.push(due);

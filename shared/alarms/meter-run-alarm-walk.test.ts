@@ -1,6 +1,12 @@
 import { effectiveAlarmLimits } from './alarm-limits';
 import type { AlarmCondition } from './alarm-codes';
-import { initialAlarmWalkState, walkMeterRunAlarms, type AlarmWalkInput, type WalkReading, type WalkTransmitter } from './meter-run-alarm-walk';
+import {
+  initialAlarmWalkState,
+  walkMeterRunAlarms,
+  type AlarmWalkInput,
+  type WalkReading,
+  type WalkTransmitter,
+} from './meter-run-alarm-walk';
 
 /**
  * Readings constructed by hand, one a minute; the expected raise and clear times follow from
@@ -9,22 +15,50 @@ import { initialAlarmWalkState, walkMeterRunAlarms, type AlarmWalkInput, type Wa
  */
 const MIN = 60_000;
 const T0 = Date.parse('2026-10-01T00:00:00Z');
-const dp: WalkTransmitter = { id: 'dp', tag: 'FT-DP', measures: 'differential-pressure', stackRole: 'single', lowerRangeSI: 0, upperRangeSI: 50_000, accuracyPercentOfSpan: 0.075 };
-const pt: WalkTransmitter = { id: 'pt', tag: 'FT-PT', measures: 'static-pressure', stackRole: 'single', lowerRangeSI: 0, upperRangeSI: 4e6, accuracyPercentOfSpan: 0.075 };
+const dp: WalkTransmitter = {
+  id: 'dp',
+  tag: 'FT-DP',
+  measures: 'differential-pressure',
+  stackRole: 'single',
+  lowerRangeSI: 0,
+  upperRangeSI: 50_000,
+  accuracyPercentOfSpan: 0.075,
+};
+const pt: WalkTransmitter = {
+  id: 'pt',
+  tag: 'FT-PT',
+  measures: 'static-pressure',
+  stackRole: 'single',
+  lowerRangeSI: 0,
+  upperRangeSI: 4e6,
+  accuracyPercentOfSpan: 0.075,
+};
 
 /** DP as a share of span for each minute from T0, with a little noise on P so P is never frozen. */
-function minutes(shares: number[], options: { quality?: (i: number) => WalkReading['quality']; skip?: (i: number) => boolean } = {}): WalkReading[] {
+function minutes(
+  shares: number[],
+  options: { quality?: (i: number) => WalkReading['quality']; skip?: (i: number) => boolean } = {},
+): WalkReading[] {
   const out: WalkReading[] = [];
   shares.forEach((share, i) => {
     if (options.skip?.(i)) return;
     const t = T0 + i * MIN;
-    out.push({ transmitterId: 'dp', timeMs: t, value: share * 50_000 + (i % 2) * 3, quality: options.quality?.(i) ?? 'good' });
+    out.push({
+      transmitterId: 'dp',
+      timeMs: t,
+      value: share * 50_000 + (i % 2) * 3,
+      quality: options.quality?.(i) ?? 'good',
+    });
     out.push({ transmitterId: 'pt', timeMs: t, value: 2e6 + (i % 3) * 100, quality: 'good' });
   });
   return out;
 }
 
-function walk(readings: WalkReading[], over: Partial<AlarmWalkInput> = {}, overrides: Partial<Record<AlarmCondition, object>> = {}) {
+function walk(
+  readings: WalkReading[],
+  over: Partial<AlarmWalkInput> = {},
+  overrides: Partial<Record<AlarmCondition, object>> = {},
+) {
   return walkMeterRunAlarms({
     state: initialAlarmWalkState(),
     meterRunTag: 'MR-1',
@@ -38,7 +72,8 @@ function walk(readings: WalkReading[], over: Partial<AlarmWalkInput> = {}, overr
   });
 }
 
-const of = (signals: ReturnType<typeof walk>['signals'], condition: AlarmCondition) => signals.filter((s) => s.condition === condition);
+const of = (signals: ReturnType<typeof walk>['signals'], condition: AlarmCondition) =>
+  signals.filter((s) => s.condition === condition);
 const repeat = (n: number, share: number) => new Array<number>(n).fill(share);
 
 describe('walkMeterRunAlarms: DP low in range', () => {
@@ -70,8 +105,14 @@ describe('walkMeterRunAlarms: DP low in range', () => {
   });
 
   it('uses the limits set: 20 % threshold, no on-delay', () => {
-    const { signals } = walk(minutes([...repeat(5, 0.4), ...repeat(5, 0.15)]), {}, { 'dp-low-in-range': { thresholdShareOfSpan: 0.2, onDelayS: 0 } });
-    expect(of(signals, 'dp-low-in-range').map((s) => new Date(s.timeMs).toISOString())).toEqual(['2026-10-01T00:05:00.000Z']);
+    const { signals } = walk(
+      minutes([...repeat(5, 0.4), ...repeat(5, 0.15)]),
+      {},
+      { 'dp-low-in-range': { thresholdShareOfSpan: 0.2, onDelayS: 0 } },
+    );
+    expect(of(signals, 'dp-low-in-range').map((s) => new Date(s.timeMs).toISOString())).toEqual([
+      '2026-10-01T00:05:00.000Z',
+    ]);
   });
 
   it('judges each reading once: two walks over halves give what one walk gives, and a repeat walk gives nothing', () => {
@@ -108,7 +149,9 @@ describe('walkMeterRunAlarms: stacked pair', () => {
   });
 
   it('finds no disagreement within tolerance (50 Pa = 1 % of the low span)', () => {
-    expect(of(walk(pair(repeat(20, 3000), repeat(20, 3050)), { transmitters: [lo, hi] }).signals, 'stack-disagreement')).toEqual([]);
+    expect(
+      of(walk(pair(repeat(20, 3000), repeat(20, 3050)), { transmitters: [lo, hi] }).signals, 'stack-disagreement'),
+    ).toEqual([]);
   });
 });
 
@@ -122,7 +165,9 @@ describe('walkMeterRunAlarms: frozen, stale, bad quality', () => {
     const frozen = of(walk(readings).signals, 'frozen');
     // At 00:40 the window [00:10, 00:40] still starts with the 00:09 reading in force (20 000 Pa, live);
     // at 00:41 the reading in force at 00:11 is the stuck one of 00:10, so every value is 20 100 Pa.
-    expect(frozen.map((s) => [s.kind, s.transmitterId, new Date(s.timeMs).toISOString()])).toEqual([['raise', 'dp', '2026-10-01T00:41:00.000Z']]);
+    expect(frozen.map((s) => [s.kind, s.transmitterId, new Date(s.timeMs).toISOString()])).toEqual([
+      ['raise', 'dp', '2026-10-01T00:41:00.000Z'],
+    ]);
     // 31 readings in [00:11, 00:41] plus the one in force at 00:11 (00:10): 32.
     expect(frozen[0].detail).toMatchObject({ count: 32, stdDevShareOfSpan: 0 });
   });
@@ -162,7 +207,10 @@ describe('walkMeterRunAlarms: frozen, stale, bad quality', () => {
       { startMs: T0 + 3 * H, endMs: T0 + 4 * H, flowTimeS: 3600, flags: [] },
     ];
     const { signals, state } = walk([], { hours, horizonMs: T0 + 4 * H });
-    expect(of(signals, 'outside-standard-limits').map((s) => [s.kind, (s.timeMs - T0) / H])).toEqual([['raise', 1], ['clear', 3]]);
+    expect(of(signals, 'outside-standard-limits').map((s) => [s.kind, (s.timeMs - T0) / H])).toEqual([
+      ['raise', 1],
+      ['clear', 3],
+    ]);
     expect(state.recordsToMs).toBe(T0 + 4 * H);
   });
 

@@ -100,7 +100,15 @@ export interface AlarmWalkInput {
 
 /** @returns the state of a meter run never walked */
 export function initialAlarmWalkState(): AlarmWalkState {
-  return { watermarkMs: null, recordsToMs: null, stackChoice: null, points: {}, onsetDetail: {}, lastReadingMs: {}, frozenCheckedMs: {} };
+  return {
+    watermarkMs: null,
+    recordsToMs: null,
+    stackChoice: null,
+    points: {},
+    onsetDetail: {},
+    lastReadingMs: {},
+    frozenCheckedMs: {},
+  };
 }
 
 const pointKey = (condition: AlarmCondition, transmitterId: string | null) => `${condition}|${transmitterId ?? ''}`;
@@ -131,25 +139,49 @@ export function walkMeterRunAlarms(input: AlarmWalkInput): { signals: AlarmSigna
     if (!l) limitCache.set(key, (l = input.limits(condition, tid)));
     return l;
   };
-  const subjectOf = (tid: string | null) => (tid === null ? input.meterRunTag : byId.get(tid)?.tag ?? tid);
+  const subjectOf = (tid: string | null) => (tid === null ? input.meterRunTag : (byId.get(tid)?.tag ?? tid));
 
-  const emit = (condition: AlarmCondition, tid: string | null, kind: 'raise' | 'clear', timeMs: number, onsetMs: number) => {
+  const emit = (
+    condition: AlarmCondition,
+    tid: string | null,
+    kind: 'raise' | 'clear',
+    timeMs: number,
+    onsetMs: number,
+  ) => {
     const key = pointKey(condition, tid);
-    const detail = kind === 'raise' ? st.onsetDetail[key] ?? {} : {};
-    signals.push({ kind, condition, transmitterId: tid, timeMs, onsetMs, message: kind === 'raise' ? alarmMessage(condition, subjectOf(tid), detail) : '', detail });
+    const detail = kind === 'raise' ? (st.onsetDetail[key] ?? {}) : {};
+    signals.push({
+      kind,
+      condition,
+      transmitterId: tid,
+      timeMs,
+      onsetMs,
+      message: kind === 'raise' ? alarmMessage(condition, subjectOf(tid), detail) : '',
+      detail,
+    });
   };
   /** Observes a point's condition (null: cannot judge now); disabled points are observed as off. */
-  const observe = (condition: AlarmCondition, tid: string | null, raw: boolean | null, timeMs: number, detail?: AlarmDetail) => {
+  const observe = (
+    condition: AlarmCondition,
+    tid: string | null,
+    raw: boolean | null,
+    timeMs: number,
+    detail?: AlarmDetail,
+  ) => {
     const limits = limitsOf(condition, tid);
     const key = pointKey(condition, tid);
     const p = (st.points[key] ??= initialDelayTracker());
     const value = limits.enabled ? raw : false;
     if (value === true && !p.raw && detail) st.onsetDetail[key] = detail;
-    for (const tr of observeCondition(p, value, timeMs, { onDelayMs: limits.onDelayS * 1000, offDelayMs: limits.offDelayS * 1000 })) {
+    for (const tr of observeCondition(p, value, timeMs, {
+      onDelayMs: limits.onDelayS * 1000,
+      offDelayMs: limits.offDelayS * 1000,
+    })) {
       emit(condition, tid, tr.kind, tr.timeMs, tr.onsetMs);
     }
   };
-  const previousRaw = (condition: AlarmCondition, tid: string | null) => st.points[pointKey(condition, tid)]?.raw ?? false;
+  const previousRaw = (condition: AlarmCondition, tid: string | null) =>
+    st.points[pointKey(condition, tid)]?.raw ?? false;
 
   // Readings per transmitter (warm-up and new), and the DP selection over them.
   const series = new Map<string, WalkReading[]>();
@@ -210,7 +242,8 @@ export function walkMeterRunAlarms(input: AlarmWalkInput): { signals: AlarmSigna
       // Stale: a gap longer than the limit was a stale period from last + limit to now.
       const last = st.lastReadingMs[tr.id];
       const maxAgeMs = (limitsOf('stale', tr.id).maxAgeS ?? Infinity) * 1000;
-      if (last !== undefined && t - last > maxAgeMs) observe('stale', tr.id, true, last + maxAgeMs, { lastReadingMs: last, maxAgeS: maxAgeMs / 1000 });
+      if (last !== undefined && t - last > maxAgeMs)
+        observe('stale', tr.id, true, last + maxAgeMs, { lastReadingMs: last, maxAgeS: maxAgeMs / 1000 });
       observe('stale', tr.id, false, t);
       st.lastReadingMs[tr.id] = t;
       observe('bad-quality', tr.id, r.quality === 'bad', t, {});
@@ -227,7 +260,9 @@ export function walkMeterRunAlarms(input: AlarmWalkInput): { signals: AlarmSigna
     const end = index.get(tr.id)!; // list[end - 1] is the reading at t
     const spanForCheck = tr.upperRangeSI - tr.lowerRangeSI;
     if (previousRaw('frozen', tr.id)) {
-      const changed = end >= 2 && Math.abs(list[end - 1].value - list[end - 2].value) > (limits.maxStdDevShareOfSpan ?? 0) * spanForCheck;
+      const changed =
+        end >= 2 &&
+        Math.abs(list[end - 1].value - list[end - 2].value) > (limits.maxStdDevShareOfSpan ?? 0) * spanForCheck;
       if (!changed && t - checked < Math.min(FROZEN_RECHECK_UNCHANGED_MS, windowMs / 10)) return;
     } else if (t - checked < Math.min(FROZEN_CHECK_EVERY_MS, windowMs / 10)) return;
     st.frozenCheckedMs[tr.id] = t;
@@ -237,15 +272,24 @@ export function walkMeterRunAlarms(input: AlarmWalkInput): { signals: AlarmSigna
     // The window must be covered: a reading in force at its start.
     if (j === 0) return observe('frozen', tr.id, null, t);
     const values: number[] = [];
-    for (let i = j - 1; i < end; i++) if (list[i].quality !== 'bad' && Number.isFinite(list[i].value)) values.push(list[i].value);
+    for (let i = j - 1; i < end; i++)
+      if (list[i].quality !== 'bad' && Number.isFinite(list[i].value)) values.push(list[i].value);
     const span = tr.upperRangeSI - tr.lowerRangeSI;
-    const frozen = isFrozenSignal(values, span, { minSamples: limits.minSamples ?? 5, maxStdDevShareOfSpan: limits.maxStdDevShareOfSpan ?? 0 });
+    const frozen = isFrozenSignal(values, span, {
+      minSamples: limits.minSamples ?? 5,
+      maxStdDevShareOfSpan: limits.maxStdDevShareOfSpan ?? 0,
+    });
     let sigma = 0;
     if (frozen) {
       const mean = values.reduce((a, b) => a + b, 0) / values.length;
       sigma = Math.sqrt(values.reduce((a, b) => a + (b - mean) ** 2, 0) / (values.length - 1));
     }
-    observe('frozen', tr.id, frozen, t, { windowS: windowMs / 1000, count: values.length, stdDevShareOfSpan: sigma / span, sinceMs: list[j - 1].timeMs });
+    observe('frozen', tr.id, frozen, t, {
+      windowS: windowMs / 1000,
+      count: values.length,
+      stdDevShareOfSpan: sigma / span,
+      sinceMs: list[j - 1].timeMs,
+    });
   }
 
   function judgeDp(t: number) {
@@ -262,11 +306,29 @@ export function walkMeterRunAlarms(input: AlarmWalkInput): { signals: AlarmSigna
         const share = (value - tr.lowerRangeSI) / (tr.upperRangeSI - tr.lowerRangeSI);
         const flowing = value > 0 && share >= NO_FLOW_CUTOFF_SHARE_OF_SPAN;
         const lowLimits = limitsOf('dp-low-in-range', tr.id);
-        const lowRaw = flowing && belowWithDeadband(share, previousRaw('dp-low-in-range', tr.id), lowLimits.thresholdShareOfSpan ?? 0.1, lowLimits.deadbandShareOfSpan ?? 0);
-        observe('dp-low-in-range', tr.id, lowRaw, t, { shareOfSpan: share, thresholdShareOfSpan: lowLimits.thresholdShareOfSpan ?? 0.1 });
+        const lowRaw =
+          flowing &&
+          belowWithDeadband(
+            share,
+            previousRaw('dp-low-in-range', tr.id),
+            lowLimits.thresholdShareOfSpan ?? 0.1,
+            lowLimits.deadbandShareOfSpan ?? 0,
+          );
+        observe('dp-low-in-range', tr.id, lowRaw, t, {
+          shareOfSpan: share,
+          thresholdShareOfSpan: lowLimits.thresholdShareOfSpan ?? 0.1,
+        });
         const overLimits = limitsOf('dp-over-range', tr.id);
-        const overRaw = aboveWithDeadband(share, previousRaw('dp-over-range', tr.id), overLimits.thresholdShareOfSpan ?? 1, overLimits.deadbandShareOfSpan ?? 0);
-        observe('dp-over-range', tr.id, overRaw, t, { shareOfSpan: share, thresholdShareOfSpan: overLimits.thresholdShareOfSpan ?? 1 });
+        const overRaw = aboveWithDeadband(
+          share,
+          previousRaw('dp-over-range', tr.id),
+          overLimits.thresholdShareOfSpan ?? 1,
+          overLimits.deadbandShareOfSpan ?? 0,
+        );
+        observe('dp-over-range', tr.id, overRaw, t, {
+          shareOfSpan: share,
+          thresholdShareOfSpan: overLimits.thresholdShareOfSpan ?? 1,
+        });
       }
     }
     if (low && high) {
@@ -284,8 +346,16 @@ export function walkMeterRunAlarms(input: AlarmWalkInput): { signals: AlarmSigna
       if (choice.inOverlap && choice.disagreementPa !== null) {
         const limits = limitsOf('stack-disagreement', null);
         const difference = Math.abs(choice.disagreementPa) / (low.upperRangeSI - low.lowerRangeSI);
-        const raw = aboveWithDeadband(difference, previousRaw('stack-disagreement', null), limits.toleranceShareOfSpan ?? 0.02, limits.deadbandShareOfSpan ?? 0);
-        observe('stack-disagreement', null, raw, t, { differenceShareOfLowSpan: difference, toleranceShareOfSpan: limits.toleranceShareOfSpan ?? 0.02 });
+        const raw = aboveWithDeadband(
+          difference,
+          previousRaw('stack-disagreement', null),
+          limits.toleranceShareOfSpan ?? 0.02,
+          limits.deadbandShareOfSpan ?? 0,
+        );
+        observe('stack-disagreement', null, raw, t, {
+          differenceShareOfLowSpan: difference,
+          toleranceShareOfSpan: limits.toleranceShareOfSpan ?? 0.02,
+        });
       }
     }
   }
@@ -315,7 +385,10 @@ export function walkMeterRunAlarms(input: AlarmWalkInput): { signals: AlarmSigna
     const [condition, tid] = key.split('|') as [AlarmCondition, string];
     const limits = limitsOf(condition, tid || null);
     const until = condition === 'stale' && input.clockMs !== undefined ? Math.max(horizon, input.clockMs) : horizon;
-    const tr = advanceDelayTracker(p, until, { onDelayMs: limits.onDelayS * 1000, offDelayMs: limits.offDelayS * 1000 });
+    const tr = advanceDelayTracker(p, until, {
+      onDelayMs: limits.onDelayS * 1000,
+      offDelayMs: limits.offDelayS * 1000,
+    });
     if (tr) emit(condition, tid || null, tr.kind, tr.timeMs, tr.onsetMs);
   }
   for (const key of Object.keys(st.onsetDetail)) if (!st.points[key]?.raw) delete st.onsetDetail[key];

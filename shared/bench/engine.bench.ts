@@ -14,8 +14,16 @@ const BATCH = 1024;
 
 /** Gulf Coast gas of AGA 8 (TRADE.md §4), mole fractions. */
 const GULF_COAST = {
-  methane: 0.965222, nitrogen: 0.002595, 'carbon-dioxide': 0.005956, ethane: 0.018186, propane: 0.004596,
-  isobutane: 0.000977, 'n-butane': 0.001007, isopentane: 0.000473, 'n-pentane': 0.000324, 'n-hexane': 0.000664,
+  methane: 0.965222,
+  nitrogen: 0.002595,
+  'carbon-dioxide': 0.005956,
+  ethane: 0.018186,
+  propane: 0.004596,
+  isobutane: 0.000977,
+  'n-butane': 0.001007,
+  isopentane: 0.000473,
+  'n-pentane': 0.000324,
+  'n-hexane': 0.000664,
 };
 
 const dps = Float64Array.from({ length: BATCH }, (_, i) => 5000 + 40 * i);
@@ -41,16 +49,39 @@ function measure(fn: (i: number) => number): number {
   return (count * 1e9) / Number(ns);
 }
 
-const gas: FlowFluidProperties = { densityKgPerM3: 46.7, viscosityPaS: 1.1e-5, isentropicExponent: 1.3, compressible: true };
-const cone = prepareElement({ kind: 'cone', pipeDiameterM: 0.2, coneDiameterM: 0.14, dischargeCoefficient: 0.82 }, 293.15);
-const venturi = prepareElement({ kind: 'venturi', venturiType: 'machined', pipeDiameterM: 0.2, boreDiameterM: 0.1 }, 293.15);
+const gas: FlowFluidProperties = {
+  densityKgPerM3: 46.7,
+  viscosityPaS: 1.1e-5,
+  isentropicExponent: 1.3,
+  compressible: true,
+};
+const cone = prepareElement(
+  { kind: 'cone', pipeDiameterM: 0.2, coneDiameterM: 0.14, dischargeCoefficient: 0.82 },
+  293.15,
+);
+const venturi = prepareElement(
+  { kind: 'venturi', venturiType: 'machined', pipeDiameterM: 0.2, boreDiameterM: 0.1 },
+  293.15,
+);
 const orifice = prepareElement({ kind: 'orifice', taps: 'flange', pipeDiameterM: 0.2, boreDiameterM: 0.1 }, 293.15);
 const mixture = cachedDetailMixture(GULF_COAST);
 
 const cases: { name: string; goal: number | null; fn: (i: number) => number }[] = [
-  { name: 'cone, fixed properties', goal: 2e6, fn: (i) => evaluateFlow(cone, dps[i], pressures[i], gas).massFlowKgPerS },
-  { name: 'venturi, fixed properties', goal: 2e6, fn: (i) => evaluateFlow(venturi, dps[i], pressures[i], gas).massFlowKgPerS },
-  { name: 'orifice, Re_D iteration', goal: 5e5, fn: (i) => evaluateFlow(orifice, dps[i], pressures[i], gas).massFlowKgPerS },
+  {
+    name: 'cone, fixed properties',
+    goal: 2e6,
+    fn: (i) => evaluateFlow(cone, dps[i], pressures[i], gas).massFlowKgPerS,
+  },
+  {
+    name: 'venturi, fixed properties',
+    goal: 2e6,
+    fn: (i) => evaluateFlow(venturi, dps[i], pressures[i], gas).massFlowKgPerS,
+  },
+  {
+    name: 'orifice, Re_D iteration',
+    goal: 5e5,
+    fn: (i) => evaluateFlow(orifice, dps[i], pressures[i], gas).massFlowKgPerS,
+  },
   {
     name: 'water: IF97 fluidState + orifice',
     goal: null,
@@ -59,12 +90,20 @@ const cases: { name: string; goal: number | null; fn: (i: number) => number }[] 
       return evaluateFlow(orifice, dps[i], 1e6 + pressures[i] / 10, s).massFlowKgPerS;
     },
   },
-  { name: 'AGA 8 DETAIL density solve', goal: 1e5, fn: (i) => detailMolarDensityMolPerM3(mixture, pressures[i], temperatures[i]) },
+  {
+    name: 'AGA 8 DETAIL density solve',
+    goal: 1e5,
+    fn: (i) => detailMolarDensityMolPerM3(mixture, pressures[i], temperatures[i]),
+  },
   {
     name: 'natural gas: fluidState (AGA 8) + orifice',
     goal: null,
     fn: (i) => {
-      const s = fluidState({ kind: 'natural-gas', composition: GULF_COAST, viscosityPaS: 1.1e-5 }, pressures[i], temperatures[i]);
+      const s = fluidState(
+        { kind: 'natural-gas', composition: GULF_COAST, viscosityPaS: 1.1e-5 },
+        pressures[i],
+        temperatures[i],
+      );
       return evaluateFlow(orifice, dps[i], pressures[i], s).massFlowKgPerS;
     },
   },
@@ -76,6 +115,8 @@ console.log(`${'case'.padEnd(44)}${'evals/s'.padStart(12)}${'goal'.padStart(10)}
 for (const c of cases) {
   const rate = measure(c.fn);
   const ratio = c.goal ? `${(rate / c.goal).toFixed(2)}×` : '—';
-  console.log(`${c.name.padEnd(44)}${fmt(rate).padStart(12)}${(c.goal ? fmt(c.goal) : '—').padStart(10)}${ratio.padStart(9)}`);
+  console.log(
+    `${c.name.padEnd(44)}${fmt(rate).padStart(12)}${(c.goal ? fmt(c.goal) : '—').padStart(10)}${ratio.padStart(9)}`,
+  );
 }
 if (!Number.isFinite(sink)) console.log('(non-finite result seen)');

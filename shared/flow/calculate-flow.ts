@@ -8,7 +8,15 @@ import { solveFlowCase } from './solve-flow-case';
 
 export type FlowCalculation = { ok: true; result: FlowResult } | { ok: false; error: InvalidCaseError };
 
-const NUMERIC_FIELDS = ['beta', 'dischargeCoefficient', 'expansibility', 'reynoldsNumber', 'densityKgPerM3', 'massFlowKgPerS', 'volumeFlowM3PerS'] as const;
+const NUMERIC_FIELDS = [
+  'beta',
+  'dischargeCoefficient',
+  'expansibility',
+  'reynoldsNumber',
+  'densityKgPerM3',
+  'massFlowKgPerS',
+  'volumeFlowM3PerS',
+] as const;
 
 /**
  * Validates the case with the zod schema, solves it and checks the numbers are finite.
@@ -22,7 +30,14 @@ export function calculateFlow(value: unknown): FlowCalculation {
     const result = solveFlowCase(parsed.value as FlowCase);
     const bad = NUMERIC_FIELDS.find((k) => !Number.isFinite(result[k]));
     if (bad) {
-      return { ok: false, error: { code: 'invalid_case', message: `calculateFlow: the case gives a non-finite ${bad} (${result[bad]})`, field: null } };
+      return {
+        ok: false,
+        error: {
+          code: 'invalid_case',
+          message: `calculateFlow: the case gives a non-finite ${bad} (${result[bad]})`,
+          field: null,
+        },
+      };
     }
     return { ok: true, result };
   } catch (error) {

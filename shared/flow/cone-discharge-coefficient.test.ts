@@ -24,6 +24,8 @@ describe('prepareCalibration (a lab curve of C against Re_D, linear in log Re_D)
 
   it('rejects an empty curve and a non-positive Re_D, naming the field', () => {
     expect(() => prepareCalibration([])).toThrow(/element\.calibration/);
-    expect(() => prepareCalibration([{ reynoldsNumber: 0, dischargeCoefficient: 0.8 }])).toThrow(/element\.calibration\.0\.reynoldsNumber/);
+    expect(() => prepareCalibration([{ reynoldsNumber: 0, dischargeCoefficient: 0.8 }])).toThrow(
+      /element\.calibration\.0\.reynoldsNumber/,
+    );
   });
 });

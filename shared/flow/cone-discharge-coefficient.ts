@@ -28,9 +28,14 @@ export function prepareCalibration(points: readonly CalibrationPoint[]): Prepare
     throw new Error('prepareCalibration: element.calibration must hold at least one point');
   }
   points.forEach((p, i) => {
-    if (!(p.reynoldsNumber > 0)) throw new Error(`prepareCalibration: element.calibration.${i}.reynoldsNumber must be > 0 (got ${p.reynoldsNumber})`);
+    if (!(p.reynoldsNumber > 0))
+      throw new Error(
+        `prepareCalibration: element.calibration.${i}.reynoldsNumber must be > 0 (got ${p.reynoldsNumber})`,
+      );
     if (!(p.dischargeCoefficient > 0 && p.dischargeCoefficient <= 1.2)) {
-      throw new Error(`prepareCalibration: element.calibration.${i}.dischargeCoefficient must be in (0, 1.2] (got ${p.dischargeCoefficient})`);
+      throw new Error(
+        `prepareCalibration: element.calibration.${i}.dischargeCoefficient must be in (0, 1.2] (got ${p.dischargeCoefficient})`,
+      );
     }
   });
   const sorted = [...points].sort((a, b) => a.reynoldsNumber - b.reynoldsNumber);

@@ -28,16 +28,27 @@ export function differentialPressureForMassFlow(
     throw new Error(`differentialPressureForMassFlow: massFlowKgPerS must be finite and ≥ 0 (got ${massFlowKgPerS})`);
   }
   if (massFlowKgPerS === 0) {
-    return { differentialPressurePa: 0, massFlowKgPerS: 0, reynoldsNumber: 0, expansibility: 1, dischargeCoefficient: element.fixedDischargeCoefficient ?? NaN };
+    return {
+      differentialPressurePa: 0,
+      massFlowKgPerS: 0,
+      reynoldsNumber: 0,
+      expansibility: 1,
+      dischargeCoefficient: element.fixedDischargeCoefficient ?? NaN,
+    };
   }
   const reynoldsNumber = pipeReynoldsNumber(massFlowKgPerS, fluid.viscosityPaS, element.pipeDiameterM);
-  const dischargeCoefficient = element.dischargeCoefficientAt ? element.dischargeCoefficientAt(reynoldsNumber) : (element.fixedDischargeCoefficient as number);
-  const incompressibleDp = (massFlowKgPerS / (dischargeCoefficient * element.flowAreaM2)) ** 2 / (2 * fluid.densityKgPerM3);
+  const dischargeCoefficient = element.dischargeCoefficientAt
+    ? element.dischargeCoefficientAt(reynoldsNumber)
+    : (element.fixedDischargeCoefficient as number);
+  const incompressibleDp =
+    (massFlowKgPerS / (dischargeCoefficient * element.flowAreaM2)) ** 2 / (2 * fluid.densityKgPerM3);
   let expansibility = 1;
   let dp = incompressibleDp;
   for (let i = 0; i < 200; i++) {
     if (!(dp < staticPressurePa)) {
-      throw new Error(`differentialPressureForMassFlow: massFlowKgPerS ${massFlowKgPerS} would need a DP of at least ${dp} Pa, not below the static pressure ${staticPressurePa} Pa`);
+      throw new Error(
+        `differentialPressureForMassFlow: massFlowKgPerS ${massFlowKgPerS} would need a DP of at least ${dp} Pa, not below the static pressure ${staticPressurePa} Pa`,
+      );
     }
     expansibility = elementExpansibility(element, dp, staticPressurePa, fluid);
     const next = incompressibleDp / (expansibility * expansibility);
@@ -47,5 +58,11 @@ export function differentialPressureForMassFlow(
     }
     dp = next;
   }
-  return { differentialPressurePa: dp, massFlowKgPerS, reynoldsNumber, dischargeCoefficient, expansibility: elementExpansibility(element, dp, staticPressurePa, fluid) };
+  return {
+    differentialPressurePa: dp,
+    massFlowKgPerS,
+    reynoldsNumber,
+    dischargeCoefficient,
+    expansibility: elementExpansibility(element, dp, staticPressurePa, fluid),
+  };
 }

@@ -45,16 +45,40 @@ export function elementLimits(element: ElementSpec): ElementLimits {
     case 'venturi':
       // ISO 5167-4:2003 §5.5.2–5.5.4: as-cast limits [lib, TRADE.md §2]; machined and rough-welded [mem].
       if (element.venturiType === 'machined') {
-        return { clause: 'ISO 5167-4:2003 §5.5.3 (machined convergent)', pipeDiameterM: [0.05, 0.25], beta: [0.4, 0.75], minimumBoreDiameterM: null, reynoldsRange: () => [2e5, 1e6] };
+        return {
+          clause: 'ISO 5167-4:2003 §5.5.3 (machined convergent)',
+          pipeDiameterM: [0.05, 0.25],
+          beta: [0.4, 0.75],
+          minimumBoreDiameterM: null,
+          reynoldsRange: () => [2e5, 1e6],
+        };
       }
       if (element.venturiType === 'rough-welded') {
-        return { clause: 'ISO 5167-4:2003 §5.5.4 (rough-welded convergent)', pipeDiameterM: [0.2, 1.2], beta: [0.4, 0.7], minimumBoreDiameterM: null, reynoldsRange: () => [2e5, 2e6] };
+        return {
+          clause: 'ISO 5167-4:2003 §5.5.4 (rough-welded convergent)',
+          pipeDiameterM: [0.2, 1.2],
+          beta: [0.4, 0.7],
+          minimumBoreDiameterM: null,
+          reynoldsRange: () => [2e5, 2e6],
+        };
       }
-      return { clause: 'ISO 5167-4:2003 §5.5.2 (as-cast convergent)', pipeDiameterM: [0.1, 0.8], beta: [0.3, 0.75], minimumBoreDiameterM: null, reynoldsRange: () => [2e5, 2e6] };
+      return {
+        clause: 'ISO 5167-4:2003 §5.5.2 (as-cast convergent)',
+        pipeDiameterM: [0.1, 0.8],
+        beta: [0.3, 0.75],
+        minimumBoreDiameterM: null,
+        reynoldsRange: () => [2e5, 2e6],
+      };
     case 'nozzle':
       // ISO 5167-3:2003 §5.1.6.1 and §5.2.6.1 [mem].
       if (element.nozzleType === 'long-radius') {
-        return { clause: 'ISO 5167-3:2003 §5.2.6.1 (long-radius nozzle)', pipeDiameterM: [0.05, 0.63], beta: [0.2, 0.8], minimumBoreDiameterM: null, reynoldsRange: () => [1e4, 1e7] };
+        return {
+          clause: 'ISO 5167-3:2003 §5.2.6.1 (long-radius nozzle)',
+          pipeDiameterM: [0.05, 0.63],
+          beta: [0.2, 0.8],
+          minimumBoreDiameterM: null,
+          reynoldsRange: () => [1e4, 1e7],
+        };
       }
       return {
         clause: 'ISO 5167-3:2003 §5.1.6.1 (ISA 1932 nozzle)',
@@ -65,9 +89,17 @@ export function elementLimits(element: ElementSpec): ElementLimits {
       };
     case 'cone':
       // ISO 5167-5:2016 §6 [std, TRADE.md §2].
-      return { clause: 'ISO 5167-5:2016 §6 (cone meter)', pipeDiameterM: [0.05, 0.5], beta: [0.45, 0.75], minimumBoreDiameterM: null, reynoldsRange: () => [8e4, 1.2e7] };
+      return {
+        clause: 'ISO 5167-5:2016 §6 (cone meter)',
+        pipeDiameterM: [0.05, 0.5],
+        beta: [0.45, 0.75],
+        minimumBoreDiameterM: null,
+        reynoldsRange: () => [8e4, 1.2e7],
+      };
     default:
-      throw new Error(`elementLimits: element.kind must be orifice, venturi, nozzle or cone (got ${String((element as ElementSpec).kind)})`);
+      throw new Error(
+        `elementLimits: element.kind must be orifice, venturi, nozzle or cone (got ${String((element as ElementSpec).kind)})`,
+      );
   }
 }
 
@@ -85,7 +117,12 @@ export function formatNumber(value: number): string {
  * @param boreDiameterM d at flowing temperature, m (cone: not checked)
  * @returns warnings, empty when within limits
  */
-export function geometryWarnings(limits: ElementLimits, beta: number, pipeDiameterM: number, boreDiameterM: number): FlowWarning[] {
+export function geometryWarnings(
+  limits: ElementLimits,
+  beta: number,
+  pipeDiameterM: number,
+  boreDiameterM: number,
+): FlowWarning[] {
   const warnings: FlowWarning[] = [];
   const [bMin, bMax] = limits.beta;
   if (beta < bMin || beta > bMax) {

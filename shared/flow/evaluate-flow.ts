@@ -30,7 +30,12 @@ export interface FlowEvaluation {
  * @param fluid fluid properties
  * @returns ε
  */
-export function elementExpansibility(element: PreparedElement, differentialPressurePa: number, staticPressurePa: number, fluid: FlowFluidProperties): number {
+export function elementExpansibility(
+  element: PreparedElement,
+  differentialPressurePa: number,
+  staticPressurePa: number,
+  fluid: FlowFluidProperties,
+): number {
   if (!fluid.compressible) return 1;
   switch (element.expansibilityModel) {
     case 'orifice':
@@ -51,13 +56,24 @@ export function elementExpansibility(element: PreparedElement, differentialPress
  * @param fluid density, viscosity, κ and compressibility at p1, T
  * @returns qm, C, ε, Re_D
  */
-export function evaluateFlow(element: PreparedElement, differentialPressurePa: number, staticPressurePa: number, fluid: FlowFluidProperties): FlowEvaluation {
+export function evaluateFlow(
+  element: PreparedElement,
+  differentialPressurePa: number,
+  staticPressurePa: number,
+  fluid: FlowFluidProperties,
+): FlowEvaluation {
   if (!(differentialPressurePa > 0)) {
-    return { massFlowKgPerS: 0, dischargeCoefficient: element.fixedDischargeCoefficient ?? NaN, expansibility: 1, reynoldsNumber: 0 };
+    return {
+      massFlowKgPerS: 0,
+      dischargeCoefficient: element.fixedDischargeCoefficient ?? NaN,
+      expansibility: 1,
+      reynoldsNumber: 0,
+    };
   }
   const expansibility = elementExpansibility(element, differentialPressurePa, staticPressurePa, fluid);
   // qm per unit C: ε (π/4) d² sqrt(2Δpρ)/sqrt(1 − β⁴).
-  const massFlowPerC = expansibility * element.flowAreaM2 * Math.sqrt(2 * differentialPressurePa * fluid.densityKgPerM3);
+  const massFlowPerC =
+    expansibility * element.flowAreaM2 * Math.sqrt(2 * differentialPressurePa * fluid.densityKgPerM3);
   // Re_D per unit C: A1 of ISO 5167-1 Annex C = 4 qm/(C π μ D).
   const invariantA1 = (4 * massFlowPerC) / (Math.PI * fluid.viscosityPaS * element.pipeDiameterM);
   let dischargeCoefficient: number;
@@ -66,7 +82,11 @@ export function evaluateFlow(element: PreparedElement, differentialPressurePa: n
     dischargeCoefficient = element.fixedDischargeCoefficient as number;
     reynoldsNumber = dischargeCoefficient * invariantA1;
   } else {
-    const solution = solveReynoldsNumber(invariantA1, element.dischargeCoefficientAt, element.startDischargeCoefficient);
+    const solution = solveReynoldsNumber(
+      invariantA1,
+      element.dischargeCoefficientAt,
+      element.startDischargeCoefficient,
+    );
     dischargeCoefficient = solution.dischargeCoefficient;
     reynoldsNumber = solution.reynoldsNumber;
   }

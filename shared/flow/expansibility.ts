@@ -3,11 +3,19 @@
  * Δp/p1 and the isentropic exponent κ; the standards give them for τ ≥ 0.75 (the caller warns).
  */
 
-function checkInputs(fn: string, beta: number, differentialPressurePa: number, staticPressurePa: number, isentropicExponent: number): void {
+function checkInputs(
+  fn: string,
+  beta: number,
+  differentialPressurePa: number,
+  staticPressurePa: number,
+  isentropicExponent: number,
+): void {
   if (!(beta > 0 && beta < 1)) throw new Error(`${fn}: beta must be in (0, 1) (got ${beta})`);
   if (!(staticPressurePa > 0)) throw new Error(`${fn}: staticPressurePa must be > 0 (got ${staticPressurePa})`);
   if (!(differentialPressurePa >= 0 && differentialPressurePa < staticPressurePa)) {
-    throw new Error(`${fn}: differentialPressurePa must be in [0, staticPressurePa) (got ${differentialPressurePa} with staticPressurePa ${staticPressurePa})`);
+    throw new Error(
+      `${fn}: differentialPressurePa must be in [0, staticPressurePa) (got ${differentialPressurePa} with staticPressurePa ${staticPressurePa})`,
+    );
   }
   if (!(isentropicExponent > 0)) throw new Error(`${fn}: isentropicExponent must be > 0 (got ${isentropicExponent})`);
 }
@@ -20,7 +28,12 @@ function checkInputs(fn: string, beta: number, differentialPressurePa: number, s
  * @param isentropicExponent κ
  * @returns ε
  */
-export function orificeExpansibility(beta: number, differentialPressurePa: number, staticPressurePa: number, isentropicExponent: number): number {
+export function orificeExpansibility(
+  beta: number,
+  differentialPressurePa: number,
+  staticPressurePa: number,
+  isentropicExponent: number,
+): number {
   checkInputs('orificeExpansibility', beta, differentialPressurePa, staticPressurePa, isentropicExponent);
   const beta4 = beta * beta * beta * beta;
   // 1 − τ^(1/κ) with τ = 1 − Δp/p1, written with log1p/expm1 so a small Δp keeps its digits.
@@ -40,7 +53,12 @@ export function orificeExpansibility(beta: number, differentialPressurePa: numbe
  * @param isentropicExponent κ
  * @returns ε
  */
-export function isentropicExpansibility(beta: number, differentialPressurePa: number, staticPressurePa: number, isentropicExponent: number): number {
+export function isentropicExpansibility(
+  beta: number,
+  differentialPressurePa: number,
+  staticPressurePa: number,
+  isentropicExponent: number,
+): number {
   checkInputs('isentropicExpansibility', beta, differentialPressurePa, staticPressurePa, isentropicExponent);
   if (differentialPressurePa === 0) return 1;
   const k = isentropicExponent;
@@ -67,7 +85,12 @@ export function isentropicExpansibility(beta: number, differentialPressurePa: nu
  * @param isentropicExponent κ
  * @returns ε
  */
-export function coneExpansibility(beta: number, differentialPressurePa: number, staticPressurePa: number, isentropicExponent: number): number {
+export function coneExpansibility(
+  beta: number,
+  differentialPressurePa: number,
+  staticPressurePa: number,
+  isentropicExponent: number,
+): number {
   checkInputs('coneExpansibility', beta, differentialPressurePa, staticPressurePa, isentropicExponent);
   const beta4 = beta * beta * beta * beta;
   return 1 - ((0.649 + 0.696 * beta4) * differentialPressurePa) / (isentropicExponent * staticPressurePa);

@@ -31,8 +31,20 @@ describe('flowResultFromState', () => {
 
   it('has exactly the result fields of DESIGN.md (plus pressureLossPa)', () => {
     expect(Object.keys(flowResultFromState(o1Case, o1State)).sort()).toEqual(
-      ['beta', 'dischargeCoefficient', 'expansibility', 'reynoldsNumber', 'densityKgPerM3', 'compressibility', 'baseDensityKgPerM3',
-        'massFlowKgPerS', 'volumeFlowM3PerS', 'standardVolumeFlowM3PerS', 'pressureLossPa', 'warnings'].sort(),
+      [
+        'beta',
+        'dischargeCoefficient',
+        'expansibility',
+        'reynoldsNumber',
+        'densityKgPerM3',
+        'compressibility',
+        'baseDensityKgPerM3',
+        'massFlowKgPerS',
+        'volumeFlowM3PerS',
+        'standardVolumeFlowM3PerS',
+        'pressureLossPa',
+        'warnings',
+      ].sort(),
     );
   });
 
@@ -61,7 +73,11 @@ describe('flowResultFromState', () => {
 
   it('warns when Re_D is below the ISO 5167-2 minimum (5000 for β ≤ 0.56, corner taps)', () => {
     const r = flowResultFromState(
-      { ...o1Case, element: { kind: 'orifice', taps: 'corner', pipeDiameterM: 0.1, boreDiameterM: 0.05 }, conditions: { differentialPressurePa: 50, staticPressurePa: 2e5, temperatureK: 293.15 } },
+      {
+        ...o1Case,
+        element: { kind: 'orifice', taps: 'corner', pipeDiameterM: 0.1, boreDiameterM: 0.05 },
+        conditions: { differentialPressurePa: 50, staticPressurePa: 2e5, temperatureK: 293.15 },
+      },
       { ...o1State, viscosityPaS: 0.05 },
     );
     expect(r.reynoldsNumber).toBeLessThan(5000);
@@ -72,7 +88,15 @@ describe('flowResultFromState', () => {
     const r = flowResultFromState(
       {
         ...o1Case,
-        element: { kind: 'cone', pipeDiameterM: 0.1, coneDiameterM: 0.07, calibration: [{ reynoldsNumber: 1e3, dischargeCoefficient: 0.8 }, { reynoldsNumber: 1e4, dischargeCoefficient: 0.81 }] },
+        element: {
+          kind: 'cone',
+          pipeDiameterM: 0.1,
+          coneDiameterM: 0.07,
+          calibration: [
+            { reynoldsNumber: 1e3, dischargeCoefficient: 0.8 },
+            { reynoldsNumber: 1e4, dischargeCoefficient: 0.81 },
+          ],
+        },
       },
       o1State,
     );
@@ -86,7 +110,10 @@ describe('flowResultFromState', () => {
       { reynoldsNumber: 1e4, dischargeCoefficient: 0.79 },
       { reynoldsNumber: 1e7, dischargeCoefficient: 0.83 },
     ];
-    const r = flowResultFromState({ ...o1Case, element: { kind: 'cone', pipeDiameterM: 0.1, coneDiameterM: 0.07, calibration } }, o1State);
+    const r = flowResultFromState(
+      { ...o1Case, element: { kind: 'cone', pipeDiameterM: 0.1, coneDiameterM: 0.07, calibration } },
+      o1State,
+    );
     const expectedC = 0.79 + ((Math.log10(r.reynoldsNumber) - 4) / 3) * 0.04;
     expect(r.dischargeCoefficient).toBeCloseTo(expectedC, 10);
     expect((4 * r.massFlowKgPerS) / (Math.PI * 1.1e-3 * 0.1) / r.reynoldsNumber).toBeCloseTo(1, 9);
@@ -94,6 +121,11 @@ describe('flowResultFromState', () => {
   });
 
   it('throws naming conditions.staticPressurePa when the DP is not below the absolute static pressure', () => {
-    expect(() => flowResultFromState({ ...o1Case, conditions: { differentialPressurePa: 3e5, staticPressurePa: 2e5, temperatureK: 293.15 } }, o1State)).toThrow(/conditions\.staticPressurePa/);
+    expect(() =>
+      flowResultFromState(
+        { ...o1Case, conditions: { differentialPressurePa: 3e5, staticPressurePa: 2e5, temperatureK: 293.15 } },
+        o1State,
+      ),
+    ).toThrow(/conditions\.staticPressurePa/);
   });
 });

@@ -27,21 +27,32 @@ export interface FlowFluidState {
 export function flowResultFromState(flowCase: FlowCase, state: FlowFluidState): FlowResult {
   const { differentialPressurePa, staticPressurePa, temperatureK } = flowCase.conditions;
   if (!(differentialPressurePa > 0)) {
-    throw new Error(`flowResultFromState: conditions.differentialPressurePa must be > 0 (got ${differentialPressurePa})`);
+    throw new Error(
+      `flowResultFromState: conditions.differentialPressurePa must be > 0 (got ${differentialPressurePa})`,
+    );
   }
   if (!(staticPressurePa > differentialPressurePa)) {
-    throw new Error(`flowResultFromState: conditions.staticPressurePa (absolute, ${staticPressurePa} Pa) must exceed conditions.differentialPressurePa (${differentialPressurePa} Pa)`);
+    throw new Error(
+      `flowResultFromState: conditions.staticPressurePa (absolute, ${staticPressurePa} Pa) must exceed conditions.differentialPressurePa (${differentialPressurePa} Pa)`,
+    );
   }
   if (!(state.densityKgPerM3 > 0) || !(state.viscosityPaS > 0) || !(state.isentropicExponent > 0)) {
-    throw new Error(`flowResultFromState: fluid state needs density, viscosity and isentropic exponent > 0 (got ${state.densityKgPerM3}, ${state.viscosityPaS}, ${state.isentropicExponent})`);
+    throw new Error(
+      `flowResultFromState: fluid state needs density, viscosity and isentropic exponent > 0 (got ${state.densityKgPerM3}, ${state.viscosityPaS}, ${state.isentropicExponent})`,
+    );
   }
   const element = prepareElement(flowCase.element, temperatureK);
   const flow = evaluateFlow(element, differentialPressurePa, staticPressurePa, state);
   const warnings: FlowWarning[] = [...state.warnings, ...element.warnings];
   const pressureRatio = state.compressible ? (staticPressurePa - differentialPressurePa) / staticPressurePa : null;
-  warnings.push(...operatingPointWarnings(element.limits, element.beta, element.pipeDiameterM, flow.reynoldsNumber, pressureRatio));
+  warnings.push(
+    ...operatingPointWarnings(element.limits, element.beta, element.pipeDiameterM, flow.reynoldsNumber, pressureRatio),
+  );
   const calibration = element.calibration;
-  if (calibration && (flow.reynoldsNumber < calibration.minimumReynoldsNumber || flow.reynoldsNumber > calibration.maximumReynoldsNumber)) {
+  if (
+    calibration &&
+    (flow.reynoldsNumber < calibration.minimumReynoldsNumber || flow.reynoldsNumber > calibration.maximumReynoldsNumber)
+  ) {
     warnings.push({
       code: 'flow.calibrationExtrapolated',
       message: `Re_D = ${formatNumber(flow.reynoldsNumber)} is outside the calibrated range ${formatNumber(calibration.minimumReynoldsNumber)} to ${formatNumber(calibration.maximumReynoldsNumber)}; C is held at the end value ${formatNumber(flow.dischargeCoefficient)}`,
@@ -57,7 +68,8 @@ export function flowResultFromState(flowCase: FlowCase, state: FlowFluidState): 
     baseDensityKgPerM3: state.baseDensityKgPerM3,
     massFlowKgPerS: flow.massFlowKgPerS,
     volumeFlowM3PerS: flow.massFlowKgPerS / state.densityKgPerM3,
-    standardVolumeFlowM3PerS: state.baseDensityKgPerM3 && state.baseDensityKgPerM3 > 0 ? flow.massFlowKgPerS / state.baseDensityKgPerM3 : null,
+    standardVolumeFlowM3PerS:
+      state.baseDensityKgPerM3 && state.baseDensityKgPerM3 > 0 ? flow.massFlowKgPerS / state.baseDensityKgPerM3 : null,
     pressureLossPa: pressureLossPa(element.kind, element.beta, flow.dischargeCoefficient, differentialPressurePa),
     warnings,
   };

@@ -13,11 +13,28 @@ export { nozzleDischargeCoefficient } from './nozzle-discharge-coefficient';
 export { venturiDischargeCoefficient, VENTURI_DISCHARGE_COEFFICIENT } from './venturi-discharge-coefficient';
 export { prepareCalibration, UNCALIBRATED_CONE_DISCHARGE_COEFFICIENT } from './cone-discharge-coefficient';
 export { orificeExpansibility, isentropicExpansibility, coneExpansibility } from './expansibility';
-export { EXPANSION_PER_K_BY_MATERIAL, DEFAULT_REFERENCE_TEMPERATURE_K, diameterAtTemperatureM, expansionPerK } from './thermal-expansion';
+export {
+  EXPANSION_PER_K_BY_MATERIAL,
+  DEFAULT_REFERENCE_TEMPERATURE_K,
+  diameterAtTemperatureM,
+  expansionPerK,
+} from './thermal-expansion';
 export { elementLimits, MINIMUM_PRESSURE_RATIO } from './element-limits';
 export { pressureLossPa } from './pressure-loss';
 export { massFlowFromEquationKgPerS, pipeReynoldsNumber } from './mass-flow-equation';
 export { solveReynoldsNumber } from './reynolds-iteration';
-export { chooseStackedTransmitter, type StackedPairChoice, type StackedPairConfig, type StackedReading, type StackedRole } from './stacked-pair';
-export { rangeCheck, rangeCheckWithFluid, rangeCheckCurve, type RangeCheckInput, type RangeCheckResult } from './range-check';
+export {
+  chooseStackedTransmitter,
+  type StackedPairChoice,
+  type StackedPairConfig,
+  type StackedReading,
+  type StackedRole,
+} from './stacked-pair';
+export {
+  rangeCheck,
+  rangeCheckWithFluid,
+  rangeCheckCurve,
+  type RangeCheckInput,
+  type RangeCheckResult,
+} from './range-check';
 export { standardSpanAtOrBelow } from './standard-span';

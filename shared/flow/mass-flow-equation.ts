@@ -23,7 +23,11 @@ export function massFlowFromEquationKgPerS(
   if (!(differentialPressurePa > 0)) return 0;
   const beta4 = beta * beta * beta * beta;
   return (
-    (dischargeCoefficient / Math.sqrt(1 - beta4)) * expansibility * (Math.PI / 4) * boreDiameterM * boreDiameterM *
+    (dischargeCoefficient / Math.sqrt(1 - beta4)) *
+    expansibility *
+    (Math.PI / 4) *
+    boreDiameterM *
+    boreDiameterM *
     Math.sqrt(2 * differentialPressurePa * densityKgPerM3)
   );
 }

@@ -11,8 +11,12 @@ import type { NozzleType } from './flow-types';
  * @param beta diameter ratio d/D
  * @returns C as a function of Re_D
  */
-export function prepareNozzleDischargeCoefficient(nozzleType: NozzleType, beta: number): (reynoldsNumber: number) => number {
-  if (!(beta > 0 && beta < 1)) throw new Error(`prepareNozzleDischargeCoefficient: beta must be in (0, 1) (got ${beta})`);
+export function prepareNozzleDischargeCoefficient(
+  nozzleType: NozzleType,
+  beta: number,
+): (reynoldsNumber: number) => number {
+  if (!(beta > 0 && beta < 1))
+    throw new Error(`prepareNozzleDischargeCoefficient: beta must be in (0, 1) (got ${beta})`);
   if (nozzleType === 'isa-1932') {
     const infinite = 0.99 - 0.2262 * Math.pow(beta, 4.1);
     const slope = 0.00175 * beta * beta - 0.0033 * Math.pow(beta, 4.15);
@@ -22,7 +26,9 @@ export function prepareNozzleDischargeCoefficient(nozzleType: NozzleType, beta: 
     const slope = 0.00653 * Math.sqrt(beta);
     return (re) => 0.9965 - slope * Math.sqrt(1e6 / re);
   }
-  throw new Error(`prepareNozzleDischargeCoefficient: element.nozzleType must be isa-1932 or long-radius (got ${String(nozzleType)})`);
+  throw new Error(
+    `prepareNozzleDischargeCoefficient: element.nozzleType must be isa-1932 or long-radius (got ${String(nozzleType)})`,
+  );
 }
 
 /**
@@ -33,6 +39,7 @@ export function prepareNozzleDischargeCoefficient(nozzleType: NozzleType, beta: 
  * @returns C
  */
 export function nozzleDischargeCoefficient(nozzleType: NozzleType, beta: number, reynoldsNumber: number): number {
-  if (!(reynoldsNumber > 0)) throw new Error(`nozzleDischargeCoefficient: reynoldsNumber must be > 0 (got ${reynoldsNumber})`);
+  if (!(reynoldsNumber > 0))
+    throw new Error(`nozzleDischargeCoefficient: reynoldsNumber must be > 0 (got ${reynoldsNumber})`);
   return prepareNozzleDischargeCoefficient(nozzleType, beta)(reynoldsNumber);
 }

@@ -39,8 +39,10 @@ export function prepareOrificeDischargeCoefficient(
   pipeDiameterM: number,
   taps: OrificeTaps,
 ): (reynoldsNumber: number) => number {
-  if (!(beta > 0 && beta < 1)) throw new Error(`prepareOrificeDischargeCoefficient: beta must be in (0, 1) (got ${beta})`);
-  if (!(pipeDiameterM > 0)) throw new Error(`prepareOrificeDischargeCoefficient: pipeDiameterM must be > 0 (got ${pipeDiameterM})`);
+  if (!(beta > 0 && beta < 1))
+    throw new Error(`prepareOrificeDischargeCoefficient: beta must be in (0, 1) (got ${beta})`);
+  if (!(pipeDiameterM > 0))
+    throw new Error(`prepareOrificeDischargeCoefficient: pipeDiameterM must be > 0 (got ${pipeDiameterM})`);
   const { l1, l2 } = orificeTapDistances(taps, pipeDiameterM);
   const beta2 = beta * beta;
   const beta4 = beta2 * beta2;
@@ -82,6 +84,7 @@ export function orificeDischargeCoefficient(
   pipeDiameterM: number,
   taps: OrificeTaps,
 ): number {
-  if (!(reynoldsNumber > 0)) throw new Error(`orificeDischargeCoefficient: reynoldsNumber must be > 0 (got ${reynoldsNumber})`);
+  if (!(reynoldsNumber > 0))
+    throw new Error(`orificeDischargeCoefficient: reynoldsNumber must be > 0 (got ${reynoldsNumber})`);
   return prepareOrificeDischargeCoefficient(beta, pipeDiameterM, taps)(reynoldsNumber);
 }

@@ -10,7 +10,14 @@ describe('prepareElement', () => {
   it('corrects diameters to flowing temperature, d = d_ref (1 + α (T − T_ref)) (ISO 5167-1 §5.1, TRADE.md §1)', () => {
     // 50 K above 20 °C: carbon steel pipe 1.116e-5/K, 316 SS plate 1.665e-5/K (TRADE.md §1 [mem]).
     const e = prepareElement(
-      { kind: 'orifice', taps: 'flange', pipeDiameterM: 0.2, boreDiameterM: 0.1, pipeMaterial: 'carbon-steel', elementMaterial: 'stainless-316' },
+      {
+        kind: 'orifice',
+        taps: 'flange',
+        pipeDiameterM: 0.2,
+        boreDiameterM: 0.1,
+        pipeMaterial: 'carbon-steel',
+        elementMaterial: 'stainless-316',
+      },
       343.15,
     );
     expect(e.pipeDiameterM).toBeCloseTo(0.2 * (1 + 1.116e-5 * 50), 15);
@@ -20,7 +27,16 @@ describe('prepareElement', () => {
 
   it('lets a given coefficient win over a material name', () => {
     const e = prepareElement(
-      { kind: 'venturi', venturiType: 'as-cast', pipeDiameterM: 0.2, boreDiameterM: 0.1, pipeExpansionPerK: 2e-5, pipeMaterial: 'carbon-steel', elementExpansionPerK: 0, referenceTemperatureK: 288.15 },
+      {
+        kind: 'venturi',
+        venturiType: 'as-cast',
+        pipeDiameterM: 0.2,
+        boreDiameterM: 0.1,
+        pipeExpansionPerK: 2e-5,
+        pipeMaterial: 'carbon-steel',
+        elementExpansionPerK: 0,
+        referenceTemperatureK: 288.15,
+      },
       298.15,
     );
     expect(e.pipeDiameterM).toBeCloseTo(0.2 * (1 + 2e-5 * 10), 15);
@@ -49,8 +65,12 @@ describe('prepareElement', () => {
   });
 
   it('throws naming the field when the bore is not below the pipe diameter or taps are missing', () => {
-    expect(() => prepareElement({ kind: 'orifice', taps: 'corner', pipeDiameterM: 0.1, boreDiameterM: 0.1 }, 293.15)).toThrow(/element\.boreDiameterM/);
-    expect(() => prepareElement({ kind: 'orifice', pipeDiameterM: 0.1, boreDiameterM: 0.05 }, 293.15)).toThrow(/element\.taps/);
+    expect(() =>
+      prepareElement({ kind: 'orifice', taps: 'corner', pipeDiameterM: 0.1, boreDiameterM: 0.1 }, 293.15),
+    ).toThrow(/element\.boreDiameterM/);
+    expect(() => prepareElement({ kind: 'orifice', pipeDiameterM: 0.1, boreDiameterM: 0.05 }, 293.15)).toThrow(
+      /element\.taps/,
+    );
     expect(() => prepareElement({ kind: 'cone', pipeDiameterM: 0.1 }, 293.15)).toThrow(/element\.coneDiameterM/);
   });
 });

@@ -2,7 +2,11 @@
  * Prepares a primary element at a flowing temperature for repeated evaluation: diameters
  * corrected for thermal expansion, β, the C function and the limits, computed once.
  */
-import { prepareCalibration, UNCALIBRATED_CONE_DISCHARGE_COEFFICIENT, type PreparedCalibration } from './cone-discharge-coefficient';
+import {
+  prepareCalibration,
+  UNCALIBRATED_CONE_DISCHARGE_COEFFICIENT,
+  type PreparedCalibration,
+} from './cone-discharge-coefficient';
 import { elementLimits, formatNumber, geometryWarnings, type ElementLimits } from './element-limits';
 import type { ElementKind, ElementSpec, FlowWarning } from './flow-types';
 import { prepareNozzleDischargeCoefficient } from './nozzle-discharge-coefficient';
@@ -46,12 +50,20 @@ export interface PreparedElement {
  */
 export function prepareElement(element: ElementSpec, temperatureK: number): PreparedElement {
   if (!(temperatureK > 0)) throw new Error(`prepareElement: conditions.temperatureK must be > 0 (got ${temperatureK})`);
-  if (!(element.pipeDiameterM > 0)) throw new Error(`prepareElement: element.pipeDiameterM must be > 0 (got ${element.pipeDiameterM})`);
+  if (!(element.pipeDiameterM > 0))
+    throw new Error(`prepareElement: element.pipeDiameterM must be > 0 (got ${element.pipeDiameterM})`);
   const warnings: FlowWarning[] = [];
   const referenceK = element.referenceTemperatureK ?? DEFAULT_REFERENCE_TEMPERATURE_K;
   const pipeAlpha = expansionPerK(element.pipeExpansionPerK, element.pipeMaterial, 'element.pipeExpansionPerK');
-  const elementAlpha = expansionPerK(element.elementExpansionPerK, element.elementMaterial, 'element.elementExpansionPerK');
-  if ((pipeAlpha === null || elementAlpha === null) && Math.abs(temperatureK - referenceK) > UNCORRECTED_TEMPERATURE_SPAN_K) {
+  const elementAlpha = expansionPerK(
+    element.elementExpansionPerK,
+    element.elementMaterial,
+    'element.elementExpansionPerK',
+  );
+  if (
+    (pipeAlpha === null || elementAlpha === null) &&
+    Math.abs(temperatureK - referenceK) > UNCORRECTED_TEMPERATURE_SPAN_K
+  ) {
     warnings.push({
       code: 'flow.thermalExpansionNotCorrected',
       message: `no expansion coefficient or material for the ${pipeAlpha === null ? 'pipe' : 'element'}: diameters are taken as measured at ${formatNumber(referenceK)} K although the fluid is at ${formatNumber(temperatureK)} K`,
@@ -62,16 +74,28 @@ export function prepareElement(element: ElementSpec, temperatureK: number): Prep
   let beta: number;
   let boreDiameterM: number;
   if (element.kind === 'cone') {
-    if (!(element.coneDiameterM !== undefined && element.coneDiameterM > 0 && element.coneDiameterM < element.pipeDiameterM)) {
-      throw new Error(`prepareElement: element.coneDiameterM must be > 0 and below element.pipeDiameterM (got ${element.coneDiameterM})`);
+    if (!(
+      element.coneDiameterM !== undefined &&
+      element.coneDiameterM > 0 &&
+      element.coneDiameterM < element.pipeDiameterM
+    )) {
+      throw new Error(
+        `prepareElement: element.coneDiameterM must be > 0 and below element.pipeDiameterM (got ${element.coneDiameterM})`,
+      );
     }
     const coneDiameterM = diameterAtTemperatureM(element.coneDiameterM, elementAlpha ?? 0, temperatureK, referenceK);
     // ISO 5167-5:2016 §3.3.1: β = sqrt(1 − dc²/D²); the equivalent bore d = βD goes into eq. (1).
     beta = Math.sqrt(1 - (coneDiameterM * coneDiameterM) / (pipeDiameterM * pipeDiameterM));
     boreDiameterM = beta * pipeDiameterM;
   } else {
-    if (!(element.boreDiameterM !== undefined && element.boreDiameterM > 0 && element.boreDiameterM < element.pipeDiameterM)) {
-      throw new Error(`prepareElement: element.boreDiameterM must be > 0 and below element.pipeDiameterM (got ${element.boreDiameterM})`);
+    if (!(
+      element.boreDiameterM !== undefined &&
+      element.boreDiameterM > 0 &&
+      element.boreDiameterM < element.pipeDiameterM
+    )) {
+      throw new Error(
+        `prepareElement: element.boreDiameterM must be > 0 and below element.pipeDiameterM (got ${element.boreDiameterM})`,
+      );
     }
     boreDiameterM = diameterAtTemperatureM(element.boreDiameterM, elementAlpha ?? 0, temperatureK, referenceK);
     beta = boreDiameterM / pipeDiameterM;
@@ -85,7 +109,9 @@ export function prepareElement(element: ElementSpec, temperatureK: number): Prep
   let calibration: PreparedCalibration | null = null;
   if (element.dischargeCoefficient !== undefined) {
     if (!(element.dischargeCoefficient > 0 && element.dischargeCoefficient <= 1.2)) {
-      throw new Error(`prepareElement: element.dischargeCoefficient must be in (0, 1.2] (got ${element.dischargeCoefficient})`);
+      throw new Error(
+        `prepareElement: element.dischargeCoefficient must be in (0, 1.2] (got ${element.dischargeCoefficient})`,
+      );
     }
     fixedDischargeCoefficient = element.dischargeCoefficient;
   } else if (element.calibration !== undefined) {

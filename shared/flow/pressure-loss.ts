@@ -15,7 +15,12 @@ import type { ElementKind } from './flow-types';
  * @param differentialPressurePa Δp, Pa
  * @returns Δϖ in Pa, or null where the standard gives no equation
  */
-export function pressureLossPa(kind: ElementKind, beta: number, dischargeCoefficient: number, differentialPressurePa: number): number | null {
+export function pressureLossPa(
+  kind: ElementKind,
+  beta: number,
+  dischargeCoefficient: number,
+  differentialPressurePa: number,
+): number | null {
   if (kind === 'orifice' || kind === 'nozzle') {
     const beta2 = beta * beta;
     const root = Math.sqrt(1 - beta2 * beta2 * (1 - dischargeCoefficient * dischargeCoefficient));

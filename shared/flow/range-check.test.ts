@@ -28,7 +28,10 @@ describe('rangeCheckWithFluid', () => {
   });
 
   it('shows a 10:1 flow turndown as a 100:1 DP turndown at fixed C (TRADE.md §6, common practice)', () => {
-    const r = rangeCheckWithFluid({ ...venturiRun, flowRange: { minimumKgPerS: 4, normalKgPerS: 20, maximumKgPerS: 40 } }, liquid);
+    const r = rangeCheckWithFluid(
+      { ...venturiRun, flowRange: { minimumKgPerS: 4, normalKgPerS: 20, maximumKgPerS: 40 } },
+      liquid,
+    );
     expect(r.flows[2].differentialPressurePa / r.flows[0].differentialPressurePa).toBeCloseTo(100, 9);
   });
 
@@ -57,26 +60,44 @@ describe('rangeCheckWithFluid', () => {
     expect(r.rangeCovered).toBe(false);
     const s = r.suggestedLowRangeSpan!;
     expect(s.unit).toBe('kPa');
-    expect([1, 1.25, 1.5, 2, 2.5, 3, 4, 5, 6, 7.5].map((x) => x * Math.pow(10, Math.floor(Math.log10(s.value))))).toContainEqual(expect.closeTo(s.value, 9));
+    expect(
+      [1, 1.25, 1.5, 2, 2.5, 3, 4, 5, 6, 7.5].map((x) => x * Math.pow(10, Math.floor(Math.log10(s.value)))),
+    ).toContainEqual(expect.closeTo(s.value, 9));
     expect(s.minimumFlowWithinLimitKgPerS).toBeLessThanOrEqual(venturiRun.flowRange.minimumKgPerS);
-    const withPair = rangeCheckWithFluid({ ...venturiRun, transmitters: [...venturiRun.transmitters, { spanPa: s.spanPa, accuracyPercentOfSpan: 0.075 }] }, liquid);
+    const withPair = rangeCheckWithFluid(
+      { ...venturiRun, transmitters: [...venturiRun.transmitters, { spanPa: s.spanPa, accuracyPercentOfSpan: 0.075 }] },
+      liquid,
+    );
     expect(withPair.transmitters[1].coversMinimumFlow).toBe(true);
   });
 
   it('finds the range covered by one transmitter when the turndown is small', () => {
-    const r = rangeCheckWithFluid({ ...venturiRun, flowRange: { minimumKgPerS: 50, normalKgPerS: 100, maximumKgPerS: 150 } }, liquid);
+    const r = rangeCheckWithFluid(
+      { ...venturiRun, flowRange: { minimumKgPerS: 50, normalKgPerS: 100, maximumKgPerS: 150 } },
+      liquid,
+    );
     expect(r.rangeCovered).toBe(true);
     expect(r.suggestedLowRangeSpan).toBeNull();
   });
 
   it('rejects a flow range out of order, naming flowRange', () => {
-    expect(() => rangeCheckWithFluid({ ...venturiRun, flowRange: { minimumKgPerS: 50, normalKgPerS: 20, maximumKgPerS: 40 } }, liquid)).toThrow(/flowRange/);
+    expect(() =>
+      rangeCheckWithFluid(
+        { ...venturiRun, flowRange: { minimumKgPerS: 50, normalKgPerS: 20, maximumKgPerS: 40 } },
+        liquid,
+      ),
+    ).toThrow(/flowRange/);
   });
 });
 
 describe('rangeCheckCurve', () => {
   it('gives log-spaced points up to the maximum flow with DP rising as flow² and no uncertainty above span', () => {
-    const points = rangeCheckCurve({ ...venturiRun, flowRange: { minimumKgPerS: 5, normalKgPerS: 20, maximumKgPerS: 200 } }, liquid, 11, 10);
+    const points = rangeCheckCurve(
+      { ...venturiRun, flowRange: { minimumKgPerS: 5, normalKgPerS: 20, maximumKgPerS: 200 } },
+      liquid,
+      11,
+      10,
+    );
     expect(points).toHaveLength(11);
     expect(points[10].massFlowKgPerS).toBeCloseTo(200, 9);
     expect(points[0].massFlowKgPerS).toBeCloseTo(20, 9);

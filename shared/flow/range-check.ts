@@ -7,7 +7,10 @@
  */
 import { fluidState, type FluidSpec } from '../fluids';
 import { fromSI, toSI } from '../units/convert-units';
-import { dischargeCoefficientUncertaintyPercent, expansibilityUncertaintyPercent } from '../uncertainty/element-uncertainty';
+import {
+  dischargeCoefficientUncertaintyPercent,
+  expansibilityUncertaintyPercent,
+} from '../uncertainty/element-uncertainty';
 import { diameterSensitivities } from '../uncertainty/flow-rate-uncertainty';
 import { differentialPressureForMassFlow } from './differential-pressure-for-flow';
 import { operatingPointWarnings } from './element-limits';
@@ -95,11 +98,22 @@ interface Context {
 function otherUncertaintyPercent(ctx: Context, dp: number, reynoldsNumber: number): number {
   const { element, input, fluid } = ctx;
   const uC = dischargeCoefficientUncertaintyPercent({
-    kind: element.kind, beta: element.beta, pipeDiameterM: element.pipeDiameterM, reynoldsNumber,
-    venturiType: input.element.venturiType, nozzleType: input.element.nozzleType,
+    kind: element.kind,
+    beta: element.beta,
+    pipeDiameterM: element.pipeDiameterM,
+    reynoldsNumber,
+    venturiType: input.element.venturiType,
+    nozzleType: input.element.nozzleType,
     calibrated: input.element.calibration !== undefined,
   });
-  const uEps = expansibilityUncertaintyPercent(element.kind, element.beta, dp, input.conditions.staticPressurePa, fluid.isentropicExponent, fluid.compressible);
+  const uEps = expansibilityUncertaintyPercent(
+    element.kind,
+    element.beta,
+    dp,
+    input.conditions.staticPressurePa,
+    fluid.isentropicExponent,
+    fluid.compressible,
+  );
   const s = diameterSensitivities(element.kind, element.beta);
   const uD = s.pipe * (input.pipeDiameterPercent ?? 0);
   const ud = s.element * (input.elementDiameterPercent ?? 0);
@@ -108,7 +122,12 @@ function otherUncertaintyPercent(ctx: Context, dp: number, reynoldsNumber: numbe
 }
 
 /** Flow uncertainty with one transmitter at a DP: the other inputs plus ½ × the reading uncertainty. */
-function flowUncertaintyPercent(ctx: Context, t: RangeCheckTransmitter, dp: number, reynoldsNumber: number): { reading: number; flow: number } {
+function flowUncertaintyPercent(
+  ctx: Context,
+  t: RangeCheckTransmitter,
+  dp: number,
+  reynoldsNumber: number,
+): { reading: number; flow: number } {
   const reading = dp > 0 ? (t.accuracyPercentOfSpan * t.spanPa) / dp : Infinity;
   const other = otherUncertaintyPercent(ctx, dp, reynoldsNumber);
   return { reading, flow: Math.hypot(other, 0.5 * reading) };
@@ -134,14 +153,21 @@ function minimumDpWithinLimit(ctx: Context, accuracyPercentOfSpan: number, spanP
  * @param fluid density, viscosity, κ and compressibility at the line conditions
  * @returns DPs, shares of span, coverage, turndown and a suggested low-range span
  */
-export function rangeCheckWithFluid(input: RangeCheckInput, fluid: FlowFluidProperties & { warnings?: FlowWarning[] }): RangeCheckResult {
+export function rangeCheckWithFluid(
+  input: RangeCheckInput,
+  fluid: FlowFluidProperties & { warnings?: FlowWarning[] },
+): RangeCheckResult {
   const { minimumKgPerS, normalKgPerS, maximumKgPerS } = input.flowRange;
   if (!(minimumKgPerS > 0 && minimumKgPerS <= normalKgPerS && normalKgPerS <= maximumKgPerS)) {
-    throw new Error(`rangeCheck: flowRange needs 0 < minimumKgPerS ≤ normalKgPerS ≤ maximumKgPerS (got ${minimumKgPerS}, ${normalKgPerS}, ${maximumKgPerS})`);
+    throw new Error(
+      `rangeCheck: flowRange needs 0 < minimumKgPerS ≤ normalKgPerS ≤ maximumKgPerS (got ${minimumKgPerS}, ${normalKgPerS}, ${maximumKgPerS})`,
+    );
   }
-  if (!(input.transmitters.length >= 1 && input.transmitters.length <= 2)) throw new Error(`rangeCheck: transmitters must hold one or two DP transmitters (got ${input.transmitters.length})`);
+  if (!(input.transmitters.length >= 1 && input.transmitters.length <= 2))
+    throw new Error(`rangeCheck: transmitters must hold one or two DP transmitters (got ${input.transmitters.length})`);
   input.transmitters.forEach((t, i) => {
-    if (!(t.spanPa > 0) || !(t.accuracyPercentOfSpan > 0)) throw new Error(`rangeCheck: transmitters.${i} needs spanPa > 0 and accuracyPercentOfSpan > 0`);
+    if (!(t.spanPa > 0) || !(t.accuracyPercentOfSpan > 0))
+      throw new Error(`rangeCheck: transmitters.${i} needs spanPa > 0 and accuracyPercentOfSpan > 0`);
   });
   const limit = input.uncertaintyLimitPercent ?? 1;
   if (!(limit > 0)) throw new Error(`rangeCheck: uncertaintyLimitPercent must be > 0 (got ${limit})`);
@@ -153,7 +179,13 @@ export function rangeCheckWithFluid(input: RangeCheckInput, fluid: FlowFluidProp
   const flows: RangeCheckFlow[] = (['minimum', 'normal', 'maximum'] as const).map((label) => {
     const qm = input.flowRange[`${label}KgPerS` as const];
     const s = differentialPressureForMassFlow(element, qm, p1, fluid);
-    for (const w of operatingPointWarnings(element.limits, element.beta, element.pipeDiameterM, s.reynoldsNumber, fluid.compressible ? (p1 - s.differentialPressurePa) / p1 : null)) {
+    for (const w of operatingPointWarnings(
+      element.limits,
+      element.beta,
+      element.pipeDiameterM,
+      s.reynoldsNumber,
+      fluid.compressible ? (p1 - s.differentialPressurePa) / p1 : null,
+    )) {
       warnings.push({ code: w.code, message: `at the ${label} flow: ${w.message}` });
     }
     return {
@@ -166,7 +198,13 @@ export function rangeCheckWithFluid(input: RangeCheckInput, fluid: FlowFluidProp
       transmitters: input.transmitters.map((t) => {
         const u = flowUncertaintyPercent(ctx, t, s.differentialPressurePa, s.reynoldsNumber);
         const share = (s.differentialPressurePa / t.spanPa) * 100;
-        return { shareOfSpanPercent: share, overRange: share > 100, lowInRange: share < 10, readingUncertaintyPercent: u.reading, flowUncertaintyPercent: u.flow };
+        return {
+          shareOfSpanPercent: share,
+          overRange: share > 100,
+          lowInRange: share < 10,
+          readingUncertaintyPercent: u.reading,
+          flowUncertaintyPercent: u.flow,
+        };
       }),
     };
   });
@@ -182,7 +220,8 @@ export function rangeCheckWithFluid(input: RangeCheckInput, fluid: FlowFluidProp
       flowAtTenPercentSpanKgPerS: flowAt(0.1 * t.spanPa),
       minimumFlowWithinLimitKgPerS,
       turndown: minimumFlowWithinLimitKgPerS ? flowAtFullSpanKgPerS / minimumFlowWithinLimitKgPerS : null,
-      coversMinimumFlow: minimumFlowWithinLimitKgPerS !== null && minimumFlowWithinLimitKgPerS <= minimumKgPerS * (1 + 1e-12),
+      coversMinimumFlow:
+        minimumFlowWithinLimitKgPerS !== null && minimumFlowWithinLimitKgPerS <= minimumKgPerS * (1 + 1e-12),
       coversMaximumFlow: flowAtFullSpanKgPerS >= maximumKgPerS * (1 - 1e-12),
     };
   });
@@ -194,7 +233,8 @@ export function rangeCheckWithFluid(input: RangeCheckInput, fluid: FlowFluidProp
   let rangeCovered = byRange.length > 0 && byRange[0].coversMaximumFlow;
   for (const t of byRange) {
     if (!rangeCovered || t.minimumFlowWithinLimitKgPerS === null) continue;
-    if (t.flowAtFullSpanKgPerS >= Math.min(reach, maximumKgPerS) * (1 - 1e-12)) reach = Math.min(reach, t.minimumFlowWithinLimitKgPerS);
+    if (t.flowAtFullSpanKgPerS >= Math.min(reach, maximumKgPerS) * (1 - 1e-12))
+      reach = Math.min(reach, t.minimumFlowWithinLimitKgPerS);
   }
   rangeCovered = rangeCovered && reach <= minimumKgPerS * (1 + 1e-12);
 
@@ -211,10 +251,24 @@ export function rangeCheckWithFluid(input: RangeCheckInput, fluid: FlowFluidProp
       const value = standardSpanAtOrBelow(fromSI(Math.min(spanLimitPa, high.spanPa), unit));
       const spanPa = toSI(value, unit);
       const dpMin = minimumDpWithinLimit(ctx, high.accuracyPercentOfSpan, spanPa);
-      suggestedLowRangeSpan = { value, unit, spanPa, minimumFlowWithinLimitKgPerS: dpMin !== null ? flowAt(dpMin) : NaN };
+      suggestedLowRangeSpan = {
+        value,
+        unit,
+        spanPa,
+        minimumFlowWithinLimitKgPerS: dpMin !== null ? flowAt(dpMin) : NaN,
+      };
     }
   }
-  return { beta: element.beta, densityKgPerM3: fluid.densityKgPerM3, uncertaintyLimitPercent: limit, flows, transmitters, rangeCovered, suggestedLowRangeSpan, warnings };
+  return {
+    beta: element.beta,
+    densityKgPerM3: fluid.densityKgPerM3,
+    uncertaintyLimitPercent: limit,
+    flows,
+    transmitters,
+    rangeCovered,
+    suggestedLowRangeSpan,
+    warnings,
+  };
 }
 
 /**
@@ -253,7 +307,11 @@ export function rangeCheckCurve(
     points.push({
       massFlowKgPerS: qm,
       differentialPressurePa: s.differentialPressurePa,
-      flowUncertaintyPercent: input.transmitters.map((t) => (s.differentialPressurePa > t.spanPa ? null : flowUncertaintyPercent(ctx, t, s.differentialPressurePa, s.reynoldsNumber).flow)),
+      flowUncertaintyPercent: input.transmitters.map((t) =>
+        s.differentialPressurePa > t.spanPa
+          ? null
+          : flowUncertaintyPercent(ctx, t, s.differentialPressurePa, s.reynoldsNumber).flow,
+      ),
     });
   }
   return points;

@@ -31,15 +31,17 @@ export function solveReynoldsNumber(
     throw new Error(`solveReynoldsNumber: invariantA1 must be finite and > 0 (got ${invariantA1})`);
   }
   let x0 = startDischargeCoefficient * invariantA1;
-  let c0 = dischargeCoefficientAt(x0);
+  const c0 = dischargeCoefficientAt(x0);
   let d0 = invariantA1 - x0 / c0;
-  if (Math.abs(d0 / invariantA1) < REYNOLDS_TOLERANCE) return { reynoldsNumber: x0, dischargeCoefficient: c0, iterations: 1 };
+  if (Math.abs(d0 / invariantA1) < REYNOLDS_TOLERANCE)
+    return { reynoldsNumber: x0, dischargeCoefficient: c0, iterations: 1 };
   // Second point: one fixed-point step X = C(X0)·A1.
   let x1 = c0 * invariantA1;
   let c1 = dischargeCoefficientAt(x1);
   let d1 = invariantA1 - x1 / c1;
   for (let i = 2; i <= MAX_ITERATIONS; i++) {
-    if (Math.abs(d1 / invariantA1) < REYNOLDS_TOLERANCE) return { reynoldsNumber: x1, dischargeCoefficient: c1, iterations: i };
+    if (Math.abs(d1 / invariantA1) < REYNOLDS_TOLERANCE)
+      return { reynoldsNumber: x1, dischargeCoefficient: c1, iterations: i };
     const slope = d1 - d0;
     let x2 = slope !== 0 ? x1 - (d1 * (x1 - x0)) / slope : c1 * invariantA1;
     // Re_D must stay positive: fall back to a fixed-point step if the secant overshoots.
@@ -50,5 +52,7 @@ export function solveReynoldsNumber(
     c1 = dischargeCoefficientAt(x1);
     d1 = invariantA1 - x1 / c1;
   }
-  throw new Error(`solveReynoldsNumber: no convergence after ${MAX_ITERATIONS} steps (A1 = ${invariantA1}, last Re_D = ${x1})`);
+  throw new Error(
+    `solveReynoldsNumber: no convergence after ${MAX_ITERATIONS} steps (A1 = ${invariantA1}, last Re_D = ${x1})`,
+  );
 }

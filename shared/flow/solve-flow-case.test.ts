@@ -8,7 +8,13 @@ describe('solveFlowCase (with shared/fluids)', () => {
     const M = (15 * R * 300) / 2e6;
     const r = solveFlowCase({
       element: { kind: 'orifice', taps: 'flange', pipeDiameterM: 0.3, boreDiameterM: 0.1, referenceTemperatureK: 300 },
-      fluid: { kind: 'ideal-gas', molarMassKgPerMol: M, compressibility: 1, isentropicExponent: 1.2, viscosityPaS: 1.12e-5 },
+      fluid: {
+        kind: 'ideal-gas',
+        molarMassKgPerMol: M,
+        compressibility: 1,
+        isentropicExponent: 1.2,
+        viscosityPaS: 1.12e-5,
+      },
       conditions: { differentialPressurePa: 28000, staticPressurePa: 2e6, temperatureK: 300 },
     });
     expect(r.densityKgPerM3).toBeCloseTo(15, 9);
@@ -32,8 +38,16 @@ describe('solveFlowCase (with shared/fluids)', () => {
 
   it('gives the Gulf Coast gas Z = 0.885078 at 6 MPa, 293.15 K and ρ = pM/(ZRT) with M = 16.7989 g/mol (AGA 8 DETAIL example gas, TRADE.md §4)', () => {
     const gulfCoast = {
-      methane: 0.965222, nitrogen: 0.002595, 'carbon-dioxide': 0.005956, ethane: 0.018186, propane: 0.004596,
-      isobutane: 0.000977, 'n-butane': 0.001007, isopentane: 0.000473, 'n-pentane': 0.000324, 'n-hexane': 0.000664,
+      methane: 0.965222,
+      nitrogen: 0.002595,
+      'carbon-dioxide': 0.005956,
+      ethane: 0.018186,
+      propane: 0.004596,
+      isobutane: 0.000977,
+      'n-butane': 0.001007,
+      isopentane: 0.000473,
+      'n-pentane': 0.000324,
+      'n-hexane': 0.000664,
     };
     const r = solveFlowCase({
       element: { kind: 'orifice', taps: 'flange', pipeDiameterM: 0.1023, boreDiameterM: 0.05 },

@@ -8,7 +8,10 @@ import type { BaseConditions, FlowCase, FlowResult } from './flow-types';
 import { flowResultFromState } from './flow-result-from-state';
 
 /** Base conditions when a case gives none: 101.325 kPa and 15 °C (ISO 13443 standard reference conditions). */
-export const DEFAULT_BASE_CONDITIONS: Readonly<BaseConditions> = Object.freeze({ pressurePa: 101325, temperatureK: 288.15 });
+export const DEFAULT_BASE_CONDITIONS: Readonly<BaseConditions> = Object.freeze({
+  pressurePa: 101325,
+  temperatureK: 288.15,
+});
 
 /**
  * @param flowCase a case validated by shared/schemas/flow-case.ts
@@ -18,6 +21,9 @@ export const DEFAULT_BASE_CONDITIONS: Readonly<BaseConditions> = Object.freeze({
 export function solveFlowCase(flowCase: FlowCase): FlowResult {
   const base = flowCase.base ?? DEFAULT_BASE_CONDITIONS;
   const { staticPressurePa, temperatureK } = flowCase.conditions;
-  const state = fluidState(flowCase.fluid, staticPressurePa, temperatureK, { pressurePa: base.pressurePa, temperatureK: base.temperatureK });
+  const state = fluidState(flowCase.fluid, staticPressurePa, temperatureK, {
+    pressurePa: base.pressurePa,
+    temperatureK: base.temperatureK,
+  });
   return flowResultFromState(flowCase, state);
 }

@@ -1,7 +1,12 @@
 import { chooseStackedTransmitter, type StackedPairConfig } from './stacked-pair';
 
 /** A 0–25 kPa low-range and 0–250 kPa high-range pair, switching up at 90 % and down at 80 % (common practice). */
-const config: StackedPairConfig = { lowUpperRangePa: 25000, highUpperRangePa: 250000, switchUpShare: 0.9, switchDownShare: 0.8 };
+const config: StackedPairConfig = {
+  lowUpperRangePa: 25000,
+  highUpperRangePa: 250000,
+  switchUpShare: 0.9,
+  switchDownShare: 0.8,
+};
 const good = (valuePa: number) => ({ valuePa, quality: 'good' as const });
 
 describe('chooseStackedTransmitter', () => {
@@ -48,13 +53,21 @@ describe('chooseStackedTransmitter', () => {
 
   it('uses the high-range transmitter when the low-range one is above its upper range value, with no disagreement', () => {
     const c = chooseStackedTransmitter(good(25400), good(60000), 'low', config);
-    expect(c).toEqual(expect.objectContaining({ use: 'high', lowOverRange: true, inOverlap: false, disagreementPa: null }));
+    expect(c).toEqual(
+      expect.objectContaining({ use: 'high', lowOverRange: true, inOverlap: false, disagreementPa: null }),
+    );
   });
 
   it('falls back to the other transmitter when one reading is bad or missing, and says so', () => {
-    expect(chooseStackedTransmitter({ valuePa: 5000, quality: 'bad' }, good(5100), 'low', config)).toEqual(expect.objectContaining({ use: 'high', reason: 'low-unavailable' }));
-    expect(chooseStackedTransmitter(good(5000), { valuePa: null, quality: 'good' }, 'high', config)).toEqual(expect.objectContaining({ use: 'low', reason: 'high-unavailable', switched: true }));
-    expect(chooseStackedTransmitter(null, null, 'low', config)).toEqual(expect.objectContaining({ use: null, reason: 'both-unavailable', differentialPressurePa: null }));
+    expect(chooseStackedTransmitter({ valuePa: 5000, quality: 'bad' }, good(5100), 'low', config)).toEqual(
+      expect.objectContaining({ use: 'high', reason: 'low-unavailable' }),
+    );
+    expect(chooseStackedTransmitter(good(5000), { valuePa: null, quality: 'good' }, 'high', config)).toEqual(
+      expect.objectContaining({ use: 'low', reason: 'high-unavailable', switched: true }),
+    );
+    expect(chooseStackedTransmitter(null, null, 'low', config)).toEqual(
+      expect.objectContaining({ use: null, reason: 'both-unavailable', differentialPressurePa: null }),
+    );
   });
 
   it('starts on the right transmitter without a previous choice', () => {
@@ -63,6 +76,8 @@ describe('chooseStackedTransmitter', () => {
   });
 
   it('rejects switch shares without a hysteresis band, naming them', () => {
-    expect(() => chooseStackedTransmitter(good(1), good(1), null, { ...config, switchDownShare: 0.9 })).toThrow(/switchDownShare/);
+    expect(() => chooseStackedTransmitter(good(1), good(1), null, { ...config, switchDownShare: 0.9 })).toThrow(
+      /switchDownShare/,
+    );
   });
 });

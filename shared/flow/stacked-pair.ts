@@ -73,12 +73,19 @@ export function chooseStackedTransmitter(
 ): StackedPairChoice {
   const lrv = config.lowLowerRangePa ?? 0;
   const span = config.lowUpperRangePa - lrv;
-  if (!(span > 0)) throw new Error(`chooseStackedTransmitter: config.lowUpperRangePa must exceed lowLowerRangePa (got ${config.lowUpperRangePa})`);
+  if (!(span > 0))
+    throw new Error(
+      `chooseStackedTransmitter: config.lowUpperRangePa must exceed lowLowerRangePa (got ${config.lowUpperRangePa})`,
+    );
   if (!(config.highUpperRangePa > config.lowUpperRangePa)) {
-    throw new Error(`chooseStackedTransmitter: config.highUpperRangePa must exceed config.lowUpperRangePa (got ${config.highUpperRangePa})`);
+    throw new Error(
+      `chooseStackedTransmitter: config.highUpperRangePa must exceed config.lowUpperRangePa (got ${config.highUpperRangePa})`,
+    );
   }
   if (!(config.switchDownShare > 0 && config.switchDownShare < config.switchUpShare && config.switchUpShare <= 1)) {
-    throw new Error(`chooseStackedTransmitter: config needs 0 < switchDownShare < switchUpShare ≤ 1 (got ${config.switchDownShare}, ${config.switchUpShare})`);
+    throw new Error(
+      `chooseStackedTransmitter: config needs 0 < switchDownShare < switchUpShare ≤ 1 (got ${config.switchDownShare}, ${config.switchUpShare})`,
+    );
   }
   const upPa = lrv + config.switchUpShare * span;
   const downPa = lrv + config.switchDownShare * span;
@@ -89,7 +96,14 @@ export function chooseStackedTransmitter(
 
   const base = { inOverlap: false, disagreementPa: null, disagreementPercentOfReading: null, lowOverRange } as const;
   if (!lowOk && !highOk) {
-    return { ...base, use: null, differentialPressurePa: null, reason: 'both-unavailable', switched: previous !== null, message: 'no usable reading from either DP transmitter (missing or bad quality)' };
+    return {
+      ...base,
+      use: null,
+      differentialPressurePa: null,
+      reason: 'both-unavailable',
+      switched: previous !== null,
+      message: 'no usable reading from either DP transmitter (missing or bad quality)',
+    };
   }
   if (!highOk) {
     const lowValue = (low as { valuePa: number }).valuePa;

@@ -10,7 +10,8 @@ const SERIES = [1, 1.25, 1.5, 2, 2.5, 3, 4, 5, 6, 7.5];
  * @returns the largest value of the series not above it
  */
 export function standardSpanAtOrBelow(valueInUnit: number): number {
-  if (!(valueInUnit > 0 && Number.isFinite(valueInUnit))) throw new Error(`standardSpanAtOrBelow: valueInUnit must be finite and > 0 (got ${valueInUnit})`);
+  if (!(valueInUnit > 0 && Number.isFinite(valueInUnit)))
+    throw new Error(`standardSpanAtOrBelow: valueInUnit must be finite and > 0 (got ${valueInUnit})`);
   const decade = Math.pow(10, Math.floor(Math.log10(valueInUnit)));
   let best = 0;
   for (const s of [...SERIES, 10]) {

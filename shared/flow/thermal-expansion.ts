@@ -40,7 +40,9 @@ export function expansionPerK(
   if (material !== undefined) {
     const alpha = EXPANSION_PER_K_BY_MATERIAL[material];
     if (alpha === undefined) {
-      throw new Error(`expansionPerK: unknown material '${material}' for ${field} (known: ${Object.keys(EXPANSION_PER_K_BY_MATERIAL).join(', ')})`);
+      throw new Error(
+        `expansionPerK: unknown material '${material}' for ${field} (known: ${Object.keys(EXPANSION_PER_K_BY_MATERIAL).join(', ')})`,
+      );
     }
     return alpha;
   }

@@ -18,7 +18,9 @@ export const VENTURI_DISCHARGE_COEFFICIENT: Readonly<Record<VenturiType, number>
 export function venturiDischargeCoefficient(venturiType: VenturiType): number {
   const c = VENTURI_DISCHARGE_COEFFICIENT[venturiType];
   if (c === undefined) {
-    throw new Error(`venturiDischargeCoefficient: element.venturiType must be as-cast, machined or rough-welded (got ${String(venturiType)})`);
+    throw new Error(
+      `venturiDischargeCoefficient: element.venturiType must be as-cast, machined or rough-welded (got ${String(venturiType)})`,
+    );
   }
   return c;
 }

@@ -52,13 +52,23 @@ function waterState(
   const liquid = s.region === 1 || (s.region === 3 && subcritical && pressurePa >= saturationPressurePa(temperatureK));
   const warnings: Warning[] = [];
   if (fluid.kind === 'water' && !liquid) {
-    warnings.push({ code: 'fluid.waterIsVapour', message: `Fluid is 'water' but IAPWS-IF97 gives a vapour/supercritical state at ${pressurePa} Pa, ${temperatureK} K; steam properties were used.` });
+    warnings.push({
+      code: 'fluid.waterIsVapour',
+      message: `Fluid is 'water' but IAPWS-IF97 gives a vapour/supercritical state at ${pressurePa} Pa, ${temperatureK} K; steam properties were used.`,
+    });
   }
   if (fluid.kind === 'steam' && liquid) {
-    warnings.push({ code: 'fluid.steamIsLiquid', message: `Fluid is 'steam' but IAPWS-IF97 gives liquid water at ${pressurePa} Pa, ${temperatureK} K; liquid properties were used (ε = 1).` });
+    warnings.push({
+      code: 'fluid.steamIsLiquid',
+      message: `Fluid is 'steam' but IAPWS-IF97 gives liquid water at ${pressurePa} Pa, ${temperatureK} K; liquid properties were used (ε = 1).`,
+    });
   }
   if (s.region === 3) {
-    warnings.push({ code: 'if97.region3', message: 'State is in IAPWS-IF97 region 3 (near the critical point): properties change steeply and the DP flow equations are poorly suited there.' });
+    warnings.push({
+      code: 'if97.region3',
+      message:
+        'State is in IAPWS-IF97 region 3 (near the critical point): properties change steeply and the DP flow equations are poorly suited there.',
+    });
   }
   if (s.region === 5) {
     warnings.push({ code: 'if97.region5', message: 'State is in IAPWS-IF97 region 5 (above 1073.15 K).' });
@@ -66,10 +76,16 @@ function waterState(
   if (pressurePa < CRITICAL_PRESSURE_PA && pressurePa >= SATURATION_PRESSURE_AT_273_15_K_PA) {
     const margin = Math.abs(temperatureK - saturationTemperatureK(pressurePa));
     if (margin < NEAR_SATURATION_K) {
-      warnings.push({ code: 'if97.nearSaturation', message: `State is within ${margin.toFixed(3)} K of saturation: wet steam or flashing across the element would bias the measurement.` });
+      warnings.push({
+        code: 'if97.nearSaturation',
+        message: `State is within ${margin.toFixed(3)} K of saturation: wet steam or flashing across the element would bias the measurement.`,
+      });
     }
   }
-  const baseDensity = base === undefined ? null : guarded('base: ', () => waterStatePT(base.pressurePa, base.temperatureK)).densityKgPerM3;
+  const baseDensity =
+    base === undefined
+      ? null
+      : guarded('base: ', () => waterStatePT(base.pressurePa, base.temperatureK)).densityKgPerM3;
   return {
     densityKgPerM3: s.densityKgPerM3,
     compressibility: liquid ? null : pressurePa / (s.densityKgPerM3 * IF97_GAS_CONSTANT_J_PER_KG_K * temperatureK),
@@ -113,7 +129,8 @@ export function fluidState(
   positive(pressurePa, 'pressurePa');
   positive(temperatureK, 'temperatureK');
   if (base !== undefined) {
-    if (base === null || typeof base !== 'object') throw new Error('fluidState: base must be an object { pressurePa, temperatureK }');
+    if (base === null || typeof base !== 'object')
+      throw new Error('fluidState: base must be an object { pressurePa, temperatureK }');
     positive(base.pressurePa, 'base.pressurePa');
     positive(base.temperatureK, 'base.temperatureK');
   }
@@ -130,16 +147,23 @@ export function fluidState(
       const z = optionalPositive(fluid.compressibility, 'fluid.compressibility') ?? 1;
       const warnings: Warning[] = [];
       if (kappa === undefined) {
-        warnings.push({ code: 'fluid.defaultIsentropicExponent', message: `Isentropic exponent not given: ${IDEAL_GAS_DEFAULT_ISENTROPIC_EXPONENT} (diatomic ideal gas) assumed.` });
+        warnings.push({
+          code: 'fluid.defaultIsentropicExponent',
+          message: `Isentropic exponent not given: ${IDEAL_GAS_DEFAULT_ISENTROPIC_EXPONENT} (diatomic ideal gas) assumed.`,
+        });
       }
       if (viscosity === undefined) {
-        warnings.push({ code: 'fluid.defaultViscosity', message: `Viscosity not given: ${IDEAL_GAS_DEFAULT_VISCOSITY_PA_S} Pa·s (air near 20 °C) assumed; it affects only the Reynolds number.` });
+        warnings.push({
+          code: 'fluid.defaultViscosity',
+          message: `Viscosity not given: ${IDEAL_GAS_DEFAULT_VISCOSITY_PA_S} Pa·s (air near 20 °C) assumed; it affects only the Reynolds number.`,
+        });
       }
       return {
         densityKgPerM3: idealGasDensityKgPerM3(pressurePa, temperatureK, m, z),
         compressibility: z,
         // Z = 1 at base: the given Z describes flowing conditions; base conditions are near-atmospheric.
-        baseDensityKgPerM3: base === undefined ? null : idealGasDensityKgPerM3(base.pressurePa, base.temperatureK, m, 1),
+        baseDensityKgPerM3:
+          base === undefined ? null : idealGasDensityKgPerM3(base.pressurePa, base.temperatureK, m, 1),
         isentropicExponent: kappa ?? IDEAL_GAS_DEFAULT_ISENTROPIC_EXPONENT,
         viscosityPaS: viscosity ?? IDEAL_GAS_DEFAULT_VISCOSITY_PA_S,
         molarMassKgPerMol: m,
@@ -156,12 +180,18 @@ export function fluidState(
       const beta = fluid.expansionPerK;
       const warnings: Warning[] = [];
       if (viscosity === undefined) {
-        warnings.push({ code: 'fluid.defaultViscosity', message: `Viscosity not given: ${LIQUID_DEFAULT_VISCOSITY_PA_S} Pa·s (water near 20 °C) assumed; give the liquid's viscosity, as it sets the Reynolds number.` });
+        warnings.push({
+          code: 'fluid.defaultViscosity',
+          message: `Viscosity not given: ${LIQUID_DEFAULT_VISCOSITY_PA_S} Pa·s (water near 20 °C) assumed; give the liquid's viscosity, as it sets the Reynolds number.`,
+        });
       }
       return {
         densityKgPerM3: guarded('', () => liquidDensityKgPerM3(temperatureK, rhoRef, tRef, beta)),
         compressibility: null,
-        baseDensityKgPerM3: base === undefined ? null : guarded('base: ', () => liquidDensityKgPerM3(base.temperatureK, rhoRef, tRef, beta)),
+        baseDensityKgPerM3:
+          base === undefined
+            ? null
+            : guarded('base: ', () => liquidDensityKgPerM3(base.temperatureK, rhoRef, tRef, beta)),
         isentropicExponent: kappa ?? Number.POSITIVE_INFINITY,
         viscosityPaS: viscosity ?? LIQUID_DEFAULT_VISCOSITY_PA_S,
         molarMassKgPerMol: null,

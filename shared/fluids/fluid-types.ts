@@ -8,8 +8,21 @@ import type { Warning } from './warning';
 export type FluidSpec =
   | { kind: 'water' | 'steam'; isentropicExponent?: number; viscosityPaS?: number }
   | { kind: 'natural-gas'; composition: Record<string, number>; isentropicExponent?: number; viscosityPaS?: number }
-  | { kind: 'ideal-gas'; molarMassKgPerMol: number; compressibility?: number; isentropicExponent?: number; viscosityPaS?: number }
-  | { kind: 'liquid'; densityKgPerM3: number; referenceTemperatureK: number; expansionPerK: number; viscosityPaS?: number; isentropicExponent?: number };
+  | {
+      kind: 'ideal-gas';
+      molarMassKgPerMol: number;
+      compressibility?: number;
+      isentropicExponent?: number;
+      viscosityPaS?: number;
+    }
+  | {
+      kind: 'liquid';
+      densityKgPerM3: number;
+      referenceTemperatureK: number;
+      expansionPerK: number;
+      viscosityPaS?: number;
+      isentropicExponent?: number;
+    };
 
 /** The fluid's state at flowing (and optionally base) conditions, as the flow equation needs it. */
 export interface FluidState {

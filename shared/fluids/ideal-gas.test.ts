@@ -13,9 +13,12 @@ describe('idealGasDensityKgPerM3', () => {
     expect(idealGasDensityKgPerM3(5e6, 300, 0.016, 0.9) * 0.9).toBeCloseTo(idealGasDensityKgPerM3(5e6, 300, 0.016), 12);
   });
 
-  it.each(['pressurePa', 'temperatureK', 'molarMassKgPerMol', 'compressibility'])('rejects a bad %s, naming it', (field) => {
-    const args: [number, number, number, number] = [1e5, 300, 0.029, 1];
-    args[['pressurePa', 'temperatureK', 'molarMassKgPerMol', 'compressibility'].indexOf(field)] = -1;
-    expect(() => idealGasDensityKgPerM3(...args)).toThrow(new RegExp(`idealGasDensityKgPerM3: ${field}`));
-  });
+  it.each(['pressurePa', 'temperatureK', 'molarMassKgPerMol', 'compressibility'])(
+    'rejects a bad %s, naming it',
+    (field) => {
+      const args: [number, number, number, number] = [1e5, 300, 0.029, 1];
+      args[['pressurePa', 'temperatureK', 'molarMassKgPerMol', 'compressibility'].indexOf(field)] = -1;
+      expect(() => idealGasDensityKgPerM3(...args)).toThrow(new RegExp(`idealGasDensityKgPerM3: ${field}`));
+    },
+  );
 });

@@ -16,13 +16,7 @@ export { cachedDetailMixture } from './natural-gas-state';
 export { idealGasDensityKgPerM3, MOLAR_GAS_CONSTANT_J_PER_MOL_K } from './ideal-gas';
 export { liquidDensityKgPerM3 } from './liquid';
 export { leeGonzalezEakinViscosityPaS } from './lee-gonzalez-eakin-viscosity';
-export {
-  waterStatePT,
-  waterViscosityPaS,
-  saturationPressurePa,
-  saturationTemperatureK,
-  if97Region,
-} from './if97';
+export { waterStatePT, waterViscosityPaS, saturationPressurePa, saturationTemperatureK, if97Region } from './if97';
 export type { WaterState } from './if97';
 export {
   prepareDetailMixture,

@@ -6,7 +6,7 @@ describe('leeGonzalezEakinViscosityPaS', () => {
     expect(Math.abs(leeGonzalezEakinViscosityPaS(0.678, 288.15, 0.016043) / 11.0e-6 - 1)).toBeLessThan(0.04);
   });
 
-  it('rises with density (dense gas) as the correlation\'s exp(Xρ^Y) factor requires', () => {
+  it("rises with density (dense gas) as the correlation's exp(Xρ^Y) factor requires", () => {
     const low = leeGonzalezEakinViscosityPaS(1, 300, 0.0175);
     const high = leeGonzalezEakinViscosityPaS(100, 300, 0.0175);
     expect(high).toBeGreaterThan(low * 1.1);

@@ -18,7 +18,11 @@
  * @returns dynamic viscosity, Pa·s
  * @throws Error naming the field when an input is not a finite positive number
  */
-export function leeGonzalezEakinViscosityPaS(densityKgPerM3: number, temperatureK: number, molarMassKgPerMol: number): number {
+export function leeGonzalezEakinViscosityPaS(
+  densityKgPerM3: number,
+  temperatureK: number,
+  molarMassKgPerMol: number,
+): number {
   if (!Number.isFinite(densityKgPerM3) || densityKgPerM3 <= 0) {
     throw new Error(`leeGonzalezEakinViscosityPaS: densityKgPerM3 must be a finite number > 0, got ${densityKgPerM3}`);
   }
@@ -26,7 +30,9 @@ export function leeGonzalezEakinViscosityPaS(densityKgPerM3: number, temperature
     throw new Error(`leeGonzalezEakinViscosityPaS: temperatureK must be a finite number > 0, got ${temperatureK}`);
   }
   if (!Number.isFinite(molarMassKgPerMol) || molarMassKgPerMol <= 0) {
-    throw new Error(`leeGonzalezEakinViscosityPaS: molarMassKgPerMol must be a finite number > 0, got ${molarMassKgPerMol}`);
+    throw new Error(
+      `leeGonzalezEakinViscosityPaS: molarMassKgPerMol must be a finite number > 0, got ${molarMassKgPerMol}`,
+    );
   }
   const tR = temperatureK * 1.8; // kelvin → degrees Rankine (exact)
   const m = molarMassKgPerMol * 1000; // g/mol

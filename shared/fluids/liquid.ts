@@ -32,7 +32,9 @@ export function liquidDensityKgPerM3(
     throw new Error(`liquidDensityKgPerM3: densityKgPerM3 must be a finite number > 0, got ${referenceDensityKgPerM3}`);
   }
   if (!Number.isFinite(referenceTemperatureK) || referenceTemperatureK <= 0) {
-    throw new Error(`liquidDensityKgPerM3: referenceTemperatureK must be a finite number > 0, got ${referenceTemperatureK}`);
+    throw new Error(
+      `liquidDensityKgPerM3: referenceTemperatureK must be a finite number > 0, got ${referenceTemperatureK}`,
+    );
   }
   if (!Number.isFinite(expansionPerK)) {
     throw new Error(`liquidDensityKgPerM3: expansionPerK must be a finite number, got ${expansionPerK}`);

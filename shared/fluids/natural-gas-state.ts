@@ -1,6 +1,6 @@
 import type { FluidState } from './fluid-types';
 import type { Warning } from './warning';
-import { DetailMixture, prepareDetailMixture } from './aga8/prepare-detail-mixture';
+import { type DetailMixture, prepareDetailMixture } from './aga8/prepare-detail-mixture';
 import { detailMolarDensityMolPerM3 } from './aga8/detail-molar-density';
 import { detailPropertiesTD } from './aga8/detail-properties';
 import { DETAIL_GAS_CONSTANT } from './aga8/detail-constants';
@@ -37,7 +37,9 @@ function unchanged(entry: CacheEntry, composition: Record<string, number>): bool
  */
 export function cachedDetailMixture(composition: Record<string, number>): DetailMixture {
   if (composition === null || typeof composition !== 'object') {
-    throw new Error('prepareDetailMixture: fluid.composition must be an object of mole fractions keyed by component name');
+    throw new Error(
+      'prepareDetailMixture: fluid.composition must be an object of mole fractions keyed by component name',
+    );
   }
   const hit = cache.get(composition);
   if (hit !== undefined && unchanged(hit, composition)) return hit.mixture;
@@ -85,14 +87,16 @@ export function naturalGasState(
     mu = leeGonzalezEakinViscosityPaS(density, temperatureK, m);
     warnings.push({
       code: 'fluid.defaultViscosity',
-      message: 'Viscosity not given: Lee–Gonzalez–Eakin (1966) correlation used (about 2–4 %); it affects only the Reynolds number.',
+      message:
+        'Viscosity not given: Lee–Gonzalez–Eakin (1966) correlation used (about 2–4 %); it affects only the Reynolds number.',
     });
   }
   return {
     densityKgPerM3: density,
     // Z with the DETAIL gas constant, as the standard defines it: Z = P/(DRT).
     compressibility: z,
-    baseDensityKgPerM3: base === undefined ? null : detailMolarDensityMolPerM3(mix, base.pressurePa, base.temperatureK) * m,
+    baseDensityKgPerM3:
+      base === undefined ? null : detailMolarDensityMolPerM3(mix, base.pressurePa, base.temperatureK) * m,
     isentropicExponent,
     viscosityPaS: mu,
     molarMassKgPerMol: m,

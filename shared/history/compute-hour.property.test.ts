@@ -14,10 +14,12 @@ const quality = fc.constantFrom<Quality>('good', 'good', 'good', 'good', 'uncert
 
 /** Samples from 200 s before the period at irregular steps of 1–240 s. */
 function series(value: fc.Arbitrary<number>, minLength: number, maxLength: number): fc.Arbitrary<Sample[]> {
-  return fc.array(fc.record({ stepS: fc.integer({ min: 1, max: 240 }), value, quality }), { minLength, maxLength }).map((steps) => {
-    let t = START_MS - 200_000;
-    return steps.map((s) => ({ timeMs: (t += s.stepS * 1000), value: s.value, quality: s.quality }));
-  });
+  return fc
+    .array(fc.record({ stepS: fc.integer({ min: 1, max: 240 }), value, quality }), { minLength, maxLength })
+    .map((steps) => {
+      let t = START_MS - 200_000;
+      return steps.map((s) => ({ timeMs: (t += s.stepS * 1000), value: s.value, quality: s.quality }));
+    });
 }
 
 // Whole pascals: fc.double is biased towards tiny values, which would all fall below the no-flow cutoff.
@@ -38,10 +40,33 @@ type Scenario = typeof scenario extends fc.Arbitrary<infer T> ? T : never;
 function inputsFor(s: Scenario, startMs: number, endMs: number, initialStackChoice?: 'low' | 'high'): HourInputs {
   const dp: DpSeries[] = s.stacked
     ? [
-        { transmitterId: 'lo', stackRole: 'low', lowerRangePa: 0, upperRangePa: 25000, accuracyPercentOfSpan: 0.075, samples: s.low },
-        { transmitterId: 'hi', stackRole: 'high', lowerRangePa: 0, upperRangePa: 250000, accuracyPercentOfSpan: 0.075, samples: s.high },
+        {
+          transmitterId: 'lo',
+          stackRole: 'low',
+          lowerRangePa: 0,
+          upperRangePa: 25000,
+          accuracyPercentOfSpan: 0.075,
+          samples: s.low,
+        },
+        {
+          transmitterId: 'hi',
+          stackRole: 'high',
+          lowerRangePa: 0,
+          upperRangePa: 250000,
+          accuracyPercentOfSpan: 0.075,
+          samples: s.high,
+        },
       ]
-    : [{ transmitterId: 'dp', stackRole: 'single', lowerRangePa: 0, upperRangePa: 50000, accuracyPercentOfSpan: 0.1, samples: s.low }];
+    : [
+        {
+          transmitterId: 'dp',
+          stackRole: 'single',
+          lowerRangePa: 0,
+          upperRangePa: 50000,
+          accuracyPercentOfSpan: 0.1,
+          samples: s.low,
+        },
+      ];
   const v2: ElementSpec = { ...VENTURI_150, dischargeCoefficient: 0.97 };
   return {
     startMs,
@@ -52,7 +77,9 @@ function inputsFor(s: Scenario, startMs: number, endMs: number, initialStackChoi
     temperature: s.temperature,
     configVersions: [
       { id: 'v1', effectiveFromMs: 0, element: VENTURI_150, fluid: WATER },
-      ...(s.versionChangeS === undefined ? [] : [{ id: 'v2', effectiveFromMs: START_MS + s.versionChangeS * 1000, element: v2, fluid: WATER }]),
+      ...(s.versionChangeS === undefined
+        ? []
+        : [{ id: 'v2', effectiveFromMs: START_MS + s.versionChangeS * 1000, element: v2, fluid: WATER }]),
     ],
     base: { pressurePa: 101325, temperatureK: 288.15 },
     holdLimitS: s.holdLimitS,
@@ -74,14 +101,19 @@ describe('computeHour additivity (fast-check)', () => {
       fc.property(scenario, (s) => {
         const whole = computeHour(inputsFor(s, START_MS, START_MS + 2 * HOUR_MS));
         const first = computeHour(inputsFor(s, START_MS, START_MS + HOUR_MS));
-        const second = computeHour(inputsFor(s, START_MS + HOUR_MS, START_MS + 2 * HOUR_MS, first.finalStackChoice ?? undefined));
+        const second = computeHour(
+          inputsFor(s, START_MS + HOUR_MS, START_MS + 2 * HOUR_MS, first.finalStackChoice ?? undefined),
+        );
         expect(close(whole.massKg, first.massKg + second.massKg)).toBe(true);
         expect(close(whole.volumeM3, first.volumeM3 + second.volumeM3)).toBe(true);
         expect(close(whole.standardVolumeM3, first.standardVolumeM3 + second.standardVolumeM3)).toBe(true);
         expect(whole.flowTimeS).toBeCloseTo(first.flowTimeS + second.flowTimeS, 9);
         expect(coveredS(whole, 7200)).toBeCloseTo(coveredS(first, 3600) + coveredS(second, 3600), 6);
         for (const id of ['dp', 'lo', 'hi']) {
-          expect(whole.activeTransmitterTimeS[id] ?? 0).toBeCloseTo((first.activeTransmitterTimeS[id] ?? 0) + (second.activeTransmitterTimeS[id] ?? 0), 9);
+          expect(whole.activeTransmitterTimeS[id] ?? 0).toBeCloseTo(
+            (first.activeTransmitterTimeS[id] ?? 0) + (second.activeTransmitterTimeS[id] ?? 0),
+            9,
+          );
         }
         expect(whole.finalStackChoice).toBe(second.finalStackChoice);
         if (whole.massKg > 0) withFlow++;
@@ -103,9 +135,14 @@ describe('computeHour additivity (counterexamples found by fast-check)', () => {
     // −199…−195 s with holdLimitS 30: stale in both hours, so any DP above the cutoff is missing time.
     const at = (offsetsS: number[], value: (offsetS: number) => number): Sample[] =>
       offsetsS.map((o) => ({ timeMs: START_MS + o * 1000, value: value(o), quality: 'good' }));
-    const lowS = [-127, 45, 216, 404, 627, 716, 818, 1002, 1140, 1294, 1374, 1425, 1656, 1770, 1776, 1778, 1902, 2108, 2341, 2418, 2538, 2554, 2668, 2880, 3100, 3220, 3375, 3577, 3583];
+    const lowS = [
+      -127, 45, 216, 404, 627, 716, 818, 1002, 1140, 1294, 1374, 1425, 1656, 1770, 1776, 1778, 1902, 2108, 2341, 2418,
+      2538, 2554, 2668, 2880, 3100, 3220, 3375, 3577, 3583,
+    ];
     const everySecond = Array.from({ length: 21 }, (_, i) => 3600 + i);
-    const highS = [-144, -64, 173, 330, 401, 566, 692, 837, 994, 1194, 1274, 1360, 1504, 1671, 1822, 2002, 2240, 2327, 2549, 2706];
+    const highS = [
+      -144, -64, 173, 330, 401, 566, 692, 837, 994, 1194, 1274, 1360, 1504, 1671, 1822, 2002, 2240, 2327, 2549, 2706,
+    ];
     const s: Scenario = {
       low: at([...lowS, ...everySecond], (o) => (o === 3600 ? 22501 : 0)),
       high: at(highS, () => 0),
@@ -118,7 +155,9 @@ describe('computeHour additivity (counterexamples found by fast-check)', () => {
     };
     const whole = computeHour(inputsFor(s, START_MS, START_MS + 2 * HOUR_MS));
     const first = computeHour(inputsFor(s, START_MS, START_MS + HOUR_MS));
-    const second = computeHour(inputsFor(s, START_MS + HOUR_MS, START_MS + 2 * HOUR_MS, first.finalStackChoice ?? undefined));
+    const second = computeHour(
+      inputsFor(s, START_MS + HOUR_MS, START_MS + 2 * HOUR_MS, first.finalStackChoice ?? undefined),
+    );
     // Worked by hand: no two low samples are 895 s apart, so the low one covers the first hour,
     // reading 0 (≤ 90 % of 25 kPa): on 'lo', no flow, covered. At 3600 s, 22501 Pa > 22500 Pa
     // switches up from 'lo' to 'hi' (0 Pa: no flow, covered) until the high expires at 3601 s;

@@ -3,7 +3,18 @@ import type { ElementSpec } from '../flow/flow-types';
 import type { FluidSpec } from '../fluids';
 import { iso6976Properties } from '../fluids/heating-value';
 import { computeHour } from './compute-hour';
-import { HOUR_MS, KESTREL_GAS, KFG_BASE, ORIFICE_4IN, START_MS, VENTURI_150, WATER, hourInputs, samplesEvery, singleDp } from './hour-inputs-fixture';
+import {
+  HOUR_MS,
+  KESTREL_GAS,
+  KFG_BASE,
+  ORIFICE_4IN,
+  START_MS,
+  VENTURI_150,
+  WATER,
+  hourInputs,
+  samplesEvery,
+  singleDp,
+} from './hour-inputs-fixture';
 import type { DpSeries, HourInputs } from './types';
 
 /*
@@ -12,10 +23,17 @@ import type { DpSeries, HourInputs } from './types';
  * check values, TRADE.md §3); durations and quantities are worked by hand.
  */
 const S = 1000;
-const rate = (differentialPressurePa: number, element: ElementSpec = VENTURI_150, fluid: FluidSpec = WATER, staticPressurePa = 5e5, temperatureK = 293.15, base = { pressurePa: 101325, temperatureK: 288.15 }) =>
-  solveFlowCase({ element, fluid, conditions: { differentialPressurePa, staticPressurePa, temperatureK }, base });
+const rate = (
+  differentialPressurePa: number,
+  element: ElementSpec = VENTURI_150,
+  fluid: FluidSpec = WATER,
+  staticPressurePa = 5e5,
+  temperatureK = 293.15,
+  base = { pressurePa: 101325, temperatureK: 288.15 },
+) => solveFlowCase({ element, fluid, conditions: { differentialPressurePa, staticPressurePa, temperatureK }, base });
 /** DP samples every 10 s from 10 s before the hour to its end, from a function of the offset into the hour, s. */
-const dpEvery10s = (value: (offsetS: number) => number) => samplesEvery(START_MS - 10 * S, START_MS + HOUR_MS, 10, (o) => value(o - 10));
+const dpEvery10s = (value: (offsetS: number) => number) =>
+  samplesEvery(START_MS - 10 * S, START_MS + HOUR_MS, 10, (o) => value(o - 10));
 const relative = (a: number, b: number) => Math.abs(a / b - 1);
 
 describe('computeHour: integration of rate × time', () => {
@@ -43,18 +61,25 @@ describe('computeHour: integration of rate × time', () => {
     expect(r.activeTransmitterTimeS).toEqual({ 'dp-1': 3600 });
     expect(r.finalStackChoice).toBeNull();
     // Energy: standard volume × ISO 6976 superior volumetric CV at 60 °F / 60 °F and base pressure.
-    const cv = iso6976Properties((KESTREL_GAS as { composition: Record<string, number> }).composition, { combustionTemperatureK: 288.7, meteringTemperatureK: 288.7, meteringPressurePa: KFG_BASE.pressurePa });
+    const cv = iso6976Properties((KESTREL_GAS as { composition: Record<string, number> }).composition, {
+      combustionTemperatureK: 288.7,
+      meteringTemperatureK: 288.7,
+      meteringPressurePa: KFG_BASE.pressurePa,
+    });
     expect(relative(r.energyJ as number, r.standardVolumeM3 * cv.superiorVolumetricJPerM3)).toBeLessThan(1e-12);
     // Integral value √(Δp ρ1), and mass recomputed from it: IMV = C ε (π/4) d² √2 / √(1 − β⁴) (ISO 5167-1 eq. 1).
     expect(relative(r.integralValue as number, Math.sqrt(20000 * q.densityKgPerM3))).toBeLessThan(1e-12);
     const d = q.beta * ORIFICE_4IN.pipeDiameterM; // no material given: diameters are not corrected
-    const imv = (q.dischargeCoefficient * q.expansibility * (Math.PI / 4) * d * d * Math.SQRT2) / Math.sqrt(1 - q.beta ** 4);
+    const imv =
+      (q.dischargeCoefficient * q.expansibility * (Math.PI / 4) * d * d * Math.SQRT2) / Math.sqrt(1 - q.beta ** 4);
     expect(relative(imv * (r.integralValue as number) * r.flowTimeS, r.massKg)).toBeLessThan(1e-12);
   });
 
   it('counts a gap longer than maxGapS as missing time: samples stop at 600 s and resume at 1800 s with maxGapS 120, so 1200 − 120 = 1080 s are missing and coverage is 2520/3600 = 0.7', () => {
     const q = rate(20000);
-    const samples = dpEvery10s(() => 20000).filter((s) => s.timeMs <= START_MS + 600 * S || s.timeMs >= START_MS + 1800 * S);
+    const samples = dpEvery10s(() => 20000).filter(
+      (s) => s.timeMs <= START_MS + 600 * S || s.timeMs >= START_MS + 1800 * S,
+    );
     const r = computeHour(hourInputs({ dp: [singleDp(samples)], maxGapS: 120 }));
     expect(r.coverage).toBeCloseTo(0.7, 15);
     expect(r.flowTimeS).toBe(2520);
@@ -78,13 +103,32 @@ describe('computeHour: integration of rate × time', () => {
   it('switches a stacked pair (0–25 kPa and 0–250 kPa, up at 90 %, down at 80 %) with hysteresis and reports 1800 s on each transmitter', () => {
     // Four 15-minute phases; the high-range transmitter reads 100 Pa above the low one, so the mass shows which was used.
     const lowPa = (o: number) => [20000, 23000, 21000, 19000][Math.min(3, Math.floor(Math.max(0, o) / 900))];
-    const low: DpSeries = { transmitterId: 'dp-low', stackRole: 'low', lowerRangePa: 0, upperRangePa: 25000, accuracyPercentOfSpan: 0.075, samples: dpEvery10s(lowPa) };
-    const high: DpSeries = { transmitterId: 'dp-high', stackRole: 'high', lowerRangePa: 0, upperRangePa: 250000, accuracyPercentOfSpan: 0.075, samples: dpEvery10s((o) => lowPa(o) + 100) };
+    const low: DpSeries = {
+      transmitterId: 'dp-low',
+      stackRole: 'low',
+      lowerRangePa: 0,
+      upperRangePa: 25000,
+      accuracyPercentOfSpan: 0.075,
+      samples: dpEvery10s(lowPa),
+    };
+    const high: DpSeries = {
+      transmitterId: 'dp-high',
+      stackRole: 'high',
+      lowerRangePa: 0,
+      upperRangePa: 250000,
+      accuracyPercentOfSpan: 0.075,
+      samples: dpEvery10s((o) => lowPa(o) + 100),
+    };
     const r = computeHour(hourInputs({ dp: [low, high], initialStackChoice: 'low' }));
     // 20 kPa ≤ 22.5 kPa: low; 23 kPa > 22.5: up to high (23.1); 21.1 kPa ≥ 20 kPa: stays high; 19.1 kPa < 20 kPa: down to low (19.0).
     expect(r.activeTransmitterTimeS).toEqual({ 'dp-low': 1800, 'dp-high': 1800 });
     expect(r.finalStackChoice).toBe('low');
-    const expected = 900 * (rate(20000).massFlowKgPerS + rate(23100).massFlowKgPerS + rate(21100).massFlowKgPerS + rate(19000).massFlowKgPerS);
+    const expected =
+      900 *
+      (rate(20000).massFlowKgPerS +
+        rate(23100).massFlowKgPerS +
+        rate(21100).massFlowKgPerS +
+        rate(19000).massFlowKgPerS);
     expect(relative(r.massKg, expected)).toBeLessThan(1e-12);
     // On the high-range transmitter 21–23 kPa is 8–9 % of its 250 kPa span: low in range for 1800 s.
     expect(r.dpBands['0-10'].timeS).toBe(1800);
@@ -94,11 +138,29 @@ describe('computeHour: integration of rate × time', () => {
 
   it('carries the pair choice across the hour boundary: readings in the hysteresis band stay on the transmitter the previous hour ended on', () => {
     const pair = (v: number): DpSeries[] => [
-      { transmitterId: 'dp-low', stackRole: 'low', lowerRangePa: 0, upperRangePa: 25000, accuracyPercentOfSpan: 0.075, samples: dpEvery10s(() => v) },
-      { transmitterId: 'dp-high', stackRole: 'high', lowerRangePa: 0, upperRangePa: 250000, accuracyPercentOfSpan: 0.075, samples: dpEvery10s(() => v) },
+      {
+        transmitterId: 'dp-low',
+        stackRole: 'low',
+        lowerRangePa: 0,
+        upperRangePa: 25000,
+        accuracyPercentOfSpan: 0.075,
+        samples: dpEvery10s(() => v),
+      },
+      {
+        transmitterId: 'dp-high',
+        stackRole: 'high',
+        lowerRangePa: 0,
+        upperRangePa: 250000,
+        accuracyPercentOfSpan: 0.075,
+        samples: dpEvery10s(() => v),
+      },
     ];
-    expect(computeHour(hourInputs({ dp: pair(21000), initialStackChoice: 'high' })).activeTransmitterTimeS).toEqual({ 'dp-high': 3600 });
-    expect(computeHour(hourInputs({ dp: pair(21000), initialStackChoice: 'low' })).activeTransmitterTimeS).toEqual({ 'dp-low': 3600 });
+    expect(computeHour(hourInputs({ dp: pair(21000), initialStackChoice: 'high' })).activeTransmitterTimeS).toEqual({
+      'dp-high': 3600,
+    });
+    expect(computeHour(hourInputs({ dp: pair(21000), initialStackChoice: 'low' })).activeTransmitterTimeS).toEqual({
+      'dp-low': 3600,
+    });
   });
 
   it('keeps the choice the previous hour ended on while the readings in force are unchanged, even where choosing again would flip it (a pair disagreeing: low 23 kPa, high 5 kPa)', () => {
@@ -106,12 +168,30 @@ describe('computeHour: integration of rate × time', () => {
     // choosing again from 'high' would see 5 kPa < 20 kPa and switch down, which a continuous computation never does.
     const one = (v: number) => [{ timeMs: START_MS - 10 * S, value: v, quality: 'good' as const }];
     const dp: DpSeries[] = [
-      { transmitterId: 'dp-low', stackRole: 'low', lowerRangePa: 0, upperRangePa: 25000, accuracyPercentOfSpan: 0.075, samples: one(23000) },
-      { transmitterId: 'dp-high', stackRole: 'high', lowerRangePa: 0, upperRangePa: 250000, accuracyPercentOfSpan: 0.075, samples: one(5000) },
+      {
+        transmitterId: 'dp-low',
+        stackRole: 'low',
+        lowerRangePa: 0,
+        upperRangePa: 25000,
+        accuracyPercentOfSpan: 0.075,
+        samples: one(23000),
+      },
+      {
+        transmitterId: 'dp-high',
+        stackRole: 'high',
+        lowerRangePa: 0,
+        upperRangePa: 250000,
+        accuracyPercentOfSpan: 0.075,
+        samples: one(5000),
+      },
     ];
-    expect(computeHour(hourInputs({ dp, maxGapS: 7200, initialStackChoice: 'high' })).activeTransmitterTimeS).toEqual({ 'dp-high': 3600 });
+    expect(computeHour(hourInputs({ dp, maxGapS: 7200, initialStackChoice: 'high' })).activeTransmitterTimeS).toEqual({
+      'dp-high': 3600,
+    });
     // Ended on 'low' (reachable from 'high' on these readings): stays low. No history: 23 kPa > 22.5 kPa chooses high.
-    expect(computeHour(hourInputs({ dp, maxGapS: 7200, initialStackChoice: 'low' })).activeTransmitterTimeS).toEqual({ 'dp-low': 3600 });
+    expect(computeHour(hourInputs({ dp, maxGapS: 7200, initialStackChoice: 'low' })).activeTransmitterTimeS).toEqual({
+      'dp-low': 3600,
+    });
     expect(computeHour(hourInputs({ dp, maxGapS: 7200 })).activeTransmitterTimeS).toEqual({ 'dp-high': 3600 });
   });
 
@@ -147,11 +227,25 @@ describe('computeHour: coverage, cutoff and quality', () => {
 
   it('gives no flow, null averages, null integral value and null uncertainty to an hour at zero DP', () => {
     const r = computeHour(hourInputs({ dp: [singleDp(dpEvery10s(() => 0))] }));
-    expect(r).toEqual(expect.objectContaining({ flowTimeS: 0, massKg: 0, coverage: 1, averageDpPa: null, averagePressurePa: null, averageTemperatureK: null, integralValue: null, uncertaintyPercent: null, energyJ: null }));
+    expect(r).toEqual(
+      expect.objectContaining({
+        flowTimeS: 0,
+        massKg: 0,
+        coverage: 1,
+        averageDpPa: null,
+        averagePressurePa: null,
+        averageTemperatureK: null,
+        integralValue: null,
+        uncertaintyPercent: null,
+        energyJ: null,
+      }),
+    );
   });
 
   it('does not use a bad DP sample: its 10 s interval is missing time (coverage 3590/3600) and the record is flagged bad-quality', () => {
-    const samples = dpEvery10s(() => 20000).map((s) => (s.timeMs === START_MS + 1000 * S ? { ...s, quality: 'bad' as const } : s));
+    const samples = dpEvery10s(() => 20000).map((s) =>
+      s.timeMs === START_MS + 1000 * S ? { ...s, quality: 'bad' as const } : s,
+    );
     const r = computeHour(hourInputs({ dp: [singleDp(samples)] }));
     expect(r.coverage).toBeCloseTo(3590 / 3600, 15);
     expect(relative(r.massKg, rate(20000).massFlowKgPerS * 3590)).toBeLessThan(1e-12);
@@ -159,20 +253,30 @@ describe('computeHour: coverage, cutoff and quality', () => {
   });
 
   it('skips a bad static pressure sample, keeps the previous one within the hold limit, and flags bad-quality', () => {
-    const r = computeHour(hourInputs({
-      dp: [singleDp(dpEvery10s(() => 20000))],
-      staticPressure: [{ timeMs: START_MS - 5 * S, value: 5e5, quality: 'good' }, { timeMs: START_MS + 100 * S, value: -1, quality: 'bad' }],
-    }));
+    const r = computeHour(
+      hourInputs({
+        dp: [singleDp(dpEvery10s(() => 20000))],
+        staticPressure: [
+          { timeMs: START_MS - 5 * S, value: 5e5, quality: 'good' },
+          { timeMs: START_MS + 100 * S, value: -1, quality: 'bad' },
+        ],
+      }),
+    );
     expect(r.coverage).toBe(1);
     expect(relative(r.massKg, rate(20000).massFlowKgPerS * 3600)).toBeLessThan(1e-12);
     expect(r.flags).toEqual(['bad-quality']);
   });
 
   it('flags a substituted static pressure sample that was used', () => {
-    const r = computeHour(hourInputs({
-      dp: [singleDp(dpEvery10s(() => 20000))],
-      staticPressure: [{ timeMs: START_MS - 5 * S, value: 5e5, quality: 'good' }, { timeMs: START_MS + 1800 * S, value: 5e5, quality: 'substituted' }],
-    }));
+    const r = computeHour(
+      hourInputs({
+        dp: [singleDp(dpEvery10s(() => 20000))],
+        staticPressure: [
+          { timeMs: START_MS - 5 * S, value: 5e5, quality: 'good' },
+          { timeMs: START_MS + 1800 * S, value: 5e5, quality: 'substituted' },
+        ],
+      }),
+    );
     expect(r.flags).toEqual(['substituted']);
   });
 
@@ -212,8 +316,19 @@ describe('computeHour: bands, flags and uncertainty', () => {
   });
 
   it('flags outside-standard-limits for an orifice of β = 0.8 (ISO 5167-2 allows 0.1 ≤ β ≤ 0.75)', () => {
-    const element: ElementSpec = { kind: 'orifice', taps: 'flange', pipeDiameterM: 0.1, boreDiameterM: 0.08, referenceTemperatureK: 293.15 };
-    const r = computeHour(hourInputs({ dp: [singleDp(dpEvery10s(() => 20000))], configVersions: [{ id: 'cv-wide', effectiveFromMs: 0, element, fluid: WATER }] }));
+    const element: ElementSpec = {
+      kind: 'orifice',
+      taps: 'flange',
+      pipeDiameterM: 0.1,
+      boreDiameterM: 0.08,
+      referenceTemperatureK: 293.15,
+    };
+    const r = computeHour(
+      hourInputs({
+        dp: [singleDp(dpEvery10s(() => 20000))],
+        configVersions: [{ id: 'cv-wide', effectiveFromMs: 0, element, fluid: WATER }],
+      }),
+    );
     expect(r.flags).toEqual(['outside-standard-limits']);
   });
 
@@ -221,14 +336,17 @@ describe('computeHour: bands, flags and uncertainty', () => {
     const r = computeHour(hourInputs({ dp: [singleDp(dpEvery10s(() => 5000))] }));
     // TRADE.md §6 by hand: U_C 1.0 % (machined venturi, ISO 5167-4 [mem]); ε exact for a liquid; D 0.4 % and d 0.07 % [mem]
     // with sensitivities 2β⁴/(1−β⁴) = 0.133333 and 2/(1−β⁴) = 2.133333; ½ × 0.75 % DP; ½ × 0.05 % IF97 density [mem].
-    const expected = Math.sqrt(1.0 ** 2 + (0.133333333 * 0.4) ** 2 + (2.133333333 * 0.07) ** 2 + (0.5 * 0.75) ** 2 + (0.5 * 0.05) ** 2);
+    const expected = Math.sqrt(
+      1.0 ** 2 + (0.133333333 * 0.4) ** 2 + (2.133333333 * 0.07) ** 2 + (0.5 * 0.75) ** 2 + (0.5 * 0.05) ** 2,
+    );
     expect(expected).toBeCloseTo(1.08, 4); // √1.1663949 = 1.079998
     expect(r.uncertaintyPercent).toBeCloseTo(expected, 6);
   });
 
   it('weights the hour uncertainty by mass: 30 min at 10 % and 30 min at 100 % of span give (m₁U₁ + m₂U₂)/(m₁ + m₂)', () => {
     const r = computeHour(hourInputs({ dp: [singleDp(dpEvery10s((o) => (o < 1800 ? 5000 : 50000)))] }));
-    const u = (dpPercent: number) => Math.sqrt(1 + (0.4 / 7.5) ** 2 + ((2 / 0.9375) * 0.07) ** 2 + (0.5 * dpPercent) ** 2 + 0.025 ** 2);
+    const u = (dpPercent: number) =>
+      Math.sqrt(1 + (0.4 / 7.5) ** 2 + ((2 / 0.9375) * 0.07) ** 2 + (0.5 * dpPercent) ** 2 + 0.025 ** 2);
     const m1 = rate(5000).massFlowKgPerS;
     const m2 = rate(50000).massFlowKgPerS;
     expect(r.uncertaintyPercent).toBeCloseTo((m1 * u(0.75) + m2 * u(0.075)) / (m1 + m2), 6);
@@ -238,7 +356,13 @@ describe('computeHour: bands, flags and uncertainty', () => {
 describe('computeHour: energy and bad input', () => {
   it('gives steam energy = mass × (h − h_triple) with h(1.1 MPa, 473.15 K) = 2822.2614837 kJ/kg (Debian python3-iapws, IAPWS-IF97) and h′(triple point) = 0.611783 J/kg (IAPWS-IF97 region 1)', () => {
     const steam: FluidSpec = { kind: 'steam' };
-    const venturi: ElementSpec = { kind: 'venturi', venturiType: 'machined', pipeDiameterM: 0.15, boreDiameterM: 0.09, referenceTemperatureK: 473.15 };
+    const venturi: ElementSpec = {
+      kind: 'venturi',
+      venturiType: 'machined',
+      pipeDiameterM: 0.15,
+      boreDiameterM: 0.09,
+      referenceTemperatureK: 473.15,
+    };
     const r = computeHour(
       hourInputs({
         dp: [singleDp(dpEvery10s(() => 20000))],
@@ -253,13 +377,15 @@ describe('computeHour: energy and bad input', () => {
   });
 
   it('gives no energy, flagged energy-unavailable, for natural gas at a base temperature ISO 6976 does not tabulate (300 K)', () => {
-    const r = computeHour(hourInputs({
-      dp: [singleDp(dpEvery10s(() => 20000))],
-      staticPressure: [{ timeMs: START_MS - 5 * S, value: 4.2e6, quality: 'good' }],
-      temperature: [{ timeMs: START_MS - 5 * S, value: 290, quality: 'good' }],
-      configVersions: [{ id: 'cv-gas', effectiveFromMs: 0, element: ORIFICE_4IN, fluid: KESTREL_GAS }],
-      base: { pressurePa: 101325, temperatureK: 300 },
-    }));
+    const r = computeHour(
+      hourInputs({
+        dp: [singleDp(dpEvery10s(() => 20000))],
+        staticPressure: [{ timeMs: START_MS - 5 * S, value: 4.2e6, quality: 'good' }],
+        temperature: [{ timeMs: START_MS - 5 * S, value: 290, quality: 'good' }],
+        configVersions: [{ id: 'cv-gas', effectiveFromMs: 0, element: ORIFICE_4IN, fluid: KESTREL_GAS }],
+        base: { pressurePa: 101325, temperatureK: 300 },
+      }),
+    );
     expect(r.energyJ).toBeNull();
     expect(r.massKg).toBeGreaterThan(0);
     expect(r.flags).toEqual(['energy-unavailable']);
@@ -274,10 +400,19 @@ describe('computeHour: energy and bad input', () => {
     expect(() => computeHour(hourInputs({ dp, endMs: START_MS }))).toThrow(/computeHour: endMs/);
     expect(() => computeHour(hourInputs({ dp, maxGapS: 0 }))).toThrow(/computeHour: maxGapS/);
     expect(() => computeHour(hourInputs({ dp: [] }))).toThrow(/computeHour: dp/);
-    expect(() => computeHour(hourInputs({ dp: [{ ...dp[0], samples: [...dp[0].samples].reverse() }] }))).toThrow(/computeHour: dp\.0\.samples must be sorted/);
+    expect(() => computeHour(hourInputs({ dp: [{ ...dp[0], samples: [...dp[0].samples].reverse() }] }))).toThrow(
+      /computeHour: dp\.0\.samples must be sorted/,
+    );
     const three = [dp[0], { ...dp[0], stackRole: 'low' as const }, { ...dp[0], stackRole: 'high' as const }];
     expect(() => computeHour(hourInputs({ dp: three }))).toThrow(/computeHour: dp must hold/);
     const badElement = { ...VENTURI_150, boreDiameterM: 0.2 };
-    expect(() => computeHour(hourInputs({ dp, configVersions: [{ id: 'x', effectiveFromMs: 0, element: badElement, fluid: WATER }] } as Partial<HourInputs> & Pick<HourInputs, 'dp'>))).toThrow(/boreDiameterM/);
+    expect(() =>
+      computeHour(
+        hourInputs({
+          dp,
+          configVersions: [{ id: 'x', effectiveFromMs: 0, element: badElement, fluid: WATER }],
+        } as Partial<HourInputs> & Pick<HourInputs, 'dp'>),
+      ),
+    ).toThrow(/boreDiameterM/);
   });
 });

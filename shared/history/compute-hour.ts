@@ -55,15 +55,20 @@ function checkInputs(inputs: HourInputs): void {
   finite(inputs.startMs, 'startMs');
   finite(inputs.endMs, 'endMs');
   finite(inputs.asOfMs, 'asOfMs');
-  if (!(inputs.endMs > inputs.startMs)) throw new Error(`computeHour: endMs must be after startMs (got ${inputs.startMs} to ${inputs.endMs})`);
+  if (!(inputs.endMs > inputs.startMs))
+    throw new Error(`computeHour: endMs must be after startMs (got ${inputs.startMs} to ${inputs.endMs})`);
   if (!(inputs.holdLimitS > 0)) throw new Error(`computeHour: holdLimitS must be > 0 (got ${inputs.holdLimitS})`);
   if (!(inputs.maxGapS > 0)) throw new Error(`computeHour: maxGapS must be > 0 (got ${inputs.maxGapS})`);
-  if (!Array.isArray(inputs.dp) || inputs.dp.length === 0) throw new Error('computeHour: dp must hold at least one DP series');
+  if (!Array.isArray(inputs.dp) || inputs.dp.length === 0)
+    throw new Error('computeHour: dp must hold at least one DP series');
   for (const field of ['staticPressure', 'temperature', 'configVersions'] as const) {
-    if (!Array.isArray(inputs[field])) throw new Error(`computeHour: ${field} must be an array (got ${typeof inputs[field]})`);
+    if (!Array.isArray(inputs[field]))
+      throw new Error(`computeHour: ${field} must be an array (got ${typeof inputs[field]})`);
   }
   if (!(inputs.base?.pressurePa > 0) || !(inputs.base?.temperatureK > 0)) {
-    throw new Error(`computeHour: base.pressurePa and base.temperatureK must be > 0 (got ${inputs.base?.pressurePa}, ${inputs.base?.temperatureK})`);
+    throw new Error(
+      `computeHour: base.pressurePa and base.temperatureK must be > 0 (got ${inputs.base?.pressurePa}, ${inputs.base?.temperatureK})`,
+    );
   }
   inputs.configVersions.forEach((v, i) => {
     finite(v.effectiveFromMs, `configVersions.${i}.effectiveFromMs`);
@@ -78,7 +83,14 @@ function checkInputs(inputs: HourInputs): void {
  * in force: each sample's time, and its time + coverMs when no newer usable (for P and T) or
  * newer (for DP) sample comes first.
  */
-function addSeriesTimes(times: number[], samples: readonly Sample[], coverMs: number, startMs: number, elapsedEndMs: number, replacedOnlyByUsable: boolean): void {
+function addSeriesTimes(
+  times: number[],
+  samples: readonly Sample[],
+  coverMs: number,
+  startMs: number,
+  elapsedEndMs: number,
+  replacedOnlyByUsable: boolean,
+): void {
   let nextReplacementMs = Infinity;
   for (let j = samples.length - 1; j >= 0; j--) {
     const t = samples[j].timeMs;
@@ -93,10 +105,12 @@ function addSeriesTimes(times: number[], samples: readonly Sample[], coverMs: nu
 function pieceBoundaries(inputs: HourInputs, elapsedEndMs: number): Float64Array {
   const { startMs } = inputs;
   const times: number[] = [startMs];
-  for (const series of inputs.dp) addSeriesTimes(times, series.samples, inputs.maxGapS * 1000, startMs, elapsedEndMs, false);
+  for (const series of inputs.dp)
+    addSeriesTimes(times, series.samples, inputs.maxGapS * 1000, startMs, elapsedEndMs, false);
   addSeriesTimes(times, inputs.staticPressure, inputs.holdLimitS * 1000, startMs, elapsedEndMs, true);
   addSeriesTimes(times, inputs.temperature, inputs.holdLimitS * 1000, startMs, elapsedEndMs, true);
-  for (const v of inputs.configVersions) if (v.effectiveFromMs > startMs && v.effectiveFromMs < elapsedEndMs) times.push(v.effectiveFromMs);
+  for (const v of inputs.configVersions)
+    if (v.effectiveFromMs > startMs && v.effectiveFromMs < elapsedEndMs) times.push(v.effectiveFromMs);
   const sorted = Float64Array.from(times).sort();
   let n = 0;
   for (let i = 0; i < sorted.length; i++) if (i === 0 || sorted[i] !== sorted[n - 1]) sorted[n++] = sorted[i];
@@ -135,14 +149,17 @@ export function computeHour(inputs: HourInputs): HourlyRecord {
     const t = boundaries[k];
     const durationMs = (k + 1 < boundaries.length ? boundaries[k + 1] : elapsedEndMs) - t;
     if (!(durationMs > 0)) continue;
-    while (versionIndex + 1 < configVersions.length && configVersions[versionIndex + 1].effectiveFromMs <= t) versionIndex++;
-    const version = versionIndex >= 0 ? (prepared[versionIndex] ??= prepareConfigVersion(configVersions[versionIndex], base)) : null;
+    while (versionIndex + 1 < configVersions.length && configVersions[versionIndex + 1].effectiveFromMs <= t)
+      versionIndex++;
+    const version =
+      versionIndex >= 0 ? (prepared[versionIndex] ??= prepareConfigVersion(configVersions[versionIndex], base)) : null;
     if (version) {
       sums.versionIds.add(version.id);
       lastVersionId = version.id;
       if (version.energy.kind === 'none') {
         sums.energyAvailable = false;
-        if (version.fluid.kind === 'natural-gas' || version.fluid.kind === 'steam') sums.flags.add('energy-unavailable');
+        if (version.fluid.kind === 'natural-gas' || version.fluid.kind === 'steam')
+          sums.flags.add('energy-unavailable');
       }
     }
 
@@ -172,11 +189,20 @@ export function computeHour(inputs: HourInputs): HourlyRecord {
     if (p.quality === 'substituted' || temperature.quality === 'substituted') sums.flags.add('substituted');
 
     let point: OperatingPoint | null;
-    if (lastKey[0] === series && lastKey[1] === dpSample && lastKey[2] === p && lastKey[3] === temperature && lastKey[4] === versionIndex) {
+    if (
+      lastKey[0] === series &&
+      lastKey[1] === dpSample &&
+      lastKey[2] === p &&
+      lastKey[3] === temperature &&
+      lastKey[4] === versionIndex
+    ) {
       point = lastPoint;
     } else {
       try {
-        point = evaluateOperatingPoint(version, dpPa, p.value, temperature.value, { accuracyPercentOfSpan: series.accuracyPercentOfSpan, spanPa });
+        point = evaluateOperatingPoint(version, dpPa, p.value, temperature.value, {
+          accuracyPercentOfSpan: series.accuracyPercentOfSpan,
+          spanPa,
+        });
       } catch {
         point = null;
       }
@@ -193,7 +219,12 @@ export function computeHour(inputs: HourInputs): HourlyRecord {
     addFlowingInterval(sums, durationMs, point, dpPa, p.value, temperature.value, dpBandOf(share));
   }
 
-  return hourlyRecordFromSums(sums, { startMs, endMs, elapsedMs: elapsedEndMs - startMs }, lastVersionId, selector.stackChoice());
+  return hourlyRecordFromSums(
+    sums,
+    { startMs, endMs, elapsedMs: elapsedEndMs - startMs },
+    lastVersionId,
+    selector.stackChoice(),
+  );
 }
 
 /** A P or T sample is used for at most the hold limit after its time: on [t, t + hold). */

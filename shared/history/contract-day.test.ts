@@ -20,43 +20,79 @@ const iso = (s: string) => Date.parse(s);
 describe('contractDayBounds', () => {
   it('gives 25 hours to the America/Denver contract day (09:00) that contains the autumn change of 2026-11-01: 2026-10-31 15:00Z to 2026-11-01 16:00Z', () => {
     // Starts 09:00 MDT (UTC−6) on 10-31, ends 09:00 MST (UTC−7) on 11-01.
-    expect(contractDayBounds('2026-10-31', 'America/Denver', 9)).toEqual({ startMs: iso('2026-10-31T15:00:00Z'), endMs: iso('2026-11-01T16:00:00Z'), hours: 25 });
+    expect(contractDayBounds('2026-10-31', 'America/Denver', 9)).toEqual({
+      startMs: iso('2026-10-31T15:00:00Z'),
+      endMs: iso('2026-11-01T16:00:00Z'),
+      hours: 25,
+    });
   });
 
   it('gives 24 hours to the America/Denver contract day (09:00) named 2026-11-01, which starts after the change', () => {
-    expect(contractDayBounds('2026-11-01', 'America/Denver', 9)).toEqual({ startMs: iso('2026-11-01T16:00:00Z'), endMs: iso('2026-11-02T16:00:00Z'), hours: 24 });
+    expect(contractDayBounds('2026-11-01', 'America/Denver', 9)).toEqual({
+      startMs: iso('2026-11-01T16:00:00Z'),
+      endMs: iso('2026-11-02T16:00:00Z'),
+      hours: 24,
+    });
   });
 
   it('gives 25 hours to the calendar day 2026-11-01 itself in America/Denver when the contract hour is midnight', () => {
     // 00:00 MDT = 06:00Z to 00:00 MST next day = 07:00Z.
-    expect(contractDayBounds('2026-11-01', 'America/Denver', 0)).toEqual({ startMs: iso('2026-11-01T06:00:00Z'), endMs: iso('2026-11-02T07:00:00Z'), hours: 25 });
+    expect(contractDayBounds('2026-11-01', 'America/Denver', 0)).toEqual({
+      startMs: iso('2026-11-01T06:00:00Z'),
+      endMs: iso('2026-11-02T07:00:00Z'),
+      hours: 25,
+    });
   });
 
   it('gives 23 hours to the America/Denver contract day (09:00) that contains the spring change of 2026-03-08: 2026-03-07 16:00Z to 2026-03-08 15:00Z', () => {
-    expect(contractDayBounds('2026-03-07', 'America/Denver', 9)).toEqual({ startMs: iso('2026-03-07T16:00:00Z'), endMs: iso('2026-03-08T15:00:00Z'), hours: 23 });
+    expect(contractDayBounds('2026-03-07', 'America/Denver', 9)).toEqual({
+      startMs: iso('2026-03-07T16:00:00Z'),
+      endMs: iso('2026-03-08T15:00:00Z'),
+      hours: 23,
+    });
     expect(contractDayBounds('2026-03-08', 'America/Denver', 9).hours).toBe(24);
   });
 
   it('gives 23 hours to the calendar day 2026-03-08 in America/Denver with a midnight contract hour', () => {
     // 00:00 MST = 07:00Z to 00:00 MDT on 03-09 = 06:00Z.
-    expect(contractDayBounds('2026-03-08', 'America/Denver', 0)).toEqual({ startMs: iso('2026-03-08T07:00:00Z'), endMs: iso('2026-03-09T06:00:00Z'), hours: 23 });
+    expect(contractDayBounds('2026-03-08', 'America/Denver', 0)).toEqual({
+      startMs: iso('2026-03-08T07:00:00Z'),
+      endMs: iso('2026-03-09T06:00:00Z'),
+      hours: 23,
+    });
   });
 
   it('gives 25 hours to the Europe/Berlin contract day (06:00) that contains the change of 2026-10-25: 2026-10-24 04:00Z to 2026-10-25 05:00Z', () => {
-    expect(contractDayBounds('2026-10-24', 'Europe/Berlin', 6)).toEqual({ startMs: iso('2026-10-24T04:00:00Z'), endMs: iso('2026-10-25T05:00:00Z'), hours: 25 });
+    expect(contractDayBounds('2026-10-24', 'Europe/Berlin', 6)).toEqual({
+      startMs: iso('2026-10-24T04:00:00Z'),
+      endMs: iso('2026-10-25T05:00:00Z'),
+      hours: 25,
+    });
     expect(contractDayBounds('2026-10-25', 'Europe/Berlin', 6).hours).toBe(24);
   });
 
   it('gives 23 hours to the Europe/Berlin contract day (06:00) starting 2026-03-28 (summer time from 2026-03-29)', () => {
-    expect(contractDayBounds('2026-03-28', 'Europe/Berlin', 6)).toEqual({ startMs: iso('2026-03-28T05:00:00Z'), endMs: iso('2026-03-29T04:00:00Z'), hours: 23 });
+    expect(contractDayBounds('2026-03-28', 'Europe/Berlin', 6)).toEqual({
+      startMs: iso('2026-03-28T05:00:00Z'),
+      endMs: iso('2026-03-29T04:00:00Z'),
+      hours: 23,
+    });
   });
 
   it('starts a day whose contract hour occurs twice (01:00 on 2026-11-01 in Denver) at the earlier one, 01:00 MDT = 07:00Z', () => {
-    expect(contractDayBounds('2026-11-01', 'America/Denver', 1)).toEqual({ startMs: iso('2026-11-01T07:00:00Z'), endMs: iso('2026-11-02T08:00:00Z'), hours: 25 });
+    expect(contractDayBounds('2026-11-01', 'America/Denver', 1)).toEqual({
+      startMs: iso('2026-11-01T07:00:00Z'),
+      endMs: iso('2026-11-02T08:00:00Z'),
+      hours: 25,
+    });
   });
 
   it('starts a day whose contract hour is skipped (02:00 on 2026-03-08 in Denver) at the jump, 02:00 MST = 09:00Z', () => {
-    expect(contractDayBounds('2026-03-08', 'America/Denver', 2)).toEqual({ startMs: iso('2026-03-08T09:00:00Z'), endMs: iso('2026-03-09T08:00:00Z'), hours: 23 });
+    expect(contractDayBounds('2026-03-08', 'America/Denver', 2)).toEqual({
+      startMs: iso('2026-03-08T09:00:00Z'),
+      endMs: iso('2026-03-09T08:00:00Z'),
+      hours: 23,
+    });
     expect(contractDayBounds('2026-03-07', 'America/Denver', 2).hours).toBe(24);
   });
 
@@ -93,7 +129,11 @@ describe('contractDayOf', () => {
 
 describe('contractMonthBounds', () => {
   it('gives October 2026 in Denver (09:00) 31 × 24 + 1 = 745 hours, from 10-01 15:00Z to 11-01 16:00Z', () => {
-    expect(contractMonthBounds('2026-10', 'America/Denver', 9)).toEqual({ startMs: iso('2026-10-01T15:00:00Z'), endMs: iso('2026-11-01T16:00:00Z'), hours: 745 });
+    expect(contractMonthBounds('2026-10', 'America/Denver', 9)).toEqual({
+      startMs: iso('2026-10-01T15:00:00Z'),
+      endMs: iso('2026-11-01T16:00:00Z'),
+      hours: 745,
+    });
   });
 
   it('gives November 2026 in Denver (09:00) 30 × 24 = 720 hours, the long day falling in October', () => {
@@ -101,11 +141,19 @@ describe('contractMonthBounds', () => {
   });
 
   it('gives March 2026 in Denver (09:00) 31 × 24 − 1 = 743 hours, from 03-01 16:00Z to 04-01 15:00Z', () => {
-    expect(contractMonthBounds('2026-03', 'America/Denver', 9)).toEqual({ startMs: iso('2026-03-01T16:00:00Z'), endMs: iso('2026-04-01T15:00:00Z'), hours: 743 });
+    expect(contractMonthBounds('2026-03', 'America/Denver', 9)).toEqual({
+      startMs: iso('2026-03-01T16:00:00Z'),
+      endMs: iso('2026-04-01T15:00:00Z'),
+      hours: 743,
+    });
   });
 
   it('crosses the year: December 2026 in Berlin (06:00) ends 2027-01-01 05:00Z', () => {
-    expect(contractMonthBounds('2026-12', 'Europe/Berlin', 6)).toEqual({ startMs: iso('2026-12-01T05:00:00Z'), endMs: iso('2027-01-01T05:00:00Z'), hours: 744 });
+    expect(contractMonthBounds('2026-12', 'Europe/Berlin', 6)).toEqual({
+      startMs: iso('2026-12-01T05:00:00Z'),
+      endMs: iso('2027-01-01T05:00:00Z'),
+      hours: 744,
+    });
   });
 
   it('rejects a month that is not YYYY-MM', () => {

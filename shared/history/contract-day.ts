@@ -30,7 +30,9 @@ const OFFSET_GRID_MS = 15 * MS_PER_MINUTE;
 
 function zoneOf(functionName: string, timeZone: string): IANAZone {
   if (typeof timeZone !== 'string' || !IANAZone.isValidZone(timeZone)) {
-    throw new Error(`${functionName}: timeZone must be an IANA time zone name such as America/Denver (got ${String(timeZone)})`);
+    throw new Error(
+      `${functionName}: timeZone must be an IANA time zone name such as America/Denver (got ${String(timeZone)})`,
+    );
   }
   return IANAZone.create(timeZone);
 }
@@ -42,7 +44,8 @@ function checkContractHour(functionName: string, contractHour: number): void {
 }
 
 function checkTimeMs(functionName: string, field: string, timeMs: number): void {
-  if (!Number.isFinite(timeMs)) throw new Error(`${functionName}: ${field} must be a finite epoch time in ms (got ${timeMs})`);
+  if (!Number.isFinite(timeMs))
+    throw new Error(`${functionName}: ${field} must be a finite epoch time in ms (got ${timeMs})`);
 }
 
 /** Local wall time of an instant in ms since 1970-01-01T00:00 "local". */
@@ -52,8 +55,10 @@ function wallMs(zone: IANAZone, timeMs: number): number {
 
 /** 'YYYY-MM-DD' → midnight UTC of that calendar date (used only for calendar arithmetic). */
 function parseDay(functionName: string, day: string): DateTime {
-  const parsed = typeof day === 'string' && /^\d{4}-\d{2}-\d{2}$/.test(day) ? DateTime.fromISO(day, { zone: 'utc' }) : null;
-  if (!parsed || !parsed.isValid) throw new Error(`${functionName}: day must be a date YYYY-MM-DD (got ${String(day)})`);
+  const parsed =
+    typeof day === 'string' && /^\d{4}-\d{2}-\d{2}$/.test(day) ? DateTime.fromISO(day, { zone: 'utc' }) : null;
+  if (!parsed || !parsed.isValid)
+    throw new Error(`${functionName}: day must be a date YYYY-MM-DD (got ${String(day)})`);
   return parsed;
 }
 
@@ -62,7 +67,10 @@ function contractDayStartMs(zone: IANAZone, date: DateTime, contractHour: number
   const wanted = Date.UTC(date.year, date.month - 1, date.day, contractHour);
   // Luxon resolves a skipped wall time forward (to the jump) and an ambiguous one to the LATER
   // occurrence; look back across a possible fold for an earlier instant with the same wall time.
-  const resolved = DateTime.fromObject({ year: date.year, month: date.month, day: date.day, hour: contractHour }, { zone }).toMillis();
+  const resolved = DateTime.fromObject(
+    { year: date.year, month: date.month, day: date.day, hour: contractHour },
+    { zone },
+  ).toMillis();
   for (const backMinutes of [60, 30]) {
     const earlier = resolved - backMinutes * MS_PER_MINUTE;
     if (wallMs(zone, earlier) === wanted) return earlier;
@@ -83,7 +91,10 @@ export function contractDayOf(timeMs: number, timeZone: string, contractHour: nu
   checkContractHour('contractDayOf', contractHour);
   checkTimeMs('contractDayOf', 'timeMs', timeMs);
   const w = new Date(wallMs(zone, timeMs));
-  let date = DateTime.fromObject({ year: w.getUTCFullYear(), month: w.getUTCMonth() + 1, day: w.getUTCDate() }, { zone: 'utc' });
+  let date = DateTime.fromObject(
+    { year: w.getUTCFullYear(), month: w.getUTCMonth() + 1, day: w.getUTCDate() },
+    { zone: 'utc' },
+  );
   if (w.getUTCHours() < contractHour) date = date.minus({ days: 1 });
   // The wall-clock guess is right except next to a fold or a jump: settle it on the real bounds.
   if (timeMs < contractDayStartMs(zone, date, contractHour)) date = date.minus({ days: 1 });
@@ -118,7 +129,8 @@ export function contractDayBounds(day: string, timeZone: string, contractHour: n
 export function contractMonthBounds(month: string, timeZone: string, contractHour: number): PeriodBounds {
   const zone = zoneOf('contractMonthBounds', timeZone);
   checkContractHour('contractMonthBounds', contractHour);
-  const first = typeof month === 'string' && /^\d{4}-\d{2}$/.test(month) ? DateTime.fromISO(`${month}-01`, { zone: 'utc' }) : null;
+  const first =
+    typeof month === 'string' && /^\d{4}-\d{2}$/.test(month) ? DateTime.fromISO(`${month}-01`, { zone: 'utc' }) : null;
   if (!first || !first.isValid) throw new Error(`contractMonthBounds: month must be YYYY-MM (got ${String(month)})`);
   const startMs = contractDayStartMs(zone, first, contractHour);
   const endMs = contractDayStartMs(zone, first.plus({ months: 1 }), contractHour);

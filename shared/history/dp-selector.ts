@@ -40,9 +40,12 @@ export interface DpSelectorOptions {
 export function dpSelector(dp: readonly DpSeries[], options: DpSelectorOptions): DpSelector {
   dp.forEach((series, i) => {
     if (!(series.upperRangePa > series.lowerRangePa)) {
-      throw new Error(`computeHour: dp.${i}.upperRangePa must exceed lowerRangePa (got ${series.lowerRangePa} to ${series.upperRangePa})`);
+      throw new Error(
+        `computeHour: dp.${i}.upperRangePa must exceed lowerRangePa (got ${series.lowerRangePa} to ${series.upperRangePa})`,
+      );
     }
-    if (!(series.accuracyPercentOfSpan >= 0)) throw new Error(`computeHour: dp.${i}.accuracyPercentOfSpan must be ≥ 0 (got ${series.accuracyPercentOfSpan})`);
+    if (!(series.accuracyPercentOfSpan >= 0))
+      throw new Error(`computeHour: dp.${i}.accuracyPercentOfSpan must be ≥ 0 (got ${series.accuracyPercentOfSpan})`);
   });
   const cursors: SampleCursor[] = dp.map((series, i) => sampleCursor(series.samples, `dp.${i}.samples`));
   /** The latest sample if it still covers the time (t ≤ time < t + maxGap). */
@@ -58,7 +61,9 @@ export function dpSelector(dp: readonly DpSeries[], options: DpSelectorOptions):
       at(timeMs) {
         const s = fresh(0, timeMs);
         if (s === null) return { series: null, sample: null, badSampleInForce: false };
-        return isUsableSample(s) ? { series, sample: s, badSampleInForce: false } : { series: null, sample: null, badSampleInForce: s.quality === 'bad' };
+        return isUsableSample(s)
+          ? { series, sample: s, badSampleInForce: false }
+          : { series: null, sample: null, badSampleInForce: s.quality === 'bad' };
       },
       stackChoice: () => null,
     };
@@ -67,7 +72,9 @@ export function dpSelector(dp: readonly DpSeries[], options: DpSelectorOptions):
   const lowIndex = dp.findIndex((s) => s.stackRole === 'low');
   const highIndex = dp.findIndex((s) => s.stackRole === 'high');
   if (dp.length !== 2 || lowIndex < 0 || highIndex < 0) {
-    throw new Error(`computeHour: dp must hold one series, or two with stackRole 'low' and 'high' (got ${dp.length}: ${dp.map((s) => s.stackRole).join(', ')})`);
+    throw new Error(
+      `computeHour: dp must hold one series, or two with stackRole 'low' and 'high' (got ${dp.length}: ${dp.map((s) => s.stackRole).join(', ')})`,
+    );
   }
   const low = dp[lowIndex];
   const high = dp[highIndex];
@@ -93,11 +100,14 @@ export function dpSelector(dp: readonly DpSeries[], options: DpSelectorOptions):
     while (j >= 0 && !(samples[j].timeMs < timeMs)) j--;
     return j >= 0 && samples[j].timeMs + options.maxGapMs >= timeMs ? samples[j] : null;
   };
-  const reading = (s: Sample | null): StackedReading | null => (s === null ? null : { valuePa: s.value, quality: s.quality });
+  const reading = (s: Sample | null): StackedReading | null =>
+    s === null ? null : { valuePa: s.value, quality: s.quality };
   const selectionOf = (use: StackChoice | null, lowSample: Sample | null, highSample: Sample | null): DpSelection => {
     const badSampleInForce = lowSample?.quality === 'bad' || highSample?.quality === 'bad';
     if (use === null) return { series: null, sample: null, badSampleInForce };
-    return use === 'low' ? { series: low, sample: lowSample, badSampleInForce } : { series: high, sample: highSample, badSampleInForce };
+    return use === 'low'
+      ? { series: low, sample: lowSample, badSampleInForce }
+      : { series: high, sample: highSample, badSampleInForce };
   };
   return {
     at(timeMs) {
@@ -109,14 +119,22 @@ export function dpSelector(dp: readonly DpSeries[], options: DpSelectorOptions):
       const lowReading = reading(lowSample);
       const highReading = reading(highSample);
       let use = chooseStackedTransmitter(lowReading, highReading, previous, config).use;
-      if (first && previous !== null && use !== previous && lowSample === inForceJustBefore(low.samples, timeMs) && highSample === inForceJustBefore(high.samples, timeMs)) {
+      if (
+        first &&
+        previous !== null &&
+        use !== previous &&
+        lowSample === inForceJustBefore(low.samples, timeMs) &&
+        highSample === inForceJustBefore(high.samples, timeMs)
+      ) {
         // The previous hour ended on `previous`, chosen on these same readings (the pair in force
         // just before this hour is still in force): a continuous walk would not choose again
         // here, so keep it when some history could have chosen it for this pair. When a new
         // reading arrives exactly at the boundary, the choice is made on it from `previous`, as
         // a continuous walk would.
         const other: StackChoice = previous === 'low' ? 'high' : 'low';
-        const reachable = [other, null].some((before) => chooseStackedTransmitter(lowReading, highReading, before, config).use === previous);
+        const reachable = [other, null].some(
+          (before) => chooseStackedTransmitter(lowReading, highReading, before, config).use === previous,
+        );
         if (reachable) use = previous;
       }
       first = false;

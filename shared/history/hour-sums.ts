@@ -100,7 +100,15 @@ export function dpBandOf(share: number): DpBandName {
  * @param dpPa, pressurePa, temperatureK the inputs of the operating point
  * @param band DP band of the active transmitter
  */
-export function addFlowingInterval(sums: HourSums, durationMs: number, point: OperatingPoint, dpPa: number, pressurePa: number, temperatureK: number, band: DpBandName): void {
+export function addFlowingInterval(
+  sums: HourSums,
+  durationMs: number,
+  point: OperatingPoint,
+  dpPa: number,
+  pressurePa: number,
+  temperatureK: number,
+  band: DpBandName,
+): void {
   const massKgMs = point.massFlowKgPerS * durationMs;
   sums.validMs += durationMs;
   sums.flowMs += durationMs;

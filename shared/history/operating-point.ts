@@ -49,7 +49,9 @@ export function evaluateOperatingPoint(
   transmitter: ActiveTransmitter,
 ): OperatingPoint {
   if (!(staticPressurePa > differentialPressurePa)) {
-    throw new Error(`evaluateOperatingPoint: staticPressurePa (${staticPressurePa} Pa absolute) must exceed differentialPressurePa (${differentialPressurePa} Pa)`);
+    throw new Error(
+      `evaluateOperatingPoint: staticPressurePa (${staticPressurePa} Pa absolute) must exceed differentialPressurePa (${differentialPressurePa} Pa)`,
+    );
   }
   const element = version.elementAt(temperatureK);
   const fluid = version.fluidAt(staticPressurePa, temperatureK);
@@ -57,10 +59,18 @@ export function evaluateOperatingPoint(
   const massFlowKgPerS = flow.massFlowKgPerS;
   const baseDensity = version.baseDensityKgPerM3;
 
-  let outsideStandardLimits = element.warnings.some((w) => w.code.startsWith(ISO_5167_CODE)) || fluid.warnings.some((w) => w.code.startsWith(ISO_5167_CODE));
+  let outsideStandardLimits =
+    element.warnings.some((w) => w.code.startsWith(ISO_5167_CODE)) ||
+    fluid.warnings.some((w) => w.code.startsWith(ISO_5167_CODE));
   if (!outsideStandardLimits) {
     const pressureRatio = fluid.compressible ? (staticPressurePa - differentialPressurePa) / staticPressurePa : null;
-    const pointWarnings = operatingPointWarnings(element.limits, element.beta, element.pipeDiameterM, flow.reynoldsNumber, pressureRatio);
+    const pointWarnings = operatingPointWarnings(
+      element.limits,
+      element.beta,
+      element.pipeDiameterM,
+      flow.reynoldsNumber,
+      pressureRatio,
+    );
     outsideStandardLimits = pointWarnings.some((w) => w.code.startsWith(ISO_5167_CODE));
   }
 

@@ -71,7 +71,10 @@ function build(version: ConfigVersionInput, base: { pressurePa: number; temperat
  * @returns the prepared version, from the memo when the same id, content and base were seen
  * @throws Error naming the field when the element or fluid is invalid
  */
-export function prepareConfigVersion(version: ConfigVersionInput, base: { pressurePa: number; temperatureK: number }): PreparedConfigVersion {
+export function prepareConfigVersion(
+  version: ConfigVersionInput,
+  base: { pressurePa: number; temperatureK: number },
+): PreparedConfigVersion {
   const key = `${version.id}|${base.pressurePa}|${base.temperatureK}|${JSON.stringify(version.element)}|${JSON.stringify(version.fluid)}`;
   const hit = memo.get(key);
   if (hit) {

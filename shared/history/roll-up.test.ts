@@ -21,7 +21,8 @@ function hour(k: number, over: Partial<RollUpRecord> = {}): RollUpRecord {
     ...over,
   };
 }
-const allHours = (over: (k: number) => Partial<RollUpRecord> = () => ({})) => Array.from({ length: 25 }, (_, k) => hour(k, over(k)));
+const allHours = (over: (k: number) => Partial<RollUpRecord> = () => ({})) =>
+  Array.from({ length: 25 }, (_, k) => hour(k, over(k)));
 
 describe('rollUpRecords', () => {
   it('sums a 25-hour day of constant hourly records to 25 × the hourly figure: 25006.25 kg, 90000 s, 30018.75 Sm³, 1.25 GJ', () => {
@@ -53,7 +54,11 @@ describe('rollUpRecords', () => {
   });
 
   it('weights coverage by hour: one hour at 0.5 coverage in 25 gives (24 + 0.5)/25 = 0.98', () => {
-    const t = rollUpRecords(allHours((k) => (k === 3 ? { coverage: 0.5, flags: ['missing-data', 'bad-quality'] } : {})), longDay, { nowMs: longDay.endMs });
+    const t = rollUpRecords(
+      allHours((k) => (k === 3 ? { coverage: 0.5, flags: ['missing-data', 'bad-quality'] } : {})),
+      longDay,
+      { nowMs: longDay.endMs },
+    );
     expect(t.coverage).toBeCloseTo(0.98, 12);
     expect(t.flags).toEqual(['missing-data', 'bad-quality']);
   });
@@ -73,21 +78,40 @@ describe('rollUpRecords', () => {
 
   it('takes the mass-weighted mean of hourly uncertainties: 3 h × 100 kg at 1 % and 1 h × 300 kg at 2 % give 1.5 %', () => {
     const bounds = { startMs: 0, endMs: 4 * H, hours: 4 };
-    const rec = (k: number, massKg: number, u: number): RollUpRecord => ({ ...hour(0), startMs: k * H, endMs: (k + 1) * H, massKg, uncertaintyPercent: u });
+    const rec = (k: number, massKg: number, u: number): RollUpRecord => ({
+      ...hour(0),
+      startMs: k * H,
+      endMs: (k + 1) * H,
+      massKg,
+      uncertaintyPercent: u,
+    });
     const t = rollUpRecords([rec(0, 100, 1), rec(1, 100, 1), rec(2, 100, 1), rec(3, 300, 2)], bounds, { nowMs: 4 * H });
     // (3 × 100 × 1 + 300 × 2) / 600 = 900 / 600 = 1.5, by hand
     expect(t.uncertaintyPercent).toBeCloseTo(1.5, 12);
   });
 
   it('gives null uncertainty and null energy to a day without flow or energy', () => {
-    const t = rollUpRecords(allHours(() => ({ massKg: 0, volumeM3: 0, standardVolumeM3: 0, flowTimeS: 0, energyJ: null, uncertaintyPercent: null })), longDay, { nowMs: longDay.endMs });
+    const t = rollUpRecords(
+      allHours(() => ({
+        massKg: 0,
+        volumeM3: 0,
+        standardVolumeM3: 0,
+        flowTimeS: 0,
+        energyJ: null,
+        uncertaintyPercent: null,
+      })),
+      longDay,
+      { nowMs: longDay.endMs },
+    );
     expect(t.uncertaintyPercent).toBeNull();
     expect(t.energyJ).toBeNull();
     expect(t.massKg).toBe(0);
   });
 
   it('reports closed when the month is closed, whatever the records', () => {
-    expect(rollUpRecords(allHours().slice(0, 3), longDay, { nowMs: longDay.endMs, closed: true }).status).toBe('closed');
+    expect(rollUpRecords(allHours().slice(0, 3), longDay, { nowMs: longDay.endMs, closed: true }).status).toBe(
+      'closed',
+    );
   });
 
   it('ignores records outside the period', () => {

@@ -38,13 +38,20 @@ export interface RollUpOptions {
  * @param options nowMs, and closed for a closed month
  * @returns the period total with start and end as ISO 8601 UTC strings
  */
-export function rollUpRecords(records: readonly RollUpRecord[], bounds: PeriodBounds, options: RollUpOptions): PeriodTotal {
+export function rollUpRecords(
+  records: readonly RollUpRecord[],
+  bounds: PeriodBounds,
+  options: RollUpOptions,
+): PeriodTotal {
   const { startMs, endMs, hours } = bounds;
   if (!Number.isFinite(startMs) || !Number.isFinite(endMs) || !(endMs > startMs)) {
-    throw new Error(`rollUpRecords: bounds.startMs and bounds.endMs must be finite with endMs > startMs (got ${startMs}, ${endMs})`);
+    throw new Error(
+      `rollUpRecords: bounds.startMs and bounds.endMs must be finite with endMs > startMs (got ${startMs}, ${endMs})`,
+    );
   }
   if (!(hours > 0)) throw new Error(`rollUpRecords: bounds.hours must be > 0 (got ${hours})`);
-  if (!Number.isFinite(options?.nowMs)) throw new Error(`rollUpRecords: options.nowMs must be a finite epoch time in ms (got ${options?.nowMs})`);
+  if (!Number.isFinite(options?.nowMs))
+    throw new Error(`rollUpRecords: options.nowMs must be a finite epoch time in ms (got ${options?.nowMs})`);
   const nowMs = options.nowMs;
 
   const byStart = new Map<number, RollUpRecord>();

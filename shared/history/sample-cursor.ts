@@ -30,7 +30,9 @@ export function isUsableSample(sample: Sample): boolean {
 export function sampleCursor(samples: readonly Sample[], field: string): SampleCursor {
   for (let i = 1; i < samples.length; i++) {
     if (!(samples[i].timeMs >= samples[i - 1].timeMs)) {
-      throw new Error(`computeHour: ${field} must be sorted by timeMs (sample ${i} at ${samples[i].timeMs} follows ${samples[i - 1].timeMs})`);
+      throw new Error(
+        `computeHour: ${field} must be sorted by timeMs (sample ${i} at ${samples[i].timeMs} follows ${samples[i - 1].timeMs})`,
+      );
     }
   }
   let next = 0;
@@ -39,7 +41,8 @@ export function sampleCursor(samples: readonly Sample[], field: string): SampleC
   let lastTimeMs = -Infinity;
   return {
     moveTo(timeMs: number) {
-      if (timeMs < lastTimeMs) throw new Error(`sampleCursor: ${field} was queried backwards in time (${timeMs} < ${lastTimeMs})`);
+      if (timeMs < lastTimeMs)
+        throw new Error(`sampleCursor: ${field} was queried backwards in time (${timeMs} < ${lastTimeMs})`);
       lastTimeMs = timeMs;
       while (next < samples.length && samples[next].timeMs <= timeMs) {
         latest = samples[next];

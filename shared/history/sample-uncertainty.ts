@@ -10,7 +10,12 @@
 import type { ElementSpec } from '../flow/flow-types';
 import type { PreparedElement } from '../flow/prepare-element';
 import type { FluidSpec } from '../fluids';
-import { dischargeCoefficientUncertaintyPercent, expansibilityUncertaintyPercent, flowRateUncertainty, readingUncertaintyPercent } from '../uncertainty';
+import {
+  dischargeCoefficientUncertaintyPercent,
+  expansibilityUncertaintyPercent,
+  flowRateUncertainty,
+  readingUncertaintyPercent,
+} from '../uncertainty';
 
 /** U(D)/D, percent: a measured pipe bore as ISO 5167 practice allows [mem]. */
 export const PIPE_DIAMETER_UNCERTAINTY_PERCENT = 0.4;
@@ -75,7 +80,11 @@ export function sampleUncertaintyPercent(input: SampleUncertaintyInput): number 
     expansibilityPercent,
     pipeDiameterPercent: PIPE_DIAMETER_UNCERTAINTY_PERCENT,
     elementDiameterPercent: ELEMENT_DIAMETER_UNCERTAINTY_PERCENT,
-    differentialPressurePercent: readingUncertaintyPercent(input.accuracyPercentOfSpan, input.spanPa, input.differentialPressurePa),
+    differentialPressurePercent: readingUncertaintyPercent(
+      input.accuracyPercentOfSpan,
+      input.spanPa,
+      input.differentialPressurePa,
+    ),
     densityPercent: DENSITY_MODEL_UNCERTAINTY_PERCENT[input.fluidKind],
   }).expandedPercent;
 }

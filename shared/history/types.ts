@@ -94,7 +94,16 @@ export interface HourlyRecord {
 /** The part of an hourly record that a roll-up sums (an HourlyRecord fits). */
 export type RollUpRecord = Pick<
   HourlyRecord,
-  'startMs' | 'endMs' | 'flowTimeS' | 'massKg' | 'volumeM3' | 'standardVolumeM3' | 'energyJ' | 'coverage' | 'flags' | 'uncertaintyPercent'
+  | 'startMs'
+  | 'endMs'
+  | 'flowTimeS'
+  | 'massKg'
+  | 'volumeM3'
+  | 'standardVolumeM3'
+  | 'energyJ'
+  | 'coverage'
+  | 'flags'
+  | 'uncertaintyPercent'
 >;
 
 export type TotalStatus = 'provisional' | 'complete' | 'closed';

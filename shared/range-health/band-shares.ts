@@ -55,9 +55,12 @@ export interface BandSummary {
  * @returns per band: time, mass, standard volume, their shares, uncertainty and its contribution
  */
 export function bandShares(hours: readonly BandHour[]): BandSummary {
-  const sums = new Map(DP_BANDS.map((b) => [b.band, { timeS: 0, massKg: 0, volumeM3: 0, massTimesU: 0, massWithU: 0 }]));
+  const sums = new Map(
+    DP_BANDS.map((b) => [b.band, { timeS: 0, massKg: 0, volumeM3: 0, massTimesU: 0, massWithU: 0 }]),
+  );
   for (const [i, h] of hours.entries()) {
-    if (!(h.flowTimeS >= 0) || !(h.massKg >= 0)) throw new Error(`bandShares: hours.${i} needs flowTimeS and massKg ≥ 0`);
+    if (!(h.flowTimeS >= 0) || !(h.massKg >= 0))
+      throw new Error(`bandShares: hours.${i} needs flowTimeS and massKg ≥ 0`);
     // Standard volume per kg is fixed by the base density of the hour's configuration.
     const volumePerKg = h.massKg > 0 ? h.standardVolumeM3 / h.massKg : 0;
     for (const b of DP_BANDS) {
@@ -91,7 +94,8 @@ export function bandShares(hours: readonly BandHour[]): BandSummary {
       massShare: share(s.massKg, massKg),
       standardVolumeShare: share(s.volumeM3, standardVolumeM3),
       uncertaintyPercent,
-      uncertaintyContributionPercent: uncertaintyPercent === null ? 0 : share(s.massWithU, massWithU) * uncertaintyPercent,
+      uncertaintyContributionPercent:
+        uncertaintyPercent === null ? 0 : share(s.massWithU, massWithU) * uncertaintyPercent,
     };
   });
   return {

@@ -12,7 +12,9 @@ const base: RangeAdviceInput = {
   fluid: { kind: 'water' },
   conditions: { staticPressurePa: 1e6, temperatureK: 293.15 },
   flowRange: { minimumKgPerS: 20, normalKgPerS: 30, maximumKgPerS: 40 },
-  transmitters: [{ id: '1', tag: 'FT-1', stackRole: 'single', spanPa: 25_000, accuracyPercentOfSpan: 0.075, unit: 'kPa' }],
+  transmitters: [
+    { id: '1', tag: 'FT-1', stackRole: 'single', spanPa: 25_000, accuracyPercentOfSpan: 0.075, unit: 'kPa' },
+  ],
   lowInRangeTimeShare: 0,
   overRangeTimeShare: 0,
   uncertaintyLimitPercent: 1,
@@ -29,7 +31,11 @@ describe('rangeAdvice', () => {
 
   it('re-ranges a single transmitter down when the highest flow uses little of the span', () => {
     // 4 kg/s max: DP is (4/40)² = 1 % of the DP at 40 kg/s, far below half the span.
-    const a = rangeAdvice({ ...base, flowRange: { minimumKgPerS: 2, normalKgPerS: 3, maximumKgPerS: 4 }, lowInRangeTimeShare: 0.8 });
+    const a = rangeAdvice({
+      ...base,
+      flowRange: { minimumKgPerS: 2, normalKgPerS: 3, maximumKgPerS: 4 },
+      lowInRangeTimeShare: 0.8,
+    });
     expect(a.kind).toBe('re-range');
     const dpMax = Number(a.numbers.dpAtMaximumFlowPa);
     expect(Number(a.numbers.suggestedSpan) * 1000).toBeGreaterThanOrEqual(dpMax * 1.1);
@@ -39,13 +45,21 @@ describe('rangeAdvice', () => {
   });
 
   it('adds a low-range transmitter when the span must stay for the top flow but the low flows are low in range', () => {
-    const a = rangeAdvice({ ...base, flowRange: { minimumKgPerS: 4, normalKgPerS: 20, maximumKgPerS: 40 }, lowInRangeTimeShare: 0.3 });
+    const a = rangeAdvice({
+      ...base,
+      flowRange: { minimumKgPerS: 4, normalKgPerS: 20, maximumKgPerS: 40 },
+      lowInRangeTimeShare: 0.3,
+    });
     expect(a.kind).toBe('add-low-range-transmitter');
     expect(Number(a.numbers.suggestedSpan)).toBeLessThan(25);
   });
 
   it('re-ranges up when flow was over range', () => {
-    const a = rangeAdvice({ ...base, transmitters: [{ ...base.transmitters[0], spanPa: 10_000 }], overRangeTimeShare: 0.2 });
+    const a = rangeAdvice({
+      ...base,
+      transmitters: [{ ...base.transmitters[0], spanPa: 10_000 }],
+      overRangeTimeShare: 0.2,
+    });
     expect(a.kind).toBe('re-range');
     expect(a.text).toMatch(/up to/);
   });

@@ -9,7 +9,8 @@ import { rangeCheck, type RangeCheckInput, type RangeCheckResult } from '../flow
 import { standardSpanAtOrBelow } from '../flow/standard-span';
 import { fromSI, toSI } from '../units/convert-units';
 
-export type RangeAdviceKind = 'none' | 're-range' | 'add-low-range-transmitter' | 'resize-low-range-transmitter' | 'change-element';
+export type RangeAdviceKind =
+  'none' | 're-range' | 'add-low-range-transmitter' | 'resize-low-range-transmitter' | 'change-element';
 
 export interface RangeAdviceTransmitter {
   id: string;
@@ -90,7 +91,12 @@ export function rangeAdvice(input: RangeAdviceInput): RangeAdvice & { rangeCheck
     uncertaintyLimitPercent: rc.uncertaintyLimitPercent,
   };
   const inUnit = (pa: number, unit: string) => `${Number(fromSI(pa, unit).toPrecision(3))} ${unit}`;
-  const out = (kind: RangeAdviceKind, text: string, extra: Record<string, number | string | null> = {}) => ({ kind, text, numbers: { ...numbers, ...extra }, rangeCheck: rc });
+  const out = (kind: RangeAdviceKind, text: string, extra: Record<string, number | string | null> = {}) => ({
+    kind,
+    text,
+    numbers: { ...numbers, ...extra },
+    rangeCheck: rc,
+  });
 
   // Over range: the top of the flow does not fit the largest span.
   if (input.overRangeTimeShare > OVER_RANGE_TIME_LIMIT || maximum.differentialPressurePa > top.spanPa) {
@@ -103,7 +109,10 @@ export function rangeAdvice(input: RangeAdviceInput): RangeAdvice & { rangeCheck
   }
   const lowTime = input.lowInRangeTimeShare > LOW_IN_RANGE_TIME_LIMIT;
   if (rc.rangeCovered && !lowTime) {
-    return out('none', `No change needed: ${pct(1 - input.lowInRangeTimeShare)} of flowing time was above 10 % of span and the range check covers the period's flows within ${rc.uncertaintyLimitPercent} %.`);
+    return out(
+      'none',
+      `No change needed: ${pct(1 - input.lowInRangeTimeShare)} of flowing time was above 10 % of span and the range check covers the period's flows within ${rc.uncertaintyLimitPercent} %.`,
+    );
   }
   // A single transmitter ranged far above the highest flow: re-range it down first.
   if (!low && maximum.differentialPressurePa * RERANGE_HEADROOM < 0.5 * top.spanPa) {
@@ -112,7 +121,12 @@ export function rangeAdvice(input: RangeAdviceInput): RangeAdvice & { rangeCheck
     return out(
       're-range',
       `Re-range ${top.tag} from 0–${inUnit(top.spanPa, top.unit).replace(` ${top.unit}`, '')} to 0–${spanValue} ${top.unit}: the highest flow gives only ${pct(maximum.differentialPressurePa / top.spanPa)} of the present span, and ${pct(input.lowInRangeTimeShare)} of flowing time was below 10 % of span. On the new span the lowest flow reads ${pct(minimum.differentialPressurePa / newSpanPa)}.`,
-      { transmitterId: top.id, suggestedSpan: spanValue, suggestedSpanUnit: top.unit, lowestFlowShareOfNewSpan: minimum.differentialPressurePa / newSpanPa },
+      {
+        transmitterId: top.id,
+        suggestedSpan: spanValue,
+        suggestedSpanUnit: top.unit,
+        lowestFlowShareOfNewSpan: minimum.differentialPressurePa / newSpanPa,
+      },
     );
   }
   const suggestion = rc.suggestedLowRangeSpan;
@@ -120,7 +134,11 @@ export function rangeAdvice(input: RangeAdviceInput): RangeAdvice & { rangeCheck
     return out(
       'add-low-range-transmitter',
       `Add a low-range DP transmitter of 0–${suggestion.value} ${suggestion.unit} beside ${top.tag} (a stacked pair): ${pct(input.lowInRangeTimeShare)} of flowing time was below 10 % of span, where the flow uncertainty reached ${numbers.flowUncertaintyAtMinimumPercent !== null ? Number(numbers.flowUncertaintyAtMinimumPercent).toFixed(2) : '?'} % against a limit of ${rc.uncertaintyLimitPercent} %.`,
-      { suggestedSpan: suggestion.value, suggestedSpanUnit: suggestion.unit, suggestedSpanMinimumFlowKgPerS: suggestion.minimumFlowWithinLimitKgPerS },
+      {
+        suggestedSpan: suggestion.value,
+        suggestedSpanUnit: suggestion.unit,
+        suggestedSpanMinimumFlowKgPerS: suggestion.minimumFlowWithinLimitKgPerS,
+      },
     );
   }
   if (suggestion && low && suggestion.spanPa < low.spanPa * (1 - 1e-9)) {

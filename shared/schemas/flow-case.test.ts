@@ -1,7 +1,15 @@
 import { flowCaseErrorFromEngine, parseFlowCase } from './flow-case';
 
 const good = {
-  element: { kind: 'orifice', taps: 'flange', pipeDiameterM: 0.1, boreDiameterM: 0.05, referenceTemperatureK: 293.15, pipeExpansionPerK: 1.116e-5, elementExpansionPerK: 1.665e-5 },
+  element: {
+    kind: 'orifice',
+    taps: 'flange',
+    pipeDiameterM: 0.1,
+    boreDiameterM: 0.05,
+    referenceTemperatureK: 293.15,
+    pipeExpansionPerK: 1.116e-5,
+    elementExpansionPerK: 1.665e-5,
+  },
   fluid: { kind: 'natural-gas', composition: { methane: 0.965222, ethane: 0.034778 } },
   conditions: { differentialPressurePa: 25000, staticPressurePa: 6e6, temperatureK: 293.15 },
   base: { pressurePa: 101325, temperatureK: 288.15 },
@@ -23,8 +31,23 @@ describe('flowCaseSchema', () => {
     const cases = [
       { kind: 'venturi', venturiType: 'as-cast', pipeDiameterM: 0.2, boreDiameterM: 0.1 },
       { kind: 'nozzle', nozzleType: 'long-radius', pipeDiameterM: 0.2, boreDiameterM: 0.1 },
-      { kind: 'cone', pipeDiameterM: 0.2, coneDiameterM: 0.14, calibration: [{ reynoldsNumber: 1e5, dischargeCoefficient: 0.8 }, { reynoldsNumber: 1e6, dischargeCoefficient: 0.81 }] },
-      { kind: 'cone', pipeDiameterM: 0.2, coneDiameterM: 0.14, dischargeCoefficient: 0.8, pipeMaterial: 'carbon-steel', elementMaterial: 'stainless-316' },
+      {
+        kind: 'cone',
+        pipeDiameterM: 0.2,
+        coneDiameterM: 0.14,
+        calibration: [
+          { reynoldsNumber: 1e5, dischargeCoefficient: 0.8 },
+          { reynoldsNumber: 1e6, dischargeCoefficient: 0.81 },
+        ],
+      },
+      {
+        kind: 'cone',
+        pipeDiameterM: 0.2,
+        coneDiameterM: 0.14,
+        dischargeCoefficient: 0.8,
+        pipeMaterial: 'carbon-steel',
+        elementMaterial: 'stainless-316',
+      },
     ];
     for (const element of cases) expect(parseFlowCase({ ...good, element }).ok).toBe(true);
   });
@@ -38,28 +61,53 @@ describe('flowCaseSchema', () => {
   });
 
   it('names element.coneDiameterM when the cone is not below the pipe diameter', () => {
-    expect(fieldOf({ ...good, element: { kind: 'cone', pipeDiameterM: 0.1, coneDiameterM: 0.12 } })).toBe('element.coneDiameterM');
+    expect(fieldOf({ ...good, element: { kind: 'cone', pipeDiameterM: 0.1, coneDiameterM: 0.12 } })).toBe(
+      'element.coneDiameterM',
+    );
   });
 
   it('requires taps for an orifice, the type for a venturi and a nozzle', () => {
-    expect(fieldOf({ ...good, element: { kind: 'orifice', pipeDiameterM: 0.1, boreDiameterM: 0.05 } })).toBe('element.taps');
-    expect(fieldOf({ ...good, element: { kind: 'venturi', pipeDiameterM: 0.1, boreDiameterM: 0.05 } })).toBe('element.venturiType');
-    expect(fieldOf({ ...good, element: { kind: 'nozzle', pipeDiameterM: 0.1, boreDiameterM: 0.05 } })).toBe('element.nozzleType');
+    expect(fieldOf({ ...good, element: { kind: 'orifice', pipeDiameterM: 0.1, boreDiameterM: 0.05 } })).toBe(
+      'element.taps',
+    );
+    expect(fieldOf({ ...good, element: { kind: 'venturi', pipeDiameterM: 0.1, boreDiameterM: 0.05 } })).toBe(
+      'element.venturiType',
+    );
+    expect(fieldOf({ ...good, element: { kind: 'nozzle', pipeDiameterM: 0.1, boreDiameterM: 0.05 } })).toBe(
+      'element.nozzleType',
+    );
   });
 
   it('rejects both a fixed C and a calibration curve', () => {
-    expect(fieldOf({ ...good, element: { kind: 'cone', pipeDiameterM: 0.1, coneDiameterM: 0.07, dischargeCoefficient: 0.8, calibration: [{ reynoldsNumber: 1e5, dischargeCoefficient: 0.8 }] } })).toBe('element.calibration');
+    expect(
+      fieldOf({
+        ...good,
+        element: {
+          kind: 'cone',
+          pipeDiameterM: 0.1,
+          coneDiameterM: 0.07,
+          dischargeCoefficient: 0.8,
+          calibration: [{ reynoldsNumber: 1e5, dischargeCoefficient: 0.8 }],
+        },
+      }),
+    ).toBe('element.calibration');
   });
 
   it('requires a composition for natural gas and kebab-case names', () => {
     expect(fieldOf({ ...good, fluid: { kind: 'natural-gas' } })).toBe('fluid.composition');
-    expect(fieldOf({ ...good, fluid: { kind: 'natural-gas', composition: { Methane: 1 } } })).toMatch(/^fluid\.composition/);
-    expect(fieldOf({ ...good, fluid: { kind: 'natural-gas', composition: { methane: 0.5 } } })).toBe('fluid.composition');
+    expect(fieldOf({ ...good, fluid: { kind: 'natural-gas', composition: { Methane: 1 } } })).toMatch(
+      /^fluid\.composition/,
+    );
+    expect(fieldOf({ ...good, fluid: { kind: 'natural-gas', composition: { methane: 0.5 } } })).toBe(
+      'fluid.composition',
+    );
   });
 
   it('requires the molar mass of an ideal gas and the density line of a liquid', () => {
     expect(fieldOf({ ...good, fluid: { kind: 'ideal-gas' } })).toBe('fluid.molarMassKgPerMol');
-    expect(fieldOf({ ...good, fluid: { kind: 'liquid', densityKgPerM3: 850, referenceTemperatureK: 288.15 } })).toBe('fluid.expansionPerK');
+    expect(fieldOf({ ...good, fluid: { kind: 'liquid', densityKgPerM3: 850, referenceTemperatureK: 288.15 } })).toBe(
+      'fluid.expansionPerK',
+    );
   });
 
   it('names fluid.kind for an unknown fluid', () => {
@@ -67,7 +115,9 @@ describe('flowCaseSchema', () => {
   });
 
   it('names conditions.differentialPressurePa when the DP is not below the absolute static pressure, and a missing conditions object', () => {
-    expect(fieldOf({ ...good, conditions: { differentialPressurePa: 7e6, staticPressurePa: 6e6, temperatureK: 293.15 } })).toBe('conditions.differentialPressurePa');
+    expect(
+      fieldOf({ ...good, conditions: { differentialPressurePa: 7e6, staticPressurePa: 6e6, temperatureK: 293.15 } }),
+    ).toBe('conditions.differentialPressurePa');
     expect(fieldOf({ ...good, conditions: { ...good.conditions, temperatureK: -5 } })).toBe('conditions.temperatureK');
     const { conditions: _omitted, ...noConditions } = good;
     expect(fieldOf(noConditions)).toBe('conditions');
@@ -80,7 +130,9 @@ describe('flowCaseSchema', () => {
 
 describe('flowCaseErrorFromEngine', () => {
   it('picks the field path out of an engine message', () => {
-    expect(flowCaseErrorFromEngine(new Error('prepareElement: element.nozzleType is required for this element kind'))).toEqual({
+    expect(
+      flowCaseErrorFromEngine(new Error('prepareElement: element.nozzleType is required for this element kind')),
+    ).toEqual({
       code: 'invalid_case',
       message: 'prepareElement: element.nozzleType is required for this element kind',
       field: 'element.nozzleType',

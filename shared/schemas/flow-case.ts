@@ -7,7 +7,9 @@
 import { z } from 'zod';
 
 const positive = (what: string) => z.number({ error: `${what} must be a number` }).positive(`${what} must be > 0`);
-const required = (what: string) => ({ error: (iss: { input?: unknown }) => (iss.input === undefined ? `${what} is required` : `${what} must be an object`) });
+const required = (what: string) => ({
+  error: (iss: { input?: unknown }) => (iss.input === undefined ? `${what} is required` : `${what} must be an object`),
+});
 
 const materialName = z.enum(['stainless-304', 'stainless-316', 'carbon-steel', 'uns-n04400', 'uns-n10276']);
 
@@ -17,25 +19,29 @@ export const calibrationPointSchema = z.object({
 });
 
 export const elementSpecSchema = z
-  .object({
-    kind: z.enum(['orifice', 'venturi', 'nozzle', 'cone']),
-    taps: z.enum(['flange', 'corner', 'D-D/2']).optional(),
-    venturiType: z.enum(['as-cast', 'machined', 'rough-welded']).optional(),
-    nozzleType: z.enum(['isa-1932', 'long-radius']).optional(),
-    pipeDiameterM: positive('pipeDiameterM').max(10, 'pipeDiameterM must be in metres (≤ 10 m)'),
-    boreDiameterM: positive('boreDiameterM').optional(),
-    coneDiameterM: positive('coneDiameterM').optional(),
-    referenceTemperatureK: positive('referenceTemperatureK').optional(),
-    pipeExpansionPerK: z.number().min(-1e-3).max(1e-3).optional(),
-    elementExpansionPerK: z.number().min(-1e-3).max(1e-3).optional(),
-    pipeMaterial: materialName.optional(),
-    elementMaterial: materialName.optional(),
-    dischargeCoefficient: positive('dischargeCoefficient').max(1.2, 'dischargeCoefficient must be ≤ 1.2').optional(),
-    calibration: z.array(calibrationPointSchema).min(1, 'calibration needs at least one point').optional(),
-  }, required('element'))
+  .object(
+    {
+      kind: z.enum(['orifice', 'venturi', 'nozzle', 'cone']),
+      taps: z.enum(['flange', 'corner', 'D-D/2']).optional(),
+      venturiType: z.enum(['as-cast', 'machined', 'rough-welded']).optional(),
+      nozzleType: z.enum(['isa-1932', 'long-radius']).optional(),
+      pipeDiameterM: positive('pipeDiameterM').max(10, 'pipeDiameterM must be in metres (≤ 10 m)'),
+      boreDiameterM: positive('boreDiameterM').optional(),
+      coneDiameterM: positive('coneDiameterM').optional(),
+      referenceTemperatureK: positive('referenceTemperatureK').optional(),
+      pipeExpansionPerK: z.number().min(-1e-3).max(1e-3).optional(),
+      elementExpansionPerK: z.number().min(-1e-3).max(1e-3).optional(),
+      pipeMaterial: materialName.optional(),
+      elementMaterial: materialName.optional(),
+      dischargeCoefficient: positive('dischargeCoefficient').max(1.2, 'dischargeCoefficient must be ≤ 1.2').optional(),
+      calibration: z.array(calibrationPointSchema).min(1, 'calibration needs at least one point').optional(),
+    },
+    required('element'),
+  )
   .superRefine((e, ctx) => {
     const need = (field: keyof typeof e, why: string) => {
-      if (e[field] === undefined) ctx.addIssue({ code: 'custom', path: [field], message: `${field} is required ${why}` });
+      if (e[field] === undefined)
+        ctx.addIssue({ code: 'custom', path: [field], message: `${field} is required ${why}` });
     };
     if (e.kind === 'orifice') need('taps', 'for an orifice (flange, corner or D-D/2)');
     if (e.kind === 'venturi') need('venturiType', 'for a venturi (as-cast, machined or rough-welded)');
@@ -43,21 +49,38 @@ export const elementSpecSchema = z
     if (e.kind === 'cone') {
       need('coneDiameterM', 'for a cone meter');
       if (e.coneDiameterM !== undefined && e.coneDiameterM >= e.pipeDiameterM) {
-        ctx.addIssue({ code: 'custom', path: ['coneDiameterM'], message: `coneDiameterM (${e.coneDiameterM} m) must be below pipeDiameterM (${e.pipeDiameterM} m)` });
+        ctx.addIssue({
+          code: 'custom',
+          path: ['coneDiameterM'],
+          message: `coneDiameterM (${e.coneDiameterM} m) must be below pipeDiameterM (${e.pipeDiameterM} m)`,
+        });
       }
     } else {
       need('boreDiameterM', `for a ${e.kind}`);
       if (e.boreDiameterM !== undefined && e.boreDiameterM >= e.pipeDiameterM) {
-        ctx.addIssue({ code: 'custom', path: ['boreDiameterM'], message: `boreDiameterM (${e.boreDiameterM} m) must be below pipeDiameterM (${e.pipeDiameterM} m)` });
+        ctx.addIssue({
+          code: 'custom',
+          path: ['boreDiameterM'],
+          message: `boreDiameterM (${e.boreDiameterM} m) must be below pipeDiameterM (${e.pipeDiameterM} m)`,
+        });
       }
     }
     if (e.dischargeCoefficient !== undefined && e.calibration !== undefined) {
-      ctx.addIssue({ code: 'custom', path: ['calibration'], message: 'give either a fixed dischargeCoefficient or a calibration curve, not both' });
+      ctx.addIssue({
+        code: 'custom',
+        path: ['calibration'],
+        message: 'give either a fixed dischargeCoefficient or a calibration curve, not both',
+      });
     }
     if (e.calibration) {
       const seen = new Set<number>();
       e.calibration.forEach((p, i) => {
-        if (seen.has(p.reynoldsNumber)) ctx.addIssue({ code: 'custom', path: ['calibration', i, 'reynoldsNumber'], message: `two calibration points at Re_D = ${p.reynoldsNumber}` });
+        if (seen.has(p.reynoldsNumber))
+          ctx.addIssue({
+            code: 'custom',
+            path: ['calibration', i, 'reynoldsNumber'],
+            message: `two calibration points at Re_D = ${p.reynoldsNumber}`,
+          });
         seen.add(p.reynoldsNumber);
       });
     }
@@ -69,7 +92,9 @@ const overrides = {
 };
 
 /** Component names are kebab-case (methane, carbon-dioxide, n-butane, ...); the fluids module checks they are known. */
-const componentName = z.string().regex(/^[a-z0-9]+(-[a-z0-9]+)*$/, 'component names are kebab-case, e.g. carbon-dioxide');
+const componentName = z
+  .string()
+  .regex(/^[a-z0-9]+(-[a-z0-9]+)*$/, 'component names are kebab-case, e.g. carbon-dioxide');
 
 export const fluidSpecSchema = z.discriminatedUnion(
   'kind',
@@ -79,10 +104,16 @@ export const fluidSpecSchema = z.discriminatedUnion(
       kind: z.literal('natural-gas'),
       composition: z
         .record(componentName, z.number().min(0, 'mole fractions must be ≥ 0').max(1, 'mole fractions must be ≤ 1'), {
-          error: (iss) => (iss.input === undefined ? 'composition (mole fractions by component) is required for natural gas' : undefined),
+          error: (iss) =>
+            iss.input === undefined
+              ? 'composition (mole fractions by component) is required for natural gas'
+              : undefined,
         })
         .refine((c) => Object.keys(c).length > 0, 'composition needs at least one component')
-        .refine((c) => Math.abs(Object.values(c).reduce((s, x) => s + x, 0) - 1) <= 0.01, 'mole fractions must add up to 1 (within 0.01)'),
+        .refine(
+          (c) => Math.abs(Object.values(c).reduce((s, x) => s + x, 0) - 1) <= 0.01,
+          'mole fractions must add up to 1 (within 0.01)',
+        ),
       ...overrides,
     }),
     z.object({
@@ -99,15 +130,21 @@ export const fluidSpecSchema = z.discriminatedUnion(
       ...overrides,
     }),
   ],
-  { error: (iss) => (iss.input === undefined ? 'fluid is required' : 'kind must be water, steam, natural-gas, ideal-gas or liquid') },
+  {
+    error: (iss) =>
+      iss.input === undefined ? 'fluid is required' : 'kind must be water, steam, natural-gas, ideal-gas or liquid',
+  },
 );
 
 export const flowConditionsSchema = z
-  .object({
-    differentialPressurePa: positive('differentialPressurePa'),
-    staticPressurePa: positive('staticPressurePa (absolute)'),
-    temperatureK: positive('temperatureK'),
-  }, required('conditions'))
+  .object(
+    {
+      differentialPressurePa: positive('differentialPressurePa'),
+      staticPressurePa: positive('staticPressurePa (absolute)'),
+      temperatureK: positive('temperatureK'),
+    },
+    required('conditions'),
+  )
   .superRefine((c, ctx) => {
     if (c.differentialPressurePa >= c.staticPressurePa) {
       ctx.addIssue({
@@ -118,14 +155,17 @@ export const flowConditionsSchema = z
     }
   });
 
-export const baseConditionsSchema = z.object({ pressurePa: positive('pressurePa'), temperatureK: positive('temperatureK') });
+export const baseConditionsSchema = z.object({
+  pressurePa: positive('pressurePa'),
+  temperatureK: positive('temperatureK'),
+});
 
 export const flowCaseSchema = z.object(
   {
-  element: elementSpecSchema,
-  fluid: fluidSpecSchema,
-  conditions: flowConditionsSchema,
-  base: baseConditionsSchema.optional(),
+    element: elementSpecSchema,
+    fluid: fluidSpecSchema,
+    conditions: flowConditionsSchema,
+    base: baseConditionsSchema.optional(),
   },
   required('the case'),
 );
@@ -147,7 +187,13 @@ export interface InvalidCaseError {
 export function flowCaseErrorFromZod(error: z.ZodError): InvalidCaseError {
   const issue = error.issues[0];
   const field = issue && issue.path.length > 0 ? issue.path.map(String).join('.') : null;
-  const more = error.issues.length > 1 ? ` (and ${error.issues.length - 1} more: ${error.issues.slice(1, 4).map((i) => i.path.map(String).join('.') || '(case)').join(', ')})` : '';
+  const more =
+    error.issues.length > 1
+      ? ` (and ${error.issues.length - 1} more: ${error.issues
+          .slice(1, 4)
+          .map((i) => i.path.map(String).join('.') || '(case)')
+          .join(', ')})`
+      : '';
   return { code: 'invalid_case', message: `${field ?? 'case'}: ${issue?.message ?? 'invalid'}${more}`, field };
 }
 
@@ -156,7 +202,9 @@ export function flowCaseErrorFromZod(error: z.ZodError): InvalidCaseError {
  * @param value parsed JSON
  * @returns { ok: true, value } or { ok: false, error }
  */
-export function parseFlowCase(value: unknown): { ok: true; value: FlowCaseInput } | { ok: false; error: InvalidCaseError } {
+export function parseFlowCase(
+  value: unknown,
+): { ok: true; value: FlowCaseInput } | { ok: false; error: InvalidCaseError } {
   const parsed = flowCaseSchema.safeParse(value);
   return parsed.success ? { ok: true, value: parsed.data } : { ok: false, error: flowCaseErrorFromZod(parsed.error) };
 }

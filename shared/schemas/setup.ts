@@ -5,7 +5,8 @@
 import { z } from 'zod';
 import { elementSpecSchema, fluidSpecSchema } from './flow-case';
 
-const finite = (what: string) => z.number({ error: `${what} must be a number` }).refine(Number.isFinite, `${what} must be finite`);
+const finite = (what: string) =>
+  z.number({ error: `${what} must be a number` }).refine(Number.isFinite, `${what} must be finite`);
 const positive = (what: string) => finite(what).refine((v) => v > 0, `${what} must be > 0`);
 const text = (max = 200) => z.string().trim().min(1, 'is required').max(max);
 
@@ -20,13 +21,25 @@ const timeZone = z.string().refine((tz) => {
 }, 'must be an IANA time zone such as America/Denver');
 
 export const siteSchema = z.object({
-  code: z.string().trim().regex(/^[A-Za-z0-9][A-Za-z0-9_-]{0,31}$/, 'letters, digits, - and _ only (it is part of MQTT topics)'),
+  code: z
+    .string()
+    .trim()
+    .regex(/^[A-Za-z0-9][A-Za-z0-9_-]{0,31}$/, 'letters, digits, - and _ only (it is part of MQTT topics)'),
   name: text(),
   timeZone,
   contractHour: z.number().int('must be a whole hour').min(0, 'must be 0–23').max(23, 'must be 0–23'),
-  basePressurePa: positive('basePressurePa').refine((v) => v > 50_000 && v < 200_000, 'basePressurePa must be an absolute pressure in Pa (e.g. 101325)'),
-  baseTemperatureK: positive('baseTemperatureK').refine((v) => v > 200 && v < 400, 'baseTemperatureK must be in kelvin (e.g. 288.15)'),
-  atmosphericPressurePa: positive('atmosphericPressurePa').refine((v) => v > 40_000 && v < 120_000, 'atmosphericPressurePa must be in Pa (e.g. 84000 at altitude)'),
+  basePressurePa: positive('basePressurePa').refine(
+    (v) => v > 50_000 && v < 200_000,
+    'basePressurePa must be an absolute pressure in Pa (e.g. 101325)',
+  ),
+  baseTemperatureK: positive('baseTemperatureK').refine(
+    (v) => v > 200 && v < 400,
+    'baseTemperatureK must be in kelvin (e.g. 288.15)',
+  ),
+  atmosphericPressurePa: positive('atmosphericPressurePa').refine(
+    (v) => v > 40_000 && v < 120_000,
+    'atmosphericPressurePa must be in Pa (e.g. 84000 at altitude)',
+  ),
   displayUnits: z.enum(['si', 'us']).default('si'),
 });
 
@@ -43,32 +56,51 @@ export const lineSchema = z
     flangeClass: z.string().max(40).optional(),
     pipeMaterial: z.string().max(80).optional(),
     elementMaterial: z.string().max(80).optional(),
-    upstreamStraightLengthD: finite('upstreamStraightLengthD').refine((v) => v >= 0, 'must be ≥ 0').optional(),
-    downstreamStraightLengthD: finite('downstreamStraightLengthD').refine((v) => v >= 0, 'must be ≥ 0').optional(),
+    upstreamStraightLengthD: finite('upstreamStraightLengthD')
+      .refine((v) => v >= 0, 'must be ≥ 0')
+      .optional(),
+    downstreamStraightLengthD: finite('downstreamStraightLengthD')
+      .refine((v) => v >= 0, 'must be ≥ 0')
+      .optional(),
     approvals: z.string().max(500).optional(),
     installDate: z.iso.date('must be a date YYYY-MM-DD').optional(),
-    expectedServiceLifeYears: finite('expectedServiceLifeYears').refine((v) => v > 0 && v < 200, 'must be 0–200 years').optional(),
+    expectedServiceLifeYears: finite('expectedServiceLifeYears')
+      .refine((v) => v > 0 && v < 200, 'must be 0–200 years')
+      .optional(),
     bidirectional: z.boolean().optional(),
   })
   .strict();
 
-export const meterRunSchema = z.object({
-  siteId: z.union([z.number().int().positive(), z.string().regex(/^\d+$/)]).transform(String),
-  tag: z.string().trim().regex(/^[A-Za-z0-9][A-Za-z0-9_.-]{0,63}$/, 'letters, digits, ., - and _ only'),
-  name: text(),
-  element: elementSpecSchema,
-  fluid: fluidSpecSchema,
-  holdLimitS: positive('holdLimitS').default(60),
-  maxGapS: positive('maxGapS').default(300),
-  stackSwitchUpShare: finite('stackSwitchUpShare').refine((v) => v > 0 && v <= 1, 'must be a share between 0 and 1').default(0.9),
-  stackSwitchDownShare: finite('stackSwitchDownShare').refine((v) => v > 0 && v < 1, 'must be a share between 0 and 1').default(0.8),
-  line: lineSchema.default({}),
-  /** When the first configuration version takes effect (history before it cannot be computed). */
-  effectiveFrom: z.iso.datetime({ offset: true, error: 'must be ISO 8601 with an offset or Z' }).optional(),
-}).superRefine((m, ctx) => {
-  if (m.stackSwitchDownShare >= m.stackSwitchUpShare)
-    ctx.addIssue({ code: 'custom', path: ['stackSwitchDownShare'], message: 'must be below stackSwitchUpShare (hysteresis)' });
-});
+export const meterRunSchema = z
+  .object({
+    siteId: z.union([z.number().int().positive(), z.string().regex(/^\d+$/)]).transform(String),
+    tag: z
+      .string()
+      .trim()
+      .regex(/^[A-Za-z0-9][A-Za-z0-9_.-]{0,63}$/, 'letters, digits, ., - and _ only'),
+    name: text(),
+    element: elementSpecSchema,
+    fluid: fluidSpecSchema,
+    holdLimitS: positive('holdLimitS').default(60),
+    maxGapS: positive('maxGapS').default(300),
+    stackSwitchUpShare: finite('stackSwitchUpShare')
+      .refine((v) => v > 0 && v <= 1, 'must be a share between 0 and 1')
+      .default(0.9),
+    stackSwitchDownShare: finite('stackSwitchDownShare')
+      .refine((v) => v > 0 && v < 1, 'must be a share between 0 and 1')
+      .default(0.8),
+    line: lineSchema.default({}),
+    /** When the first configuration version takes effect (history before it cannot be computed). */
+    effectiveFrom: z.iso.datetime({ offset: true, error: 'must be ISO 8601 with an offset or Z' }).optional(),
+  })
+  .superRefine((m, ctx) => {
+    if (m.stackSwitchDownShare >= m.stackSwitchUpShare)
+      ctx.addIssue({
+        code: 'custom',
+        path: ['stackSwitchDownShare'],
+        message: 'must be below stackSwitchUpShare (hysteresis)',
+      });
+  });
 
 export const configVersionSchema = z.object({
   effectiveFrom: z.iso.datetime({ offset: true, error: 'must be ISO 8601 with an offset or Z' }),
@@ -80,25 +112,43 @@ export const configVersionSchema = z.object({
 export const transmitterSchema = z
   .object({
     meterRunId: z.union([z.number().int().positive(), z.string().regex(/^\d+$/)]).transform(String),
-    tag: z.string().trim().regex(/^[A-Za-z0-9][A-Za-z0-9_.-]{0,63}$/, 'letters, digits, ., - and _ only (it is the MQTT topic)'),
+    tag: z
+      .string()
+      .trim()
+      .regex(/^[A-Za-z0-9][A-Za-z0-9_.-]{0,63}$/, 'letters, digits, ., - and _ only (it is the MQTT topic)'),
     measures: z.enum(measures, { error: `must be one of ${measures.join(', ')}` }),
     unit: z.enum(transmitterUnits, { error: `must be one of ${transmitterUnits.join(' ')}` }),
     pressureReference: z.enum(['absolute', 'gauge']).default('absolute'),
     lowerRange: finite('lowerRange'),
     upperRange: finite('upperRange'),
     stackRole: z.enum(['single', 'low', 'high']).default('single'),
-    accuracyPercentOfSpan: finite('accuracyPercentOfSpan').refine((v) => v > 0 && v < 10, 'must be between 0 and 10 % of span').default(0.075),
+    accuracyPercentOfSpan: finite('accuracyPercentOfSpan')
+      .refine((v) => v > 0 && v < 10, 'must be between 0 and 10 % of span')
+      .default(0.075),
     calibrationDue: z.iso.date('must be a date YYYY-MM-DD').optional(),
   })
   .superRefine((t, ctx) => {
-    if (t.upperRange <= t.lowerRange) ctx.addIssue({ code: 'custom', path: ['upperRange'], message: 'must be above lowerRange' });
+    if (t.upperRange <= t.lowerRange)
+      ctx.addIssue({ code: 'custom', path: ['upperRange'], message: 'must be above lowerRange' });
     const isTemperature = (temperatureUnits as readonly string[]).includes(t.unit);
     if (t.measures === 'temperature' && !isTemperature)
-      ctx.addIssue({ code: 'custom', path: ['unit'], message: `a temperature transmitter needs a temperature unit (${temperatureUnits.join(', ')})` });
+      ctx.addIssue({
+        code: 'custom',
+        path: ['unit'],
+        message: `a temperature transmitter needs a temperature unit (${temperatureUnits.join(', ')})`,
+      });
     if (t.measures !== 'temperature' && isTemperature)
-      ctx.addIssue({ code: 'custom', path: ['unit'], message: `a pressure transmitter needs a pressure unit (${pressureUnits.join(', ')})` });
+      ctx.addIssue({
+        code: 'custom',
+        path: ['unit'],
+        message: `a pressure transmitter needs a pressure unit (${pressureUnits.join(', ')})`,
+      });
     if (t.measures !== 'differential-pressure' && t.stackRole !== 'single')
-      ctx.addIssue({ code: 'custom', path: ['stackRole'], message: 'only differential-pressure transmitters can be stacked' });
+      ctx.addIssue({
+        code: 'custom',
+        path: ['stackRole'],
+        message: 'only differential-pressure transmitters can be stacked',
+      });
     // pressureReference means nothing for a differential pressure and is ignored there.
   });
 

@@ -46,7 +46,9 @@ export function dischargeCoefficientUncertaintyPercent(input: DischargeCoefficie
     case 'cone':
       return input.calibrated ? 0.5 : 5.0;
     default:
-      throw new Error(`dischargeCoefficientUncertaintyPercent: element.kind must be orifice, venturi, nozzle or cone (got ${String(kind)})`);
+      throw new Error(
+        `dischargeCoefficientUncertaintyPercent: element.kind must be orifice, venturi, nozzle or cone (got ${String(kind)})`,
+      );
   }
 }
 
@@ -72,7 +74,8 @@ export function expansibilityUncertaintyPercent(
   compressible = true,
 ): number {
   if (!compressible) return 0;
-  if (!(staticPressurePa > 0)) throw new Error(`expansibilityUncertaintyPercent: staticPressurePa must be > 0 (got ${staticPressurePa})`);
+  if (!(staticPressurePa > 0))
+    throw new Error(`expansibilityUncertaintyPercent: staticPressurePa must be > 0 (got ${staticPressurePa})`);
   const ratio = differentialPressurePa / staticPressurePa;
   if (kind === 'orifice') return (3.5 * ratio) / isentropicExponent;
   if (kind === 'cone') return (4 * ratio) / isentropicExponent;

@@ -5,10 +5,23 @@ describe('flowRateUncertainty (ISO 5167-1:2003 §8, TRADE.md §6)', () => {
   it('combines the inputs by the formula of TRADE.md §6 for an orifice at β = 0.5', () => {
     const beta4 = 0.5 ** 4;
     // TRADE.md §6 written out: U² = U_C² + U_ε² + (2β⁴/(1−β⁴))² U_D² + (2/(1−β⁴))² U_d² + ¼U_Δp² + ¼U_ρ²
-    const expected = Math.sqrt(0.5 ** 2 + 0.02 ** 2 + ((2 * beta4) / (1 - beta4)) ** 2 * 0.4 ** 2 + (2 / (1 - beta4)) ** 2 * 0.07 ** 2 + 0.25 * 0.75 ** 2 + 0.25 * 0.2 ** 2);
+    const expected = Math.sqrt(
+      0.5 ** 2 +
+        0.02 ** 2 +
+        ((2 * beta4) / (1 - beta4)) ** 2 * 0.4 ** 2 +
+        (2 / (1 - beta4)) ** 2 * 0.07 ** 2 +
+        0.25 * 0.75 ** 2 +
+        0.25 * 0.2 ** 2,
+    );
     const r = flowRateUncertainty({
-      kind: 'orifice', beta: 0.5, dischargeCoefficientPercent: 0.5, expansibilityPercent: 0.02, pipeDiameterPercent: 0.4,
-      elementDiameterPercent: 0.07, differentialPressurePercent: 0.75, densityPercent: 0.2,
+      kind: 'orifice',
+      beta: 0.5,
+      dischargeCoefficientPercent: 0.5,
+      expansibilityPercent: 0.02,
+      pipeDiameterPercent: 0.4,
+      elementDiameterPercent: 0.07,
+      differentialPressurePercent: 0.75,
+      densityPercent: 0.2,
     });
     expect(r.expandedPercent).toBeCloseTo(expected, 12);
     expect(r.expandedPercent).toBeCloseTo(0.65282, 4); // by hand: sqrt(0.25 + 0.0004 + 0.0028444 + 0.0223004 + 0.140625 + 0.01)
@@ -16,24 +29,36 @@ describe('flowRateUncertainty (ISO 5167-1:2003 §8, TRADE.md §6)', () => {
   });
 
   it('halves the DP uncertainty on flow: 0.75 % of reading gives 0.375 % of flow (TRADE.md §6 [calc])', () => {
-    const r = flowRateUncertainty({ kind: 'venturi', beta: 0.6, dischargeCoefficientPercent: 0, expansibilityPercent: 0, pipeDiameterPercent: 0, elementDiameterPercent: 0, differentialPressurePercent: 0.75, densityPercent: 0 });
+    const r = flowRateUncertainty({
+      kind: 'venturi',
+      beta: 0.6,
+      dischargeCoefficientPercent: 0,
+      expansibilityPercent: 0,
+      pipeDiameterPercent: 0,
+      elementDiameterPercent: 0,
+      differentialPressurePercent: 0.75,
+      densityPercent: 0,
+    });
     expect(r.expandedPercent).toBeCloseTo(0.375, 12);
   });
 
-  it.each([0.45, 0.6, 0.75])('uses cone sensitivities that match a finite difference of the flow equation with d = βD, β = sqrt(1 − dc²/D²) (β = %p)', (beta) => {
-    const D = 0.2;
-    const dc = D * Math.sqrt(1 - beta * beta);
-    const qm = (pipe: number, cone: number) => {
-      const b = Math.sqrt(1 - (cone * cone) / (pipe * pipe));
-      return massFlowFromEquationKgPerS(0.82, 1, b, b * pipe, 1e4, 50);
-    };
-    const h = 1e-6;
-    const dLnD = (Math.log(qm(D * (1 + h), dc)) - Math.log(qm(D * (1 - h), dc))) / (2 * h);
-    const dLnDc = (Math.log(qm(D, dc * (1 + h))) - Math.log(qm(D, dc * (1 - h)))) / (2 * h);
-    const s = diameterSensitivities('cone', beta);
-    expect(s.pipe).toBeCloseTo(dLnD, 6);
-    expect(s.element).toBeCloseTo(dLnDc, 6);
-  });
+  it.each([0.45, 0.6, 0.75])(
+    'uses cone sensitivities that match a finite difference of the flow equation with d = βD, β = sqrt(1 − dc²/D²) (β = %p)',
+    (beta) => {
+      const D = 0.2;
+      const dc = D * Math.sqrt(1 - beta * beta);
+      const qm = (pipe: number, cone: number) => {
+        const b = Math.sqrt(1 - (cone * cone) / (pipe * pipe));
+        return massFlowFromEquationKgPerS(0.82, 1, b, b * pipe, 1e4, 50);
+      };
+      const h = 1e-6;
+      const dLnD = (Math.log(qm(D * (1 + h), dc)) - Math.log(qm(D * (1 - h), dc))) / (2 * h);
+      const dLnDc = (Math.log(qm(D, dc * (1 + h))) - Math.log(qm(D, dc * (1 - h)))) / (2 * h);
+      const s = diameterSensitivities('cone', beta);
+      expect(s.pipe).toBeCloseTo(dLnD, 6);
+      expect(s.element).toBeCloseTo(dLnDc, 6);
+    },
+  );
 
   it('uses orifice sensitivities that match a finite difference of the flow equation (β = 0.6)', () => {
     const qm = (pipe: number, bore: number) => massFlowFromEquationKgPerS(0.6, 1, bore / pipe, bore, 1e4, 50);
@@ -44,6 +69,17 @@ describe('flowRateUncertainty (ISO 5167-1:2003 §8, TRADE.md §6)', () => {
   });
 
   it('rejects a negative input, naming it', () => {
-    expect(() => flowRateUncertainty({ kind: 'orifice', beta: 0.5, dischargeCoefficientPercent: -1, expansibilityPercent: 0, pipeDiameterPercent: 0, elementDiameterPercent: 0, differentialPressurePercent: 0, densityPercent: 0 })).toThrow(/dischargeCoefficientPercent/);
+    expect(() =>
+      flowRateUncertainty({
+        kind: 'orifice',
+        beta: 0.5,
+        dischargeCoefficientPercent: -1,
+        expansibilityPercent: 0,
+        pipeDiameterPercent: 0,
+        elementDiameterPercent: 0,
+        differentialPressurePercent: 0,
+        densityPercent: 0,
+      }),
+    ).toThrow(/dischargeCoefficientPercent/);
   });
 });

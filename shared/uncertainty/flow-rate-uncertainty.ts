@@ -62,15 +62,27 @@ export function diameterSensitivities(kind: ElementKind, beta: number): { pipe: 
  * @returns expanded (k = 2) and standard uncertainty of qm in percent, and each contribution
  */
 export function flowRateUncertainty(input: FlowRateUncertaintyInput): FlowRateUncertainty {
-  for (const key of ['dischargeCoefficientPercent', 'expansibilityPercent', 'pipeDiameterPercent', 'elementDiameterPercent', 'differentialPressurePercent', 'densityPercent'] as const) {
-    if (!(input[key] >= 0 && Number.isFinite(input[key]))) throw new Error(`flowRateUncertainty: ${key} must be a finite percentage ≥ 0 (got ${input[key]})`);
+  for (const key of [
+    'dischargeCoefficientPercent',
+    'expansibilityPercent',
+    'pipeDiameterPercent',
+    'elementDiameterPercent',
+    'differentialPressurePercent',
+    'densityPercent',
+  ] as const) {
+    if (!(input[key] >= 0 && Number.isFinite(input[key])))
+      throw new Error(`flowRateUncertainty: ${key} must be a finite percentage ≥ 0 (got ${input[key]})`);
   }
   const s = diameterSensitivities(input.kind, input.beta);
   const contributions: UncertaintyContribution[] = [
     { name: 'dischargeCoefficient', sensitivity: 1, percent: input.dischargeCoefficientPercent },
     { name: 'expansibility', sensitivity: 1, percent: input.expansibilityPercent },
     { name: 'pipeDiameter', sensitivity: Math.abs(s.pipe), percent: Math.abs(s.pipe) * input.pipeDiameterPercent },
-    { name: 'elementDiameter', sensitivity: Math.abs(s.element), percent: Math.abs(s.element) * input.elementDiameterPercent },
+    {
+      name: 'elementDiameter',
+      sensitivity: Math.abs(s.element),
+      percent: Math.abs(s.element) * input.elementDiameterPercent,
+    },
     { name: 'differentialPressure', sensitivity: 0.5, percent: 0.5 * input.differentialPressurePercent },
     { name: 'density', sensitivity: 0.5, percent: 0.5 * input.densityPercent },
   ];

@@ -61,7 +61,9 @@ describe('toSI against python3-pint (each constant derived from exact definition
   });
 
   it('derives inH2O-68F from ρ(20 °C) × g_n × 0.0254 m with pint g_0 and inch, ρ within 1 ppm of IAPWS-95 (python3-iapws)', () => {
-    expect(relativeDifference(toSI(1, 'inH2O-68F'), WATER_DENSITY_KG_PER_M3['68F'] * ref.g_0 * ref.inch)).toBeLessThan(1e-12);
+    expect(relativeDifference(toSI(1, 'inH2O-68F'), WATER_DENSITY_KG_PER_M3['68F'] * ref.g_0 * ref.inch)).toBeLessThan(
+      1e-12,
+    );
     expect(relativeDifference(WATER_DENSITY_KG_PER_M3['68F'], ref.rho_20C)).toBeLessThan(1e-6);
   });
 
@@ -89,7 +91,20 @@ describe('fromSI and unit codes', () => {
   });
 
   it('knows every transmitter unit code of DESIGN.md', () => {
-    expect([...TRANSMITTER_UNIT_CODES]).toEqual(['Pa', 'kPa', 'MPa', 'mbar', 'bar', 'psi', 'inH2O-4C', 'inH2O-60F', 'inH2O-68F', 'K', 'degC', 'degF']);
+    expect([...TRANSMITTER_UNIT_CODES]).toEqual([
+      'Pa',
+      'kPa',
+      'MPa',
+      'mbar',
+      'bar',
+      'psi',
+      'inH2O-4C',
+      'inH2O-60F',
+      'inH2O-68F',
+      'K',
+      'degC',
+      'degF',
+    ]);
     for (const unit of TRANSMITTER_UNIT_CODES) expect(['pressure', 'temperature']).toContain(unitQuantity(unit));
   });
 

@@ -24,7 +24,20 @@ for (const [table, quantity] of [
 }
 
 /** The unit codes a transmitter may be ranged in (DESIGN.md). */
-export const TRANSMITTER_UNIT_CODES = ['Pa', 'kPa', 'MPa', 'mbar', 'bar', 'psi', 'inH2O-4C', 'inH2O-60F', 'inH2O-68F', 'K', 'degC', 'degF'] as const;
+export const TRANSMITTER_UNIT_CODES = [
+  'Pa',
+  'kPa',
+  'MPa',
+  'mbar',
+  'bar',
+  'psi',
+  'inH2O-4C',
+  'inH2O-60F',
+  'inH2O-68F',
+  'K',
+  'degC',
+  'degF',
+] as const;
 export type TransmitterUnit = (typeof TRANSMITTER_UNIT_CODES)[number];
 
 /** Every unit code toSI knows. */

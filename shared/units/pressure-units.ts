@@ -40,14 +40,25 @@ export type PressureUnit = keyof typeof PASCALS_PER_UNIT;
  * @param atmosphericPressurePa local atmospheric pressure, Pa (required for gauge)
  * @returns absolute pressure, Pa
  */
-export function absolutePressurePa(valueInUnit: number, unit: PressureUnit, reference: 'absolute' | 'gauge', atmosphericPressurePa?: number): number {
+export function absolutePressurePa(
+  valueInUnit: number,
+  unit: PressureUnit,
+  reference: 'absolute' | 'gauge',
+  atmosphericPressurePa?: number,
+): number {
   const factor = PASCALS_PER_UNIT[unit];
-  if (factor === undefined) throw new Error(`absolutePressurePa: unknown pressure unit '${String(unit)}' (known: ${Object.keys(PASCALS_PER_UNIT).join(' ')})`);
+  if (factor === undefined)
+    throw new Error(
+      `absolutePressurePa: unknown pressure unit '${String(unit)}' (known: ${Object.keys(PASCALS_PER_UNIT).join(' ')})`,
+    );
   const pa = valueInUnit * factor;
   if (reference === 'absolute') return pa;
-  if (reference !== 'gauge') throw new Error(`absolutePressurePa: pressureReference must be absolute or gauge (got ${String(reference)})`);
+  if (reference !== 'gauge')
+    throw new Error(`absolutePressurePa: pressureReference must be absolute or gauge (got ${String(reference)})`);
   if (atmosphericPressurePa === undefined || !(atmosphericPressurePa > 0)) {
-    throw new Error(`absolutePressurePa: atmosphericPressurePa (> 0) is required for a gauge reading (got ${atmosphericPressurePa})`);
+    throw new Error(
+      `absolutePressurePa: atmosphericPressurePa (> 0) is required for a gauge reading (got ${atmosphericPressurePa})`,
+    );
   }
   return pa + atmosphericPressurePa;
 }

@@ -29,7 +29,8 @@ describe('backfillDemoHistory', () => {
     expect(first.transmitters).toBe(22);
     expect(first.missingTags).toEqual([]);
     // 0, 1, ..., 120 minutes: 121 readings per KFG transmitter up to the last whole minute.
-    for (const tag of ['KFG-101-DPH', 'KFG-101-DPL', 'KFG-102-DP', 'KFG-201-TT']) expect(await count(tag, kfgStart, nowMs)).toBe(121);
+    for (const tag of ['KFG-101-DPH', 'KFG-101-DPL', 'KFG-102-DP', 'KFG-201-TT'])
+      expect(await count(tag, kfgStart, nowMs)).toBe(121);
     // BPM's month starts 11 hours earlier (06:00 CET = 05:00Z against 09:00 MST = 16:00Z): 13 h 0 min → 781.
     expect(await count('BPM-ST1-DP', timeline.historyStartMs.BPM, nowMs)).toBe(781);
 

@@ -53,7 +53,11 @@ export async function loadBackfillTargets(pool: Pool): Promise<BackfillTarget[]>
 }
 
 /** The time ranges [from, to) a transmitter still needs, given its stored extent. */
-function missingRanges(startMs: number, endMs: number, stored: { min: number | null; max: number | null }): [number, number][] {
+function missingRanges(
+  startMs: number,
+  endMs: number,
+  stored: { min: number | null; max: number | null },
+): [number, number][] {
   if (stored.min === null || stored.max === null) return [[startMs, endMs]];
   const ranges: [number, number][] = [];
   if (stored.min > startMs) ranges.push([startMs, Math.min(stored.min, endMs)]);
@@ -85,15 +89,30 @@ export async function backfillDemoHistory(options: {
 
   const plans: { target: BackfillTarget; ranges: [number, number][] }[] = [];
   for (const target of targets) {
-    const { rows } = await pool.query('SELECT extract(epoch FROM min(time)) * 1000 AS min, extract(epoch FROM max(time)) * 1000 AS max FROM readings WHERE transmitter_id = $1', [target.transmitterId]);
-    const stored = { min: rows[0].min === null ? null : Number(rows[0].min), max: rows[0].max === null ? null : Number(rows[0].max) };
+    const { rows } = await pool.query(
+      'SELECT extract(epoch FROM min(time)) * 1000 AS min, extract(epoch FROM max(time)) * 1000 AS max FROM readings WHERE transmitter_id = $1',
+      [target.transmitterId],
+    );
+    const stored = {
+      min: rows[0].min === null ? null : Number(rows[0].min),
+      max: rows[0].max === null ? null : Number(rows[0].max),
+    };
     const startMs = Math.ceil(timeline.historyStartMs[target.siteCode] / BACKFILL_STEP_MS) * BACKFILL_STEP_MS;
     const ranges = missingRanges(startMs, endMs, stored);
     if (ranges.length) plans.push({ target, ranges });
   }
 
   const writer = new ReadingWriter(pool, cachedHourStartOf());
-  const result: BackfillResult = { transmitters: targets.length, missingTags, generated: 0, inserted: 0, batches: 0, fromMs: null, toMs: endMs - 1, elapsedMs: 0 };
+  const result: BackfillResult = {
+    transmitters: targets.length,
+    missingTags,
+    generated: 0,
+    inserted: 0,
+    batches: 0,
+    fromMs: null,
+    toMs: endMs - 1,
+    elapsedMs: 0,
+  };
   if (plans.length === 0) return { ...result, elapsedMs: Date.now() - began };
   const fromMs = Math.min(...plans.map((p) => p.ranges[0][0]));
   result.fromMs = fromMs;
@@ -112,7 +131,14 @@ export async function backfillDemoHistory(options: {
       if (!ranges.some(([a, b]) => t >= a && t < b)) continue;
       const value = transmitterValueAt(target.tag, t, timeline);
       if (value === null) continue;
-      batch.push({ transmitterId: target.transmitterId, meterRunId: target.meterRunId, timeZone: target.timeZone, timeMs: t, value, quality: 0 });
+      batch.push({
+        transmitterId: target.transmitterId,
+        meterRunId: target.meterRunId,
+        timeZone: target.timeZone,
+        timeMs: t,
+        value,
+        quality: 0,
+      });
       result.generated++;
     }
     if (batch.length >= batchSize) {

@@ -14,7 +14,10 @@ const ANCHOR_METER_RUN_TAG = 'KFG-101';
  * @param nowMs the present, epoch ms
  * @returns the timeline and where its month came from
  */
-export async function storedScenarioTimeline(pool: Pool | null, nowMs: number): Promise<{ timeline: ScenarioTimeline; from: 'database' | 'clock' }> {
+export async function storedScenarioTimeline(
+  pool: Pool | null,
+  nowMs: number,
+): Promise<{ timeline: ScenarioTimeline; from: 'database' | 'clock' }> {
   if (pool) {
     const { rows } = await pool.query(
       `SELECT extract(epoch FROM min(c.effective_from)) * 1000 AS first

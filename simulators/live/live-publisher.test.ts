@@ -10,7 +10,11 @@ const received: { siteCode: string; topic: string; payload: any }[] = [];
 
 /** Starts the embedded broker in a child process (see test-support/broker-process.ts); resolves with its port. */
 function startBroker(port = 0): Promise<{ port: number; child: ChildProcess }> {
-  const child = spawn(path.join(root, 'node_modules', '.bin', 'tsx'), [path.join(__dirname, 'test-support', 'broker-process.ts'), String(port), demoPassword], { cwd: root, stdio: ['ignore', 'pipe', 'inherit'] });
+  const child = spawn(
+    path.join(root, 'node_modules', '.bin', 'tsx'),
+    [path.join(__dirname, 'test-support', 'broker-process.ts'), String(port), demoPassword],
+    { cwd: root, stdio: ['ignore', 'pipe', 'inherit'] },
+  );
   return new Promise((resolve, reject) => {
     child.once('exit', (code) => reject(new Error(`broker exited with ${code}`)));
     readline.createInterface({ input: child.stdout! }).on('line', (line) => {
@@ -45,14 +49,24 @@ describe('startLivePublisher', () => {
   it("signs in as each site's demo device, publishes every transmitter under its own site, and carries on after a broker restart", async () => {
     broker = await startBroker();
     const logs: string[] = [];
-    const publisher = startLivePublisher({ mqttUrl: `mqtt://127.0.0.1:${broker.port}`, demoPassword, timeline: scenarioTimeline('2026-11'), intervalMs: 250, log: (l) => logs.push(l) });
+    const publisher = startLivePublisher({
+      mqttUrl: `mqtt://127.0.0.1:${broker.port}`,
+      demoPassword,
+      timeline: scenarioTimeline('2026-11'),
+      intervalMs: 250,
+      log: (l) => logs.push(l),
+    });
     try {
       await publisher.connected;
       await waitFor(() => new Set(received.map((r) => r.topic)).size === 22, 10_000);
       for (const r of received) {
         expect(r.topic.startsWith(`tallyrun/${r.siteCode}/${r.siteCode}-`)).toBe(true);
         for (const reading of Array.isArray(r.payload) ? r.payload : [r.payload]) {
-          expect(reading).toEqual({ t: expect.stringMatching(/^\d{4}-\d\d-\d\dT\d\d:\d\d:\d\d\.\d{3}Z$/), v: expect.any(Number), q: 'good' });
+          expect(reading).toEqual({
+            t: expect.stringMatching(/^\d{4}-\d\d-\d\dT\d\d:\d\d:\d\d\.\d{3}Z$/),
+            v: expect.any(Number),
+            q: 'good',
+          });
           expect(Date.parse(reading.t) % 250).toBe(0);
         }
       }
@@ -64,11 +78,16 @@ describe('startLivePublisher', () => {
       received.length = 0;
       const restartingAt = Date.now();
       broker = await startBroker(broker.port);
-      await waitFor(() => received.some((r) => !Array.isArray(r.payload) && Date.parse(r.payload.t) > downAt + 1500), 15_000);
+      await waitFor(
+        () => received.some((r) => !Array.isArray(r.payload) && Date.parse(r.payload.t) > downAt + 1500),
+        15_000,
+      );
       const backlogTimes = () =>
         received
           .filter((r) => r.topic === 'tallyrun/BPM/BPM-ST1-DP')
-          .flatMap((r) => (Array.isArray(r.payload) ? r.payload : [r.payload]).map((p: { t: string }) => Date.parse(p.t)))
+          .flatMap((r) =>
+            (Array.isArray(r.payload) ? r.payload : [r.payload]).map((p: { t: string }) => Date.parse(p.t)),
+          )
           .filter((t) => t > downAt - 250 && t < restartingAt);
       // Readings stamped while the broker was down arrive from the backlog, possibly after newer live ones.
       await waitFor(() => backlogTimes().length > 0, 15_000);
@@ -84,7 +103,13 @@ describe('startLivePublisher', () => {
     broker = broker ?? (await startBroker());
     received.length = 0;
     const lines: string[] = [];
-    const publisher = startLivePublisher({ mqttUrl: `mqtt://127.0.0.1:${broker.port}`, demoPassword: 'not-the-demo-password', timeline: scenarioTimeline('2026-11'), intervalMs: 250, log: (l) => lines.push(l) });
+    const publisher = startLivePublisher({
+      mqttUrl: `mqtt://127.0.0.1:${broker.port}`,
+      demoPassword: 'not-the-demo-password',
+      timeline: scenarioTimeline('2026-11'),
+      intervalMs: 250,
+      log: (l) => lines.push(l),
+    });
     await new Promise((r) => setTimeout(r, 3000));
     await publisher.stop();
     expect(received).toHaveLength(0);

@@ -8,7 +8,13 @@
  * the client has reconnected (mqtt.js reconnects by itself).
  */
 import mqtt, { type MqttClient } from 'mqtt';
-import { DEMO_SITES, DEMO_TRANSMITTERS, demoDevicePassword, type ScenarioSite, type ScenarioTimeline } from '../scenario';
+import {
+  DEMO_SITES,
+  DEMO_TRANSMITTERS,
+  demoDevicePassword,
+  type ScenarioSite,
+  type ScenarioTimeline,
+} from '../scenario';
 import { LiveSchedule, type LiveMessage } from './live-schedule';
 
 export interface LivePublisherOptions {
@@ -62,7 +68,10 @@ export function startLivePublisher(options: LivePublisherOptions): LivePublisher
   const now = options.now ?? Date.now;
   const log = options.log ?? ((line: string) => console.log(`[simulators] ${line}`));
   const sites = DEMO_SITES.filter((s) => !options.siteCodes || options.siteCodes.includes(s.code));
-  const transmitters = DEMO_TRANSMITTERS.filter((t) => sites.includes(t.site)).map((t) => ({ siteCode: t.site.code, tag: t.transmitter.tag }));
+  const transmitters = DEMO_TRANSMITTERS.filter((t) => sites.includes(t.site)).map((t) => ({
+    siteCode: t.site.code,
+    tag: t.transmitter.tag,
+  }));
   const backlogLimit = options.backlogLimit ?? Math.ceil(3_600_000 / intervalMs) * transmitters.length;
   const stats: LiveStats = { ticks: 0, messages: 0, readings: 0, lateReadings: 0, dropped: 0, connects: 0 };
   const schedule = new LiveSchedule(options.timeline, transmitters);
@@ -96,7 +105,9 @@ export function startLivePublisher(options: LivePublisherOptions): LivePublisher
     client.on('offline', () => log(`live: ${site.code} broker unreachable, keeping readings until it is back`));
     channels.set(site.code, channel);
   }
-  const connected = Promise.all([...channels.values()].map((c) => new Promise<void>((resolve) => c.client.once('connect', () => resolve())))).then(() => undefined);
+  const connected = Promise.all(
+    [...channels.values()].map((c) => new Promise<void>((resolve) => c.client.once('connect', () => resolve()))),
+  ).then(() => undefined);
 
   function enqueue(messages: LiveMessage[]) {
     for (const m of messages) {
@@ -129,17 +140,20 @@ export function startLivePublisher(options: LivePublisherOptions): LivePublisher
   const next = () => {
     if (stopped) return;
     // Ticks land on whole multiples of the interval (e.g. :00, :05, ...), a little after them.
-    timer = setTimeout(() => {
-      const dueMs = Math.floor(now() / intervalMs) * intervalMs;
-      const firstMs = Math.max(lastTickMs + intervalMs, dueMs - (MAX_CATCH_UP_TICKS - 1) * intervalMs);
-      for (let t = firstMs; t <= dueMs; t += intervalMs) {
-        stats.ticks++;
-        enqueue(schedule.tick(t));
-      }
-      if (dueMs > lastTickMs) lastTickMs = dueMs;
-      for (const channel of channels.values()) flush(channel);
-      next();
-    }, intervalMs - (now() % intervalMs) + 20);
+    timer = setTimeout(
+      () => {
+        const dueMs = Math.floor(now() / intervalMs) * intervalMs;
+        const firstMs = Math.max(lastTickMs + intervalMs, dueMs - (MAX_CATCH_UP_TICKS - 1) * intervalMs);
+        for (let t = firstMs; t <= dueMs; t += intervalMs) {
+          stats.ticks++;
+          enqueue(schedule.tick(t));
+        }
+        if (dueMs > lastTickMs) lastTickMs = dueMs;
+        for (const channel of channels.values()) flush(channel);
+        next();
+      },
+      intervalMs - (now() % intervalMs) + 20,
+    );
   };
   next();
 

@@ -38,11 +38,15 @@ describe('LiveSchedule', () => {
     schedule.tick(at('2026-12-02T10:41:00Z'));
     expect(schedule.heldCount()).toBe(3);
     const released = schedule.release(Infinity);
-    expect(released.map((m) => m.topic).sort()).toEqual(['tallyrun/KFG/KFG-103-DP', 'tallyrun/KFG/KFG-103-PT', 'tallyrun/KFG/KFG-103-TT']);
+    expect(released.map((m) => m.topic).sort()).toEqual([
+      'tallyrun/KFG/KFG-103-DP',
+      'tallyrun/KFG/KFG-103-PT',
+      'tallyrun/KFG/KFG-103-TT',
+    ]);
     expect(schedule.heldCount()).toBe(0);
   });
 
-  it('sends nothing for KFG-103 during the demo month\'s dropout', () => {
+  it("sends nothing for KFG-103 during the demo month's dropout", () => {
     const messages = new LiveSchedule(timeline, all).tick(timeline.dropout.fromMs + 60_000);
     expect(messages.filter((m) => m.topic.includes('KFG-103'))).toHaveLength(0);
     expect(messages).toHaveLength(19);

@@ -53,8 +53,10 @@ export class LiveSchedule {
       if (value === null) continue;
       const reading: LiveReading = { t: new Date(tickMs).toISOString(), v: value, q: 'good' };
       const releaseMs = lateReleaseMs(tag, tickMs);
-      if (releaseMs !== null && releaseMs > tickMs) this.held.push({ siteCode, tag, releaseMs, timeMs: tickMs, reading });
-      else messages.push({ siteCode, topic: `tallyrun/${siteCode}/${tag}`, payload: reading, readings: 1, late: false });
+      if (releaseMs !== null && releaseMs > tickMs)
+        this.held.push({ siteCode, tag, releaseMs, timeMs: tickMs, reading });
+      else
+        messages.push({ siteCode, topic: `tallyrun/${siteCode}/${tag}`, payload: reading, readings: 1, late: false });
     }
     return [...messages, ...this.release(tickMs)];
   }
@@ -72,7 +74,13 @@ export class LiveSchedule {
     const messages: LiveMessage[] = [];
     for (const tag of new Set(due.map((h) => h.tag))) {
       const block = due.filter((h) => h.tag === tag).sort((a, b) => b.timeMs - a.timeMs);
-      messages.push({ siteCode: block[0].siteCode, topic: `tallyrun/${block[0].siteCode}/${tag}`, payload: block.map((h) => h.reading), readings: block.length, late: true });
+      messages.push({
+        siteCode: block[0].siteCode,
+        topic: `tallyrun/${block[0].siteCode}/${tag}`,
+        payload: block.map((h) => h.reading),
+        readings: block.length,
+        late: true,
+      });
     }
     return messages;
   }

@@ -11,7 +11,7 @@ describe('lateReleaseMs', () => {
     expect(lateReleaseMs('KFG-103-DP', Date.parse('2026-12-02T10:39:55Z'))).toBeNull();
   });
 
-  it('never holds another meter run\'s readings', () => {
+  it("never holds another meter run's readings", () => {
     expect(lateReleaseMs('KFG-102-DP', Date.parse('2026-12-02T10:41:30Z'))).toBeNull();
     expect(lateReleaseMs('BPM-ST1-DP', Date.parse('2026-12-02T10:41:30Z'))).toBeNull();
   });

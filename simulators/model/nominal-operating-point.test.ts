@@ -23,14 +23,16 @@ describe('nominal operating points of the demo meter runs', () => {
     expect(point.differentialPressurePa / 5003.021429719592 - 1).toBeCloseTo(0, 5);
   });
 
-  it('gives the sales meter the three wellheads\' mass less 1.5 % fuel and losses (SCENARIO.md balance)', () => {
+  it("gives the sales meter the three wellheads' mass less 1.5 % fuel and losses (SCENARIO.md balance)", () => {
     const inlets = ['KFG-101', 'KFG-102', 'KFG-103'].map((t) => nominalMassFlowKgPerS(meterRunByTag(t)));
     expect(nominalMassFlowKgPerS(meterRunByTag('KFG-201'))).toBeCloseTo(0.985 * inlets.reduce((a, b) => a + b), 12);
   });
 
   it('puts every single DP transmitter between 25 % and 75 % of its span at the nominal flow', () => {
     for (const run of DEMO_METER_RUNS) {
-      for (const t of run.transmitters.filter((x) => x.measures === 'differential-pressure' && x.stackRole === 'single')) {
+      for (const t of run.transmitters.filter(
+        (x) => x.measures === 'differential-pressure' && x.stackRole === 'single',
+      )) {
         const share = fromSI(nominalOperatingPoint(run).differentialPressurePa, t.unit) / t.upperRange;
         expect({ tag: t.tag, inSpan: share > 0.25 && share < 0.75 }).toEqual({ tag: t.tag, inSpan: true });
       }

@@ -39,14 +39,20 @@ export function nominalMassFlowKgPerS(run: ScenarioMeterRun): number {
 function computeNominalMassFlowKgPerS(run: ScenarioMeterRun): number {
   const flow = run.operating.flow;
   if (flow.kind === 'balance-outlet') {
-    return (1 - flow.lossShare) * flow.inletTags.reduce((sum, tag) => sum + nominalMassFlowKgPerS(meterRunByTag(tag)), 0);
+    return (
+      (1 - flow.lossShare) * flow.inletTags.reduce((sum, tag) => sum + nominalMassFlowKgPerS(meterRunByTag(tag)), 0)
+    );
   }
   const site = siteOf(run);
   const staticPressurePa = run.operating.staticPressureGaugePa + site.atmosphericPressurePa;
-  const state = fluidState(run.fluid, staticPressurePa, run.operating.temperatureK, { pressurePa: site.basePressurePa, temperatureK: site.baseTemperatureK });
+  const state = fluidState(run.fluid, staticPressurePa, run.operating.temperatureK, {
+    pressurePa: site.basePressurePa,
+    temperatureK: site.baseTemperatureK,
+  });
   if (flow.kind === 'mass') return flow.kgPerS;
   if (flow.kind === 'volume') return flow.m3PerS * state.densityKgPerM3;
-  if (state.baseDensityKgPerM3 === null) throw new Error(`nominalMassFlowKgPerS: ${run.tag} gives a standard volume but its fluid has no base density`);
+  if (state.baseDensityKgPerM3 === null)
+    throw new Error(`nominalMassFlowKgPerS: ${run.tag} gives a standard volume but its fluid has no base density`);
   return flow.m3PerS * state.baseDensityKgPerM3;
 }
 
@@ -55,7 +61,10 @@ function computeNominalMassFlowKgPerS(run: ScenarioMeterRun): number {
  * @param element the element in use (the run's first one, or the one of a configuration change)
  * @returns the nominal operating point with the DP of that element
  */
-export function nominalOperatingPoint(run: ScenarioMeterRun, element: ElementSpec = run.element): NominalOperatingPoint {
+export function nominalOperatingPoint(
+  run: ScenarioMeterRun,
+  element: ElementSpec = run.element,
+): NominalOperatingPoint {
   let byElement = cache.get(run.tag);
   if (!byElement) cache.set(run.tag, (byElement = new WeakMap()));
   const hit = byElement.get(element);
@@ -63,9 +72,17 @@ export function nominalOperatingPoint(run: ScenarioMeterRun, element: ElementSpe
   const site = siteOf(run);
   const staticPressurePa = run.operating.staticPressureGaugePa + site.atmosphericPressurePa;
   const temperatureK = run.operating.temperatureK;
-  const state = fluidState(run.fluid, staticPressurePa, temperatureK, { pressurePa: site.basePressurePa, temperatureK: site.baseTemperatureK });
+  const state = fluidState(run.fluid, staticPressurePa, temperatureK, {
+    pressurePa: site.basePressurePa,
+    temperatureK: site.baseTemperatureK,
+  });
   const massFlowKgPerS = nominalMassFlowKgPerS(run);
-  const dp = differentialPressureForMassFlow(prepareElement(element, temperatureK), massFlowKgPerS, staticPressurePa, state);
+  const dp = differentialPressureForMassFlow(
+    prepareElement(element, temperatureK),
+    massFlowKgPerS,
+    staticPressurePa,
+    state,
+  );
   const point = {
     massFlowKgPerS,
     staticPressurePa,

@@ -73,7 +73,10 @@ export function massFlowAtKgPerS(run: ScenarioMeterRun, timeMs: number, timeline
   const flow = run.operating.flow;
   // An outlet carries what its inlets send, less fuel and losses, at every instant: the balance holds.
   if (flow.kind === 'balance-outlet') {
-    return (1 - flow.lossShare) * flow.inletTags.reduce((sum, tag) => sum + massFlowAtKgPerS(meterRunByTag(tag), timeMs, timeline), 0);
+    return (
+      (1 - flow.lossShare) *
+      flow.inletTags.reduce((sum, tag) => sum + massFlowAtKgPerS(meterRunByTag(tag), timeMs, timeline), 0)
+    );
   }
   const load = run.operating.load;
   const hour = localHourOfDay(timeMs, siteOf(run).timeZone);
@@ -103,6 +106,14 @@ export function processStateAt(run: ScenarioMeterRun, timeMs: number, timeline: 
     nominal.staticPressurePa -
     op.staticPressureSwingPa * cosineOfHour(hour, op.load.peakHourLocal) +
     op.staticPressureSwingPa * STATIC_PRESSURE_NOISE_SHARE_OF_SWING * gaussianAt(seedOfText(`${run.tag}/p`), second);
-  const temperatureK = op.temperatureK + op.temperatureSwingK * cosineOfHour(hour, WARMEST_HOUR_LOCAL) + TEMPERATURE_NOISE_K * gaussianAt(seedOfText(`${run.tag}/t`), second);
-  return { massFlowKgPerS, differentialPressurePa: nominal.differentialPressurePa * ratio * ratio, staticPressurePa, temperatureK };
+  const temperatureK =
+    op.temperatureK +
+    op.temperatureSwingK * cosineOfHour(hour, WARMEST_HOUR_LOCAL) +
+    TEMPERATURE_NOISE_K * gaussianAt(seedOfText(`${run.tag}/t`), second);
+  return {
+    massFlowKgPerS,
+    differentialPressurePa: nominal.differentialPressurePa * ratio * ratio,
+    staticPressurePa,
+    temperatureK,
+  };
 }

@@ -79,7 +79,7 @@ describe('the scenario model', () => {
     expect(transmitterValueAt('KFG-101-DPL', after, timeline)).toBeCloseTo(25 * 1.03125, 3); // reported to 4 decimals
   });
 
-  it('raises KFG-101\'s DP by about 2.39 times at 14:00 MST on day 20 when the β 0.45 cone replaces the β 0.55 one, at the same flow', () => {
+  it("raises KFG-101's DP by about 2.39 times at 14:00 MST on day 20 when the β 0.45 cone replaces the β 0.55 one, at the same flow", () => {
     const changeMs = timeline.elementChangeMs['KFG-101'];
     const before = mean(values(readings('KFG-101-DPH', changeMs - 10 * MINUTE, changeMs)));
     const after = mean(values(readings('KFG-101-DPH', changeMs, changeMs + 10 * MINUTE)));
@@ -90,16 +90,22 @@ describe('the scenario model', () => {
     expect(after / before).toBeGreaterThan(2.39 * 0.98);
     expect(after / before).toBeLessThan(2.39 * 1.02);
     const run = meterRunByTag('KFG-101');
-    expect(massFlowAtKgPerS(run, changeMs, timeline) / massFlowAtKgPerS(run, changeMs - 1000, timeline)).toBeCloseTo(1, 2);
+    expect(massFlowAtKgPerS(run, changeMs, timeline) / massFlowAtKgPerS(run, changeMs - 1000, timeline)).toBeCloseTo(
+      1,
+      2,
+    );
   });
 
-  it('reports static pressure in the transmitter\'s unit and reference: KFG-101-PT near 430 psig, BPM-ST1-PT near 10 bar(g)', () => {
+  it("reports static pressure in the transmitter's unit and reference: KFG-101-PT near 430 psig, BPM-ST1-PT near 10 bar(g)", () => {
     const t = Date.parse('2026-11-10T12:00:00Z');
     expect(Math.abs(transmitterValueAt('KFG-101-PT', t, timeline)! - 430)).toBeLessThan(10);
     expect(Math.abs(transmitterValueAt('BPM-ST1-PT', t, timeline)! - 10)).toBeLessThan(0.3);
     const state = processStateAt(meterRunByTag('KFG-101'), t, timeline);
     // gauge = absolute − the site's 84 kPa, in psi (1 psi = 6894.757 Pa)
-    expect(transmitterValueAt('KFG-101-PT', t, timeline)).toBeCloseTo(fromSI(state.staticPressurePa - 84_000, 'psi'), 0);
+    expect(transmitterValueAt('KFG-101-PT', t, timeline)).toBeCloseTo(
+      fromSI(state.staticPressurePa - 84_000, 'psi'),
+      0,
+    );
   });
 
   it('keeps the steam at about 200 °C and 10 bar(g), superheated: Tsat(1.101325 MPa) = 184.12 °C (IAPWS-IF97, python iapws 1.5.2 [lib])', () => {
@@ -109,9 +115,12 @@ describe('the scenario model', () => {
     expect(toSI(temperatureC, 'degC')).toBeGreaterThan(toSI(184.12, 'degC') + 10);
   });
 
-  it('keeps the sales meter at 98.5 % of the wellheads\' mass at every instant (SCENARIO.md balance)', () => {
+  it("keeps the sales meter at 98.5 % of the wellheads' mass at every instant (SCENARIO.md balance)", () => {
     for (const t of [kfgStart + 3 * MINUTE, Date.parse('2026-11-12T09:30:00Z'), Date.parse('2026-11-25T01:02:03Z')]) {
-      const inlets = ['KFG-101', 'KFG-102', 'KFG-103'].reduce((s, tag) => s + massFlowAtKgPerS(meterRunByTag(tag), t, timeline), 0);
+      const inlets = ['KFG-101', 'KFG-102', 'KFG-103'].reduce(
+        (s, tag) => s + massFlowAtKgPerS(meterRunByTag(tag), t, timeline),
+        0,
+      );
       expect(massFlowAtKgPerS(meterRunByTag('KFG-201'), t, timeline)).toBeCloseTo(0.985 * inlets, 10);
     }
   });

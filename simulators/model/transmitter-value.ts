@@ -32,7 +32,12 @@ function decimalsFor(t: ScenarioTransmitter): number {
  */
 export function transmitterValueAt(tag: string, timeMs: number, timeline: ScenarioTimeline): number | null {
   const { transmitter, meterRun, site } = transmitterByTag(tag);
-  if (meterRun.tag === timeline.dropout.meterRunTag && timeMs >= timeline.dropout.fromMs && timeMs < timeline.dropout.toMs) return null;
+  if (
+    meterRun.tag === timeline.dropout.meterRunTag &&
+    timeMs >= timeline.dropout.fromMs &&
+    timeMs < timeline.dropout.toMs
+  )
+    return null;
   // A frozen transmitter repeats the last value it had before it stuck, to the last digit.
   if (tag === timeline.frozen.tag && timeMs >= timeline.frozen.fromMs && timeMs < timeline.frozen.toMs) {
     return transmitterValueAt(tag, timeline.frozen.fromMs - 1000, timeline);
@@ -41,12 +46,19 @@ export function transmitterValueAt(tag: string, timeMs: number, timeline: Scenar
   let value: number;
   if (transmitter.measures === 'differential-pressure') value = fromSI(state.differentialPressurePa, transmitter.unit);
   else if (transmitter.measures === 'temperature') value = fromSI(state.temperatureK, transmitter.unit);
-  else value = fromSI(state.staticPressurePa - (transmitter.pressureReference === 'gauge' ? site.atmosphericPressurePa : 0), transmitter.unit);
+  else
+    value = fromSI(
+      state.staticPressurePa - (transmitter.pressureReference === 'gauge' ? site.atmosphericPressurePa : 0),
+      transmitter.unit,
+    );
 
   const span = transmitter.upperRange - transmitter.lowerRange;
   const sigma = (NOISE_SHARE_OF_ACCURACY * transmitter.accuracyPercentOfSpan * span) / 100;
   value += sigma * gaussianAt(seedOfText(tag), Math.floor(timeMs / 1000));
-  value = Math.min(Math.max(value, transmitter.lowerRange + LOWER_SATURATION_SHARE * span), transmitter.lowerRange + UPPER_SATURATION_SHARE * span);
+  value = Math.min(
+    Math.max(value, transmitter.lowerRange + LOWER_SATURATION_SHARE * span),
+    transmitter.lowerRange + UPPER_SATURATION_SHARE * span,
+  );
   const scale = 10 ** decimalsFor(transmitter);
   return Math.round(value * scale) / scale;
 }

@@ -12,7 +12,11 @@ import { coneDiameterForBetaM, boreDiameterForBetaM } from './element-geometry';
 import { PIPE_INSIDE_DIAMETER_M } from './pipe-inside-diameters';
 import type { ScenarioMeterRun, ScenarioTransmitter } from './scenario-types';
 
-const MATERIALS = { referenceTemperatureK: 293.15, pipeMaterial: 'carbon-steel', elementMaterial: 'stainless-316' } as const;
+const MATERIALS = {
+  referenceTemperatureK: 293.15,
+  pipeMaterial: 'carbon-steel',
+  elementMaterial: 'stainless-316',
+} as const;
 
 const D_ST1 = PIPE_INSIDE_DIAMETER_M['DN 150 sch 40'];
 const D_CW1 = PIPE_INSIDE_DIAMETER_M['DN 300 sch 40'];
@@ -24,7 +28,16 @@ const transmitter = (
   unit: ScenarioTransmitter['unit'],
   upperRange: number,
   pressureReference: ScenarioTransmitter['pressureReference'] = 'absolute',
-): ScenarioTransmitter => ({ tag, measures, unit, pressureReference, lowerRange: 0, upperRange, stackRole: 'single', accuracyPercentOfSpan: measures === 'temperature' ? 0.1 : 0.075 });
+): ScenarioTransmitter => ({
+  tag,
+  measures,
+  unit,
+  pressureReference,
+  lowerRange: 0,
+  upperRange,
+  stackRole: 'single',
+  accuracyPercentOfSpan: measures === 'temperature' ? 0.1 : 0.075,
+});
 
 /** A calibration that found C constant over Re_D 2e5 to 3e6. */
 const flatCalibration = (dischargeCoefficient: number) => [
@@ -41,9 +54,25 @@ export const BPM_METER_RUNS: ScenarioMeterRun[] = [
     tag: 'BPM-ST1',
     name: 'Boiler steam header',
     ...TIMING,
-    element: { kind: 'venturi', venturiType: 'machined', pipeDiameterM: D_ST1, boreDiameterM: boreDiameterForBetaM(D_ST1, 0.6), ...MATERIALS },
+    element: {
+      kind: 'venturi',
+      venturiType: 'machined',
+      pipeDiameterM: D_ST1,
+      boreDiameterM: boreDiameterForBetaM(D_ST1, 0.6),
+      ...MATERIALS,
+    },
     fluid: { kind: 'steam' },
-    line: { insideDiameterM: D_ST1, nominalSize: 'DN 150', schedule: '40', flangeClass: 'PN 40', pipeMaterial: 'carbon steel', elementMaterial: 'stainless steel 316', upstreamStraightLengthD: 20, downstreamStraightLengthD: 4, installDate: '2019-03-11' },
+    line: {
+      insideDiameterM: D_ST1,
+      nominalSize: 'DN 150',
+      schedule: '40',
+      flangeClass: 'PN 40',
+      pipeMaterial: 'carbon steel',
+      elementMaterial: 'stainless steel 316',
+      upstreamStraightLengthD: 20,
+      downstreamStraightLengthD: 4,
+      installDate: '2019-03-11',
+    },
     transmitters: [
       transmitter('BPM-ST1-DP', 'differential-pressure', 'kPa', 10),
       transmitter('BPM-ST1-PT', 'static-pressure', 'bar', 16, 'gauge'),
@@ -67,9 +96,25 @@ export const BPM_METER_RUNS: ScenarioMeterRun[] = [
     ...TIMING,
     // Invented: the maker's water calibration came out flat, C = 0.803 from Re_D 2e5 to 3e6; given
     // as a calibration curve so the flow uncertainty is that of a calibrated cone.
-    element: { kind: 'cone', pipeDiameterM: D_CW1, coneDiameterM: coneDiameterForBetaM(D_CW1, 0.65), ...MATERIALS, calibration: flatCalibration(0.803) },
+    element: {
+      kind: 'cone',
+      pipeDiameterM: D_CW1,
+      coneDiameterM: coneDiameterForBetaM(D_CW1, 0.65),
+      ...MATERIALS,
+      calibration: flatCalibration(0.803),
+    },
     fluid: { kind: 'water' },
-    line: { insideDiameterM: D_CW1, nominalSize: 'DN 300', schedule: '40', flangeClass: 'PN 16', pipeMaterial: 'carbon steel', elementMaterial: 'stainless steel 316', upstreamStraightLengthD: 3, downstreamStraightLengthD: 3, installDate: '2020-08-25' },
+    line: {
+      insideDiameterM: D_CW1,
+      nominalSize: 'DN 300',
+      schedule: '40',
+      flangeClass: 'PN 16',
+      pipeMaterial: 'carbon steel',
+      elementMaterial: 'stainless steel 316',
+      upstreamStraightLengthD: 3,
+      downstreamStraightLengthD: 3,
+      installDate: '2020-08-25',
+    },
     transmitters: [
       transmitter('BPM-CW1-DP', 'differential-pressure', 'kPa', 60),
       transmitter('BPM-CW1-PT', 'static-pressure', 'kPa', 1000, 'gauge'),
@@ -91,9 +136,25 @@ export const BPM_METER_RUNS: ScenarioMeterRun[] = [
     name: 'Treated effluent',
     ...TIMING,
     // Invented, as for BPM-CW1: flat at C = 0.808.
-    element: { kind: 'cone', pipeDiameterM: D_EF1, coneDiameterM: coneDiameterForBetaM(D_EF1, 0.7), ...MATERIALS, calibration: flatCalibration(0.808) },
+    element: {
+      kind: 'cone',
+      pipeDiameterM: D_EF1,
+      coneDiameterM: coneDiameterForBetaM(D_EF1, 0.7),
+      ...MATERIALS,
+      calibration: flatCalibration(0.808),
+    },
     fluid: { kind: 'water' },
-    line: { insideDiameterM: D_EF1, nominalSize: 'DN 200', schedule: '40', flangeClass: 'PN 10', pipeMaterial: 'carbon steel', elementMaterial: 'stainless steel 316', upstreamStraightLengthD: 3, downstreamStraightLengthD: 3, installDate: '2021-02-08' },
+    line: {
+      insideDiameterM: D_EF1,
+      nominalSize: 'DN 200',
+      schedule: '40',
+      flangeClass: 'PN 10',
+      pipeMaterial: 'carbon steel',
+      elementMaterial: 'stainless steel 316',
+      upstreamStraightLengthD: 3,
+      downstreamStraightLengthD: 3,
+      installDate: '2021-02-08',
+    },
     transmitters: [
       transmitter('BPM-EF1-DP', 'differential-pressure', 'mbar', 250),
       transmitter('BPM-EF1-PT', 'static-pressure', 'kPa', 600, 'gauge'),

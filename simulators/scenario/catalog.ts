@@ -9,8 +9,12 @@ import type { ScenarioMeterRun, ScenarioSite, ScenarioTransmitter } from './scen
 export const DEMO_METER_RUNS: readonly ScenarioMeterRun[] = [...KFG_METER_RUNS, ...BPM_METER_RUNS];
 
 /** Every transmitter of the scenario with its meter run and site. */
-export const DEMO_TRANSMITTERS: readonly { transmitter: ScenarioTransmitter; meterRun: ScenarioMeterRun; site: ScenarioSite }[] = DEMO_METER_RUNS.flatMap(
-  (meterRun) => meterRun.transmitters.map((transmitter) => ({ transmitter, meterRun, site: siteOf(meterRun) })),
+export const DEMO_TRANSMITTERS: readonly {
+  transmitter: ScenarioTransmitter;
+  meterRun: ScenarioMeterRun;
+  site: ScenarioSite;
+}[] = DEMO_METER_RUNS.flatMap((meterRun) =>
+  meterRun.transmitters.map((transmitter) => ({ transmitter, meterRun, site: siteOf(meterRun) })),
 );
 
 const meterRunsByTag = new Map(DEMO_METER_RUNS.map((m) => [m.tag, m]));
@@ -23,7 +27,8 @@ const transmittersByTag = new Map(DEMO_TRANSMITTERS.map((t) => [t.transmitter.ta
  * @returns `${demoPassword}-device`
  */
 export function demoDevicePassword(demoPassword: string): string {
-  if (typeof demoPassword !== 'string' || demoPassword.length === 0) throw new Error('demoDevicePassword: demoPassword is required');
+  if (typeof demoPassword !== 'string' || demoPassword.length === 0)
+    throw new Error('demoDevicePassword: demoPassword is required');
   return `${demoPassword}-device`;
 }
 

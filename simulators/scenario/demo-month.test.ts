@@ -24,7 +24,11 @@ describe('the demo month', () => {
 
   it('places the frozen hour on day 3 and the 40-minute dropout on day 12 of the demo month, local time', () => {
     const timeline = scenarioTimeline('2026-11');
-    expect(timeline.frozen).toEqual({ tag: 'KFG-102-DP', fromMs: Date.parse('2026-11-03T17:00:00Z'), toMs: Date.parse('2026-11-03T18:00:00Z') });
+    expect(timeline.frozen).toEqual({
+      tag: 'KFG-102-DP',
+      fromMs: Date.parse('2026-11-03T17:00:00Z'),
+      toMs: Date.parse('2026-11-03T18:00:00Z'),
+    });
     expect(timeline.dropout.toMs - timeline.dropout.fromMs).toBe(40 * 60_000);
     expect(new Date(timeline.dropout.fromMs).toISOString()).toBe('2026-11-12T09:15:00.000Z'); // 02:15 MST
     expect(timeline.elementChangeMs['KFG-101']).toBe(Date.parse('2026-11-20T21:00:00Z'));

@@ -14,7 +14,8 @@ import { contractMonthBounds } from '../../shared/history/contract-day';
  */
 export function demoMonthAt(nowMs: number, timeZone: string): string {
   const local = DateTime.fromMillis(nowMs, { zone: timeZone });
-  if (!local.isValid) throw new Error(`demoMonthAt: timeZone must be an IANA zone and nowMs a finite time (got ${timeZone}, ${nowMs})`);
+  if (!local.isValid)
+    throw new Error(`demoMonthAt: timeZone must be an IANA zone and nowMs a finite time (got ${timeZone}, ${nowMs})`);
   return local.startOf('month').minus({ months: 1 }).toFormat('yyyy-MM');
 }
 
@@ -26,7 +27,8 @@ export function demoMonthAt(nowMs: number, timeZone: string): string {
  */
 export function monthOf(timeMs: number, timeZone: string): string {
   const local = DateTime.fromMillis(timeMs, { zone: timeZone });
-  if (!local.isValid) throw new Error(`monthOf: timeZone must be an IANA zone and timeMs a finite time (got ${timeZone}, ${timeMs})`);
+  if (!local.isValid)
+    throw new Error(`monthOf: timeZone must be an IANA zone and timeMs a finite time (got ${timeZone}, ${timeMs})`);
   return local.toFormat('yyyy-MM');
 }
 
@@ -44,7 +46,10 @@ export function localTimeMs(month: string, day: number, hour: number, minute: nu
   const m = /^(\d{4})-(\d{2})$/.exec(month);
   if (!m) throw new Error(`localTimeMs: month must be YYYY-MM (got ${month})`);
   const t = DateTime.fromObject({ year: Number(m[1]), month: Number(m[2]), day, hour, minute }, { zone: timeZone });
-  if (!t.isValid) throw new Error(`localTimeMs: ${month}-${day} ${hour}:${minute} is not a time in ${timeZone} (${t.invalidExplanation})`);
+  if (!t.isValid)
+    throw new Error(
+      `localTimeMs: ${month}-${day} ${hour}:${minute} is not a time in ${timeZone} (${t.invalidExplanation})`,
+    );
   return t.toMillis();
 }
 

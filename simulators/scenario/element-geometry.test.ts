@@ -2,7 +2,8 @@ import { boreDiameterForBetaM, coneDiameterForBetaM } from './element-geometry';
 import { DEMO_METER_RUNS, meterRunByTag } from './index';
 
 /** β of a cone meter as ISO 5167-5:2016 §3.3.1 defines it: sqrt(1 − dc²/D²) (TRADE.md §2), written out here on purpose. */
-const coneBeta = (pipeDiameterM: number, coneDiameterM: number) => Math.sqrt(1 - (coneDiameterM * coneDiameterM) / (pipeDiameterM * pipeDiameterM));
+const coneBeta = (pipeDiameterM: number, coneDiameterM: number) =>
+  Math.sqrt(1 - (coneDiameterM * coneDiameterM) / (pipeDiameterM * pipeDiameterM));
 
 describe('cone geometry of the demo scenario', () => {
   it("gives β = 0.6995709873957624 for TRADE.md C1's cone (D 0.2575 m, dc 0.184 m), so the check below uses the standard's definition", () => {

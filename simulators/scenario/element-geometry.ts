@@ -9,7 +9,8 @@ const DIAMETER_RESOLUTION_M = 1e-6;
 const roundToResolution = (diameterM: number) => Math.round(diameterM / DIAMETER_RESOLUTION_M) * DIAMETER_RESOLUTION_M;
 
 function check(functionName: string, pipeDiameterM: number, beta: number) {
-  if (!(pipeDiameterM > 0 && Number.isFinite(pipeDiameterM))) throw new Error(`${functionName}: pipeDiameterM must be > 0 (got ${pipeDiameterM})`);
+  if (!(pipeDiameterM > 0 && Number.isFinite(pipeDiameterM)))
+    throw new Error(`${functionName}: pipeDiameterM must be > 0 (got ${pipeDiameterM})`);
   if (!(beta > 0 && beta < 1)) throw new Error(`${functionName}: beta must be between 0 and 1 (got ${beta})`);
 }
 

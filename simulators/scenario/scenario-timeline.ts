@@ -34,21 +34,37 @@ const MS_PER_MINUTE = 60_000;
  */
 export function scenarioTimeline(demoMonth: string): ScenarioTimeline {
   const historyStartMs: Record<string, number> = {};
-  for (const site of DEMO_SITES) historyStartMs[site.code] = demoHistoryStartMs(demoMonth, site.timeZone, site.contractHour);
+  for (const site of DEMO_SITES)
+    historyStartMs[site.code] = demoHistoryStartMs(demoMonth, site.timeZone, site.contractHour);
   const elementChangeMs: Record<string, number> = {};
   for (const run of DEMO_METER_RUNS) {
     const change = run.elementChange;
-    if (change) elementChangeMs[run.tag] = localTimeMs(demoMonth, change.day, change.hour, change.minute, siteOf(run).timeZone);
+    if (change)
+      elementChangeMs[run.tag] = localTimeMs(demoMonth, change.day, change.hour, change.minute, siteOf(run).timeZone);
   }
   const zoneOf = (siteCode: string) => DEMO_SITES.find((s) => s.code === siteCode)!.timeZone;
-  const frozenFrom = localTimeMs(demoMonth, FROZEN_TRANSMITTER.day, FROZEN_TRANSMITTER.hour, FROZEN_TRANSMITTER.minute, zoneOf(FROZEN_TRANSMITTER.siteCode));
+  const frozenFrom = localTimeMs(
+    demoMonth,
+    FROZEN_TRANSMITTER.day,
+    FROZEN_TRANSMITTER.hour,
+    FROZEN_TRANSMITTER.minute,
+    zoneOf(FROZEN_TRANSMITTER.siteCode),
+  );
   const dropoutFrom = localTimeMs(demoMonth, DROPOUT.day, DROPOUT.hour, DROPOUT.minute, zoneOf(DROPOUT.siteCode));
   return {
     demoMonth,
     historyStartMs,
     declineStartMs: historyStartMs.KFG,
     elementChangeMs,
-    frozen: { tag: FROZEN_TRANSMITTER.tag, fromMs: frozenFrom, toMs: frozenFrom + FROZEN_TRANSMITTER.durationMinutes * MS_PER_MINUTE },
-    dropout: { meterRunTag: DROPOUT.meterRunTag, fromMs: dropoutFrom, toMs: dropoutFrom + DROPOUT.durationMinutes * MS_PER_MINUTE },
+    frozen: {
+      tag: FROZEN_TRANSMITTER.tag,
+      fromMs: frozenFrom,
+      toMs: frozenFrom + FROZEN_TRANSMITTER.durationMinutes * MS_PER_MINUTE,
+    },
+    dropout: {
+      meterRunTag: DROPOUT.meterRunTag,
+      fromMs: dropoutFrom,
+      toMs: dropoutFrom + DROPOUT.durationMinutes * MS_PER_MINUTE,
+    },
   };
 }

@@ -14,7 +14,10 @@ export interface ScenarioSite extends Omit<SiteInput, 'displayUnits'> {
 }
 
 /** A transmitter as the set-up API takes it, without the meter run id (filled in by the seed). */
-export type ScenarioTransmitter = Omit<TransmitterInput, 'meterRunId' | 'pressureReference' | 'stackRole' | 'accuracyPercentOfSpan'> & {
+export type ScenarioTransmitter = Omit<
+  TransmitterInput,
+  'meterRunId' | 'pressureReference' | 'stackRole' | 'accuracyPercentOfSpan'
+> & {
   pressureReference: 'absolute' | 'gauge';
   stackRole: 'single' | 'low' | 'high';
   accuracyPercentOfSpan: number;
@@ -63,7 +66,10 @@ export interface ScenarioElementChange {
   reason: string;
 }
 
-export interface ScenarioMeterRun extends Omit<MeterRunInput, 'siteId' | 'effectiveFrom' | 'element' | 'fluid' | 'line'> {
+export interface ScenarioMeterRun extends Omit<
+  MeterRunInput,
+  'siteId' | 'effectiveFrom' | 'element' | 'fluid' | 'line'
+> {
   siteCode: string;
   element: ElementSpec;
   fluid: FluidSpec;

@@ -37,7 +37,10 @@ describe('alarms from imported readings', () => {
     }
     const started = await engineer.upload('/api/imports', 'alarms.csv', lines.join('\n') + '\n');
     expect(started.status).toBe(202);
-    await until('the import', async () => (await engineer.get(`/api/imports/${started.body.id}`)).body.status === 'done');
+    await until(
+      'the import',
+      async () => (await engineer.get(`/api/imports/${started.body.id}`)).body.status === 'done',
+    );
     await settled(engineer, f.meterRun.id);
   });
 
@@ -60,10 +63,18 @@ describe('alarms from imported readings', () => {
   });
 
   it('finds the frozen temperature transmitter and the stale DP transmitter', async () => {
-    const frozen = await until('a frozen alarm', async () => (await alarms('&condition=frozen')).body.filter((a: { transmitterId: string }) => a.transmitterId === f.tt.id)[0]);
+    const frozen = await until(
+      'a frozen alarm',
+      async () =>
+        (await alarms('&condition=frozen')).body.filter(
+          (a: { transmitterId: string }) => a.transmitterId === f.tt.id,
+        )[0],
+    );
     // First covered 30-min window: [t0 + 1 min, t0 + 31 min] with the t0 reading in force at its start.
     expect(frozen.raisedAt).toBe(new Date(t0 + 31 * MIN).toISOString());
-    const stale = (await alarms('&condition=stale')).body.filter((a: { transmitterId: string }) => a.transmitterId === f.dp.id);
+    const stale = (await alarms('&condition=stale')).body.filter(
+      (a: { transmitterId: string }) => a.transmitterId === f.dp.id,
+    );
     // Last DP reading before the gap at t0 + 35 min; stale 600 s later; the next reading at t0 + 48 min clears it.
     expect(stale.map((a: { raisedAt: string; clearedAt: string }) => [a.raisedAt, a.clearedAt])).toEqual([
       [new Date(t0 + 45 * MIN).toISOString(), new Date(t0 + 48 * MIN).toISOString()],
@@ -72,7 +83,9 @@ describe('alarms from imported readings', () => {
 
   it('mails the engineers: the mail is in the admin outbox', async () => {
     const mail = await until('the alarm mail', async () =>
-      (await admin.get('/api/mail')).body.find((m: { subject: string }) => m.subject.includes(f.meterRun.tag) && m.subject.includes('dp-low-in-range')),
+      (await admin.get('/api/mail')).body.find(
+        (m: { subject: string }) => m.subject.includes(f.meterRun.tag) && m.subject.includes('dp-low-in-range'),
+      ),
     );
     expect(mail.to).toEqual(expect.arrayContaining(['engineer@demo.tallyrun', 'engineer2@demo.tallyrun']));
     expect(mail.text).toMatch(/5\.0 % of its span, below 10 %/);
@@ -94,7 +107,11 @@ describe('alarms from imported readings', () => {
   });
 
   it('refuses limits that make no sense, naming the field', async () => {
-    const res = await engineer.post('/api/alarm-limits', { meterRunId: f.meterRun.id, condition: 'dp-low-in-range', thresholdShareOfSpan: 1.5 });
+    const res = await engineer.post('/api/alarm-limits', {
+      meterRunId: f.meterRun.id,
+      condition: 'dp-low-in-range',
+      thresholdShareOfSpan: 1.5,
+    });
     expect(res.status).toBe(400);
     expect(res.body.error.field).toBe('thresholdShareOfSpan');
   });

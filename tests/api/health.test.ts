@@ -19,7 +19,10 @@ it('signs in a demo user with the demo password', async () => {
   const res = await fetch(`${baseUrl}/api/auth/login`, {
     method: 'POST',
     headers: { 'content-type': 'application/json' },
-    body: JSON.stringify({ email: 'operator@demo.tallyrun', password: process.env.TALLYRUN_DEMO_PASSWORD ?? 'tallyrun-demo' }),
+    body: JSON.stringify({
+      email: 'operator@demo.tallyrun',
+      password: process.env.TALLYRUN_DEMO_PASSWORD ?? 'tallyrun-demo',
+    }),
   });
   expect(res.status).toBe(200);
   expect((await res.json()).user.role).toBe('operator');

@@ -16,12 +16,22 @@ const P_MPA = 2;
 const T_K = 300;
 
 /** CSV rows for the three transmitters, one sample every `stepMin` minutes in [fromMs, toMs]. */
-function constantCsv(f: Awaited<ReturnType<typeof createMeterRun>>, fromMs: number, toMs: number, stepMin = 10, skip?: (ms: number) => boolean) {
+function constantCsv(
+  f: Awaited<ReturnType<typeof createMeterRun>>,
+  fromMs: number,
+  toMs: number,
+  stepMin = 10,
+  skip?: (ms: number) => boolean,
+) {
   const lines = ['time,tag,value,quality'];
   for (let t = fromMs; t <= toMs; t += stepMin * 60_000) {
     if (skip?.(t)) continue;
     const iso = new Date(t).toISOString();
-    lines.push(`${iso},${f.dp.tag},${DP_KPA},good`, `${iso},${f.pt.tag},${P_MPA},good`, `${iso},${f.tt.tag},${T_K},good`);
+    lines.push(
+      `${iso},${f.dp.tag},${DP_KPA},good`,
+      `${iso},${f.pt.tag},${P_MPA},good`,
+      `${iso},${f.tt.tag},${T_K},good`,
+    );
   }
   return lines.join('\n') + '\n';
 }
@@ -58,28 +68,46 @@ describe('contract days across the US autumn DST change', () => {
 
   it('is 25 hours long and totals exactly rate × 25 h', async () => {
     expect(dayEnd - dayStart).toBe(25 * hourMs); // the hand check of the calendar itself
-    const res = await api.get(`/api/meter-runs/${f.meterRun.id}/totals?interval=day&from=2026-10-31T16:00:00Z&to=2026-11-01T15:00:00Z`);
+    const res = await api.get(
+      `/api/meter-runs/${f.meterRun.id}/totals?interval=day&from=2026-10-31T16:00:00Z&to=2026-11-01T15:00:00Z`,
+    );
     expect(res.status).toBe(200);
     expect(res.body).toHaveLength(1);
     const day = res.body[0];
-    expect(day).toMatchObject({ start: new Date(dayStart).toISOString(), end: new Date(dayEnd).toISOString(), hours: 25, status: 'complete', coverage: 1 });
+    expect(day).toMatchObject({
+      start: new Date(dayStart).toISOString(),
+      end: new Date(dayEnd).toISOString(),
+      hours: 25,
+      status: 'complete',
+      coverage: 1,
+    });
     expect(relative(day.massKg, rate * 25 * 3600)).toBeLessThan(1e-9);
     expect(relative(day.flowTimeS, 25 * 3600)).toBeLessThan(1e-12);
   });
 
   it('keeps 25 hourly records for that day, each rate × 1 h', async () => {
-    const res = await api.get(`/api/meter-runs/${f.meterRun.id}/totals?interval=hour&from=${new Date(dayStart).toISOString()}&to=${new Date(dayEnd).toISOString()}`);
+    const res = await api.get(
+      `/api/meter-runs/${f.meterRun.id}/totals?interval=hour&from=${new Date(dayStart).toISOString()}&to=${new Date(dayEnd).toISOString()}`,
+    );
     expect(res.body).toHaveLength(25);
     for (const hour of res.body) expect(relative(hour.massKg, rate * 3600)).toBeLessThan(1e-9);
   });
 
   it('counts a re-imported file as duplicates and does not change the totals', async () => {
-    const before = (await api.get(`/api/meter-runs/${f.meterRun.id}/totals?interval=day&from=2026-10-31T16:00:00Z&to=2026-11-01T15:00:00Z`)).body[0];
+    const before = (
+      await api.get(
+        `/api/meter-runs/${f.meterRun.id}/totals?interval=day&from=2026-10-31T16:00:00Z&to=2026-11-01T15:00:00Z`,
+      )
+    ).body[0];
     const again = await importCsv(csv);
     const rows = csv.trim().split('\n').length - 1;
     expect(again).toMatchObject({ status: 'done', rowsRead: rows, rowsImported: 0, duplicates: rows, rejected: 0 });
     await settled(api, f.meterRun.id);
-    const after = (await api.get(`/api/meter-runs/${f.meterRun.id}/totals?interval=day&from=2026-10-31T16:00:00Z&to=2026-11-01T15:00:00Z`)).body[0];
+    const after = (
+      await api.get(
+        `/api/meter-runs/${f.meterRun.id}/totals?interval=day&from=2026-10-31T16:00:00Z&to=2026-11-01T15:00:00Z`,
+      )
+    ).body[0];
     expect(after.massKg).toBe(before.massKg);
   });
 });
@@ -100,7 +128,11 @@ describe('late data and back-dated configuration', () => {
   });
 
   const hours = async () =>
-    (await api.get(`/api/meter-runs/${f.meterRun.id}/totals?interval=hour&from=${new Date(h0).toISOString()}&to=${new Date(h0 + 6 * hourMs).toISOString()}`)).body as {
+    (
+      await api.get(
+        `/api/meter-runs/${f.meterRun.id}/totals?interval=hour&from=${new Date(h0).toISOString()}&to=${new Date(h0 + 6 * hourMs).toISOString()}`,
+      )
+    ).body as {
       massKg: number;
       coverage: number;
       flags: string[];
@@ -167,7 +199,9 @@ describe('bad CSV input', () => {
     expect(result.errors[4].message).toMatch(/future/);
     expect(result.errors[5].message).toMatch(/negative absolute pressure/);
     expect(result.errors[6].message).toMatch(/^quality/);
-    const stored = await api.get(`/api/readings?transmitterId=${f.dp.id}&from=2026-10-10T00:00:00Z&to=2026-10-11T00:00:00Z`);
+    const stored = await api.get(
+      `/api/readings?transmitterId=${f.dp.id}&from=2026-10-10T00:00:00Z&to=2026-10-11T00:00:00Z`,
+    );
     expect(stored.body).toEqual([
       { time: '2026-10-10T00:00:00.000Z', value: 10, quality: 'good', source: 'csv' },
       { time: '2026-10-10T00:07:00.000Z', value: 12, quality: 'good', source: 'csv' },

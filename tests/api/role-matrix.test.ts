@@ -97,7 +97,10 @@ async function streamStatus(url: string, token: string | null) {
   const port = (server.address() as import('node:net').AddressInfo).port;
   const abort = new AbortController();
   try {
-    const res = await fetch(`http://127.0.0.1:${port}${url}`, { headers: token ? { Authorization: `Bearer ${token}` } : {}, signal: abort.signal });
+    const res = await fetch(`http://127.0.0.1:${port}${url}`, {
+      headers: token ? { Authorization: `Bearer ${token}` } : {},
+      signal: abort.signal,
+    });
     return res.status;
   } finally {
     abort.abort();

@@ -1,11 +1,14 @@
 import { baseUrl } from '../support/api';
 
 /** Express serves the exported client: every route, deep links included, without redirects. */
-it.each(['/', '/sign-in', '/setup', '/meter-runs', '/meter-runs/42', '/range-check', '/alarms'])('answers %s with the page itself (200, HTML, no redirect)', async (path) => {
-  const res = await fetch(`${baseUrl}${path}`, { redirect: 'manual' });
-  expect(res.status).toBe(200);
-  expect(res.headers.get('content-type')).toMatch(/text\/html/);
-});
+it.each(['/', '/sign-in', '/setup', '/meter-runs', '/meter-runs/42', '/range-check', '/alarms'])(
+  'answers %s with the page itself (200, HTML, no redirect)',
+  async (path) => {
+    const res = await fetch(`${baseUrl}${path}`, { redirect: 'manual' });
+    expect(res.status).toBe(200);
+    expect(res.headers.get('content-type')).toMatch(/text\/html/);
+  },
+);
 
 it('answers an unknown page with the not-found page and 404', async () => {
   const res = await fetch(`${baseUrl}/no/such/page`, { redirect: 'manual' });

@@ -32,7 +32,11 @@ async function makeLowInRangeAlarm(): Promise<Fixture> {
   for (let i = 0; i < 39; i++) {
     const iso = new Date(t0 + i * MIN).toISOString();
     const dpKPa = (i < 5 ? 20 : 2.5) + (i % 2) * 0.003;
-    lines.push(`${iso},${run.dp.tag},${dpKPa},good`, `${iso},${run.pt.tag},${2 + (i % 3) * 0.0001},good`, `${iso},${run.tt.tag},${300 + (i % 2) * 0.01},good`);
+    lines.push(
+      `${iso},${run.dp.tag},${dpKPa},good`,
+      `${iso},${run.pt.tag},${2 + (i % 3) * 0.0001},good`,
+      `${iso},${run.tt.tag},${300 + (i % 2) * 0.01},good`,
+    );
   }
   const started = await engineer.upload('/api/imports', 'low-in-range.csv', `${lines.join('\n')}\n`);
   if (started.status !== 202) throw new Error(`import: ${started.status} ${JSON.stringify(started.body)}`);
@@ -152,7 +156,9 @@ describe('alarms on screen', () => {
     expect(await page.getByTestId('shelve-confirm').innerText()).toContain('Shelve for 30 min');
     await page.getByTestId('shelve-confirm').click();
     await expectRowState(page, /^Shelved until /);
-    expect(await page.getByTestId(`alarm-row-${f.alarmId}`).innerText()).toContain('Shelved: Transmitter being checked by the instrument tech');
+    expect(await page.getByTestId(`alarm-row-${f.alarmId}`).innerText()).toContain(
+      'Shelved: Transmitter being checked by the instrument tech',
+    );
     const shelved = (await f.engineer.get(`/api/alarms/${f.alarmId}`)).body;
     expect(shelved.state).toBe('shelved');
     // 30 minutes from now, give or take the round trip.
@@ -195,7 +201,9 @@ describe('alarms on screen', () => {
     await expectRowState(page, 'Out of service');
     await page.getByTestId(`alarm-rts-${f.alarmId}`).click();
     await expectRowState(page, 'Active, unacknowledged');
-    const actions = (await f.engineer.get(`/api/alarms/${f.alarmId}/events`)).body.map((e: { action: string }) => e.action);
+    const actions = (await f.engineer.get(`/api/alarms/${f.alarmId}/events`)).body.map(
+      (e: { action: string }) => e.action,
+    );
     expect(actions.slice(-2)).toEqual(['removed-from-service', 'returned-to-service']);
     await signOut(page);
     await page.close();

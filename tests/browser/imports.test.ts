@@ -65,16 +65,21 @@ describe('the imports screen', () => {
 
     await page.getByTestId('import-kind-readings').click();
     const filename = `readings-${unique()}.csv`;
-    await page.getByTestId('import-file-input').setInputFiles({ name: filename, mimeType: 'text/csv', buffer: Buffer.from(csv) });
+    await page
+      .getByTestId('import-file-input')
+      .setInputFiles({ name: filename, mimeType: 'text/csv', buffer: Buffer.from(csv) });
     expect(await page.getByTestId('import-chosen').innerText()).toContain(filename);
     await page.getByTestId('import-submit').click();
 
     // The progress bar is drawn while the import runs, then the import says it finished.
     await page.getByTestId('import-progress').waitFor();
     await page.getByTestId('import-status').filter({ hasText: 'Finished' }).waitFor({ timeout: 60_000 });
-    expect(await page.getByTestId('import-progress-label').innerText()).toContain(`${rows.toLocaleString('en-US')} rows`);
+    expect(await page.getByTestId('import-progress-label').innerText()).toContain(
+      `${rows.toLocaleString('en-US')} rows`,
+    );
 
-    const count = async (what: string) => Number((await page.getByTestId(`import-count-${what}`).innerText()).replace(/[^\d]/g, ''));
+    const count = async (what: string) =>
+      Number((await page.getByTestId(`import-count-${what}`).innerText()).replace(/[^\d]/g, ''));
     expect(await count('read')).toBe(rows);
     expect(await count('imported')).toBe(rows - 3);
     expect(await count('duplicates')).toBe(0);
@@ -89,9 +94,14 @@ describe('the imports screen', () => {
     await page.screenshot({ path: '/tmp/tallyrun-imports-wide.png' });
 
     // The same file again: the good rows are duplicates, not second readings.
-    await page.getByTestId('import-file-input').setInputFiles({ name: filename, mimeType: 'text/csv', buffer: Buffer.from(csv) });
+    await page
+      .getByTestId('import-file-input')
+      .setInputFiles({ name: filename, mimeType: 'text/csv', buffer: Buffer.from(csv) });
     await page.getByTestId('import-submit').click();
-    await page.getByTestId('import-count-duplicates').filter({ hasText: (rows - 3).toLocaleString('en-US') }).waitFor({ timeout: 60_000 });
+    await page
+      .getByTestId('import-count-duplicates')
+      .filter({ hasText: (rows - 3).toLocaleString('en-US') })
+      .waitFor({ timeout: 60_000 });
     expect(await count('imported')).toBe(0);
 
     // Both are in the list of recent imports.
@@ -106,7 +116,13 @@ describe('the imports screen', () => {
     await page.goto(page.url().replace(/\/$/, '') + '/imports');
     await page.getByTestId('import-kind-field-totals').click();
     expect(await page.getByTestId('import-columns').innerText()).toMatch(/start,end,meterRun,quantity,value,unit/);
-    await page.getByTestId('import-file-input').setInputFiles({ name: 'totals.csv', mimeType: 'text/csv', buffer: Buffer.from('start,end,meterRun,quantity,value,unit\n') });
+    await page
+      .getByTestId('import-file-input')
+      .setInputFiles({
+        name: 'totals.csv',
+        mimeType: 'text/csv',
+        buffer: Buffer.from('start,end,meterRun,quantity,value,unit\n'),
+      });
     await page.getByTestId('import-submit').click();
     // A header with no rows is imported as nothing: finished, with nothing read.
     await page.getByTestId('import-status').filter({ hasText: 'Finished' }).waitFor({ timeout: 30_000 });

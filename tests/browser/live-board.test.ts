@@ -24,7 +24,11 @@ const cubicMetresPerMscf = 28.316846592;
 const secondsPerDay = 86_400;
 
 async function importCsv(lines: string[]) {
-  const started = await api.upload('/api/imports', `live-${unique()}.csv`, ['time,tag,value,quality', ...lines].join('\n') + '\n');
+  const started = await api.upload(
+    '/api/imports',
+    `live-${unique()}.csv`,
+    ['time,tag,value,quality', ...lines].join('\n') + '\n',
+  );
   expect(started.status).toBe(202);
   const done = await until('the import to finish', async () => {
     const r = await api.get(`/api/imports/${started.body.id}`);
@@ -45,14 +49,28 @@ function recent(secondsAgo: number): string {
  */
 async function createStackedMeterRun() {
   const id = unique();
-  const site = await api.post('/api/sites', { code: `P${id}`, name: `Stacked pair site ${id}`, timeZone: 'America/Denver', contractHour: 9, basePressurePa: 101325, baseTemperatureK: 288.15, atmosphericPressurePa: 101325 });
+  const site = await api.post('/api/sites', {
+    code: `P${id}`,
+    name: `Stacked pair site ${id}`,
+    timeZone: 'America/Denver',
+    contractHour: 9,
+    basePressurePa: 101325,
+    baseTemperatureK: 288.15,
+    atmosphericPressurePa: 101325,
+  });
   expect(site.status).toBe(201);
   const run = await api.post('/api/meter-runs', {
     siteId: site.body.id,
     tag: `SP-${id}`,
     name: `Stacked pair ${id}`,
     element: { kind: 'orifice', taps: 'flange', pipeDiameterM: 0.3, boreDiameterM: 0.1 },
-    fluid: { kind: 'ideal-gas', molarMassKgPerMol: 0.01804, compressibility: 1, isentropicExponent: 1.2, viscosityPaS: 1.12e-5 },
+    fluid: {
+      kind: 'ideal-gas',
+      molarMassKgPerMol: 0.01804,
+      compressibility: 1,
+      isentropicExponent: 1.2,
+      viscosityPaS: 1.12e-5,
+    },
     effectiveFrom: '2020-01-01T00:00:00Z',
   });
   expect(run.status).toBe(201);
@@ -63,9 +81,27 @@ async function createStackedMeterRun() {
   };
   return {
     meterRun: run.body as { id: string; tag: string },
-    low: await add('DPL', { measures: 'differential-pressure', unit: 'kPa', lowerRange: 0, upperRange: 5, stackRole: 'low' }),
-    high: await add('DPH', { measures: 'differential-pressure', unit: 'kPa', lowerRange: 0, upperRange: 100, stackRole: 'high' }),
-    pt: await add('PT', { measures: 'static-pressure', unit: 'MPa', pressureReference: 'absolute', lowerRange: 0, upperRange: 4 }),
+    low: await add('DPL', {
+      measures: 'differential-pressure',
+      unit: 'kPa',
+      lowerRange: 0,
+      upperRange: 5,
+      stackRole: 'low',
+    }),
+    high: await add('DPH', {
+      measures: 'differential-pressure',
+      unit: 'kPa',
+      lowerRange: 0,
+      upperRange: 100,
+      stackRole: 'high',
+    }),
+    pt: await add('PT', {
+      measures: 'static-pressure',
+      unit: 'MPa',
+      pressureReference: 'absolute',
+      lowerRange: 0,
+      upperRange: 4,
+    }),
     tt: await add('TT', { measures: 'temperature', unit: 'K', lowerRange: 200, upperRange: 400 }),
   };
 }
@@ -83,7 +119,11 @@ describe('the live board', () => {
     expect((await api.patch(`/api/sites/${f.site.id}`, { displayUnits: 'us' })).status).toBe(200);
     // DP 2.5 kPa on a 0–50 kPa transmitter: 5 % of span, inside the bottom tenth.
     await importCsv(
-      [20, 10, 2].flatMap((s) => [`${recent(s)},${f.dp.tag},2.5,good`, `${recent(s)},${f.pt.tag},2,good`, `${recent(s)},${f.tt.tag},300,good`]),
+      [20, 10, 2].flatMap((s) => [
+        `${recent(s)},${f.dp.tag},2.5,good`,
+        `${recent(s)},${f.pt.tag},2,good`,
+        `${recent(s)},${f.tt.tag},300,good`,
+      ]),
     );
     const calc = await api.post('/api/calculations/flow', {
       element: f.element,
@@ -108,15 +148,25 @@ describe('the live board', () => {
     // the DP-low-in-range alarm shows in the alarm banner and list.
     expect(await page.getByTestId(`${card}-dp-label`).innerText()).toBe('DP 5.0 % of span — low in range');
     await page.getByTestId(`${card}-state-dp-low-in-range`).waitFor();
-    expect(await page.getByTestId(`${card}-state-dp-low-in-range`).innerText()).toMatch(/◆\s*DP low in range \(5\.0 % of span\)/);
+    expect(await page.getByTestId(`${card}-state-dp-low-in-range`).innerText()).toMatch(
+      /◆\s*DP low in range \(5\.0 % of span\)/,
+    );
     expect(await page.getByTestId(`${card}-stack`).innerText()).toBe(`Single DP transmitter (${f.dp.tag})`);
     expect(await page.getByTestId(`${card}-age`).innerText()).toMatch(/^Newest reading \d+ s ago$/);
     await page.getByTestId('live-connection-live').waitFor();
     await page.screenshot({ path: '/tmp/tallyrun-live-board-phone.png' });
 
     // New readings arrive: the stream brings them to the open page (no reload), the DP leaves the bottom tenth.
-    await importCsv([`${recent(1)},${f.dp.tag},25,good`, `${recent(1)},${f.pt.tag},2,good`, `${recent(1)},${f.tt.tag},300,good`]);
-    await until('the board to show the new DP', async () => (await page.getByTestId(`${card}-dp-label`).innerText()) === 'DP 50 % of span', 20_000);
+    await importCsv([
+      `${recent(1)},${f.dp.tag},25,good`,
+      `${recent(1)},${f.pt.tag},2,good`,
+      `${recent(1)},${f.tt.tag},300,good`,
+    ]);
+    await until(
+      'the board to show the new DP',
+      async () => (await page.getByTestId(`${card}-dp-label`).innerText()) === 'DP 50 % of span',
+      20_000,
+    );
     expect(await page.getByTestId(`${card}-state-dp-low-in-range`).count()).toBe(0);
     await page.close();
   });
@@ -127,19 +177,37 @@ describe('the live board', () => {
     const { low, high } = pair;
     // 3 kPa: 60 % of the low range (below its 90 % switch-up point), 3 % of the high range.
     await importCsv(
-      [15, 5].flatMap((s) => [`${recent(s)},${low.tag},3,good`, `${recent(s)},${high.tag},3,good`, `${recent(s)},${pair.pt.tag},2,good`, `${recent(s)},${pair.tt.tag},300,good`]),
+      [15, 5].flatMap((s) => [
+        `${recent(s)},${low.tag},3,good`,
+        `${recent(s)},${high.tag},3,good`,
+        `${recent(s)},${pair.pt.tag},2,good`,
+        `${recent(s)},${pair.tt.tag},300,good`,
+      ]),
     );
 
     const page = await freshPage(browser, 'wide');
     await openBoard(page, pair.meterRun.tag);
     const card = `live-run-${pair.meterRun.tag}`;
-    await until('the low range to be named', async () => (await page.getByTestId(`${card}-stack`).innerText()).includes('LOW range in use'), 20_000);
+    await until(
+      'the low range to be named',
+      async () => (await page.getByTestId(`${card}-stack`).innerText()).includes('LOW range in use'),
+      20_000,
+    );
     expect(await page.getByTestId(`${card}-stack`).innerText()).toBe(`Stacked pair: LOW range in use (${low.tag})`);
     expect(await page.getByTestId(`${card}-dp-label`).innerText()).toBe('DP 60 % of span');
 
     // 30 kPa: the low-range transmitter is saturated, the high range takes over.
-    await importCsv([`${recent(1)},${low.tag},5.2,good`, `${recent(1)},${high.tag},30,good`, `${recent(1)},${pair.pt.tag},2,good`, `${recent(1)},${pair.tt.tag},300,good`]);
-    await until('the high range to be named', async () => (await page.getByTestId(`${card}-stack`).innerText()).includes('HIGH range in use'), 20_000);
+    await importCsv([
+      `${recent(1)},${low.tag},5.2,good`,
+      `${recent(1)},${high.tag},30,good`,
+      `${recent(1)},${pair.pt.tag},2,good`,
+      `${recent(1)},${pair.tt.tag},300,good`,
+    ]);
+    await until(
+      'the high range to be named',
+      async () => (await page.getByTestId(`${card}-stack`).innerText()).includes('HIGH range in use'),
+      20_000,
+    );
     expect(await page.getByTestId(`${card}-stack`).innerText()).toBe(`Stacked pair: HIGH range in use (${high.tag})`);
     await page.screenshot({ path: '/tmp/tallyrun-live-board-wide.png' });
 

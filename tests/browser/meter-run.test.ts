@@ -14,8 +14,16 @@ const hourMs = 3_600_000;
 
 /** AGA 8 Part 1 "Gulf Coast" example gas, mole fractions (TRADE.md §4). */
 const gulfCoastGas = {
-  methane: 0.965222, nitrogen: 0.002595, 'carbon-dioxide': 0.005956, ethane: 0.018186, propane: 0.004596,
-  isobutane: 0.000977, 'n-butane': 0.001007, isopentane: 0.000473, 'n-pentane': 0.000324, 'n-hexane': 0.000664,
+  methane: 0.965222,
+  nitrogen: 0.002595,
+  'carbon-dioxide': 0.005956,
+  ethane: 0.018186,
+  propane: 0.004596,
+  isobutane: 0.000977,
+  'n-butane': 0.001007,
+  isopentane: 0.000473,
+  'n-pentane': 0.000324,
+  'n-hexane': 0.000664,
 };
 
 interface Fixture {
@@ -34,15 +42,26 @@ async function makeMeterRunWithReadings(): Promise<Fixture> {
   const now = Date.now();
   const contractHour = (new Date(now - 8 * hourMs).getUTCHours() + 24) % 24;
   const site = await api.post('/api/sites', {
-    code: `B${id}`, name: `Browser test site ${id}`, timeZone: 'UTC', contractHour,
-    basePressurePa: 101_560, baseTemperatureK: 288.706, atmosphericPressurePa: 84_000, displayUnits: 'us',
+    code: `B${id}`,
+    name: `Browser test site ${id}`,
+    timeZone: 'UTC',
+    contractHour,
+    basePressurePa: 101_560,
+    baseTemperatureK: 288.706,
+    atmosphericPressurePa: 84_000,
+    displayUnits: 'us',
   });
   if (site.status !== 201) throw new Error(`site: ${site.status} ${JSON.stringify(site.body)}`);
   const run = await api.post('/api/meter-runs', {
-    siteId: site.body.id, tag: `BT-${id}`, name: `Browser test wellhead ${id}`,
+    siteId: site.body.id,
+    tag: `BT-${id}`,
+    name: `Browser test wellhead ${id}`,
     element: { kind: 'orifice', taps: 'flange', pipeDiameterM: 0.10226, boreDiameterM: 0.0511 },
     fluid: { kind: 'natural-gas', composition: gulfCoastGas },
-    holdLimitS: 3600, maxGapS: 900, effectiveFrom: '2020-01-01T00:00:00Z', line: { nominalSize: '4 in', schedule: '40' },
+    holdLimitS: 3600,
+    maxGapS: 900,
+    effectiveFrom: '2020-01-01T00:00:00Z',
+    line: { nominalSize: '4 in', schedule: '40' },
   });
   if (run.status !== 201) throw new Error(`meter run: ${run.status} ${JSON.stringify(run.body)}`);
   const transmitter = async (suffix: string, body: Record<string, unknown>) => {
@@ -50,9 +69,27 @@ async function makeMeterRunWithReadings(): Promise<Fixture> {
     if (res.status !== 201) throw new Error(`transmitter ${suffix}: ${res.status} ${JSON.stringify(res.body)}`);
     return res.body as { tag: string };
   };
-  const high = await transmitter('DPH', { measures: 'differential-pressure', unit: 'inH2O-60F', lowerRange: 0, upperRange: 200, stackRole: 'high' });
-  const low = await transmitter('DPL', { measures: 'differential-pressure', unit: 'inH2O-60F', lowerRange: 0, upperRange: 25, stackRole: 'low' });
-  const pt = await transmitter('PT', { measures: 'static-pressure', unit: 'psi', pressureReference: 'gauge', lowerRange: 0, upperRange: 1000 });
+  const high = await transmitter('DPH', {
+    measures: 'differential-pressure',
+    unit: 'inH2O-60F',
+    lowerRange: 0,
+    upperRange: 200,
+    stackRole: 'high',
+  });
+  const low = await transmitter('DPL', {
+    measures: 'differential-pressure',
+    unit: 'inH2O-60F',
+    lowerRange: 0,
+    upperRange: 25,
+    stackRole: 'low',
+  });
+  const pt = await transmitter('PT', {
+    measures: 'static-pressure',
+    unit: 'psi',
+    pressureReference: 'gauge',
+    lowerRange: 0,
+    upperRange: 1000,
+  });
   const tt = await transmitter('TT', { measures: 'temperature', unit: 'degF', lowerRange: -20, upperRange: 200 });
 
   // Every 5 minutes for 6 hours: DP rising and falling across the low-range span (which

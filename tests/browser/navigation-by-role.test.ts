@@ -21,10 +21,35 @@ import {
 // everyone: live view, meter runs, alarms, totals; engineer and admin: imports, set-up (sites,
 // meter runs, transmitters, calibrations), range check, range health, corrections; engineer, accountant and
 // admin: audit log (read); admin only: users, device credentials, mail outbox.
-const allAreas = ['live', 'meter-runs', 'alarms', 'totals', 'imports', 'setup', 'range-check', 'range-health', 'corrections', 'audit', 'users', 'devices', 'mail'];
+const allAreas = [
+  'live',
+  'meter-runs',
+  'alarms',
+  'totals',
+  'imports',
+  'setup',
+  'range-check',
+  'range-health',
+  'corrections',
+  'audit',
+  'users',
+  'devices',
+  'mail',
+];
 const expectedAreas: Record<Role, string[]> = {
   operator: ['live', 'meter-runs', 'alarms', 'totals'],
-  engineer: ['live', 'meter-runs', 'alarms', 'totals', 'imports', 'setup', 'range-check', 'range-health', 'corrections', 'audit'],
+  engineer: [
+    'live',
+    'meter-runs',
+    'alarms',
+    'totals',
+    'imports',
+    'setup',
+    'range-check',
+    'range-health',
+    'corrections',
+    'audit',
+  ],
   accountant: ['live', 'meter-runs', 'alarms', 'totals', 'audit'],
   admin: allAreas,
 };

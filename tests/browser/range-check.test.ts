@@ -54,7 +54,8 @@ async function enterO1LiquidCase(page: Page) {
   await page.getByTestId('range-check-uncertaintyLimit').fill('1');
 }
 
-const numberIn = async (page: Page, testId: string) => Number((await page.getByTestId(testId).innerText()).replace(/[^0-9.]/g, ''));
+const numberIn = async (page: Page, testId: string) =>
+  Number((await page.getByTestId(testId).innerText()).replace(/[^0-9.]/g, ''));
 
 describe('the range check screen', () => {
   it('shows the flow at 10 % of span as √0.1 of the full-span flow for a liquid through the O1 orifice (phone)', async () => {

@@ -24,7 +24,11 @@ async function makeMeterRunLowInRange() {
   for (let i = 0; i < 180; i++) {
     const iso = new Date(t0 + i * MIN).toISOString();
     const dpKPa = (i < 60 ? 20 : 2.5) + (i % 2) * 0.003;
-    lines.push(`${iso},${run.dp.tag},${dpKPa},good`, `${iso},${run.pt.tag},${2 + (i % 3) * 0.0001},good`, `${iso},${run.tt.tag},${300 + (i % 2) * 0.01},good`);
+    lines.push(
+      `${iso},${run.dp.tag},${dpKPa},good`,
+      `${iso},${run.pt.tag},${2 + (i % 3) * 0.0001},good`,
+      `${iso},${run.tt.tag},${300 + (i % 2) * 0.01},good`,
+    );
   }
   const started = await engineer.upload('/api/imports', 'range-health.csv', `${lines.join('\n')}\n`);
   if (started.status !== 202) throw new Error(`import: ${started.status} ${JSON.stringify(started.body)}`);
@@ -40,7 +44,8 @@ afterAll(async () => {
   await browser?.close();
 });
 
-const percentIn = async (page: Page, testID: string) => Number((await page.getByTestId(testID).innerText()).replace('%', '').trim());
+const percentIn = async (page: Page, testID: string) =>
+  Number((await page.getByTestId(testID).innerText()).replace('%', '').trim());
 
 async function expectBands(page: Page) {
   await page.getByTestId('range-health-band-table').waitFor();
@@ -65,13 +70,17 @@ describe('the range health report', () => {
     await signIn(page, demoEmail('engineer'));
     await page.goto(`${baseUrl}/meter-runs/${meterRun.id}`);
     await page.getByTestId('meter-run-range-health-link').click();
-    await page.waitForURL((url) => url.pathname === '/range-health' && url.searchParams.get('meterRunId') === meterRun.id);
+    await page.waitForURL(
+      (url) => url.pathname === '/range-health' && url.searchParams.get('meterRunId') === meterRun.id,
+    );
     await expectBands(page);
     expect(await page.getByTestId('range-health-period-30').getAttribute('aria-checked')).toBe('true');
     await page.locator('[data-testid="range-health-band-chart"] canvas').first().waitFor();
     await page.locator('[data-testid="range-health-trend-chart"] canvas').first().waitFor();
     expect(await page.getByTestId('range-health-month-table').innerText()).toMatch(/\d{4}-\d{2}/);
-    expect(await page.getByTestId(`range-health-transmitter-${meterRun.tag}-DP`).innerText()).toMatch(/100\.0 % of the meter run's flowing time/);
+    expect(await page.getByTestId(`range-health-transmitter-${meterRun.tag}-DP`).innerText()).toMatch(
+      /100\.0 % of the meter run's flowing time/,
+    );
     expect((await page.getByTestId('range-health-recommendation-text').innerText()).length).toBeGreaterThan(20);
     expect(await page.getByTestId('range-health-numbers').innerText()).toMatch(/Flowing time below 10 % of span/);
     expect(await page.getByTestId('range-health-alarm-limit').innerText()).toMatch(/below 10 % of span held for 5 min/);
@@ -83,7 +92,8 @@ describe('the range health report', () => {
     const page = await freshPage(browser, 'phone');
     await signIn(page, demoEmail('admin'));
     await page.goto(`${baseUrl}/range-health`);
-    const site = (await client(await apiSignIn(demoEmail('engineer'))).get(`/api/meter-runs/${meterRun.id}`)).body.siteId;
+    const site = (await client(await apiSignIn(demoEmail('engineer'))).get(`/api/meter-runs/${meterRun.id}`)).body
+      .siteId;
     await page.getByTestId(`range-health-site-${site}`).click();
     await page.getByTestId(`range-health-meter-run-${meterRun.id}`).click();
     await expectBands(page);

@@ -54,7 +54,15 @@ describe('the set-up screens', () => {
     await page.getByTestId(`site-row-${code}`).waitFor();
 
     // Stored in SI: 14.73 psia = 14.73 × 6894.757293168 Pa = 101559.77 Pa; 60 °F = 288.705556 K (NIST SP 811 factors, exact by definition).
-    const site = ((await api.get('/api/sites')).body as { id: string; code: string; basePressurePa: number; baseTemperatureK: number; displayUnits: string }[]).find((s) => s.code === code);
+    const site = (
+      (await api.get('/api/sites')).body as {
+        id: string;
+        code: string;
+        basePressurePa: number;
+        baseTemperatureK: number;
+        displayUnits: string;
+      }[]
+    ).find((s) => s.code === code);
     expect(site).toBeDefined();
     expect(site!.basePressurePa).toBeCloseTo(101559.77, 1);
     expect(site!.baseTemperatureK).toBeCloseTo(288.705556, 5);
@@ -86,7 +94,9 @@ describe('the set-up screens', () => {
     await page.getByTestId('run-create-fluid-composition-nitrogen').fill('1');
     await page.getByTestId('run-create-submit').click();
     await page.getByTestId('run-create-element-boreDiameterM-error').waitFor();
-    expect(await page.getByTestId('run-create-element-boreDiameterM-error').innerText()).toMatch(/boreDiameterM .* must be below pipeDiameterM/);
+    expect(await page.getByTestId('run-create-element-boreDiameterM-error').innerText()).toMatch(
+      /boreDiameterM .* must be below pipeDiameterM/,
+    );
     expect(await page.getByTestId('run-create-errors').innerText()).toContain('Bore (throat) diameter');
 
     await page.getByTestId('run-create-element-boreDiameterM').fill('2.013');
@@ -97,7 +107,14 @@ describe('the set-up screens', () => {
     await page.getByTestId(`run-row-${tag}`).waitFor();
 
     // Sent in SI: 4.026 in = 0.1022604 m, 2.013 in = 0.0511302 m (1 in = 0.0254 m exactly); mol % as fractions.
-    const run = ((await api.get(`/api/meter-runs?siteId=${site!.id}`)).body as { id: string; tag: string; element: Record<string, unknown>; fluid: { composition: Record<string, number> } }[]).find((r) => r.tag === tag);
+    const run = (
+      (await api.get(`/api/meter-runs?siteId=${site!.id}`)).body as {
+        id: string;
+        tag: string;
+        element: Record<string, unknown>;
+        fluid: { composition: Record<string, number> };
+      }[]
+    ).find((r) => r.tag === tag);
     expect(run).toBeDefined();
     expect(run!.element.pipeDiameterM).toBeCloseTo(0.1022604, 9);
     expect(run!.element.boreDiameterM).toBeCloseTo(0.0511302, 9);
@@ -122,8 +139,15 @@ describe('the set-up screens', () => {
     await page.getByTestId('tx-create-submit').click();
     await page.getByTestId(`tx-row-${dpTag}`).waitFor();
     expect(await page.getByTestId(`tx-row-${dpTag}-range`).innerText()).toContain('0 – 200 inH₂O (60 °F)');
-    const transmitters = (await api.get(`/api/transmitters?meterRunId=${run!.id}`)).body as { tag: string; unit: string; upperRange: number; calibrationDue: string }[];
-    expect(transmitters).toEqual([expect.objectContaining({ tag: dpTag, unit: 'inH2O-60F', upperRange: 200, calibrationDue: '2027-03-31' })]);
+    const transmitters = (await api.get(`/api/transmitters?meterRunId=${run!.id}`)).body as {
+      tag: string;
+      unit: string;
+      upperRange: number;
+      calibrationDue: string;
+    }[];
+    expect(transmitters).toEqual([
+      expect.objectContaining({ tag: dpTag, unit: 'inH2O-60F', upperRange: 200, calibrationDue: '2027-03-31' }),
+    ]);
 
     // Re-ranged in the field to 0–250: recorded here (an upper below the lower is refused the same way).
     await page.getByTestId(`tx-row-${dpTag}-edit`).click();
@@ -151,7 +175,15 @@ describe('the set-up screens', () => {
   it('adds a back-dated configuration version on a phone, saying in words that history is recomputed', async () => {
     const page = await freshPage(browser, 'phone');
     const code = `V${unique()}`;
-    const site = await api.post('/api/sites', { code, name: 'Version test site', timeZone: 'Europe/Berlin', contractHour: 6, basePressurePa: 101325, baseTemperatureK: 288.15, atmosphericPressurePa: 101325 });
+    const site = await api.post('/api/sites', {
+      code,
+      name: 'Version test site',
+      timeZone: 'Europe/Berlin',
+      contractHour: 6,
+      basePressurePa: 101325,
+      baseTemperatureK: 288.15,
+      atmosphericPressurePa: 101325,
+    });
     expect(site.status).toBe(201);
     const run = await api.post('/api/meter-runs', {
       siteId: site.body.id,
@@ -170,7 +202,9 @@ describe('the set-up screens', () => {
     await page.getByTestId('version-create-effectiveFrom').fill('2025-06-01');
     await page.getByTestId('version-create-effectiveTime').fill('14:00');
     await page.getByTestId('version-create-backdated').waitFor();
-    expect(await page.getByTestId('version-create-backdated').innerText()).toMatch(/recomputes every hourly record.*from 1 Jun 2025, 14:00/);
+    expect(await page.getByTestId('version-create-backdated').innerText()).toMatch(
+      /recomputes every hourly record.*from 1 Jun 2025, 14:00/,
+    );
     // A version without a reason is refused by the shared schema.
     await page.getByTestId('version-create-submit').click();
     await page.getByTestId('version-create-reason-error').waitFor();
@@ -179,10 +213,17 @@ describe('the set-up screens', () => {
     await page.getByTestId('version-create-submit').click();
     await page.getByTestId('version-create-done').waitFor();
 
-    const versions = (await api.get(`/api/meter-runs/${run.body.id}/config-versions`)).body as { effectiveFrom: string; reason: string; element: { boreDiameterM: number } }[];
+    const versions = (await api.get(`/api/meter-runs/${run.body.id}/config-versions`)).body as {
+      effectiveFrom: string;
+      reason: string;
+      element: { boreDiameterM: number };
+    }[];
     expect(versions).toHaveLength(2);
     // 14:00 CEST (UTC+2) on 1 June 2025 is 12:00 UTC (EU summer time, Directive 2000/84/EC).
-    expect(versions[1]).toMatchObject({ effectiveFrom: '2025-06-01T12:00:00.000Z', reason: 'Throat re-measured: 90.2 mm' });
+    expect(versions[1]).toMatchObject({
+      effectiveFrom: '2025-06-01T12:00:00.000Z',
+      reason: 'Throat re-measured: 90.2 mm',
+    });
     expect(versions[1].element.boreDiameterM).toBeCloseTo(0.0902, 12);
     await page.close();
   });

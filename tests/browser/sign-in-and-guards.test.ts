@@ -2,7 +2,16 @@
  * Sign-in and the guards: a wrong password is refused with a message, signed-out visitors are
  * sent to sign in and brought back, and an area a role may not open says so when typed in.
  */
-import { baseUrl, demoEmail, freshPage, launchBrowser, signIn, signOut, submitSignIn, type TestBrowser } from './support';
+import {
+  baseUrl,
+  demoEmail,
+  freshPage,
+  launchBrowser,
+  signIn,
+  signOut,
+  submitSignIn,
+  type TestBrowser,
+} from './support';
 
 let browser: TestBrowser;
 beforeAll(async () => {
@@ -28,7 +37,9 @@ describe('signing in', () => {
 
   it('states that Tallyrun does not replace licensed practice and local codes', async () => {
     const page = await freshPage(browser, 'wide');
-    expect(await page.locator('body').innerText()).toMatch(/does not replace, licensed measurement practice and local codes/);
+    expect(await page.locator('body').innerText()).toMatch(
+      /does not replace, licensed measurement practice and local codes/,
+    );
     await page.close();
   });
 

@@ -114,7 +114,9 @@ export async function offeredAreas(page: Page): Promise<string[]> {
   const ids = await page
     .locator('[data-testid^="nav-"]')
     .evaluateAll((elements) =>
-      elements.filter((element) => element.checkVisibility()).map((element) => element.getAttribute('data-testid') ?? ''),
+      elements
+        .filter((element) => element.checkVisibility())
+        .map((element) => element.getAttribute('data-testid') ?? ''),
     );
   return ids.filter((id) => id !== 'nav-more').map((id) => id.slice('nav-'.length));
 }

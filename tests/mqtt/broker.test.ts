@@ -5,7 +5,14 @@ const port = Number(process.env.TALLYRUN_MQTT_PORT ?? 1883);
 
 function connect(options: mqtt.IClientOptions) {
   return new Promise<{ ok: true } | { ok: false; code: number | undefined }>((resolve) => {
-    const client = mqtt.connect({ host: '127.0.0.1', port, protocolVersion: 4, reconnectPeriod: 0, connectTimeout: 5000, ...options });
+    const client = mqtt.connect({
+      host: '127.0.0.1',
+      port,
+      protocolVersion: 4,
+      reconnectPeriod: 0,
+      connectTimeout: 5000,
+      ...options,
+    });
     client.once('connect', () => {
       client.end(true);
       resolve({ ok: true });

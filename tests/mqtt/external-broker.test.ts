@@ -20,7 +20,11 @@ let api: Api;
 
 beforeAll(async () => {
   const root = path.resolve(__dirname, '..', '..');
-  broker = spawn(path.join(root, 'node_modules', '.bin', 'tsx'), [path.join(root, 'server', 'test-support', 'plain-broker.ts')], { stdio: ['ignore', 'pipe', 'inherit'] });
+  broker = spawn(
+    path.join(root, 'node_modules', '.bin', 'tsx'),
+    [path.join(root, 'server', 'test-support', 'plain-broker.ts')],
+    { stdio: ['ignore', 'pipe', 'inherit'] },
+  );
   brokerPort = await new Promise<number>((resolve, reject) => {
     broker.stdout!.once('data', (d: Buffer) => resolve(JSON.parse(d.toString()).port));
     broker.once('exit', () => reject(new Error('the broker process exited')));
@@ -40,9 +44,16 @@ beforeAll(async () => {
   );
   const db = new Client({ connectionString: url });
   await db.connect();
-  await db.query(`INSERT INTO users (email, name, role, password_hash) VALUES ('ext-engineer@test.tallyrun', 'Ext', 'engineer', $1) ON CONFLICT DO NOTHING`, [await hashPassword('ext-password')]);
+  await db.query(
+    `INSERT INTO users (email, name, role, password_hash) VALUES ('ext-engineer@test.tallyrun', 'Ext', 'engineer', $1) ON CONFLICT DO NOTHING`,
+    [await hashPassword('ext-password')],
+  );
   await db.end();
-  const res = await fetch(`${server.url}/api/auth/login`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ email: 'ext-engineer@test.tallyrun', password: 'ext-password' }) });
+  const res = await fetch(`${server.url}/api/auth/login`, {
+    method: 'POST',
+    headers: { 'content-type': 'application/json' },
+    body: JSON.stringify({ email: 'ext-engineer@test.tallyrun', password: 'ext-password' }),
+  });
   api = client((await res.json()).token, server.url);
 }, 60_000);
 
@@ -56,15 +67,28 @@ it('stores a reading published to the external broker and reports the broker up'
   const health = await (await fetch(`${server.url}/api/health`)).json();
   expect(health).toEqual({ status: 'ok', database: 'up', broker: 'up' });
   const device = await new Promise<mqtt.MqttClient>((resolve, reject) => {
-    const c = mqtt.connect({ host: '127.0.0.1', port: brokerPort, protocolVersion: 4, username: 'field-device', password: 'x', reconnectPeriod: 0 });
+    const c = mqtt.connect({
+      host: '127.0.0.1',
+      port: brokerPort,
+      protocolVersion: 4,
+      username: 'field-device',
+      password: 'x',
+      reconnectPeriod: 0,
+    });
     c.once('connect', () => resolve(c));
     c.once('error', reject);
   });
   try {
     const t = new Date(Date.now() - 30_000).toISOString();
-    await new Promise<void>((resolve, reject) => device.publish(`tallyrun/${f.site.code}/${f.dp.tag}`, JSON.stringify({ t, v: 7.5 }), { qos: 1 }, (e) => (e ? reject(e) : resolve())));
+    await new Promise<void>((resolve, reject) =>
+      device.publish(`tallyrun/${f.site.code}/${f.dp.tag}`, JSON.stringify({ t, v: 7.5 }), { qos: 1 }, (e) =>
+        e ? reject(e) : resolve(),
+      ),
+    );
     const stored = await until('the reading to be stored', async () => {
-      const r = await api.get(`/api/readings?transmitterId=${f.dp.id}&from=${new Date(Date.now() - 3_600_000).toISOString()}`);
+      const r = await api.get(
+        `/api/readings?transmitterId=${f.dp.id}&from=${new Date(Date.now() - 3_600_000).toISOString()}`,
+      );
       return r.body.length ? r.body : null;
     });
     expect(stored).toEqual([{ time: t, value: 7.5, quality: 'good', source: 'mqtt' }]);

@@ -21,14 +21,26 @@ beforeAll(async () => {
 
 function connect(username: string, password: string) {
   return new Promise<mqtt.MqttClient>((resolve, reject) => {
-    const c = mqtt.connect({ host: '127.0.0.1', port: mqttPort, protocolVersion: 4, username, password, reconnectPeriod: 0, clean: true });
+    const c = mqtt.connect({
+      host: '127.0.0.1',
+      port: mqttPort,
+      protocolVersion: 4,
+      username,
+      password,
+      reconnectPeriod: 0,
+      clean: true,
+    });
     c.once('connect', () => resolve(c));
     c.once('error', reject);
   });
 }
 
 const publish = (c: mqtt.MqttClient, topic: string, payload: unknown) =>
-  new Promise<void>((resolve, reject) => c.publish(topic, typeof payload === 'string' ? payload : JSON.stringify(payload), { qos: 1 }, (err) => (err ? reject(err) : resolve())));
+  new Promise<void>((resolve, reject) =>
+    c.publish(topic, typeof payload === 'string' ? payload : JSON.stringify(payload), { qos: 1 }, (err) =>
+      err ? reject(err) : resolve(),
+    ),
+  );
 
 it('stores a reading as soon as the broker has acknowledged it (QoS 1)', async () => {
   const c = await connect(device.username, device.password);
@@ -36,7 +48,9 @@ it('stores a reading as soon as the broker has acknowledged it (QoS 1)', async (
     const t = new Date(Date.now() - 60_000).toISOString();
     await publish(c, `tallyrun/${f.site.code}/${f.dp.tag}`, { t, v: 12.5, q: 'good' });
     // No waiting: the PUBACK came after the commit.
-    const stored = await engineer.get(`/api/readings?transmitterId=${f.dp.id}&from=${new Date(Date.now() - 3_600_000).toISOString()}`);
+    const stored = await engineer.get(
+      `/api/readings?transmitterId=${f.dp.id}&from=${new Date(Date.now() - 3_600_000).toISOString()}`,
+    );
     expect(stored.body).toEqual([{ time: t, value: 12.5, quality: 'good', source: 'mqtt' }]);
   } finally {
     c.end(true);
@@ -48,9 +62,21 @@ it('takes an array of readings in one message and turns them into an hourly reco
   try {
     const now = Date.now();
     const times = Array.from({ length: 30 }, (_, i) => now - (30 - i) * 10_000);
-    await publish(c, `tallyrun/${f.site.code}/${f.pt.tag}`, times.map((t) => ({ t, v: 2, q: 'good' })));
-    await publish(c, `tallyrun/${f.site.code}/${f.tt.tag}`, times.map((t) => ({ t: new Date(t).toISOString(), v: 300 })));
-    await publish(c, `tallyrun/${f.site.code}/${f.dp.tag}`, times.map((t) => ({ t, v: 20 })));
+    await publish(
+      c,
+      `tallyrun/${f.site.code}/${f.pt.tag}`,
+      times.map((t) => ({ t, v: 2, q: 'good' })),
+    );
+    await publish(
+      c,
+      `tallyrun/${f.site.code}/${f.tt.tag}`,
+      times.map((t) => ({ t: new Date(t).toISOString(), v: 300 })),
+    );
+    await publish(
+      c,
+      `tallyrun/${f.site.code}/${f.dp.tag}`,
+      times.map((t) => ({ t, v: 20 })),
+    );
     await settled(engineer, f.meterRun.id);
     const from = new Date(now - 2 * 3_600_000).toISOString();
     const to = new Date(now + 3_600_000).toISOString();
@@ -70,7 +96,9 @@ it('counts a redelivered message as a duplicate, not a second reading', async ()
     const t = Date.now() - 120_000;
     await publish(c, `tallyrun/${f.site.code}/${f.tt.tag}`, { t, v: 301 });
     await publish(c, `tallyrun/${f.site.code}/${f.tt.tag}`, { t, v: 301 });
-    const stored = await engineer.get(`/api/readings?transmitterId=${f.tt.id}&from=${new Date(t).toISOString()}&to=${new Date(t + 1).toISOString()}`);
+    const stored = await engineer.get(
+      `/api/readings?transmitterId=${f.tt.id}&from=${new Date(t).toISOString()}&to=${new Date(t + 1).toISOString()}`,
+    );
     expect(stored.body).toHaveLength(1);
   } finally {
     c.end(true);
@@ -86,7 +114,10 @@ it('rejects bad payloads and foreign topics, counts them for the device, and kee
     await publish(c, `tallyrun/${f.site.code}/${f.dp.tag}`, { t: Date.now(), v: 'NaN' });
     await publish(c, `tallyrun/${f.site.code}/NO-SUCH-TAG`, { t: Date.now(), v: 1 });
     await publish(c, `tallyrun/SOMEWHERE-ELSE/${f.dp.tag}`, { t: Date.now(), v: 1 });
-    await publish(c, `tallyrun/${f.site.code}/${f.dp.tag}`, [{ t: Date.now() - 1000, v: 3 }, { t: Date.now(), v: Infinity }]); // JSON turns Infinity into null
+    await publish(c, `tallyrun/${f.site.code}/${f.dp.tag}`, [
+      { t: Date.now() - 1000, v: 3 },
+      { t: Date.now(), v: Infinity },
+    ]); // JSON turns Infinity into null
     expect(c.connected).toBe(true);
     const after = await until('the rejections to be counted', async () => {
       const d = (await admin.get('/api/devices')).body.find((x: { id: string }) => x.id === device.id);

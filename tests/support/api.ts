@@ -12,7 +12,11 @@ export interface Answer<T = any> {
 }
 
 export async function signIn(email: string, password = demoPassword): Promise<string> {
-  const res = await fetch(`${baseUrl}/api/auth/login`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ email, password }) });
+  const res = await fetch(`${baseUrl}/api/auth/login`, {
+    method: 'POST',
+    headers: { 'content-type': 'application/json' },
+    body: JSON.stringify({ email, password }),
+  });
   if (res.status !== 200) throw new Error(`sign-in of ${email}: ${res.status}`);
   return (await res.json()).token;
 }
@@ -21,7 +25,10 @@ export function client(token: string, serverUrl = baseUrl) {
   const call = async <T = any>(method: string, path: string, body?: unknown): Promise<Answer<T>> => {
     const res = await fetch(`${serverUrl}${path}`, {
       method,
-      headers: { Authorization: `Bearer ${token}`, ...(body !== undefined && !(body instanceof FormData) ? { 'content-type': 'application/json' } : {}) },
+      headers: {
+        Authorization: `Bearer ${token}`,
+        ...(body !== undefined && !(body instanceof FormData) ? { 'content-type': 'application/json' } : {}),
+      },
       body: body === undefined ? undefined : body instanceof FormData ? body : JSON.stringify(body),
     });
     const text = await res.text();
@@ -45,7 +52,11 @@ export type Client = ReturnType<typeof client>;
 
 export const unique = () => Math.random().toString(36).slice(2, 8).toUpperCase();
 
-export async function until<T>(what: string, probe: () => Promise<T | null | undefined | false>, timeoutMs = 30_000): Promise<T> {
+export async function until<T>(
+  what: string,
+  probe: () => Promise<T | null | undefined | false>,
+  timeoutMs = 30_000,
+): Promise<T> {
   const end = Date.now() + timeoutMs;
   for (;;) {
     const value = await probe();
@@ -57,7 +68,11 @@ export async function until<T>(what: string, probe: () => Promise<T | null | und
 
 /** Waits until the history worker has no hour of this meter run left to recompute. */
 export async function settled(api: Client, meterRunId: string, timeoutMs = 60_000) {
-  await until(`meter run ${meterRunId} to settle`, async () => (await api.get(`/api/meter-runs/${meterRunId}/recompute-status`)).body.pendingHours === 0, timeoutMs);
+  await until(
+    `meter run ${meterRunId} to settle`,
+    async () => (await api.get(`/api/meter-runs/${meterRunId}/recompute-status`)).body.pendingHours === 0,
+    timeoutMs,
+  );
 }
 
 /**
@@ -66,7 +81,10 @@ export async function settled(api: Client, meterRunId: string, timeoutMs = 60_00
  * is TRADE.md's O2 geometry (pvtlib): D = 0.3 m, d = 0.1 m, flange taps; the gas is an ideal
  * gas with fixed properties, so the engine's rate for a constant input is easy to reason about.
  */
-export async function createMeterRun(api: Client, options: { timeZone?: string; contractHour?: number; maxGapS?: number; holdLimitS?: number } = {}) {
+export async function createMeterRun(
+  api: Client,
+  options: { timeZone?: string; contractHour?: number; maxGapS?: number; holdLimitS?: number } = {},
+) {
   const id = unique();
   const site = await api.post('/api/sites', {
     code: `T${id}`,
@@ -79,7 +97,13 @@ export async function createMeterRun(api: Client, options: { timeZone?: string; 
   });
   if (site.status !== 201) throw new Error(`site: ${site.status} ${JSON.stringify(site.body)}`);
   const element = { kind: 'orifice', taps: 'flange', pipeDiameterM: 0.3, boreDiameterM: 0.1 };
-  const fluid = { kind: 'ideal-gas', molarMassKgPerMol: 0.01804, compressibility: 1, isentropicExponent: 1.2, viscosityPaS: 1.12e-5 };
+  const fluid = {
+    kind: 'ideal-gas',
+    molarMassKgPerMol: 0.01804,
+    compressibility: 1,
+    isentropicExponent: 1.2,
+    viscosityPaS: 1.12e-5,
+  };
   const run = await api.post('/api/meter-runs', {
     siteId: site.body.id,
     tag: `MR-${id}`,
@@ -97,14 +121,39 @@ export async function createMeterRun(api: Client, options: { timeZone?: string; 
     return res.body as { id: string; tag: string };
   };
   const dp = await transmitter('DP', { measures: 'differential-pressure', unit: 'kPa', lowerRange: 0, upperRange: 50 });
-  const pt = await transmitter('PT', { measures: 'static-pressure', unit: 'MPa', pressureReference: 'absolute', lowerRange: 0, upperRange: 4 });
+  const pt = await transmitter('PT', {
+    measures: 'static-pressure',
+    unit: 'MPa',
+    pressureReference: 'absolute',
+    lowerRange: 0,
+    upperRange: 4,
+  });
   const tt = await transmitter('TT', { measures: 'temperature', unit: 'K', lowerRange: 200, upperRange: 400 });
-  return { site: site.body as { id: string; code: string }, meterRun: run.body as { id: string; tag: string }, element, fluid, dp, pt, tt };
+  return {
+    site: site.body as { id: string; code: string },
+    meterRun: run.body as { id: string; tag: string },
+    element,
+    fluid,
+    dp,
+    pt,
+    tt,
+  };
 }
 
 /** The engine's mass flow for a constant input, from the server's own calculation endpoint. */
-export async function engineRate(api: Client, element: unknown, fluid: unknown, dpPa: number, pPa: number, tK: number): Promise<number> {
-  const res = await api.post('/api/calculations/flow', { element, fluid, conditions: { differentialPressurePa: dpPa, staticPressurePa: pPa, temperatureK: tK } });
+export async function engineRate(
+  api: Client,
+  element: unknown,
+  fluid: unknown,
+  dpPa: number,
+  pPa: number,
+  tK: number,
+): Promise<number> {
+  const res = await api.post('/api/calculations/flow', {
+    element,
+    fluid,
+    conditions: { differentialPressurePa: dpPa, staticPressurePa: pPa, temperatureK: tK },
+  });
   if (res.status !== 200) throw new Error(`calculation: ${res.status} ${JSON.stringify(res.body)}`);
   return res.body.massFlowKgPerS;
 }

@@ -13,7 +13,10 @@ function asJson(value: unknown): string {
   return JSON.stringify(value, null, 2);
 }
 
-const monospace = Platform.select({ web: 'ui-monospace, SFMono-Regular, Menlo, Consolas, monospace', default: 'monospace' });
+const monospace = Platform.select({
+  web: 'ui-monospace, SFMono-Regular, Menlo, Consolas, monospace',
+  default: 'monospace',
+});
 
 export function AuditEventRow({ event }: { event: AuditEvent }) {
   const [open, setOpen] = useState(false);
@@ -36,7 +39,12 @@ export function AuditEventRow({ event }: { event: AuditEvent }) {
       </View>
       {hasChange ? (
         <View style={styles.toggle}>
-          <Button label={open ? 'Hide change' : 'Show change'} size="compact" variant="quiet" onPress={() => setOpen(!open)} />
+          <Button
+            label={open ? 'Hide change' : 'Show change'}
+            size="compact"
+            variant="quiet"
+            onPress={() => setOpen(!open)}
+          />
         </View>
       ) : null}
       {open ? (

@@ -35,10 +35,14 @@ export function CreateUserForm() {
   const [added, setAdded] = useState<string | null>(null);
 
   const serverError = create.error instanceof ApiError ? create.error : null;
-  const serverField = serverError?.field && (fields as readonly string[]).includes(serverError.field) ? (serverError.field as Field) : null;
+  const serverField =
+    serverError?.field && (fields as readonly string[]).includes(serverError.field)
+      ? (serverError.field as Field)
+      : null;
   const shown: Partial<Record<Field, string>> = { ...problems };
   // The server prefixes a field's message with the field's name, which the form already shows.
-  if (serverError && serverField && !shown[serverField]) shown[serverField] = serverError.message.replace(`${serverField}: `, '');
+  if (serverError && serverField && !shown[serverField])
+    shown[serverField] = serverError.message.replace(`${serverField}: `, '');
 
   const edit = (field: Field) => (value: string) => {
     setDraft((current) => ({ ...current, [field]: value }));
@@ -68,7 +72,14 @@ export function CreateUserForm() {
           {create.error.message}
         </Notice>
       ) : null}
-      <TextField label="Name" testID="user-create-name" value={draft.name} onChangeText={edit('name')} error={shown.name} autoComplete="off" />
+      <TextField
+        label="Name"
+        testID="user-create-name"
+        value={draft.name}
+        onChangeText={edit('name')}
+        error={shown.name}
+        autoComplete="off"
+      />
       <TextField
         label="Email"
         testID="user-create-email"
@@ -81,7 +92,13 @@ export function CreateUserForm() {
         inputMode="email"
       />
       <View style={styles.role}>
-        <ChoiceGroup label="Role" options={roleOptions} value={draft.role} onChange={(role: Role) => edit('role')(role)} testIDPrefix="user-create-role" />
+        <ChoiceGroup
+          label="Role"
+          options={roleOptions}
+          value={draft.role}
+          onChange={(role: Role) => edit('role')(role)}
+          testIDPrefix="user-create-role"
+        />
         <AppText variant="caption" tone="muted">
           {roleSummary[draft.role]}
         </AppText>
@@ -103,7 +120,13 @@ export function CreateUserForm() {
         onSubmitEditing={submit}
       />
       <View style={styles.actions}>
-        <Button testID="user-create-submit" label="Add user" variant="primary" onPress={submit} busy={create.isPending} />
+        <Button
+          testID="user-create-submit"
+          label="Add user"
+          variant="primary"
+          onPress={submit}
+          busy={create.isPending}
+        />
       </View>
     </Panel>
   );

@@ -27,8 +27,7 @@ export function UserRow({ user, isSelf }: UserRowProps) {
   const [mode, setMode] = useState<'view' | 'role' | 'confirm-disable'>('view');
   const [role, setRole] = useState<Role>(user.role);
 
-  const apply = (change: UserChange) =>
-    update.mutate({ id: user.id, change }, { onSuccess: () => setMode('view') });
+  const apply = (change: UserChange) => update.mutate({ id: user.id, change }, { onSuccess: () => setMode('view') });
 
   return (
     <View style={[styles.row, user.disabled && styles.rowDisabled]} testID={`user-row-${user.email}`}>
@@ -56,9 +55,22 @@ export function UserRow({ user, isSelf }: UserRowProps) {
 
       {isSelf ? null : mode === 'role' ? (
         <View style={styles.editor}>
-          <ChoiceGroup label={`Role for ${user.name}`} options={roleOptions} value={role} onChange={setRole} testIDPrefix={`user-role-${user.email}`} />
+          <ChoiceGroup
+            label={`Role for ${user.name}`}
+            options={roleOptions}
+            value={role}
+            onChange={setRole}
+            testIDPrefix={`user-role-${user.email}`}
+          />
           <View style={styles.actions}>
-            <Button label="Save role" size="compact" variant="primary" busy={update.isPending} disabled={role === user.role} onPress={() => apply({ role })} />
+            <Button
+              label="Save role"
+              size="compact"
+              variant="primary"
+              busy={update.isPending}
+              disabled={role === user.role}
+              onPress={() => apply({ role })}
+            />
             <Button label="Cancel" size="compact" variant="quiet" onPress={() => setMode('view')} />
           </View>
         </View>
@@ -72,7 +84,11 @@ export function UserRow({ user, isSelf }: UserRowProps) {
           onConfirmDisable={() => apply({ disabled: true })}
           onCancel={() => setMode('view')}
           onEnable={() => apply({ disabled: false })}
-          testIDs={{ disable: `user-disable-${user.email}`, confirm: `user-disable-confirm-${user.email}`, enable: `user-enable-${user.email}` }}
+          testIDs={{
+            disable: `user-disable-${user.email}`,
+            confirm: `user-disable-confirm-${user.email}`,
+            enable: `user-enable-${user.email}`,
+          }}
         >
           <Button
             label="Change role"

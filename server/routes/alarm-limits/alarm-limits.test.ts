@@ -13,7 +13,8 @@ beforeAll(async () => {
 });
 afterAll(() => t.close());
 
-const post = (token: string, body: object) => t.http().post('/api/alarm-limits').set('Authorization', `Bearer ${token}`).send(body);
+const post = (token: string, body: object) =>
+  t.http().post('/api/alarm-limits').set('Authorization', `Bearer ${token}`).send(body);
 
 describe('/api/alarm-limits', () => {
   it.each([
@@ -32,23 +33,61 @@ describe('/api/alarm-limits', () => {
   });
 
   it('refuses a DP-only condition on a temperature transmitter, naming transmitterId', async () => {
-    const res = await post(engineer, { meterRunId: f.meterRunId, transmitterId: f.tt.id, condition: 'dp-low-in-range', onDelayS: 60 });
+    const res = await post(engineer, {
+      meterRunId: f.meterRunId,
+      transmitterId: f.tt.id,
+      condition: 'dp-low-in-range',
+      onDelayS: 60,
+    });
     expect(res.status).toBe(400);
     expect(res.body.error.field).toBe('transmitterId');
   });
 
   it('stores a meter-run setting and a transmitter setting over it, and shows the limits in force', async () => {
-    expect((await post(engineer, { meterRunId: f.meterRunId, condition: 'dp-low-in-range', thresholdShareOfSpan: 0.15, onDelayS: 120 })).status).toBe(201);
-    const res = await post(engineer, { meterRunId: f.meterRunId, transmitterId: f.dp.id, condition: 'dp-low-in-range', onDelayS: 600 });
+    expect(
+      (
+        await post(engineer, {
+          meterRunId: f.meterRunId,
+          condition: 'dp-low-in-range',
+          thresholdShareOfSpan: 0.15,
+          onDelayS: 120,
+        })
+      ).status,
+    ).toBe(201);
+    const res = await post(engineer, {
+      meterRunId: f.meterRunId,
+      transmitterId: f.dp.id,
+      condition: 'dp-low-in-range',
+      onDelayS: 600,
+    });
     expect(res.status).toBe(201);
-    const got = await t.http().get(`/api/alarm-limits?meterRunId=${f.meterRunId}`).set('Authorization', `Bearer ${operator}`);
+    const got = await t
+      .http()
+      .get(`/api/alarm-limits?meterRunId=${f.meterRunId}`)
+      .set('Authorization', `Bearer ${operator}`);
     expect(got.status).toBe(200);
-    const low = got.body.effective.find((e: { condition: string; transmitterId: string }) => e.condition === 'dp-low-in-range' && e.transmitterId === f.dp.id);
-    expect(low).toMatchObject({ source: 'transmitter', limits: { thresholdShareOfSpan: 0.15, onDelayS: 600, offDelayS: 60, priority: 'medium' } });
+    const low = got.body.effective.find(
+      (e: { condition: string; transmitterId: string }) =>
+        e.condition === 'dp-low-in-range' && e.transmitterId === f.dp.id,
+    );
+    expect(low).toMatchObject({
+      source: 'transmitter',
+      limits: { thresholdShareOfSpan: 0.15, onDelayS: 600, offDelayS: 60, priority: 'medium' },
+    });
     // null goes back to the level above
-    const back = await post(engineer, { meterRunId: f.meterRunId, transmitterId: f.dp.id, condition: 'dp-low-in-range', onDelayS: null });
+    const back = await post(engineer, {
+      meterRunId: f.meterRunId,
+      transmitterId: f.dp.id,
+      condition: 'dp-low-in-range',
+      onDelayS: null,
+    });
     expect(back.status).toBe(200);
-    expect(back.body.effective.find((e: { condition: string; transmitterId: string }) => e.condition === 'dp-low-in-range' && e.transmitterId === f.dp.id).limits.onDelayS).toBe(120);
+    expect(
+      back.body.effective.find(
+        (e: { condition: string; transmitterId: string }) =>
+          e.condition === 'dp-low-in-range' && e.transmitterId === f.dp.id,
+      ).limits.onDelayS,
+    ).toBe(120);
   });
 
   it('refuses an operator changing limits with 403', async () => {

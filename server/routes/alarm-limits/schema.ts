@@ -8,8 +8,14 @@ const opt = <T extends z.ZodType>(s: T) => s.nullable().optional();
 /** POST /api/alarm-limits: the settings of one condition for a meter run or one of its transmitters. */
 export const alarmLimitsBody = z
   .object({
-    meterRunId: z.union([z.number().int().positive(), z.string().regex(/^\d+$/, 'must be a meter run id')]).transform(String),
-    transmitterId: z.union([z.number().int().positive(), z.string().regex(/^\d+$/, 'must be a transmitter id')]).transform(String).nullable().optional(),
+    meterRunId: z
+      .union([z.number().int().positive(), z.string().regex(/^\d+$/, 'must be a meter run id')])
+      .transform(String),
+    transmitterId: z
+      .union([z.number().int().positive(), z.string().regex(/^\d+$/, 'must be a transmitter id')])
+      .transform(String)
+      .nullable()
+      .optional(),
     condition: z.enum(ALARM_CONDITIONS, { error: `must be one of ${ALARM_CONDITIONS.join(', ')}` }),
     enabled: opt(z.boolean({ error: 'must be true or false' })),
     priority: opt(z.enum(ALARM_PRIORITIES, { error: `must be one of ${ALARM_PRIORITIES.join(', ')}` })),
@@ -26,4 +32,6 @@ export const alarmLimitsBody = z
   })
   .strict();
 
-export const alarmLimitsQuery = z.object({ meterRunId: z.string({ error: 'is required' }).regex(/^\d+$/, 'must be a meter run id') });
+export const alarmLimitsQuery = z.object({
+  meterRunId: z.string({ error: 'is required' }).regex(/^\d+$/, 'must be a meter run id'),
+});

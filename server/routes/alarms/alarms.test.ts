@@ -24,9 +24,11 @@ afterAll(() => t.close());
 
 const as = (role: keyof typeof who) => ({
   get: (url: string) => t.http().get(url).set('Authorization', `Bearer ${who[role].token}`),
-  post: (url: string, body: object = {}) => t.http().post(url).set('Authorization', `Bearer ${who[role].token}`).send(body),
+  post: (url: string, body: object = {}) =>
+    t.http().post(url).set('Authorization', `Bearer ${who[role].token}`).send(body),
 });
-const lowAlarm = async () => (await as('operator').get(`/api/alarms?meterRunId=${f.meterRunId}&condition=dp-low-in-range`)).body[0];
+const lowAlarm = async () =>
+  (await as('operator').get(`/api/alarms?meterRunId=${f.meterRunId}&condition=dp-low-in-range`)).body[0];
 
 describe('/api/alarms', () => {
   it('lists the alarm with the fields of the design', async () => {
@@ -66,7 +68,11 @@ describe('/api/alarms', () => {
     const events = (await as('accountant').get(`/api/alarms/${a.id}/events`)).body;
     expect(events.map((e: { action: string }) => e.action)).toEqual(['raised', 'acknowledged']);
     expect(events[0]).toMatchObject({ occurredAt: '2026-10-02T06:15:00.000Z', userEmail: null });
-    expect(events[1]).toMatchObject({ fromState: 'active-unacknowledged', toState: 'active-acknowledged', userEmail: who.operator.email });
+    expect(events[1]).toMatchObject({
+      fromState: 'active-unacknowledged',
+      toState: 'active-acknowledged',
+      userEmail: who.operator.email,
+    });
   });
 
   it('refuses shelving without minutes or reason, naming the field', async () => {
@@ -82,7 +88,10 @@ describe('/api/alarms', () => {
 
   it('shelves for a limited time and unshelves by itself when the time is over, active again', async () => {
     const a = await lowAlarm();
-    const res = await as('engineer').post(`/api/alarms/${a.id}/shelve`, { minutes: 30, reason: 'low flow expected during the well test' });
+    const res = await as('engineer').post(`/api/alarms/${a.id}/shelve`, {
+      minutes: 30,
+      reason: 'low flow expected during the well test',
+    });
     expect(res.status).toBe(200);
     expect(res.body).toMatchObject({ state: 'shelved', shelveReason: 'low flow expected during the well test' });
     const until = Date.parse(res.body.shelvedUntil);
@@ -90,7 +99,12 @@ describe('/api/alarms', () => {
     expect(await unshelveExpired(t.services.pool, until + 1000)).toContain(a.id);
     const after = (await as('operator').get(`/api/alarms/${a.id}`)).body;
     expect(after.state).toBe('active-unacknowledged'); // the condition still holds: annunciated again
-    expect(after.events.map((e: { action: string }) => e.action)).toEqual(['raised', 'acknowledged', 'shelved', 'unshelved']);
+    expect(after.events.map((e: { action: string }) => e.action)).toEqual([
+      'raised',
+      'acknowledged',
+      'shelved',
+      'unshelved',
+    ]);
   });
 
   it('answers an acknowledge of an alarm already normal with 409', async () => {
@@ -108,7 +122,11 @@ describe('/api/alarms', () => {
   it('counts open alarms for the banner', async () => {
     const res = await as('operator').get(`/api/alarms/counts?meterRunId=${f.meterRunId}`);
     expect(res.status).toBe(200);
-    expect(res.body).toMatchObject({ open: expect.any(Number), unacknowledged: expect.any(Number), flood: expect.any(Boolean) });
+    expect(res.body).toMatchObject({
+      open: expect.any(Number),
+      unacknowledged: expect.any(Number),
+      flood: expect.any(Boolean),
+    });
   });
 
   it('refuses an unknown state filter naming the field', async () => {

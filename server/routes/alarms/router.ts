@@ -30,7 +30,7 @@ export function alarmsRouter(pool: Pool, hooks: { changed?(alarmIds: string[]): 
     if (q.transmitterId) add('a.transmitter_id = ?', q.transmitterId);
     if (q.condition) add('a.condition = ?', q.condition);
     if (q.priority) add('a.priority = ?', q.priority);
-    if (q.from) add('coalesce(a.cleared_at, \'infinity\') >= ?', q.from);
+    if (q.from) add("coalesce(a.cleared_at, 'infinity') >= ?", q.from);
     if (q.to) add('a.raised_at < ?', q.to);
     if (q.state) {
       const states = q.state.filter((s) => s !== 'open');
@@ -45,9 +45,12 @@ export function alarmsRouter(pool: Pool, hooks: { changed?(alarmIds: string[]): 
     );
     const list = rows.map(presentAlarm);
     if (q.include === 'events' && list.length) {
-      const events = await pool.query('SELECT * FROM alarm_events WHERE alarm_id = ANY($1::bigint[]) ORDER BY id', [list.map((a) => a.id)]);
+      const events = await pool.query('SELECT * FROM alarm_events WHERE alarm_id = ANY($1::bigint[]) ORDER BY id', [
+        list.map((a) => a.id),
+      ]);
       const byAlarm = new Map<string, ReturnType<typeof presentAlarmEvent>[]>();
-      for (const e of events.rows.map(presentAlarmEvent)) byAlarm.set(e.alarmId, [...(byAlarm.get(e.alarmId) ?? []), e]);
+      for (const e of events.rows.map(presentAlarmEvent))
+        byAlarm.set(e.alarmId, [...(byAlarm.get(e.alarmId) ?? []), e]);
       return res.json(list.map((a) => ({ ...a, events: byAlarm.get(a.id) ?? [] })));
     }
     res.json(list);
@@ -77,7 +80,8 @@ export function alarmsRouter(pool: Pool, hooks: { changed?(alarmIds: string[]): 
     for (const r of rows) {
       open += r.n;
       byState[r.state] = (byState[r.state] ?? 0) + r.n;
-      if (r.state === 'active-unacknowledged' || r.state === 'returned-unacknowledged') unacknowledgedByPriority[r.priority] += r.n;
+      if (r.state === 'active-unacknowledged' || r.state === 'returned-unacknowledged')
+        unacknowledgedByPriority[r.priority] += r.n;
     }
     const recent = await pool.query(
       `SELECT count(*)::int AS n FROM alarms a JOIN meter_runs m ON m.id = a.meter_run_id WHERE a.raised_at > now() - interval '10 minutes'${filter}`,
@@ -100,7 +104,8 @@ export function alarmsRouter(pool: Pool, hooks: { changed?(alarmIds: string[]): 
     if (!row) throw notFound('Alarm');
     return row;
   };
-  const events = async (id: string) => (await pool.query('SELECT * FROM alarm_events WHERE alarm_id = $1 ORDER BY id', [id])).rows.map(presentAlarmEvent);
+  const events = async (id: string) =>
+    (await pool.query('SELECT * FROM alarm_events WHERE alarm_id = $1 ORDER BY id', [id])).rows.map(presentAlarmEvent);
 
   router.get('/:id', requireCapability('view'), async (req, res) => {
     const row = await findAlarm(String(req.params.id));
@@ -112,7 +117,12 @@ export function alarmsRouter(pool: Pool, hooks: { changed?(alarmIds: string[]): 
     res.json(await events(row.id));
   });
 
-  const act = async (id: string, action: Exclude<AlarmAction, 'raise' | 'clear'>, user: Express.User, options: { minutes?: number; reason?: string }) => {
+  const act = async (
+    id: string,
+    action: Exclude<AlarmAction, 'raise' | 'clear'>,
+    user: Express.User,
+    options: { minutes?: number; reason?: string },
+  ) => {
     await findAlarm(id);
     try {
       const row = await applyAction(pool, id, action, { id: user.id, email: user.email }, options);

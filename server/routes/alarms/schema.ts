@@ -5,11 +5,18 @@ const id = (what: string) => z.string().regex(/^\d+$/, `must be a ${what} id`);
 const isoTime = z.iso.datetime({ offset: true, error: 'must be ISO 8601 with an offset or Z' });
 /** A comma-separated list of codes; "open" stands for every state but normal. */
 const allowedStates: readonly string[] = [...ALARM_STATES, 'open'];
-const splitList = (s: string) => s.split(',').map((x) => x.trim()).filter(Boolean);
+const splitList = (s: string) =>
+  s
+    .split(',')
+    .map((x) => x.trim())
+    .filter(Boolean);
 const stateList = z
   .string()
-  .refine((s) => splitList(s).length > 0 && splitList(s).every((x) => allowedStates.includes(x)), `must be one or more of ${ALARM_STATES.join(', ')} or open, comma-separated`)
-  .transform((s) => splitList(s) as (typeof ALARM_STATES[number] | 'open')[]);
+  .refine(
+    (s) => splitList(s).length > 0 && splitList(s).every((x) => allowedStates.includes(x)),
+    `must be one or more of ${ALARM_STATES.join(', ')} or open, comma-separated`,
+  )
+  .transform((s) => splitList(s) as ((typeof ALARM_STATES)[number] | 'open')[]);
 
 export const alarmListQuery = z.object({
   meterRunId: id('meter run').optional(),
@@ -30,11 +37,21 @@ export const countsQuery = z.object({ siteId: id('site').optional(), meterRunId:
 export const MAX_SHELVE_MINUTES = 1440;
 export const shelveBody = z
   .object({
-    minutes: z.number({ error: 'must be a number of minutes' }).int('must be a whole number of minutes').min(1, 'must be at least 1').max(MAX_SHELVE_MINUTES, `must be at most ${MAX_SHELVE_MINUTES} (a day)`),
-    reason: z.string({ error: 'is required: say why the alarm is shelved' }).trim().min(1, 'is required: say why the alarm is shelved').max(500),
+    minutes: z
+      .number({ error: 'must be a number of minutes' })
+      .int('must be a whole number of minutes')
+      .min(1, 'must be at least 1')
+      .max(MAX_SHELVE_MINUTES, `must be at most ${MAX_SHELVE_MINUTES} (a day)`),
+    reason: z
+      .string({ error: 'is required: say why the alarm is shelved' })
+      .trim()
+      .min(1, 'is required: say why the alarm is shelved')
+      .max(500),
   })
   .strict();
 
 export const acknowledgeBody = z.object({ comment: z.string().trim().max(500).optional() }).strict();
-export const reasonBody = z.object({ reason: z.string({ error: 'is required' }).trim().min(1, 'is required').max(500) }).strict();
+export const reasonBody = z
+  .object({ reason: z.string({ error: 'is required' }).trim().min(1, 'is required').max(500) })
+  .strict();
 export const optionalReasonBody = z.object({ reason: z.string().trim().max(500).optional() }).strict();

@@ -17,7 +17,10 @@ export function auditEventsRouter() {
     const q = validate(querySchema, req.query, 'query');
     const events = await AuditEvent.findAll({
       where: { ...(q.entityType ? { entityType: q.entityType } : {}), ...(q.entityId ? { entityId: q.entityId } : {}) },
-      order: [['occurredAt', 'DESC'], ['id', 'DESC']],
+      order: [
+        ['occurredAt', 'DESC'],
+        ['id', 'DESC'],
+      ],
       limit: q.limit,
     });
     res.json(

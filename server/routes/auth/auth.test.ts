@@ -30,7 +30,10 @@ describe('POST /api/auth/login', () => {
   });
 
   it('answers an unknown user exactly as a wrong password, so accounts cannot be probed', async () => {
-    const res = await t.http().post('/api/auth/login').send({ email: `nobody-${t.unique()}@test.tallyrun`, password: 'whatever-it-is' });
+    const res = await t
+      .http()
+      .post('/api/auth/login')
+      .send({ email: `nobody-${t.unique()}@test.tallyrun`, password: 'whatever-it-is' });
     expect(res.status).toBe(401);
     expectErrorShape(res.body, 'invalid_credentials');
   });
@@ -61,7 +64,8 @@ describe('POST /api/auth/login', () => {
     try {
       const email = `target-${limited.unique()}@test.tallyrun`;
       const statuses: number[] = [];
-      for (let i = 0; i < 5; i++) statuses.push((await limited.http().post('/api/auth/login').send({ email, password: 'guess-guess' })).status);
+      for (let i = 0; i < 5; i++)
+        statuses.push((await limited.http().post('/api/auth/login').send({ email, password: 'guess-guess' })).status);
       expect(statuses).toEqual([401, 401, 401, 429, 429]);
       const last = await limited.http().post('/api/auth/login').send({ email, password: 'guess-guess' });
       expectErrorShape(last.body, 'rate_limited');
@@ -80,7 +84,9 @@ describe('bearer tokens', () => {
 
   it('refuses an expired token with 401 token_expired', async () => {
     const u = await t.signedIn('operator');
-    const expired = jwt.sign({ role: 'operator', exp: Math.floor(Date.now() / 1000) - 60 }, t.jwtSecret, { subject: u.id });
+    const expired = jwt.sign({ role: 'operator', exp: Math.floor(Date.now() / 1000) - 60 }, t.jwtSecret, {
+      subject: u.id,
+    });
     const res = await t.http().get('/api/auth/me').set('Authorization', `Bearer ${expired}`);
     expect(res.status).toBe(401);
     expectErrorShape(res.body, 'token_expired');

@@ -9,7 +9,12 @@ import { issueToken } from '../../auth/tokens';
 import { AppError, unauthorized } from '../../errors';
 import { presentUser } from '../users/presenter';
 
-export function authRouter(options: { jwtSecret: string; tokenHours: number; loginLimit: number; authenticate: RequestHandler }) {
+export function authRouter(options: {
+  jwtSecret: string;
+  tokenHours: number;
+  loginLimit: number;
+  authenticate: RequestHandler;
+}) {
   const router = Router();
 
   // Per address and account: slows guessing without letting one user lock out a shared control room.

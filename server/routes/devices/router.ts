@@ -42,8 +42,20 @@ export function devicesRouter(sequelize: Sequelize, hooks: { credentialsChanged(
     const username = `${site.code.toLowerCase()}-${crypto.randomBytes(4).toString('hex')}`;
     const password = crypto.randomBytes(18).toString('base64url');
     const device = await sequelize.transaction(async (transaction) => {
-      const created = await Device.create({ siteId: site.id, name: input.name, username, passwordHash: await hashPassword(password) }, { transaction });
-      await recordAuditEvent({ actor: req.user!, action: 'device.create', entityType: 'device', entityId: String(created.id), after: present(created, site.code) }, transaction);
+      const created = await Device.create(
+        { siteId: site.id, name: input.name, username, passwordHash: await hashPassword(password) },
+        { transaction },
+      );
+      await recordAuditEvent(
+        {
+          actor: req.user!,
+          action: 'device.create',
+          entityType: 'device',
+          entityId: String(created.id),
+          after: present(created, site.code),
+        },
+        transaction,
+      );
       return created;
     });
     res.status(201).json({ ...present(device, site.code), password });
@@ -56,7 +68,17 @@ export function devicesRouter(sequelize: Sequelize, hooks: { credentialsChanged(
     const before = present(device);
     await sequelize.transaction(async (transaction) => {
       await device.update(patch, { transaction });
-      await recordAuditEvent({ actor: req.user!, action: 'device.update', entityType: 'device', entityId: String(device.id), before, after: present(device) }, transaction);
+      await recordAuditEvent(
+        {
+          actor: req.user!,
+          action: 'device.update',
+          entityType: 'device',
+          entityId: String(device.id),
+          before,
+          after: present(device),
+        },
+        transaction,
+      );
     });
     if (patch.disabled) hooks.credentialsChanged(device.username);
     else hooks.credentialsChanged('');

@@ -53,7 +53,8 @@ export function importsRouter(options: { pool: Pool; uploadDir: string; maxBytes
     upload(req, res, async (err: unknown) => {
       try {
         if (err instanceof multer.MulterError) {
-          if (err.code === 'LIMIT_FILE_SIZE') throw new AppError(413, 'too_large', `file: larger than ${Math.round(options.maxBytes / 1e6)} MB`, 'file');
+          if (err.code === 'LIMIT_FILE_SIZE')
+            throw new AppError(413, 'too_large', `file: larger than ${Math.round(options.maxBytes / 1e6)} MB`, 'file');
           throw badRequest(`file: ${err.message}`, 'file');
         }
         if (err) throw err;
@@ -68,7 +69,8 @@ export function importsRouter(options: { pool: Pool; uploadDir: string; maxBytes
           [kind, path.basename(req.file.originalname || 'upload.csv'), req.file.size, req.user!.id],
         );
         const id = rows[0].id as string;
-        const job = kind === 'readings' ? options.jobs.readings(id, req.file.path) : options.jobs.fieldTotals(id, req.file.path);
+        const job =
+          kind === 'readings' ? options.jobs.readings(id, req.file.path) : options.jobs.fieldTotals(id, req.file.path);
         job.catch((e) => console.error(`[imports] import ${id} failed:`, e));
         res.status(202).json({ id, status: 'running' });
       } catch (e) {

@@ -17,7 +17,12 @@ export function liveRouter(board: LiveBoard, events: LiveEvents) {
   });
 
   router.get('/stream', async (req, res) => {
-    res.writeHead(200, { 'Content-Type': 'text/event-stream', 'Cache-Control': 'no-cache, no-transform', Connection: 'keep-alive', 'X-Accel-Buffering': 'no' });
+    res.writeHead(200, {
+      'Content-Type': 'text/event-stream',
+      'Cache-Control': 'no-cache, no-transform',
+      Connection: 'keep-alive',
+      'X-Accel-Buffering': 'no',
+    });
     let dirty = true;
     let closed = false;
     const send = async () => {

@@ -7,9 +7,21 @@ export function mailRouter() {
   const router = Router();
   router.use(requireCapability('administer'));
   router.get('/', async (_req, res) => {
-    const messages = await MailMessage.findAll({ order: [['sentAt', 'DESC'], ['id', 'DESC']], limit: 500 });
+    const messages = await MailMessage.findAll({
+      order: [
+        ['sentAt', 'DESC'],
+        ['id', 'DESC'],
+      ],
+      limit: 500,
+    });
     res.json(
-      messages.map((m) => ({ id: String(m.id), to: m.recipients, subject: m.subject, text: m.text, sentAt: m.sentAt.toISOString() })),
+      messages.map((m) => ({
+        id: String(m.id),
+        to: m.recipients,
+        subject: m.subject,
+        text: m.text,
+        sentAt: m.sentAt.toISOString(),
+      })),
     );
   });
   return router;

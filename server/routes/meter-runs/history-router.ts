@@ -57,15 +57,27 @@ export function meterRunHistoryRouter(pool: Pool) {
   router.get('/:id/totals', requireCapability('view'), async (req, res) => {
     if (!/^\d+$/.test(String(req.params.id))) throw notFound('Meter run');
     // from/to: an instant (ISO 8601 with an offset), or a plain date meaning that date's start in the site's zone.
-    const when = z.union([isoTime, z.iso.date()], { error: 'must be ISO 8601 with an offset or Z, or a date YYYY-MM-DD' });
-    const q = validate(z.object({ interval: z.enum(['hour', 'day', 'month'], { error: 'must be hour, day or month' }), from: when, to: when }), req.query, 'query');
+    const when = z.union([isoTime, z.iso.date()], {
+      error: 'must be ISO 8601 with an offset or Z, or a date YYYY-MM-DD',
+    });
+    const q = validate(
+      z.object({
+        interval: z.enum(['hour', 'day', 'month'], { error: 'must be hour, day or month' }),
+        from: when,
+        to: when,
+      }),
+      req.query,
+      'query',
+    );
     const { timeZone, contractHour } = await site(String(req.params.id));
-    const instant = (value: string) => (value.length === 10 ? DateTime.fromISO(value, { zone: timeZone }).toMillis() : Date.parse(value));
+    const instant = (value: string) =>
+      value.length === 10 ? DateTime.fromISO(value, { zone: timeZone }).toMillis() : Date.parse(value);
     const fromMs = instant(q.from);
     const toMs = instant(q.to);
     if (toMs <= fromMs) throw badRequest('to: must be after from', 'to');
     const limits = { hour: 62 * dayMs, day: 3700 * dayMs, month: 3700 * dayMs };
-    if (toMs - fromMs > limits[q.interval]) throw badRequest(`to: at most ${limits[q.interval] / dayMs} days of ${q.interval}ly totals per request`, 'to');
+    if (toMs - fromMs > limits[q.interval])
+      throw badRequest(`to: at most ${limits[q.interval] / dayMs} days of ${q.interval}ly totals per request`, 'to');
     const table = { hour: 'hourly_records', day: 'daily_totals', month: 'monthly_totals' }[q.interval];
     const { rows } = await pool.query(
       `SELECT * FROM ${table} WHERE meter_run_id = $1 AND start < to_timestamp($3 / 1000.0) AND "end" > to_timestamp($2 / 1000.0) ORDER BY start`,
@@ -78,7 +90,9 @@ export function meterRunHistoryRouter(pool: Pool) {
     // for the periods that have no row: a year of daily totals stays a few milliseconds.
     const bounds = (startMs: number) => {
       const name = contractDayOf(startMs, timeZone, contractHour);
-      return q.interval === 'day' ? contractDayBounds(name, timeZone, contractHour) : contractMonthBounds(name.slice(0, 7), timeZone, contractHour);
+      return q.interval === 'day'
+        ? contractDayBounds(name, timeZone, contractHour)
+        : contractMonthBounds(name.slice(0, 7), timeZone, contractHour);
     };
     const out: ReturnType<typeof presentTotal>[] = [];
     let cursor = bounds(fromMs).startMs;
@@ -103,8 +117,14 @@ export function meterRunHistoryRouter(pool: Pool) {
   router.get('/:id/recompute-status', requireCapability('view'), async (req, res) => {
     if (!/^\d+$/.test(String(req.params.id))) throw notFound('Meter run');
     await site(String(req.params.id));
-    const { rows } = await pool.query('SELECT count(*)::int AS n, min(start) AS oldest FROM stale_hours WHERE meter_run_id = $1', [String(req.params.id)]);
-    res.json({ pendingHours: rows[0].n, oldestPendingHour: rows[0].oldest ? (rows[0].oldest as Date).toISOString() : null });
+    const { rows } = await pool.query(
+      'SELECT count(*)::int AS n, min(start) AS oldest FROM stale_hours WHERE meter_run_id = $1',
+      [String(req.params.id)],
+    );
+    res.json({
+      pendingHours: rows[0].n,
+      oldestPendingHour: rows[0].oldest ? (rows[0].oldest as Date).toISOString() : null,
+    });
   });
 
   router.get('/:id/hourly-records', requireCapability('view'), async (req, res) => {
@@ -137,12 +157,21 @@ export function meterRunHistoryRouter(pool: Pool) {
    */
   router.get('/:id/trend', requireCapability('view'), async (req, res) => {
     if (!/^\d+$/.test(String(req.params.id))) throw notFound('Meter run');
-    const q = validate(z.object({ from: isoTime, to: isoTime, buckets: z.coerce.number().int().min(10).max(5000).default(600) }), req.query, 'query');
+    const q = validate(
+      z.object({ from: isoTime, to: isoTime, buckets: z.coerce.number().int().min(10).max(5000).default(600) }),
+      req.query,
+      'query',
+    );
     const fromMs = Date.parse(q.from);
     const toMs = Date.parse(q.to);
     if (toMs <= fromMs) throw badRequest('to: must be after from', 'to');
     await site(String(req.params.id));
-    const transmitters = (await pool.query('SELECT id::text, tag, measures, unit, lower_range, upper_range, stack_role FROM transmitters WHERE meter_run_id = $1 ORDER BY id', [String(req.params.id)])).rows;
+    const transmitters = (
+      await pool.query(
+        'SELECT id::text, tag, measures, unit, lower_range, upper_range, stack_role FROM transmitters WHERE meter_run_id = $1 ORDER BY id',
+        [String(req.params.id)],
+      )
+    ).rows;
     const series = [];
     for (const t of transmitters) {
       const { rows } = await pool.query(
@@ -161,15 +190,28 @@ export function meterRunHistoryRouter(pool: Pool) {
         stackRole: t.stack_role,
         lowerRange: t.lower_range,
         upperRange: t.upper_range,
-        points: rows.map((r) => ({ time: new Date(fromMs + (r.b - 1) * width).toISOString(), min: r.min, max: r.max, mean: r.mean, count: r.n })),
+        points: rows.map((r) => ({
+          time: new Date(fromMs + (r.b - 1) * width).toISOString(),
+          min: r.min,
+          max: r.max,
+          mean: r.mean,
+          count: r.n,
+        })),
       });
     }
-    const flow = (await pool.query(
-      `SELECT start, "end", mass_kg, standard_volume_m3, coverage FROM hourly_records WHERE meter_run_id = $1 AND start >= to_timestamp($2 / 1000.0) AND start < to_timestamp($3 / 1000.0) ORDER BY start`,
-      [String(req.params.id), fromMs, toMs],
-    )).rows.map((r) => {
+    const flow = (
+      await pool.query(
+        `SELECT start, "end", mass_kg, standard_volume_m3, coverage FROM hourly_records WHERE meter_run_id = $1 AND start >= to_timestamp($2 / 1000.0) AND start < to_timestamp($3 / 1000.0) ORDER BY start`,
+        [String(req.params.id), fromMs, toMs],
+      )
+    ).rows.map((r) => {
       const seconds = ((r.end as Date).getTime() - (r.start as Date).getTime()) / 1000;
-      return { time: (r.start as Date).toISOString(), massFlowKgPerS: r.mass_kg / seconds, standardVolumeFlowM3PerS: r.standard_volume_m3 / seconds, coverage: r.coverage };
+      return {
+        time: (r.start as Date).toISOString(),
+        massFlowKgPerS: r.mass_kg / seconds,
+        standardVolumeFlowM3PerS: r.standard_volume_m3 / seconds,
+        coverage: r.coverage,
+      };
     });
     res.json({ from: q.from, to: q.to, buckets: q.buckets, series, flow });
   });

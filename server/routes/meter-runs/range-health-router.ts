@@ -9,7 +9,11 @@ import { loadMeterRunContext } from '../../history/load-context';
 import { contractDayOf } from '../../../shared/history/contract-day';
 import { bandShares, type BandHour } from '../../../shared/range-health/band-shares';
 import { rangeAdvice } from '../../../shared/range-health/range-advice';
-import { DENSITY_MODEL_UNCERTAINTY_PERCENT, ELEMENT_DIAMETER_UNCERTAINTY_PERCENT, PIPE_DIAMETER_UNCERTAINTY_PERCENT } from '../../../shared/history/sample-uncertainty';
+import {
+  DENSITY_MODEL_UNCERTAINTY_PERCENT,
+  ELEMENT_DIAMETER_UNCERTAINTY_PERCENT,
+  PIPE_DIAMETER_UNCERTAINTY_PERCENT,
+} from '../../../shared/history/sample-uncertainty';
 import { toSI } from '../../../shared/units';
 import type { DpBandName } from '../../../shared/history/types';
 
@@ -51,7 +55,12 @@ export function meterRunRangeHealthRouter(pool: Pool) {
     if (toMs - fromMs > 400 * dayMs) throw badRequest('to: at most 400 days per request', 'to');
     const ctx = await loadMeterRunContext(pool, id);
     if (!ctx) throw notFound('Meter run');
-    const tags = new Map((await pool.query('SELECT id::text, tag FROM transmitters WHERE meter_run_id = $1', [id])).rows.map((r) => [r.id as string, r.tag as string]));
+    const tags = new Map(
+      (await pool.query('SELECT id::text, tag FROM transmitters WHERE meter_run_id = $1', [id])).rows.map((r) => [
+        r.id as string,
+        r.tag as string,
+      ]),
+    );
     const dps = ctx.transmitters.filter((t) => t.measures === 'differential-pressure');
     const { rows } = await pool.query(
       `SELECT start, flow_time_s, mass_kg, standard_volume_m3, uncertainty_percent, dp_bands, active_transmitter_time, average_pressure_pa, average_temperature_k
@@ -82,8 +91,17 @@ export function meterRunRangeHealthRouter(pool: Pool) {
       for (const t of inUse) {
         const f = inUse.length === 1 ? 1 : h.active[t.id] / totalActive;
         const scaled: BandHour['dpBands'] = {};
-        for (const [band, v] of Object.entries(h.dpBands)) scaled[band as DpBandName] = { timeS: v!.timeS * f, massKg: v!.massKg * f };
-        perTransmitter.get(t.id)!.push({ flowTimeS: h.flowTimeS * f, massKg: h.massKg * f, standardVolumeM3: h.standardVolumeM3 * f, uncertaintyPercent: h.uncertaintyPercent, dpBands: scaled });
+        for (const [band, v] of Object.entries(h.dpBands))
+          scaled[band as DpBandName] = { timeS: v!.timeS * f, massKg: v!.massKg * f };
+        perTransmitter
+          .get(t.id)!
+          .push({
+            flowTimeS: h.flowTimeS * f,
+            massKg: h.massKg * f,
+            standardVolumeM3: h.standardVolumeM3 * f,
+            uncertaintyPercent: h.uncertaintyPercent,
+            dpBands: scaled,
+          });
       }
     }
     const transmitters = dps.map((t) => {
@@ -118,7 +136,12 @@ export function meterRunRangeHealthRouter(pool: Pool) {
         massKg: s.massKg,
         standardVolumeM3: s.standardVolumeM3,
         uncertaintyPercent: s.uncertaintyPercent,
-        bands: Object.fromEntries(s.bands.map((b) => [b.band, { flowTimeShare: b.flowTimeShare, massShare: b.massShare, standardVolumeShare: b.standardVolumeShare }])),
+        bands: Object.fromEntries(
+          s.bands.map((b) => [
+            b.band,
+            { flowTimeShare: b.flowTimeShare, massShare: b.massShare, standardVolumeShare: b.standardVolumeShare },
+          ]),
+        ),
       };
     });
 
@@ -129,16 +152,25 @@ export function meterRunRangeHealthRouter(pool: Pool) {
       hours: hours.length,
       ...summary,
       transmitters,
-      attribution: { method: 'whole hours exact; hours with a switch of the pair shared out by time in use', apportionedFlowTimeS },
+      attribution: {
+        method: 'whole hours exact; hours with a switch of the pair shared out by time in use',
+        apportionedFlowTimeS,
+      },
       months,
       recommendation: recommend(),
     });
 
     function recommend() {
-      const rates = hours.filter((h) => h.flowTimeS >= MIN_FLOW_TIME_FOR_RATE_S && h.massKg > 0).map((h) => h.massKg / h.flowTimeS);
+      const rates = hours
+        .filter((h) => h.flowTimeS >= MIN_FLOW_TIME_FOR_RATE_S && h.massKg > 0)
+        .map((h) => h.massKg / h.flowTimeS);
       const version = [...ctx!.configVersions].reverse().find((v) => v.effectiveFromMs < toMs);
       if (!rates.length || !version || !dps.length) {
-        return { kind: 'unavailable', text: 'No recommendation: the period has no hour with flow (or the meter run has no DP transmitter or configuration).', numbers: {} };
+        return {
+          kind: 'unavailable',
+          text: 'No recommendation: the period has no hour with flow (or the meter run has no DP transmitter or configuration).',
+          numbers: {},
+        };
       }
       const weighted = (pick: (h: (typeof hours)[number]) => number | null) => {
         let num = 0;
@@ -154,7 +186,12 @@ export function meterRunRangeHealthRouter(pool: Pool) {
       };
       const pressurePa = weighted((h) => h.pressurePa);
       const temperatureK = weighted((h) => h.temperatureK);
-      if (pressurePa === null || temperatureK === null) return { kind: 'unavailable', text: 'No recommendation: no average pressure and temperature in the period.', numbers: {} };
+      if (pressurePa === null || temperatureK === null)
+        return {
+          kind: 'unavailable',
+          text: 'No recommendation: no average pressure and temperature in the period.',
+          numbers: {},
+        };
       const band = (name: DpBandName) => summary.bands.find((b) => b.band === name)!;
       try {
         const advice = rangeAdvice({
@@ -162,8 +199,19 @@ export function meterRunRangeHealthRouter(pool: Pool) {
           fluid: version.fluid,
           conditions: { staticPressurePa: pressurePa, temperatureK },
           // The lowest hourly rate is the 5th percentile, so a start-up hour does not set it.
-          flowRange: { minimumKgPerS: quantile(rates, 0.05), normalKgPerS: quantile(rates, 0.5), maximumKgPerS: Math.max(...rates) },
-          transmitters: dps.map((t) => ({ id: t.id, tag: tags.get(t.id) ?? t.id, stackRole: t.stackRole, spanPa: toSI(t.upperRange, t.unit) - toSI(t.lowerRange, t.unit), accuracyPercentOfSpan: t.accuracyPercentOfSpan, unit: t.unit })),
+          flowRange: {
+            minimumKgPerS: quantile(rates, 0.05),
+            normalKgPerS: quantile(rates, 0.5),
+            maximumKgPerS: Math.max(...rates),
+          },
+          transmitters: dps.map((t) => ({
+            id: t.id,
+            tag: tags.get(t.id) ?? t.id,
+            stackRole: t.stackRole,
+            spanPa: toSI(t.upperRange, t.unit) - toSI(t.lowerRange, t.unit),
+            accuracyPercentOfSpan: t.accuracyPercentOfSpan,
+            unit: t.unit,
+          })),
           lowInRangeTimeShare: band('0-10').flowTimeShare,
           overRangeTimeShare: band('over').flowTimeShare,
           uncertaintyLimitPercent: q.uncertaintyLimitPercent,
@@ -178,14 +226,23 @@ export function meterRunRangeHealthRouter(pool: Pool) {
           numbers: advice.numbers,
           rangeCheck: {
             rangeCovered: rc.rangeCovered,
-            flows: rc.flows.map((f) => ({ label: f.label, massFlowKgPerS: f.massFlowKgPerS, differentialPressurePa: f.differentialPressurePa, transmitters: f.transmitters })),
+            flows: rc.flows.map((f) => ({
+              label: f.label,
+              massFlowKgPerS: f.massFlowKgPerS,
+              differentialPressurePa: f.differentialPressurePa,
+              transmitters: f.transmitters,
+            })),
             transmitters: rc.transmitters,
             suggestedLowRangeSpan: rc.suggestedLowRangeSpan,
             warnings: rc.warnings,
           },
         };
       } catch (err) {
-        return { kind: 'unavailable', text: `No recommendation: the range check failed (${err instanceof Error ? err.message : String(err)}).`, numbers: {} };
+        return {
+          kind: 'unavailable',
+          text: `No recommendation: the range check failed (${err instanceof Error ? err.message : String(err)}).`,
+          numbers: {},
+        };
       }
     }
   });

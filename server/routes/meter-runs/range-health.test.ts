@@ -18,18 +18,33 @@ beforeAll(async () => {
   t = await testApp();
   token = (await t.signedIn('engineer')).token;
   f = await alarmFixture(t, token);
-  const shares = [...repeat(6 * 60, 0.05), ...repeat(10 * 60, 0.4), ...repeat(6 * 60, 0.75), ...repeat(60, 1.05), ...repeat(61, 0)];
+  const shares = [
+    ...repeat(6 * 60, 0.05),
+    ...repeat(10 * 60, 0.4),
+    ...repeat(6 * 60, 0.75),
+    ...repeat(60, 1.05),
+    ...repeat(61, 0),
+  ];
   await f.writeMinutes(DAY, shares, { dpValue: (_i, share) => share * 50 });
   await t.services.history.settle(120_000);
 }, 180_000);
 afterAll(() => t.close());
 
 describe('GET /api/meter-runs/:id/range-health', () => {
-  const weights = { '0-10': 6 * Math.sqrt(0.05), '10-25': 0, '25-50': 10 * Math.sqrt(0.4), '50-100': 6 * Math.sqrt(0.75), over: Math.sqrt(1.05) };
+  const weights = {
+    '0-10': 6 * Math.sqrt(0.05),
+    '10-25': 0,
+    '25-50': 10 * Math.sqrt(0.4),
+    '50-100': 6 * Math.sqrt(0.75),
+    over: Math.sqrt(1.05),
+  };
   const totalWeight = Object.values(weights).reduce((a, b) => a + b, 0);
 
   it('gives shares of flow time and of volume per band that add up to 100 %, as worked by hand', async () => {
-    const res = await t.http().get(`/api/meter-runs/${f.meterRunId}/range-health?from=2026-10-10T00:00:00Z&to=2026-10-11T00:00:00Z`).set('Authorization', `Bearer ${token}`);
+    const res = await t
+      .http()
+      .get(`/api/meter-runs/${f.meterRunId}/range-health?from=2026-10-10T00:00:00Z&to=2026-10-11T00:00:00Z`)
+      .set('Authorization', `Bearer ${token}`);
     expect(res.status).toBe(200);
     const body = res.body;
     expect(body.hours).toBe(24);
@@ -54,7 +69,10 @@ describe('GET /api/meter-runs/:id/range-health', () => {
   });
 
   it('attributes everything to the single DP transmitter, gives the month and a recommendation with numbers', async () => {
-    const res = await t.http().get(`/api/meter-runs/${f.meterRunId}/range-health?from=2026-10-10T00:00:00Z&to=2026-10-11T00:00:00Z`).set('Authorization', `Bearer ${token}`);
+    const res = await t
+      .http()
+      .get(`/api/meter-runs/${f.meterRunId}/range-health?from=2026-10-10T00:00:00Z&to=2026-10-11T00:00:00Z`)
+      .set('Authorization', `Bearer ${token}`);
     const [dp] = res.body.transmitters;
     expect(dp).toMatchObject({ transmitterId: f.dp.id, stackRole: 'single', flowTimeShare: 1, massShare: 1 });
     expect(res.body.attribution.apportionedFlowTimeS).toBe(0);
@@ -66,7 +84,10 @@ describe('GET /api/meter-runs/:id/range-health', () => {
   });
 
   it('refuses a window that ends before it starts, naming to', async () => {
-    const res = await t.http().get(`/api/meter-runs/${f.meterRunId}/range-health?from=2026-10-11T00:00:00Z&to=2026-10-10T00:00:00Z`).set('Authorization', `Bearer ${token}`);
+    const res = await t
+      .http()
+      .get(`/api/meter-runs/${f.meterRunId}/range-health?from=2026-10-11T00:00:00Z&to=2026-10-10T00:00:00Z`)
+      .set('Authorization', `Bearer ${token}`);
     expect(res.status).toBe(400);
     expect(res.body.error.field).toBe('to');
   });

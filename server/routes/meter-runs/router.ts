@@ -20,7 +20,10 @@ export interface MeterRunHooks {
 const idParam = (id: string) => (/^\d+$/.test(id) ? id : null);
 
 export async function currentConfig(meterRunId: string, at = new Date()) {
-  return ConfigVersion.findOne({ where: { meterRunId, effectiveFrom: { [Op.lte]: at } }, order: [['effectiveFrom', 'DESC']] });
+  return ConfigVersion.findOne({
+    where: { meterRunId, effectiveFrom: { [Op.lte]: at } },
+    order: [['effectiveFrom', 'DESC']],
+  });
 }
 
 export function meterRunsRouter(sequelize: Sequelize, hooks: MeterRunHooks) {
@@ -48,35 +51,64 @@ export function meterRunsRouter(sequelize: Sequelize, hooks: MeterRunHooks) {
 
   router.post('/', requireCapability('configure'), async (req, res) => {
     const input = validate(meterRunSchema, req.body);
-    if (!(await Site.findByPk(input.siteId))) throw badRequest(`siteId: no site ${input.siteId}`, 'siteId', 'invalid_field');
+    if (!(await Site.findByPk(input.siteId)))
+      throw badRequest(`siteId: no site ${input.siteId}`, 'siteId', 'invalid_field');
     try {
       const { run, config } = await sequelize.transaction(async (transaction) => {
         const created = await MeterRun.create(
-          { siteId: input.siteId, tag: input.tag, name: input.name, holdLimitS: input.holdLimitS, maxGapS: input.maxGapS, stackSwitchUpShare: input.stackSwitchUpShare, stackSwitchDownShare: input.stackSwitchDownShare, line: input.line },
+          {
+            siteId: input.siteId,
+            tag: input.tag,
+            name: input.name,
+            holdLimitS: input.holdLimitS,
+            maxGapS: input.maxGapS,
+            stackSwitchUpShare: input.stackSwitchUpShare,
+            stackSwitchDownShare: input.stackSwitchDownShare,
+            line: input.line,
+          },
           { transaction },
         );
         const first = await ConfigVersion.create(
-          { meterRunId: created.id, effectiveFrom: input.effectiveFrom ? new Date(input.effectiveFrom) : beginningOfHistory, element: input.element, fluid: input.fluid, reason: 'first configuration', createdBy: req.user!.id },
+          {
+            meterRunId: created.id,
+            effectiveFrom: input.effectiveFrom ? new Date(input.effectiveFrom) : beginningOfHistory,
+            element: input.element,
+            fluid: input.fluid,
+            reason: 'first configuration',
+            createdBy: req.user!.id,
+          },
           { transaction },
         );
-        await recordAuditEvent({ actor: req.user!, action: 'meter-run.create', entityType: 'meter-run', entityId: String(created.id), after: presentMeterRun(created, first) }, transaction);
+        await recordAuditEvent(
+          {
+            actor: req.user!,
+            action: 'meter-run.create',
+            entityType: 'meter-run',
+            entityId: String(created.id),
+            after: presentMeterRun(created, first),
+          },
+          transaction,
+        );
         return { run: created, config: first };
       });
       res.status(201).json(presentMeterRun(run, config));
     } catch (err) {
-      if (err instanceof UniqueConstraintError) throw conflict(`A meter run tagged ${input.tag} already exists.`, 'tag', 'duplicate');
+      if (err instanceof UniqueConstraintError)
+        throw conflict(`A meter run tagged ${input.tag} already exists.`, 'tag', 'duplicate');
       throw err;
     }
   });
 
   router.patch('/:id', requireCapability('configure'), async (req, res) => {
     const patch = validate(
-      z.object({
-        name: z.string().trim().min(1).max(200).optional(),
-        holdLimitS: z.number().positive().optional(),
-        maxGapS: z.number().positive().optional(),
-        line: meterRunSchema.shape.line.optional(),
-      }).strict(),
+      z
+        .object({
+          name: z.string().trim().min(1).max(200).optional(),
+          holdLimitS: z.number().positive().optional(),
+          maxGapS: z.number().positive().optional(),
+          line: meterRunSchema.shape.line.optional(),
+        })
+        .strict(),
       req.body,
     );
     const id = idParam(String(req.params.id));
@@ -85,10 +117,21 @@ export function meterRunsRouter(sequelize: Sequelize, hooks: MeterRunHooks) {
       if (!run) throw notFound('Meter run');
       const before = presentMeterRun(run);
       await run.update(patch, { transaction });
-      await recordAuditEvent({ actor: req.user!, action: 'meter-run.update', entityType: 'meter-run', entityId: String(run.id), before, after: presentMeterRun(run) }, transaction);
+      await recordAuditEvent(
+        {
+          actor: req.user!,
+          action: 'meter-run.update',
+          entityType: 'meter-run',
+          entityId: String(run.id),
+          before,
+          after: presentMeterRun(run),
+        },
+        transaction,
+      );
       return run;
     });
-    if (patch.holdLimitS !== undefined || patch.maxGapS !== undefined) await hooks.configChanged(String(updated.id), beginningOfHistory);
+    if (patch.holdLimitS !== undefined || patch.maxGapS !== undefined)
+      await hooks.configChanged(String(updated.id), beginningOfHistory);
     res.json(presentMeterRun(updated, await currentConfig(String(updated.id))));
   });
 
@@ -108,16 +151,37 @@ export function meterRunsRouter(sequelize: Sequelize, hooks: MeterRunHooks) {
     try {
       const version = await sequelize.transaction(async (transaction) => {
         const created = await ConfigVersion.create(
-          { meterRunId: run.id, effectiveFrom, element: input.element, fluid: input.fluid, reason: input.reason, createdBy: req.user!.id },
+          {
+            meterRunId: run.id,
+            effectiveFrom,
+            element: input.element,
+            fluid: input.fluid,
+            reason: input.reason,
+            createdBy: req.user!.id,
+          },
           { transaction },
         );
-        await recordAuditEvent({ actor: req.user!, action: 'config-version.create', entityType: 'meter-run', entityId: String(run.id), after: presentConfigVersion(created) }, transaction);
+        await recordAuditEvent(
+          {
+            actor: req.user!,
+            action: 'config-version.create',
+            entityType: 'meter-run',
+            entityId: String(run.id),
+            after: presentConfigVersion(created),
+          },
+          transaction,
+        );
         return created;
       });
       await hooks.configChanged(String(run.id), effectiveFrom);
       res.status(201).json(presentConfigVersion(version));
     } catch (err) {
-      if (err instanceof UniqueConstraintError) throw conflict('A configuration version with this effective time already exists.', 'effectiveFrom', 'duplicate');
+      if (err instanceof UniqueConstraintError)
+        throw conflict(
+          'A configuration version with this effective time already exists.',
+          'effectiveFrom',
+          'duplicate',
+        );
       throw err;
     }
   });

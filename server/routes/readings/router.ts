@@ -14,7 +14,12 @@ export function readingsRouter(pool: Pool) {
   const router = Router();
   router.get('/', requireCapability('view'), async (req, res) => {
     const q = validate(
-      z.object({ transmitterId: z.string().regex(/^\d+$/, 'must be a transmitter id'), from: isoTime.optional(), to: isoTime.optional(), limit: z.coerce.number().int().min(1).max(100_000).default(10_000) }),
+      z.object({
+        transmitterId: z.string().regex(/^\d+$/, 'must be a transmitter id'),
+        from: isoTime.optional(),
+        to: isoTime.optional(),
+        limit: z.coerce.number().int().min(1).max(100_000).default(10_000),
+      }),
       req.query,
       'query',
     );
@@ -24,7 +29,14 @@ export function readingsRouter(pool: Pool) {
       `SELECT time, value, quality, source FROM readings WHERE transmitter_id = $1 AND time >= $2 AND time < $3 ORDER BY time LIMIT $4`,
       [q.transmitterId, q.from ?? '-infinity', q.to ?? 'infinity', q.limit],
     );
-    res.json(rows.map((r) => ({ time: (r.time as Date).toISOString(), value: r.value, quality: qualityName[r.quality], source: sourceName[r.source] })));
+    res.json(
+      rows.map((r) => ({
+        time: (r.time as Date).toISOString(),
+        value: r.value,
+        quality: qualityName[r.quality],
+        source: sourceName[r.source],
+      })),
+    );
   });
   return router;
 }

@@ -26,12 +26,22 @@ export function sitesRouter(sequelize: Sequelize) {
     try {
       const site = await sequelize.transaction(async (transaction) => {
         const created = await Site.create(input, { transaction });
-        await recordAuditEvent({ actor: req.user!, action: 'site.create', entityType: 'site', entityId: String(created.id), after: presentSite(created) }, transaction);
+        await recordAuditEvent(
+          {
+            actor: req.user!,
+            action: 'site.create',
+            entityType: 'site',
+            entityId: String(created.id),
+            after: presentSite(created),
+          },
+          transaction,
+        );
         return created;
       });
       res.status(201).json(presentSite(site));
     } catch (err) {
-      if (err instanceof UniqueConstraintError) throw conflict(`A site with code ${input.code} already exists.`, 'code', 'duplicate');
+      if (err instanceof UniqueConstraintError)
+        throw conflict(`A site with code ${input.code} already exists.`, 'code', 'duplicate');
       throw err;
     }
   });
@@ -39,11 +49,23 @@ export function sitesRouter(sequelize: Sequelize) {
   router.patch('/:id', requireCapability('configure'), async (req, res) => {
     const input = validate(siteSchema.partial().strict(), req.body);
     const site = await sequelize.transaction(async (transaction) => {
-      const found = /^\d+$/.test(String(req.params.id)) ? await Site.findByPk(String(req.params.id), { transaction, lock: transaction.LOCK.UPDATE }) : null;
+      const found = /^\d+$/.test(String(req.params.id))
+        ? await Site.findByPk(String(req.params.id), { transaction, lock: transaction.LOCK.UPDATE })
+        : null;
       if (!found) throw notFound('Site');
       const before = presentSite(found);
       await found.update(input, { transaction });
-      await recordAuditEvent({ actor: req.user!, action: 'site.update', entityType: 'site', entityId: String(found.id), before, after: presentSite(found) }, transaction);
+      await recordAuditEvent(
+        {
+          actor: req.user!,
+          action: 'site.update',
+          entityType: 'site',
+          entityId: String(found.id),
+          before,
+          after: presentSite(found),
+        },
+        transaction,
+      );
       return found;
     });
     res.json(presentSite(site));

@@ -67,7 +67,10 @@ describe('/api/meter-runs and /api/transmitters', () => {
     const res = await t.http().post('/api/meter-runs').set('Authorization', `Bearer ${engineer.token}`).send(run());
     expect(res.status).toBe(201);
     expect(res.body).toMatchObject({ siteId, element: { kind: 'cone' }, holdLimitS: 60, maxGapS: 300 });
-    const versions = await t.http().get(`/api/meter-runs/${res.body.id}/config-versions`).set('Authorization', `Bearer ${engineer.token}`);
+    const versions = await t
+      .http()
+      .get(`/api/meter-runs/${res.body.id}/config-versions`)
+      .set('Authorization', `Bearer ${engineer.token}`);
     expect(versions.body).toHaveLength(1);
   });
 
@@ -89,17 +92,44 @@ describe('/api/meter-runs and /api/transmitters', () => {
     [{ measures: 'differential-pressure', unit: 'inH2O-60F', lowerRange: 250, upperRange: 0 }, 'upperRange'],
     [{ measures: 'static-pressure', unit: 'psi', stackRole: 'low' }, 'stackRole'],
   ])('refuses a transmitter with %j naming %s', async (over, field) => {
-    const meterRunId = (await t.http().post('/api/meter-runs').set('Authorization', `Bearer ${engineer.token}`).send(run())).body.id;
-    const res = await t.http().post('/api/transmitters').set('Authorization', `Bearer ${engineer.token}`).send({ meterRunId, tag: `TX-${t.unique()}`, lowerRange: 0, upperRange: 100, ...over });
+    const meterRunId = (
+      await t.http().post('/api/meter-runs').set('Authorization', `Bearer ${engineer.token}`).send(run())
+    ).body.id;
+    const res = await t
+      .http()
+      .post('/api/transmitters')
+      .set('Authorization', `Bearer ${engineer.token}`)
+      .send({ meterRunId, tag: `TX-${t.unique()}`, lowerRange: 0, upperRange: 100, ...over });
     expect(res.status).toBe(400);
     expect(res.body.error.field).toBe(field);
   });
 
   it('refuses a second low-range transmitter on one meter run with 409', async () => {
-    const meterRunId = (await t.http().post('/api/meter-runs').set('Authorization', `Bearer ${engineer.token}`).send(run())).body.id;
-    const low = { meterRunId, measures: 'differential-pressure', unit: 'inH2O-60F', lowerRange: 0, upperRange: 25, stackRole: 'low' };
-    expect((await t.http().post('/api/transmitters').set('Authorization', `Bearer ${engineer.token}`).send({ ...low, tag: `L1-${t.unique()}` })).status).toBe(201);
-    const second = await t.http().post('/api/transmitters').set('Authorization', `Bearer ${engineer.token}`).send({ ...low, tag: `L2-${t.unique()}` });
+    const meterRunId = (
+      await t.http().post('/api/meter-runs').set('Authorization', `Bearer ${engineer.token}`).send(run())
+    ).body.id;
+    const low = {
+      meterRunId,
+      measures: 'differential-pressure',
+      unit: 'inH2O-60F',
+      lowerRange: 0,
+      upperRange: 25,
+      stackRole: 'low',
+    };
+    expect(
+      (
+        await t
+          .http()
+          .post('/api/transmitters')
+          .set('Authorization', `Bearer ${engineer.token}`)
+          .send({ ...low, tag: `L1-${t.unique()}` })
+      ).status,
+    ).toBe(201);
+    const second = await t
+      .http()
+      .post('/api/transmitters')
+      .set('Authorization', `Bearer ${engineer.token}`)
+      .send({ ...low, tag: `L2-${t.unique()}` });
     expect(second.status).toBe(409);
     expect(second.body.error.field).toBe('stackRole');
   });

@@ -23,23 +23,34 @@ export function usersRouter(sequelize: Sequelize) {
     const passwordHash = await hashPassword(input.password);
     try {
       const user = await sequelize.transaction(async (transaction) => {
-        const created = await User.create({ email: input.email, name: input.name, role: input.role, passwordHash }, { transaction });
+        const created = await User.create(
+          { email: input.email, name: input.name, role: input.role, passwordHash },
+          { transaction },
+        );
         await recordAuditEvent(
-          { actor: req.user!, action: 'user.create', entityType: 'user', entityId: String(created.id), after: presentUser(created) },
+          {
+            actor: req.user!,
+            action: 'user.create',
+            entityType: 'user',
+            entityId: String(created.id),
+            after: presentUser(created),
+          },
           transaction,
         );
         return created;
       });
       res.status(201).json(presentUser(user));
     } catch (err) {
-      if (err instanceof UniqueConstraintError) throw conflict('A user with this email already exists.', 'email', 'duplicate');
+      if (err instanceof UniqueConstraintError)
+        throw conflict('A user with this email already exists.', 'email', 'duplicate');
       throw err;
     }
   });
 
   router.patch('/:id', async (req, res) => {
     const input = validate(updateUserSchema, req.body);
-    if (Object.keys(input).length === 0) throw badRequest('Give at least one of name, role, disabled, password.', 'body');
+    if (Object.keys(input).length === 0)
+      throw badRequest('Give at least one of name, role, disabled, password.', 'body');
     const id = req.params.id;
     if (!/^\d+$/.test(id)) throw notFound('User');
     if (id === req.user!.id && (input.disabled === true || (input.role && input.role !== 'admin'))) {
@@ -57,7 +68,10 @@ export function usersRouter(sequelize: Sequelize) {
       await found.save({ transaction });
       const after = presentUser(found);
       const action = input.password !== undefined ? 'user.update-with-password' : 'user.update';
-      await recordAuditEvent({ actor: req.user!, action, entityType: 'user', entityId: id, before, after }, transaction);
+      await recordAuditEvent(
+        { actor: req.user!, action, entityType: 'user', entityId: id, before, after },
+        transaction,
+      );
       return found;
     });
     res.json(presentUser(user));

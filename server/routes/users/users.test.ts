@@ -15,13 +15,22 @@ async function auditFor(entityId: string) {
     'SELECT action, actor_email, before, after FROM audit_events WHERE entity_type = :type AND entity_id = :id ORDER BY id',
     { replacements: { type: 'user', id: entityId } },
   );
-  return rows as { action: string; actor_email: string; before: Record<string, unknown> | null; after: Record<string, unknown> | null }[];
+  return rows as {
+    action: string;
+    actor_email: string;
+    before: Record<string, unknown> | null;
+    after: Record<string, unknown> | null;
+  }[];
 }
 
 describe('/api/users (admin)', () => {
   it('creates a user who can then sign in, and records who created it', async () => {
     const email = `new-${t.unique()}@test.tallyrun`;
-    const res = await t.http().post('/api/users').set(as(admin.token)).send({ email, name: 'New Person', role: 'operator', password: 'a-long-password' });
+    const res = await t
+      .http()
+      .post('/api/users')
+      .set(as(admin.token))
+      .send({ email, name: 'New Person', role: 'operator', password: 'a-long-password' });
     expect(res.status).toBe(201);
     expect(res.body).toMatchObject({ email, name: 'New Person', role: 'operator', disabled: false });
     expect(res.body.passwordHash).toBeUndefined();
@@ -34,7 +43,10 @@ describe('/api/users (admin)', () => {
   it('lists users without their password hashes', async () => {
     const res = await t.http().get('/api/users').set(as(admin.token));
     expect(res.status).toBe(200);
-    expect(res.body.find((u: { email: string }) => u.email === admin.email)).toMatchObject({ role: 'admin', disabled: false });
+    expect(res.body.find((u: { email: string }) => u.email === admin.email)).toMatchObject({
+      role: 'admin',
+      disabled: false,
+    });
     expect(JSON.stringify(res.body)).not.toMatch(/password/i);
   });
 
@@ -44,7 +56,11 @@ describe('/api/users (admin)', () => {
     expect(res.status).toBe(200);
     expect(res.body.role).toBe('engineer');
     const audit = await auditFor(u.id);
-    expect(audit[0]).toMatchObject({ action: 'user.update', before: { role: 'operator' }, after: { role: 'engineer' } });
+    expect(audit[0]).toMatchObject({
+      action: 'user.update',
+      before: { role: 'operator' },
+      after: { role: 'engineer' },
+    });
   });
 
   it('disables a user, whose sign-in is then refused', async () => {
@@ -56,7 +72,11 @@ describe('/api/users (admin)', () => {
 
   it('refuses a second user with the same email (in any letter case) with 409', async () => {
     const u = await t.signedIn('operator');
-    const res = await t.http().post('/api/users').set(as(admin.token)).send({ email: u.email.toUpperCase(), name: 'Twin', role: 'operator', password: 'a-long-password' });
+    const res = await t
+      .http()
+      .post('/api/users')
+      .set(as(admin.token))
+      .send({ email: u.email.toUpperCase(), name: 'Twin', role: 'operator', password: 'a-long-password' });
     expect(res.status).toBe(409);
     expect(res.body.error.field).toBe('email');
   });
@@ -74,7 +94,11 @@ describe('/api/users (admin)', () => {
 
   it('refuses an unknown field in a change with 400', async () => {
     const u = await t.signedIn('operator');
-    const res = await t.http().patch(`/api/users/${u.id}`).set(as(admin.token)).send({ email: 'changed@test.tallyrun' });
+    const res = await t
+      .http()
+      .patch(`/api/users/${u.id}`)
+      .set(as(admin.token))
+      .send({ email: 'changed@test.tallyrun' });
     expect(res.status).toBe(400);
   });
 

@@ -43,7 +43,11 @@ const INDEX = new Map<string, number>(DETAIL_COMPONENTS.map((name, i) => [name, 
  * @returns the canonical name (not necessarily a known component)
  */
 export function canonicalComponentName(name: string): string {
-  const s = name.trim().toLowerCase().replace(/[\s_]+/g, '-').replace(/-+/g, '-');
+  const s = name
+    .trim()
+    .toLowerCase()
+    .replace(/[\s_]+/g, '-')
+    .replace(/-+/g, '-');
   return ALIASES[s] ?? s;
 }
 
@@ -69,7 +73,10 @@ export interface DetailComposition {
  * @returns normalised mole fractions and warnings
  * @throws Error naming the function and the offending component
  */
-export function parseDetailComposition(composition: Record<string, number>, caller = 'parseDetailComposition'): DetailComposition {
+export function parseDetailComposition(
+  composition: Record<string, number>,
+  caller = 'parseDetailComposition',
+): DetailComposition {
   if (composition === null || typeof composition !== 'object' || Array.isArray(composition)) {
     throw new Error(`${caller}: composition must be an object of mole fractions keyed by component name`);
   }

@@ -1,5 +1,5 @@
 import { DETAIL_GAS_CONSTANT as R } from './detail-constants';
-import { DetailMixture } from './prepare-detail-mixture';
+import { type DetailMixture } from './prepare-detail-mixture';
 import { detailDensityDerivatives, temperatureSlot } from './detail-residual';
 
 const dd = new Float64Array(2);

@@ -49,9 +49,11 @@ describe('AGA 8 Part 1 DETAIL: Z of the five AGA 8 example gases', () => {
 
   // Tighter regression: the data sheet's 9-decimal re-implementation table ([calc], not NIST).
   it.each(FIVE_GAS_Z_9.flatMap(([t, p, ...zs]) => GAS_ORDER.map((gas, g) => [gas, t, p, zs[g]] as const)))(
-    'agrees to 1e-9 with the data sheet\'s 9-decimal re-implementation for %s at %s K and %s MPa (Z = %s [calc])',
+    "agrees to 1e-9 with the data sheet's 9-decimal re-implementation for %s at %s K and %s MPa (Z = %s [calc])",
     (gas, t, p, z) => {
-      expect(Math.abs(detailPropertiesPT(mixtures[gas], p * 1e6, t).compressibility - z)).toBeLessThanOrEqual(5.0001e-10);
+      expect(Math.abs(detailPropertiesPT(mixtures[gas], p * 1e6, t).compressibility - z)).toBeLessThanOrEqual(
+        5.0001e-10,
+      );
     },
   );
 

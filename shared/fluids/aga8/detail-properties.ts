@@ -1,5 +1,5 @@
 import { DETAIL_GAS_CONSTANT as R } from './detail-constants';
-import { DetailMixture } from './prepare-detail-mixture';
+import { type DetailMixture } from './prepare-detail-mixture';
 import { AR, D1, D2, D3, T1, T11, T2, detailResidualDerivatives } from './detail-residual';
 import { detailMolarDensityMolPerM3 } from './detail-molar-density';
 
@@ -90,7 +90,11 @@ function idealGasPart(mix: DetailMixture, t: number, d: number): [number, number
  * @param molarDensityMolPerM3 molar density, mol/m³
  * @returns the properties (pressure follows from the equation)
  */
-export function detailPropertiesTD(mix: DetailMixture, temperatureK: number, molarDensityMolPerM3: number): DetailProperties {
+export function detailPropertiesTD(
+  mix: DetailMixture,
+  temperatureK: number,
+  molarDensityMolPerM3: number,
+): DetailProperties {
   const t = temperatureK;
   const d = molarDensityMolPerM3 / 1000; // mol/dm³
   detailResidualDerivatives(mix, t, d, r);
@@ -117,14 +121,14 @@ export function detailPropertiesTD(mix: DetailMixture, temperatureK: number, mol
     h = u + p / d;
     g = a + p / d;
     cp = cv + (t * (dpdt / d) * (dpdt / d)) / dpdd;
-    jt = ((t / d) * dpdt / dpdd - 1) / cp / d;
+    jt = (((t / d) * dpdt) / dpdd - 1) / cp / d;
   } else {
     h = u + rt;
     g = a + rt;
     cp = cv + R;
     jt = 1e20;
   }
-  const w2 = (1000 * cp / cv * dpdd) / m;
+  const w2 = (((1000 * cp) / cv) * dpdd) / m;
   const w = w2 > 0 ? Math.sqrt(w2) : 0;
   return {
     pressurePa: p * 1000,

@@ -75,20 +75,24 @@ export function detailStateWarnings(pressurePa: number, temperatureK: number): W
     temperatureK < DETAIL_EXTENDED_MIN_TEMPERATURE_K ||
     temperatureK > DETAIL_EXTENDED_MAX_TEMPERATURE_K
   ) {
-    return [{
-      code: 'aga8.outsideExtendedRange',
-      message: `p = ${pressurePa} Pa, T = ${temperatureK} K is outside the AGA 8 DETAIL extended range (≤ 280 MPa, 143…477 K); results are extrapolations.`,
-    }];
+    return [
+      {
+        code: 'aga8.outsideExtendedRange',
+        message: `p = ${pressurePa} Pa, T = ${temperatureK} K is outside the AGA 8 DETAIL extended range (≤ 280 MPa, 143…477 K); results are extrapolations.`,
+      },
+    ];
   }
   if (
     pressurePa > DETAIL_NORMAL_MAX_PRESSURE_PA ||
     temperatureK < DETAIL_NORMAL_MIN_TEMPERATURE_K ||
     temperatureK > DETAIL_NORMAL_MAX_TEMPERATURE_K
   ) {
-    return [{
-      code: 'aga8.outsideNormalRange',
-      message: `p = ${pressurePa} Pa, T = ${temperatureK} K is outside the AGA 8 DETAIL normal range (≤ 12 MPa, 265…335 K); uncertainty of Z is larger there.`,
-    }];
+    return [
+      {
+        code: 'aga8.outsideNormalRange',
+        message: `p = ${pressurePa} Pa, T = ${temperatureK} K is outside the AGA 8 DETAIL normal range (≤ 12 MPa, 265…335 K); uncertainty of Z is larger there.`,
+      },
+    ];
   }
   return [];
 }

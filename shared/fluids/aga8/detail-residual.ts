@@ -1,5 +1,5 @@
 import { DETAIL_TERM_COUNT as NT, TERM_B, TERM_K, TERM_U } from './detail-constants';
-import { DetailMixture, T_SLOT_SIZE } from './prepare-detail-mixture';
+import { type DetailMixture, T_SLOT_SIZE } from './prepare-detail-mixture';
 
 // Term exponents as small integers for the inner loops (bₙ ∈ 1..9, kₙ ∈ 0..4).
 const B_INT = Int32Array.from(TERM_B);
@@ -63,7 +63,12 @@ function fillPowers(rhoR: number): void {
  * @param molarDensity D, mol/dm³
  * @param out receives [δ₁, δ₂]
  */
-export function detailDensityDerivatives(mix: DetailMixture, slot: number, molarDensity: number, out: Float64Array): void {
+export function detailDensityDerivatives(
+  mix: DetailMixture,
+  slot: number,
+  molarDensity: number,
+  out: Float64Array,
+): void {
   const c = mix.tCache;
   const rhoR = mix.k3 * molarDensity;
   fillPowers(rhoR);
@@ -107,7 +112,12 @@ export const T11 = 6;
  * @param molarDensity D, mol/dm³
  * @param out receives the seven values
  */
-export function detailResidualDerivatives(mix: DetailMixture, temperatureK: number, molarDensity: number, out: Float64Array): void {
+export function detailResidualDerivatives(
+  mix: DetailMixture,
+  temperatureK: number,
+  molarDensity: number,
+  out: Float64Array,
+): void {
   const slot = temperatureSlot(mix, temperatureK);
   const c = mix.tCache;
   const rhoR = mix.k3 * molarDensity;

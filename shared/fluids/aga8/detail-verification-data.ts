@@ -5,11 +5,59 @@
 
 /** Five AGA 8 example gases, mol % (sheet §10(b), NIST TESTDATA/Tables.xls cells D8:H17). */
 export const FIVE_GASES: Record<string, Record<string, number>> = {
-  'Gulf Coast': { methane: 96.5222, nitrogen: 0.2595, 'carbon-dioxide': 0.5956, ethane: 1.8186, propane: 0.4596, isobutane: 0.0977, 'n-butane': 0.1007, isopentane: 0.0473, 'n-pentane': 0.0324, 'n-hexane': 0.0664 },
-  Amarillo: { methane: 90.6724, nitrogen: 3.1284, 'carbon-dioxide': 0.4676, ethane: 4.5279, propane: 0.828, isobutane: 0.1037, 'n-butane': 0.1563, isopentane: 0.0321, 'n-pentane': 0.0443, 'n-hexane': 0.0393 },
-  Ekofisk: { methane: 85.9063, nitrogen: 1.0068, 'carbon-dioxide': 1.4954, ethane: 8.4919, propane: 2.3015, isobutane: 0.3486, 'n-butane': 0.3506, isopentane: 0.0509, 'n-pentane': 0.048 },
-  'High N2': { methane: 81.441, nitrogen: 13.465, 'carbon-dioxide': 0.985, ethane: 3.3, propane: 0.605, isobutane: 0.1, 'n-butane': 0.104 },
-  'High CO2': { methane: 81.212, nitrogen: 5.702, 'carbon-dioxide': 7.585, ethane: 4.303, propane: 0.895, isobutane: 0.151, 'n-butane': 0.152 },
+  'Gulf Coast': {
+    methane: 96.5222,
+    nitrogen: 0.2595,
+    'carbon-dioxide': 0.5956,
+    ethane: 1.8186,
+    propane: 0.4596,
+    isobutane: 0.0977,
+    'n-butane': 0.1007,
+    isopentane: 0.0473,
+    'n-pentane': 0.0324,
+    'n-hexane': 0.0664,
+  },
+  Amarillo: {
+    methane: 90.6724,
+    nitrogen: 3.1284,
+    'carbon-dioxide': 0.4676,
+    ethane: 4.5279,
+    propane: 0.828,
+    isobutane: 0.1037,
+    'n-butane': 0.1563,
+    isopentane: 0.0321,
+    'n-pentane': 0.0443,
+    'n-hexane': 0.0393,
+  },
+  Ekofisk: {
+    methane: 85.9063,
+    nitrogen: 1.0068,
+    'carbon-dioxide': 1.4954,
+    ethane: 8.4919,
+    propane: 2.3015,
+    isobutane: 0.3486,
+    'n-butane': 0.3506,
+    isopentane: 0.0509,
+    'n-pentane': 0.048,
+  },
+  'High N2': {
+    methane: 81.441,
+    nitrogen: 13.465,
+    'carbon-dioxide': 0.985,
+    ethane: 3.3,
+    propane: 0.605,
+    isobutane: 0.1,
+    'n-butane': 0.104,
+  },
+  'High CO2': {
+    methane: 81.212,
+    nitrogen: 5.702,
+    'carbon-dioxide': 7.585,
+    ethane: 4.303,
+    propane: 0.895,
+    isobutane: 0.151,
+    'n-butane': 0.152,
+  },
 };
 
 export const GAS_ORDER = ['Gulf Coast', 'Amarillo', 'Ekofisk', 'High N2', 'High CO2'] as const;
@@ -35,16 +83,40 @@ export const FIVE_GAS_Z: ReadonlyArray<readonly [number, number, number, number,
 
 /** NIST's 21-component test mixture, mole fractions (sheet §10(a), AGA8CODE/C/Detail_test_01.cpp). */
 export const NIST_MIXTURE: Record<string, number> = {
-  methane: 0.77824, nitrogen: 0.02, 'carbon-dioxide': 0.06, ethane: 0.08, propane: 0.03, isobutane: 0.0015,
-  'n-butane': 0.003, isopentane: 0.0005, 'n-pentane': 0.00165, 'n-hexane': 0.00215, 'n-heptane': 0.00088,
-  'n-octane': 0.00024, 'n-nonane': 0.00015, 'n-decane': 9e-5, hydrogen: 0.004, oxygen: 0.005,
-  'carbon-monoxide': 0.002, water: 0.0001, 'hydrogen-sulfide': 0.0025, helium: 0.007, argon: 0.001,
+  methane: 0.77824,
+  nitrogen: 0.02,
+  'carbon-dioxide': 0.06,
+  ethane: 0.08,
+  propane: 0.03,
+  isobutane: 0.0015,
+  'n-butane': 0.003,
+  isopentane: 0.0005,
+  'n-pentane': 0.00165,
+  'n-hexane': 0.00215,
+  'n-heptane': 0.00088,
+  'n-octane': 0.00024,
+  'n-nonane': 0.00015,
+  'n-decane': 9e-5,
+  hydrogen: 0.004,
+  oxygen: 0.005,
+  'carbon-monoxide': 0.002,
+  water: 0.0001,
+  'hydrogen-sulfide': 0.0025,
+  helium: 0.007,
+  argon: 0.001,
 };
 
 /** Gas #2 of NIST's "Test Data.xls" (sheet §10(c), also AGA8CODE/RUST/tests/integration-tests.rs), mole fractions. */
 export const TEST_DATA_GAS_2: Record<string, number> = {
-  methane: 0.9969531, nitrogen: 0.002016, 'carbon-dioxide': 0.0000937, ethane: 0.0007671, propane: 0.0000679,
-  isobutane: 0.0000197, 'n-butane': 0.0000068, isopentane: 0.0000156, helium: 0.0000601,
+  methane: 0.9969531,
+  nitrogen: 0.002016,
+  'carbon-dioxide': 0.0000937,
+  ethane: 0.0007671,
+  propane: 0.0000679,
+  isobutane: 0.0000197,
+  'n-butane': 0.0000068,
+  isopentane: 0.0000156,
+  helium: 0.0000601,
 };
 
 /** (T K, D mol/dm³) → P kPa, cv, cp J/(mol K), w m/s (sheet §10(c)). */

@@ -11,7 +11,18 @@ describe('prepareDetailMixture', () => {
   });
 
   it('gives the DETAIL molar mass of the Gulf Coast gas, 16.799439 g/mol (data sheet §10(b) [calc], not the sheet row 16.7989 which uses GERG-2008 masses)', () => {
-    const mix = prepareDetailMixture({ methane: 0.965222, nitrogen: 0.002595, 'carbon-dioxide': 0.005956, ethane: 0.018186, propane: 0.004596, isobutane: 0.000977, 'n-butane': 0.001007, isopentane: 0.000473, 'n-pentane': 0.000324, 'n-hexane': 0.000664 });
+    const mix = prepareDetailMixture({
+      methane: 0.965222,
+      nitrogen: 0.002595,
+      'carbon-dioxide': 0.005956,
+      ethane: 0.018186,
+      propane: 0.004596,
+      isobutane: 0.000977,
+      'n-butane': 0.001007,
+      isopentane: 0.000473,
+      'n-pentane': 0.000324,
+      'n-hexane': 0.000664,
+    });
     expect(mix.molarMassGPerMol).toBeCloseTo(16.799439, 6);
   });
 
@@ -35,11 +46,15 @@ describe('prepareDetailMixture', () => {
   });
 
   it('rejects an unknown component with an error naming it', () => {
-    expect(() => prepareDetailMixture({ methane: 0.9, neon: 0.1 })).toThrow(/prepareDetailMixture: .*unknown component "neon"/);
+    expect(() => prepareDetailMixture({ methane: 0.9, neon: 0.1 })).toThrow(
+      /prepareDetailMixture: .*unknown component "neon"/,
+    );
   });
 
   it('rejects a negative or non-finite fraction with an error naming the component', () => {
-    expect(() => prepareDetailMixture({ methane: 1.1, ethane: -0.1 })).toThrow(/prepareDetailMixture: composition\["ethane"\]/);
+    expect(() => prepareDetailMixture({ methane: 1.1, ethane: -0.1 })).toThrow(
+      /prepareDetailMixture: composition\["ethane"\]/,
+    );
     expect(() => prepareDetailMixture({ methane: NaN })).toThrow(/composition\["methane"\]/);
   });
 

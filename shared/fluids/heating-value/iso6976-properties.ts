@@ -99,7 +99,7 @@ export function iso6976Properties(
     inferiorMassJPerKg: (net / m) * 1e6,
     superiorVolumetricJPerM3: hsV,
     inferiorVolumetricJPerM3: hiV,
-    densityKgPerM3: (m / 1000) * molesPerM3Ideal / z,
+    densityKgPerM3: ((m / 1000) * molesPerM3Ideal) / z,
     relativeDensity,
     idealRelativeDensity,
     superiorWobbeIndexJPerM3: hsV / Math.sqrt(relativeDensity),

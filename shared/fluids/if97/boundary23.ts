@@ -4,7 +4,7 @@ const N1 = 0.34805185628969e3;
 const N2 = -0.11671859879975e1;
 const N3 = 0.10192970039326e-2;
 const N4 = 0.57254459862746e3;
-const N5 = 0.1391883977870e2;
+const N5 = 0.139188397787e2;
 
 /**
  * Pressure on the region-2/region-3 boundary at a given temperature, R7-97(2012) eq. (5),

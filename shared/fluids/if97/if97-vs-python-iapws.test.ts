@@ -54,7 +54,16 @@ for rho, t in req["r3"]:
 json.dump(out, sys.stdout)
 `;
 
-interface Props { rho: number; h: number; s: number; cp: number; cv: number; w: number; mu: number; region: number }
+interface Props {
+  rho: number;
+  h: number;
+  s: number;
+  cp: number;
+  cv: number;
+  w: number;
+  mu: number;
+  region: number;
+}
 interface Answer {
   pt: Props[];
   satL: Array<Omit<Props, 'cv' | 'mu' | 'region'>>;
@@ -67,7 +76,11 @@ interface Answer {
 
 function askPythonIapws(request: object): Answer {
   try {
-    const stdout = execFileSync(PYTHON, ['-c', SCRIPT], { input: JSON.stringify(request), encoding: 'utf8', maxBuffer: 64 << 20 });
+    const stdout = execFileSync(PYTHON, ['-c', SCRIPT], {
+      input: JSON.stringify(request),
+      encoding: 'utf8',
+      maxBuffer: 64 << 20,
+    });
     return JSON.parse(stdout) as Answer;
   } catch (e) {
     throw new Error(
@@ -93,12 +106,29 @@ for (const t of region2Temps) {
     if (p * 1e6 < limit) pt.push([p, t]);
   }
 }
-const region5Points: Array<[number, number]> = [[0.1, 1200], [1, 1500], [10, 1800], [30, 2000], [50, 2273.15]];
+const region5Points: Array<[number, number]> = [
+  [0.1, 1200],
+  [1, 1500],
+  [10, 1800],
+  [30, 2000],
+  [50, 2273.15],
+];
 pt.push(...region5Points);
 // Region 3: python3-iapws starts from the supplementary backward equations v(p,T) (IAPWS
 // SR5-05(2016)) and refines with the basic equation; this code solves the basic equation
 // directly from a bracketing scan: two different routes to the same root.
-const region3Points: Array<[number, number]> = [[25, 650], [30, 660], [40, 700], [50, 750], [100, 800], [20, 640], [18, 630], [22, 645], [60, 680], [100, 855]];
+const region3Points: Array<[number, number]> = [
+  [25, 650],
+  [30, 660],
+  [40, 700],
+  [50, 750],
+  [100, 800],
+  [20, 640],
+  [18, 630],
+  [22, 645],
+  [60, 680],
+  [100, 855],
+];
 const sat = [273.16, 280, 300, 325, 350, 375, 400, 425, 450, 475, 500, 525, 550, 575, 600, 623.15, 630, 640, 645, 647];
 const tsat = [0.001, 0.005, 0.01, 0.05, 0.1, 0.2, 0.5, 1, 2, 5, 10, 15, 20, 22];
 
@@ -106,9 +136,7 @@ const answer = askPythonIapws({
   pt: [...pt, ...region3Points],
   sat,
   tsat,
-  visc: [
-    ...VISCOSITY_TABLE_4.map((r) => [r.densityKgPerM3, r.temperatureK]),
-  ],
+  visc: [...VISCOSITY_TABLE_4.map((r) => [r.densityKgPerM3, r.temperatureK])],
   r3: REGION_3_TABLE_33.map((r) => [r.densityKgPerM3, r.temperatureK]),
 });
 const tablePoints = [...REGION_1_TABLE_5, ...REGION_2_TABLE_15, ...REGION_5_TABLE_42];
@@ -214,11 +242,15 @@ describe('the remembered release verification tables agree with python3-iapws', 
 
   it('R7-97(2012) Tables 35 and 36 (saturation)', () => {
     SATURATION_PRESSURE_TABLE_35.forEach((r, i) => expect(rel(tableAnswer.psat[i], r.pressureMPa)).toBeLessThan(1e-8));
-    SATURATION_TEMPERATURE_TABLE_36.forEach((r, i) => expect(rel(tableAnswer.tsat[i], r.temperatureK)).toBeLessThan(1e-8));
+    SATURATION_TEMPERATURE_TABLE_36.forEach((r, i) =>
+      expect(rel(tableAnswer.tsat[i], r.temperatureK)).toBeLessThan(1e-8),
+    );
   });
 
   it('R12-08 Table 4 (viscosity)', () => {
-    VISCOSITY_TABLE_4.forEach((r, i) => expect(Math.abs(answer.visc[i] * 1e6 - r.viscosityMicroPaS)).toBeLessThan(1e-6));
+    VISCOSITY_TABLE_4.forEach((r, i) =>
+      expect(Math.abs(answer.visc[i] * 1e6 - r.viscosityMicroPaS)).toBeLessThan(1e-6),
+    );
   });
 
   it('R7-97(2012) Table 33 (region 3)', () => {

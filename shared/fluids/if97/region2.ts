@@ -1,5 +1,5 @@
 import { IF97_GAS_CONSTANT_J_PER_KG_K } from './constants';
-import { WaterState, waterStateFromGibbs } from './water-state';
+import { type WaterState, waterStateFromGibbs } from './water-state';
 
 // IAPWS R7-97(2012) Table 10: ideal-gas part of the region-2 Gibbs free energy, eq. (16):
 // γ° = ln π + Σ n°ᵢ τ^J°ᵢ, with π = p/1 MPa, τ = 540 K/T.
@@ -12,12 +12,12 @@ const N0 = new Float64Array([
 // IAPWS R7-97(2012) Table 11: residual part, eq. (17): γʳ = Σ nᵢ π^Iᵢ (τ − 0.5)^Jᵢ.
 // (Values as reproduced in Debian's python3-iapws 1.5.2, iapws97.py, _Region2.)
 const IR = new Float64Array([
-  1, 1, 1, 1, 1, 2, 2, 2, 2, 2, 3, 3, 3, 3, 3, 4, 4, 4, 5, 6, 6, 6, 7, 7, 7, 8, 8, 9, 10, 10, 10, 16, 16, 18, 20,
-  20, 20, 21, 22, 23, 24, 24, 24,
+  1, 1, 1, 1, 1, 2, 2, 2, 2, 2, 3, 3, 3, 3, 3, 4, 4, 4, 5, 6, 6, 6, 7, 7, 7, 8, 8, 9, 10, 10, 10, 16, 16, 18, 20, 20,
+  20, 21, 22, 23, 24, 24, 24,
 ]);
 const JR = new Float64Array([
-  0, 1, 2, 3, 6, 1, 2, 4, 7, 36, 0, 1, 3, 6, 35, 1, 2, 3, 7, 3, 16, 35, 0, 11, 25, 8, 36, 13, 4, 10, 14, 29, 50,
-  57, 20, 35, 48, 21, 53, 39, 26, 40, 58,
+  0, 1, 2, 3, 6, 1, 2, 4, 7, 36, 0, 1, 3, 6, 35, 1, 2, 3, 7, 3, 16, 35, 0, 11, 25, 8, 36, 13, 4, 10, 14, 29, 50, 57, 20,
+  35, 48, 21, 53, 39, 26, 40, 58,
 ]);
 const NR = new Float64Array([
   -0.17731742473213e-2, -0.17834862292358e-1, -0.45996013696365e-1, -0.57581259083432e-1, -0.5032527872793e-1,
@@ -71,5 +71,18 @@ export function region2State(pressurePa: number, temperatureK: number): WaterSta
     gtt += (j * (j - 1) * term) / (b * b);
     gpt += (i * tj) / pi;
   }
-  return waterStateFromGibbs(2, pressurePa, temperatureK, pi, tau, g, gp, gpp, gt, gtt, gpt, IF97_GAS_CONSTANT_J_PER_KG_K);
+  return waterStateFromGibbs(
+    2,
+    pressurePa,
+    temperatureK,
+    pi,
+    tau,
+    g,
+    gp,
+    gpp,
+    gt,
+    gtt,
+    gpt,
+    IF97_GAS_CONSTANT_J_PER_KG_K,
+  );
 }

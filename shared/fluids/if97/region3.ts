@@ -1,31 +1,27 @@
-import {
-  CRITICAL_DENSITY_KG_PER_M3,
-  CRITICAL_TEMPERATURE_K,
-  IF97_GAS_CONSTANT_J_PER_KG_K,
-} from './constants';
-import { WaterState } from './water-state';
+import { CRITICAL_DENSITY_KG_PER_M3, CRITICAL_TEMPERATURE_K, IF97_GAS_CONSTANT_J_PER_KG_K } from './constants';
+import { type WaterState } from './water-state';
 
 // IAPWS R7-97(2012) Table 30: region-3 Helmholtz free energy, eq. (28):
 // φ(δ,τ) = n₁ ln δ + Σᵢ₌₂⁴⁰ nᵢ δ^Iᵢ τ^Jᵢ, δ = ρ/322 kg/m³, τ = 647.096 K/T.
 // (Values as reproduced in Debian's python3-iapws 1.5.2, iapws97.py, _Region3.)
 const N_LN = 0.10658070028513e1;
 const I3 = new Float64Array([
-  0, 0, 0, 0, 0, 0, 0, 1, 1, 1, 1, 2, 2, 2, 2, 2, 2, 3, 3, 3, 3, 3, 4, 4, 4, 4, 5, 5, 5, 6, 6, 6, 7, 8, 9, 9, 10,
-  10, 11,
+  0, 0, 0, 0, 0, 0, 0, 1, 1, 1, 1, 2, 2, 2, 2, 2, 2, 3, 3, 3, 3, 3, 4, 4, 4, 4, 5, 5, 5, 6, 6, 6, 7, 8, 9, 9, 10, 10,
+  11,
 ]);
 const J3 = new Float64Array([
-  0, 1, 2, 7, 10, 12, 23, 2, 6, 15, 17, 0, 2, 6, 7, 22, 26, 0, 2, 4, 16, 26, 0, 2, 4, 26, 1, 3, 26, 0, 2, 26, 2,
-  26, 2, 26, 0, 1, 26,
+  0, 1, 2, 7, 10, 12, 23, 2, 6, 15, 17, 0, 2, 6, 7, 22, 26, 0, 2, 4, 16, 26, 0, 2, 4, 26, 1, 3, 26, 0, 2, 26, 2, 26, 2,
+  26, 0, 1, 26,
 ]);
 const N3 = new Float64Array([
   -0.15732845290239e2, 0.20944396974307e2, -0.76867707878716e1, 0.26185947787954e1, -0.2808078114862e1,
   0.12053369696517e1, -0.84566812812502e-2, -0.12654315477714e1, -0.11524407806681e1, 0.88521043984318,
-  -0.64207765181607, 0.38493460186671, -0.85214708824206, 0.48972281541877e1, -0.30502617256965e1,
-  0.39420536879154e-1, 0.12558408424308, -0.2799932969871, 0.1389979956946e1, -0.2018991502357e1,
-  -0.82147637173963e-2, -0.47596035734923, 0.439840744735e-1, -0.44476435428739, 0.90572070719733,
-  0.70522450087967, 0.10770512626332, -0.32913623258954, -0.50871062041158, -0.22175400873096e-1,
-  0.94260751665092e-1, 0.16436278447961, -0.13503372241348e-1, -0.14834345352472e-1, 0.57922953628084e-3,
-  0.32308904703711e-2, 0.80964802996215e-4, -0.16557679795037e-3, -0.44923899061815e-4,
+  -0.64207765181607, 0.38493460186671, -0.85214708824206, 0.48972281541877e1, -0.30502617256965e1, 0.39420536879154e-1,
+  0.12558408424308, -0.2799932969871, 0.1389979956946e1, -0.2018991502357e1, -0.82147637173963e-2, -0.47596035734923,
+  0.439840744735e-1, -0.44476435428739, 0.90572070719733, 0.70522450087967, 0.10770512626332, -0.32913623258954,
+  -0.50871062041158, -0.22175400873096e-1, 0.94260751665092e-1, 0.16436278447961, -0.13503372241348e-1,
+  -0.14834345352472e-1, 0.57922953628084e-3, 0.32308904703711e-2, 0.80964802996215e-4, -0.16557679795037e-3,
+  -0.44923899061815e-4,
 ]);
 
 /** Scratch for the Helmholtz derivatives: [φ, φδ, φδδ, φτ, φττ, φδτ]. */
@@ -135,14 +131,18 @@ export function region3DensityKgPerM3(pressurePa: number, temperatureK: number, 
     hi = SCAN_HIGH_KG_PER_M3;
     pressureAndSlope(hi, temperatureK, ps);
     if (!(ps[0] > pressurePa)) {
-      throw new Error(`region3DensityKgPerM3: pressurePa ${pressurePa} above the region-3 equation's range at ${temperatureK} K`);
+      throw new Error(
+        `region3DensityKgPerM3: pressurePa ${pressurePa} above the region-3 equation's range at ${temperatureK} K`,
+      );
     }
     lo = hi / SCAN_STEP;
     for (;;) {
       pressureAndSlope(lo, temperatureK, ps);
       if (ps[0] <= pressurePa) break;
       if (ps[1] <= 0 || lo < SCAN_LOW_KG_PER_M3) {
-        throw new Error(`region3DensityKgPerM3: no liquid-branch density for pressurePa ${pressurePa} at ${temperatureK} K`);
+        throw new Error(
+          `region3DensityKgPerM3: no liquid-branch density for pressurePa ${pressurePa} at ${temperatureK} K`,
+        );
       }
       hi = lo;
       lo = lo / SCAN_STEP;
@@ -151,14 +151,18 @@ export function region3DensityKgPerM3(pressurePa: number, temperatureK: number, 
     lo = SCAN_LOW_KG_PER_M3;
     pressureAndSlope(lo, temperatureK, ps);
     if (!(ps[0] < pressurePa)) {
-      throw new Error(`region3DensityKgPerM3: pressurePa ${pressurePa} below the region-3 equation's range at ${temperatureK} K`);
+      throw new Error(
+        `region3DensityKgPerM3: pressurePa ${pressurePa} below the region-3 equation's range at ${temperatureK} K`,
+      );
     }
     hi = lo * SCAN_STEP;
     for (;;) {
       pressureAndSlope(hi, temperatureK, ps);
       if (ps[0] >= pressurePa) break;
       if (ps[1] <= 0 || hi > SCAN_HIGH_KG_PER_M3) {
-        throw new Error(`region3DensityKgPerM3: no vapour-branch density for pressurePa ${pressurePa} at ${temperatureK} K`);
+        throw new Error(
+          `region3DensityKgPerM3: no vapour-branch density for pressurePa ${pressurePa} at ${temperatureK} K`,
+        );
       }
       lo = hi;
       hi = hi * SCAN_STEP;

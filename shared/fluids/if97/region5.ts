@@ -1,5 +1,5 @@
 import { IF97_GAS_CONSTANT_J_PER_KG_K } from './constants';
-import { WaterState, waterStateFromGibbs } from './water-state';
+import { type WaterState, waterStateFromGibbs } from './water-state';
 
 // IAPWS R7-97(2012) Table 37: ideal-gas part of the region-5 Gibbs free energy, eq. (33):
 // γ° = ln π + Σ n°ᵢ τ^J°ᵢ, π = p/1 MPa, τ = 1000 K/T.
@@ -53,5 +53,18 @@ export function region5State(pressurePa: number, temperatureK: number): WaterSta
     gtt += (j * (j - 1) * term) / (tau * tau);
     gpt += (i * tj) / pi;
   }
-  return waterStateFromGibbs(5, pressurePa, temperatureK, pi, tau, g, gp, gpp, gt, gtt, gpt, IF97_GAS_CONSTANT_J_PER_KG_K);
+  return waterStateFromGibbs(
+    5,
+    pressurePa,
+    temperatureK,
+    pi,
+    tau,
+    g,
+    gp,
+    gpp,
+    gt,
+    gtt,
+    gpt,
+    IF97_GAS_CONSTANT_J_PER_KG_K,
+  );
 }

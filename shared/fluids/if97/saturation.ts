@@ -3,8 +3,8 @@ import { CRITICAL_PRESSURE_PA, CRITICAL_TEMPERATURE_K, IF97_MIN_TEMPERATURE_K } 
 // IAPWS R7-97(2012) Table 34: coefficients n1..n10 of the region-4 saturation-pressure
 // equation (implicit quadratic, eq. (29)); index 0 unused so the names match the release.
 const N = [
-  0, 0.11670521452767e4, -0.72421316703206e6, -0.17073846940092e2, 0.12020824702470e5, -0.32325550322333e7,
-  0.14915108613530e2, -0.48232657361591e4, 0.40511340542057e6, -0.23855557567849, 0.65017534844798e3,
+  0, 0.11670521452767e4, -0.72421316703206e6, -0.17073846940092e2, 0.1202082470247e5, -0.32325550322333e7,
+  0.1491510861353e2, -0.48232657361591e4, 0.40511340542057e6, -0.23855557567849, 0.65017534844798e3,
 ];
 
 /** Saturation pressure at 273.15 K, the lower end of IF97 (eq. (30) evaluated there), Pa. */
@@ -19,7 +19,11 @@ export const SATURATION_PRESSURE_AT_273_15_K_PA = 611.212677;
  * @throws Error naming the field if T is not finite or outside 273.15…647.096 K
  */
 export function saturationPressurePa(temperatureK: number): number {
-  if (!Number.isFinite(temperatureK) || temperatureK < IF97_MIN_TEMPERATURE_K || temperatureK > CRITICAL_TEMPERATURE_K) {
+  if (
+    !Number.isFinite(temperatureK) ||
+    temperatureK < IF97_MIN_TEMPERATURE_K ||
+    temperatureK > CRITICAL_TEMPERATURE_K
+  ) {
     throw new Error(
       `saturationPressurePa: temperatureK must be within 273.15…647.096 K (IF97 region 4), got ${temperatureK}`,
     );

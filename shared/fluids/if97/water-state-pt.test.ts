@@ -4,13 +4,13 @@ import { region1State } from './region1';
 import { region2State } from './region2';
 import { region5State } from './region5';
 import {
-  PtCheckPoint,
+  type PtCheckPoint,
   REGION_1_TABLE_5,
   REGION_2_TABLE_15,
   REGION_3_TABLE_33,
   REGION_5_TABLE_42,
 } from './release-verification-tables';
-import { WaterState } from './water-state';
+import { type WaterState } from './water-state';
 
 /** Relative difference |a/b − 1|. */
 const rel = (a: number, b: number) => Math.abs(a / b - 1);
@@ -77,7 +77,9 @@ describe('IAPWS-IF97 properties from pressure and temperature', () => {
       // (to the 9 digits of the tabulated p, amplified by the near-critical slope at 650 K).
       const s = waterStatePT(p * 1e6, t);
       expect(s.region).toBe(3);
-      expect(rel(s.densityKgPerM3, row.densityKgPerM3)).toBeLessThan(t === 650 && row.densityKgPerM3 === 200 ? 1e-6 : 1e-7);
+      expect(rel(s.densityKgPerM3, row.densityKgPerM3)).toBeLessThan(
+        t === 650 && row.densityKgPerM3 === 200 ? 1e-6 : 1e-7,
+      );
     },
   );
 
@@ -86,7 +88,9 @@ describe('IAPWS-IF97 properties from pressure and temperature', () => {
     // ≈ 1.3 (ideal-gas limit, common practice).
     const steam = waterStatePT(3500, 700);
     expect(steam.isentropicExponent).toBeCloseTo((steam.speedOfSoundMPerS ** 2 * steam.densityKgPerM3) / 3500, 12);
-    expect(Math.abs(steam.isentropicExponent - steam.isobaricHeatCapacityJPerKgK / steam.isochoricHeatCapacityJPerKgK)).toBeLessThan(1e-3);
+    expect(
+      Math.abs(steam.isentropicExponent - steam.isobaricHeatCapacityJPerKgK / steam.isochoricHeatCapacityJPerKgK),
+    ).toBeLessThan(1e-3);
   });
 
   it('selects region 1 below and region 2 above the saturation temperature at 1 MPa', () => {

@@ -5,7 +5,7 @@ import { region3DensityKgPerM3, region3StateRhoT } from './region3';
 import { region5State } from './region5';
 import { saturationPressurePa } from './saturation';
 import { CRITICAL_TEMPERATURE_K } from './constants';
-import { WaterState } from './water-state';
+import { type WaterState } from './water-state';
 
 /**
  * Thermodynamic properties of water or steam at given pressure and temperature by

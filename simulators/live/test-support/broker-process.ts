@@ -17,7 +17,9 @@ startEmbeddedBroker({
     return site && password === demoDevicePassword(demoPassword) ? { id: username, siteCode: site.code } : null;
   },
   onPublish: async (device, topic, payload) => {
-    process.stdout.write(`${JSON.stringify({ siteCode: device.siteCode, topic, payload: JSON.parse(payload.toString('utf8')) })}\n`);
+    process.stdout.write(
+      `${JSON.stringify({ siteCode: device.siteCode, topic, payload: JSON.parse(payload.toString('utf8')) })}\n`,
+    );
   },
 }).then(
   (broker) => {

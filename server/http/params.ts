@@ -1,0 +1,70 @@
+import { z } from 'zod';
+import { DateTime } from 'luxon';
+import { badRequest, notFound } from '../errors';
+
+/**
+ * The one parser for what routes read from a URL: record ids and time windows. Every route uses
+ * these, so an id or a window is refused the same way everywhere.
+ */
+
+const dayMs = 86_400_000;
+const digits = /^\d+$/;
+
+/**
+ * A record id from a path (`/:id`). Ids are PostgreSQL bigints, carried as decimal strings so
+ * no precision is lost. Anything else cannot name a record, so it is "not found", not a 400.
+ * @param value the raw path parameter
+ * @param what the record's name as a person says it ("Meter run"), for the 404 message
+ */
+export function parseId(value: unknown, what: string): string {
+  const text = String(value ?? '');
+  if (!digits.test(text)) throw notFound(what);
+  return text;
+}
+
+/** A zod field for an id given in a query or body ("must be a meter run id"); numbers are accepted too. */
+export const idField = (what: string) =>
+  z
+    .union([z.number().int().positive(), z.string().regex(digits, `must be a ${what} id`)], {
+      error: `must be a ${what} id`,
+    })
+    .transform(String);
+
+/** A zod field for an instant: ISO 8601 with an offset or Z, never a local time without a zone. */
+export const isoInstant = z.iso.datetime({ offset: true, error: 'must be ISO 8601 with an offset or Z' });
+
+/** A zod field for an instant, or a plain date YYYY-MM-DD meaning the start of that date in a zone chosen later. */
+export const isoInstantOrDate = z.union([isoInstant, z.iso.date()], {
+  error: 'must be ISO 8601 with an offset or Z, or a date YYYY-MM-DD',
+});
+
+/** A half-open window [fromMs, toMs) in epoch milliseconds. */
+export interface TimeWindow {
+  fromMs: number;
+  toMs: number;
+}
+
+/**
+ * Turns validated `from`/`to` strings into a window, refusing an empty or reversed window and
+ * one longer than `maxDays`, naming `to` as the field at fault.
+ * @param timeZone the zone a plain date is read in (a site's zone); without it only instants are valid
+ */
+export function parseTimeWindow(
+  query: { from: string; to: string },
+  options: { maxDays: number; timeZone?: string; what?: string },
+): TimeWindow {
+  const instant = (value: string) =>
+    value.length === 10 && options.timeZone
+      ? DateTime.fromISO(value, { zone: options.timeZone }).toMillis()
+      : Date.parse(value);
+  const fromMs = instant(query.from);
+  const toMs = instant(query.to);
+  if (toMs <= fromMs) throw badRequest('to: must be after from', 'to');
+  if (toMs - fromMs > options.maxDays * dayMs) {
+    throw badRequest(
+      `to: at most ${options.maxDays} days${options.what ? ` of ${options.what}` : ''} per request`,
+      'to',
+    );
+  }
+  return { fromMs, toMs };
+}
