@@ -3,24 +3,24 @@ import helmet from 'helmet';
 import type { Sequelize } from 'sequelize';
 import { AppError } from './errors';
 import { createAuthenticator } from './auth/passport';
-import { authRouter } from './routes/auth/router';
-import { usersRouter } from './routes/users/router';
-import { healthRouter, type Health } from './routes/health/router';
-import { auditEventsRouter } from './routes/audit-events/router';
-import { mailRouter } from './routes/mail/router';
-import { calculationsRouter } from './routes/calculations/router';
+import { authRouter } from './resources/auth/router';
+import { usersRouter } from './resources/users/router';
+import { healthRouter, type Health } from './resources/health/router';
+import { auditEventsRouter } from './resources/audit-events/router';
+import { mailRouter } from './resources/mail/router';
+import { calculationsRouter } from './resources/calculations/router';
 import { serveWebClient } from './web';
-import { sitesRouter } from './routes/sites/router';
-import { meterRunsRouter } from './routes/meter-runs/router';
-import { meterRunHistoryRouter } from './routes/meter-runs/history-router';
-import { transmittersRouter } from './routes/transmitters/router';
-import { devicesRouter } from './routes/devices/router';
-import { importsRouter } from './routes/imports/router';
-import { readingsRouter } from './routes/readings/router';
-import { liveRouter } from './routes/live/router';
-import { alarmsRouter } from './routes/alarms/router';
-import { alarmLimitsRouter } from './routes/alarm-limits/router';
-import { meterRunRangeHealthRouter } from './routes/meter-runs/range-health-router';
+import { sitesRouter } from './resources/sites/router';
+import { meterRunsRouter } from './resources/meter-runs/router';
+import { meterRunHistoryRouter } from './resources/meter-runs/history-router';
+import { transmittersRouter } from './resources/transmitters/router';
+import { devicesRouter } from './resources/devices/router';
+import { importsRouter } from './resources/imports/router';
+import { readingsRouter } from './resources/readings/router';
+import { liveRouter } from './resources/live/router';
+import { alarmsRouter } from './resources/alarms/router';
+import { alarmLimitsRouter } from './resources/alarm-limits/router';
+import { rangeHealthRouter } from './resources/range-health/router';
 import { LiveBoard } from './live-board';
 import type { Services } from './services';
 
@@ -96,7 +96,7 @@ export function createApp(options: AppOptions): Express {
     // Alarms (issue 5): the list and lifecycle, limits per meter run or transmitter, range health.
     ['/alarms', alarmsRouter(services.pool)],
     ['/alarm-limits', alarmLimitsRouter(services.pool)], // new limits apply from the next evaluation (within a minute)
-    ['/meter-runs', meterRunRangeHealthRouter(services.pool)],
+    ['/meter-runs', rangeHealthRouter(services.pool)],
   ];
   const api = express.Router();
   for (const [path, router] of publicRoutes) api.use(path, router);

@@ -8,7 +8,7 @@ import { useState } from 'react';
 import { ChoiceGroup } from '@/components/ui/ChoiceGroup';
 import { ReasonDialog } from '@/components/ui/ReasonDialog';
 
-/** Choices up to the server's limit of a day (server/routes/alarms/schema.ts MAX_SHELVE_MINUTES). */
+/** Choices up to the server's limit of a day (server/resources/alarms/schema.ts MAX_SHELVE_MINUTES). */
 const durations = [
   { value: '15', label: '15 min' },
   { value: '30', label: '30 min' },

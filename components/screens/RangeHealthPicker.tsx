@@ -17,7 +17,7 @@ import type { Site } from '@/hooks/api/sites';
 
 const hourMs = 3_600_000;
 const dayMs = 86_400_000;
-/** The server reads at most 400 days per request (server/routes/meter-runs/range-health-router.ts). */
+/** The server reads at most 400 days per request (server/resources/range-health/schema.ts). */
 const maxDays = 400;
 
 export const periodChoices = [

@@ -18,7 +18,7 @@ export interface Actor {
   email: string;
 }
 
-/** The columns an alarm is presented from (see routes/alarms/presenter.ts). */
+/** The columns an alarm is presented from (see resources/alarms/presenter.ts). */
 export const ALARM_SELECT = `
   SELECT a.id::text AS id, a.meter_run_id::text AS meter_run_id, m.tag AS meter_run_tag, m.site_id::text AS site_id,
          a.transmitter_id::text AS transmitter_id, t.tag AS transmitter_tag, a.condition, a.priority, a.state,

@@ -23,7 +23,7 @@ function localProblems(user: NewUser): Partial<Record<Field, string>> {
   const problems: Partial<Record<Field, string>> = {};
   if (!user.name.trim()) problems.name = 'Enter the person’s name.';
   if (!/^[^\s@]+@[^\s@]+$/.test(user.email.trim())) problems.email = 'Enter an email address such as name@example.com.';
-  // The server's rule (server/routes/users/schema.ts); repeated here only to answer sooner.
+  // The server's rule (server/resources/users/schema.ts); repeated here only to answer sooner.
   if (user.password.length < minPasswordLength) problems.password = `Use at least ${minPasswordLength} characters.`;
   return problems;
 }

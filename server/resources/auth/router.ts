@@ -2,7 +2,7 @@ import { Router, type RequestHandler } from 'express';
 import { rateLimit, ipKeyGenerator } from 'express-rate-limit';
 import { Op, fn, col, where } from 'sequelize';
 import { User } from '../../models';
-import { validate } from '../validate';
+import { validate } from '../../http/validate';
 import { loginSchema } from './schema';
 import { checkPassword } from '../../auth/passwords';
 import { issueToken } from '../../auth/tokens';

@@ -5,7 +5,7 @@ import { requireCapability } from '../../auth/passport';
 import { hashPassword } from '../../auth/passwords';
 import { recordAuditEvent } from '../../audit';
 import { badRequest, conflict, notFound } from '../../errors';
-import { validate } from '../validate';
+import { validate } from '../../http/validate';
 import { createUserSchema, updateUserSchema } from './schema';
 import { presentUser } from './presenter';
 

@@ -3,7 +3,7 @@ import type { Pool } from 'pg';
 import { z } from 'zod';
 import { requireCapability } from '../../auth/passport';
 import { notFound } from '../../errors';
-import { validate } from '../validate';
+import { validate } from '../../http/validate';
 
 const qualityName = ['good', 'uncertain', 'bad', 'substituted'];
 const sourceName = ['mqtt', 'csv', 'backfill'];

@@ -7,7 +7,7 @@ import { requireCapability } from '../../auth/passport';
 import { hashPassword } from '../../auth/passwords';
 import { recordAuditEvent } from '../../audit';
 import { badRequest, notFound } from '../../errors';
-import { validate } from '../validate';
+import { validate } from '../../http/validate';
 import { deviceSchema } from '../../../shared/schemas/setup';
 
 const present = (d: Device, siteCode?: string) => ({

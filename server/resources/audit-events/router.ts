@@ -2,7 +2,7 @@ import { Router } from 'express';
 import { z } from 'zod';
 import { AuditEvent } from '../../models';
 import { requireCapability } from '../../auth/passport';
-import { validate } from '../validate';
+import { validate } from '../../http/validate';
 
 const querySchema = z.object({
   limit: z.coerce.number().int().min(1).max(1000).default(100),

@@ -4,7 +4,7 @@ import { Site } from '../../models';
 import { requireCapability } from '../../auth/passport';
 import { recordAuditEvent } from '../../audit';
 import { conflict, notFound } from '../../errors';
-import { validate } from '../validate';
+import { validate } from '../../http/validate';
 import { siteSchema } from '../../../shared/schemas/setup';
 import { presentSite } from './presenter';
 

@@ -4,7 +4,7 @@ import { z } from 'zod';
 import { DateTime } from 'luxon';
 import { requireCapability } from '../../auth/passport';
 import { badRequest, notFound } from '../../errors';
-import { validate } from '../validate';
+import { validate } from '../../http/validate';
 import { contractDayBounds, contractDayOf, contractMonthBounds } from '../../../shared/history/contract-day';
 
 const isoTime = z.iso.datetime({ offset: true, error: 'must be ISO 8601 with an offset or Z' });

@@ -5,7 +5,7 @@ import { ConfigVersion, MeterRun, Site } from '../../models';
 import { requireCapability } from '../../auth/passport';
 import { recordAuditEvent } from '../../audit';
 import { badRequest, conflict, notFound } from '../../errors';
-import { validate } from '../validate';
+import { validate } from '../../http/validate';
 import { configVersionSchema, meterRunSchema } from '../../../shared/schemas/setup';
 import { presentConfigVersion, presentMeterRun } from './presenter';
 

@@ -2,7 +2,7 @@ import { Router } from 'express';
 import type { Pool } from 'pg';
 import { requireCapability } from '../../auth/passport';
 import { AppError, notFound } from '../../errors';
-import { validate } from '../validate';
+import { validate } from '../../http/validate';
 import { ALARM_SELECT, applyAction } from '../../alarms/alarm-store';
 import { AlarmTransitionError, type AlarmAction } from '../../../shared/alarms/alarm-lifecycle';
 import { presentAlarm, presentAlarmEvent } from './presenter';

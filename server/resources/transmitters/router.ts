@@ -5,7 +5,7 @@ import { MeterRun, Transmitter } from '../../models';
 import { requireCapability } from '../../auth/passport';
 import { recordAuditEvent } from '../../audit';
 import { badRequest, conflict, notFound } from '../../errors';
-import { validate } from '../validate';
+import { validate } from '../../http/validate';
 import { transmitterSchema } from '../../../shared/schemas/setup';
 import { presentTransmitter } from './presenter';
 

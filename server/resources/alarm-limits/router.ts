@@ -3,7 +3,7 @@ import type { Pool } from 'pg';
 import { requireCapability } from '../../auth/passport';
 import { badRequest, notFound } from '../../errors';
 import { recordAuditEvent } from '../../audit';
-import { validate } from '../validate';
+import { validate } from '../../http/validate';
 import { loadStoredLimits, limitsResolver } from '../../alarms/limits-store';
 import {
   ALARM_CONDITIONS,
