@@ -1,5 +1,8 @@
 import express, { type ErrorRequestHandler, type Express, type Router } from 'express';
 import helmet from 'helmet';
+import { randomUUID } from 'node:crypto';
+import { pinoHttp } from 'pino-http';
+import { componentLogger } from './log';
 import type { Sequelize } from 'sequelize';
 import { AppError } from './errors';
 import { createAuthenticator } from './auth/passport';
@@ -42,6 +45,7 @@ export function createApp(options: AppOptions): Express {
   app.disable('x-powered-by');
   // The exported client is a static bundle with inline bootstrapping; keep the other helmet headers.
   app.use(helmet({ contentSecurityPolicy: false }));
+  app.use(requestLog);
   app.use(express.json({ limit: '1mb' }));
 
   const authenticate = createAuthenticator(options.jwtSecret);
@@ -114,6 +118,26 @@ export function createApp(options: AppOptions): Express {
   return app;
 }
 
+/**
+ * One log line per request with a request id: the caller's `X-Request-Id` when it sends one
+ * (a proxy in front), otherwise a new one; it is echoed in the response so a person reporting a
+ * problem can quote it. Tokens and cookies never reach the log.
+ */
+const requestLog = pinoHttp({
+  logger: componentLogger('http'),
+  genReqId: (req, res) => {
+    const given = req.headers['x-request-id'];
+    const id = typeof given === 'string' && /^[\w.-]{1,100}$/.test(given) ? given : randomUUID();
+    res.setHeader('X-Request-Id', id);
+    return id;
+  },
+  redact: ['req.headers.authorization', 'req.headers.cookie'],
+  // A 4xx is the caller's mistake, answered; only a 5xx or a dropped request is the server's.
+  customLogLevel: (_req, res, err) => (err || res.statusCode >= 500 ? 'error' : 'info'),
+  // The live board's event stream and the health probe would otherwise fill the log.
+  autoLogging: { ignore: (req) => /^\/api\/(health|live\/stream)(\?|$)/.test(req.url ?? '') },
+});
+
 const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
   if (err instanceof AppError) return res.status(err.status).json(err.toJSON());
   // body-parser's errors carry a status and a type; a malformed JSON body names the body as its field.
@@ -126,7 +150,7 @@ const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
     if (type === 'entity.too.large')
       return res.status(413).json(new AppError(413, 'too_large', 'The request body is too large.', 'body').toJSON());
   }
-  console.error(`[http] ${req.method} ${req.originalUrl}:`, err);
+  req.log.error({ err, method: req.method, url: req.originalUrl }, 'request failed');
   res
     .status(500)
     .json(new AppError(500, 'internal', 'Something went wrong on the server; it has been logged.').toJSON());

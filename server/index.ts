@@ -17,6 +17,9 @@ import { createServices } from './services';
 import { makePartitionsAhead, startAlarmSchedule, startSchedule } from './jobs/schedule';
 import { createMailer } from './mail/send';
 import { AlarmNotifier } from './mail/notifier';
+import { componentLogger } from './log';
+
+const serverLog = componentLogger('server');
 
 export interface RunningServer {
   url: string;
@@ -114,7 +117,7 @@ export async function startServer(env: Env = readEnv()): Promise<RunningServer> 
       server.closeAllConnections();
       await new Promise<void>((resolve) => server.close(() => resolve()));
       schedule.stop();
-      alarmSchedule.stop();
+      await alarmSchedule.stop();
       notifier.stop();
       await broker.close();
       mailer.close();
@@ -140,9 +143,9 @@ function jwtSecret(env: Env): string {
 if (require.main === module) {
   startServer()
     .then((running) => {
-      console.log(`[server] http ${running.url}  mqtt ${running.mqttPort}  smtp ${running.smtpPort}`);
+      serverLog.info({ http: running.url, mqttPort: running.mqttPort, smtpPort: running.smtpPort }, 'server started');
       const shutdown = () => {
-        running.stop().then(
+        void running.stop().then(
           () => process.exit(0),
           () => process.exit(1),
         );
@@ -151,7 +154,7 @@ if (require.main === module) {
       process.once('SIGTERM', shutdown);
     })
     .catch((err) => {
-      console.error(err instanceof Error ? err.message : err);
+      serverLog.fatal({ err }, 'the server could not start');
       process.exit(1);
     });
 }

@@ -14,6 +14,8 @@ const pretty = Boolean(process.stdout.isTTY) && process.env.NODE_ENV !== 'produc
 export const logger: Logger = pino({
   level,
   base: undefined,
+  // Whatever is logged, a bearer token or a password never reaches the log.
+  redact: ['req.headers.authorization', 'req.headers.cookie', '*.password', 'password'],
   ...(pretty
     ? {
         transport: {
@@ -29,6 +31,6 @@ export const logger: Logger = pino({
  * the name appears in every line it writes as `component`.
  * @example const log = componentLogger('history'); log.error({ err, meterRunId }, 'hour failed');
  */
-export function componentLogger(component: string): Logger {
-  return logger.child({ component });
+export function componentLogger(component: string, options: { level?: string } = {}): Logger {
+  return logger.child({ component }, options);
 }

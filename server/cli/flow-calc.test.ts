@@ -9,7 +9,7 @@ const tsx = path.join(root, 'node_modules/.bin/tsx');
 
 function run(stdin: string): { status: number | null; json: any; stdout: string } {
   const p = spawnSync(tsx, ['server/cli/flow-calc.ts'], { cwd: root, input: stdin, encoding: 'utf8', timeout: 60000 });
-  let json: unknown = null;
+  let json: unknown;
   try {
     json = JSON.parse(p.stdout);
   } catch {

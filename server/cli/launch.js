@@ -28,9 +28,12 @@ function installDependencies() {
 
 installDependencies();
 const tsx = path.join(root, 'node_modules', '.bin', 'tsx');
+// Under `npm test` the in-process test server logs only warnings, so request lines do not bury the report.
+const env = mode === 'test' ? { ...process.env, TALLYRUN_TESTING: '1' } : process.env;
 const child = spawn(tsx, [path.join(__dirname, `${mode}.ts`), ...process.argv.slice(3)], {
   cwd: root,
   stdio: 'inherit',
+  env,
 });
 // The terminal sends Ctrl-C to the whole foreground group; forward SIGTERM ourselves.
 process.on('SIGTERM', () => child.kill('SIGTERM'));

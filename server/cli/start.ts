@@ -11,9 +11,11 @@ import { exportWebClient } from './web-export';
 import { readEnv } from '../env';
 import { startServer, type RunningServer } from '../index';
 import { demoUsers } from '../seed/demo-users';
+import { componentLogger } from '../log';
 
 const root = path.resolve(__dirname, '..', '..');
-const log = (s: string) => console.log(`[tallyrun] ${s}`);
+const launcher = componentLogger('launcher');
+const log = (s: string) => launcher.info(s);
 
 async function main() {
   const began = Date.now();
@@ -37,7 +39,7 @@ async function main() {
       }
       await Promise.race([exited, new Promise((r) => setTimeout(r, 5000))]);
     }
-    await server?.stop().catch((err) => console.error(err));
+    await server?.stop().catch((err) => launcher.error({ err }, 'the server did not stop cleanly'));
     if (cluster?.startedHere) {
       cluster.stop();
       log('PostgreSQL stopped');
@@ -46,7 +48,9 @@ async function main() {
   };
   // A stray failure in background work (a job, an evaluation) is logged; it must not take the
   // historian down with it.
-  process.on('unhandledRejection', (reason) => console.error('[tallyrun] unhandled rejection:', reason));
+  process.on('unhandledRejection', (reason) =>
+    launcher.error({ err: reason }, 'unhandled rejection in background work'),
+  );
   process.on('SIGINT', () => void shutdown(0));
   process.on('SIGTERM', () => void shutdown(0));
 
@@ -81,7 +85,8 @@ async function main() {
     }
 
     const seconds = ((Date.now() - began) / 1000).toFixed(1);
-    console.log(`
+    // The banner is the command's answer to a person, not a log line.
+    process.stdout.write(`
   Tallyrun is running (ready in ${seconds} s)
     web and API   ${server.url}
     health        ${server.url}/api/health
@@ -89,9 +94,10 @@ async function main() {
     SMTP stand-in 127.0.0.1:${server.smtpPort} (mail lands in the admin's outbox)
 ${env.TALLYRUN_DEMO === 'on' ? `  Demo sign-ins (password "${env.TALLYRUN_DEMO_PASSWORD === 'tallyrun-demo' ? 'tallyrun-demo' : '<TALLYRUN_DEMO_PASSWORD>'}"):\n${demoUsers.map((u) => `    ${u.role.padEnd(11)} ${u.email}`).join('\n')}\n` : ''}
   Press Ctrl-C to stop.
+
 `);
   } catch (err) {
-    console.error(`[tallyrun] could not start: ${err instanceof Error ? err.message : String(err)}`);
+    launcher.fatal(`could not start: ${err instanceof Error ? err.message : String(err)}`);
     await shutdown(1);
   }
 }

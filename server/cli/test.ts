@@ -12,9 +12,14 @@ import { readEnv } from '../env';
 import { startServer, type RunningServer } from '../index';
 import { connectDatabase } from '../db/connect';
 import { migrate } from '../db/migrate';
+import { componentLogger } from '../log';
+import { runStaticChecks } from './static-checks';
 
 const root = path.resolve(__dirname, '..', '..');
-const log = (s: string) => console.log(`[test] ${s}`);
+const testLog = componentLogger('test', { level: 'info' });
+const log = (s: string) => testLog.info(s);
+/** The closing lines are the command's answer (CI and people read them), so they go to stdout as plain text. */
+const say = (s: string) => process.stdout.write(`${s}\n`);
 const isRoot = typeof process.getuid === 'function' && process.getuid() === 0;
 
 /** Debian packages the tests call: reference libraries (IAPWS-IF97, units) and the browser. */
@@ -44,6 +49,19 @@ async function main(): Promise<number> {
   let adminUrl: string | null = null;
   const databases: string[] = [];
   try {
+    // Types and lint first: a run that cannot pass them fails in seconds, not after the bring-up.
+    // A partial run (`npm test -- <paths>`) is a developer's loop and skips them (said once).
+    const jestArgs = process.argv.slice(2);
+    if (jestArgs.length === 0) {
+      const checks = await runStaticChecks(root, log);
+      if (!checks.ok) {
+        say(`\n[test] stopped before the tests: ${checks.failed.join(' and ')} failed (see above).`);
+        say('0 passed, 1 failed, 0 skipped');
+        return 1;
+      }
+    } else {
+      log('partial run: type check and lint skipped (`npm run typecheck`, `npm run lint` run them)');
+    }
     ensureTestTools();
     // Databases of this run alone (by process id), so two runs on one machine do not collide;
     // they are dropped at the end.
@@ -126,12 +144,12 @@ async function main(): Promise<number> {
       fs.renameSync(resultsFile, path.join(root, '.test-results', 'jest.json'));
     }
     const ok = jestExit === 0 && summary.failed === 0;
-    console.log(`\n[test] finished in ${((Date.now() - began) / 1000).toFixed(0)} s`);
-    console.log(`${summary.passed} passed, ${summary.failed} failed, ${summary.skipped} skipped`);
+    say(`\n[test] finished in ${((Date.now() - began) / 1000).toFixed(0)} s`);
+    say(`${summary.passed} passed, ${summary.failed} failed, ${summary.skipped} skipped`);
     return ok ? 0 : 1;
   } catch (err) {
-    console.error(`[test] could not run the tests: ${err instanceof Error ? err.stack : String(err)}`);
-    console.log('0 passed, 1 failed');
+    testLog.fatal({ err }, 'could not run the tests');
+    say('0 passed, 1 failed');
     return 1;
   } finally {
     await server?.stop().catch(() => undefined);
@@ -148,4 +166,4 @@ function runChild(command: string, args: string[], options: SpawnOptions): Promi
   });
 }
 
-main().then((code) => process.exit(code));
+void main().then((code) => process.exit(code));

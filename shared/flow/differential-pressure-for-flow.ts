@@ -42,7 +42,6 @@ export function differentialPressureForMassFlow(
     : (element.fixedDischargeCoefficient as number);
   const incompressibleDp =
     (massFlowKgPerS / (dischargeCoefficient * element.flowAreaM2)) ** 2 / (2 * fluid.densityKgPerM3);
-  let expansibility = 1;
   let dp = incompressibleDp;
   for (let i = 0; i < 200; i++) {
     if (!(dp < staticPressurePa)) {
@@ -50,7 +49,7 @@ export function differentialPressureForMassFlow(
         `differentialPressureForMassFlow: massFlowKgPerS ${massFlowKgPerS} would need a DP of at least ${dp} Pa, not below the static pressure ${staticPressurePa} Pa`,
       );
     }
-    expansibility = elementExpansibility(element, dp, staticPressurePa, fluid);
+    const expansibility = elementExpansibility(element, dp, staticPressurePa, fluid);
     const next = incompressibleDp / (expansibility * expansibility);
     if (Math.abs(next - dp) <= 1e-13 * next) {
       dp = next;

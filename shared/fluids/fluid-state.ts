@@ -35,7 +35,7 @@ function guarded<T>(what: string, f: () => T): T {
   try {
     return f();
   } catch (e) {
-    throw new Error(`fluidState: ${what}${(e as Error).message}`);
+    throw new Error(`fluidState: ${what}${(e as Error).message}`, { cause: e });
   }
 }
 

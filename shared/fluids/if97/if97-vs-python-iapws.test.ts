@@ -86,6 +86,7 @@ function askPythonIapws(request: object): Answer {
     throw new Error(
       `python3-iapws reference not available: ${PYTHON} could not run the iapws library ` +
         `(install it with "apt-get install -y python3-iapws"). Cause: ${(e as Error).message}`,
+      { cause: e },
     );
   }
 }
