@@ -15,7 +15,7 @@ import { calculationsRouter } from './resources/calculations/router';
 import { serveWebClient } from './web';
 import { sitesRouter } from './resources/sites/router';
 import { meterRunsRouter } from './resources/meter-runs/router';
-import { meterRunHistoryRouter } from './resources/meter-runs/history-router';
+import { meterRunHistoryRouter } from './resources/meter-run-history/router';
 import { transmittersRouter } from './resources/transmitters/router';
 import { devicesRouter } from './resources/devices/router';
 import { importsRouter } from './resources/imports/router';

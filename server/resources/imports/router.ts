@@ -1,31 +1,14 @@
 import fs from 'node:fs';
-import path from 'node:path';
-import { Router } from 'express';
+import { Router, type Request, type Response } from 'express';
 import multer from 'multer';
 import type { Pool } from 'pg';
 import { requireCapability } from '../../auth/passport';
-import { AppError, badRequest, notFound } from '../../errors';
-
-export interface ImportJobs {
-  readings(importId: string, file: string): Promise<void>;
-  fieldTotals(importId: string, file: string): Promise<void>;
-}
-
-const present = (r: Record<string, unknown>) => ({
-  id: String(r.id),
-  kind: r.kind,
-  filename: r.filename,
-  status: r.status,
-  bytesTotal: Number(r.bytes_total ?? 0),
-  bytesRead: Number(r.bytes_read),
-  rowsRead: Number(r.rows_read),
-  rowsImported: Number(r.rows_imported),
-  duplicates: Number(r.duplicates),
-  rejected: Number(r.rejected),
-  errors: r.errors,
-  createdAt: (r.created_at as Date).toISOString(),
-  finishedAt: r.finished_at ? (r.finished_at as Date).toISOString() : null,
-});
+import { AppError, badRequest } from '../../errors';
+import { parseId } from '../../http/params';
+import { importKindOf } from './schema';
+import { importRepository } from './repository';
+import { getImport, listImports, startImport, type ImportJobs } from './use-cases';
+import { presentImport } from './presenter';
 
 /**
  * CSV uploads of readings and field totals. The file is streamed to disk (size-limited), the
@@ -35,48 +18,42 @@ const present = (r: Record<string, unknown>) => ({
 export function importsRouter(options: { pool: Pool; uploadDir: string; maxBytes: number; jobs: ImportJobs }) {
   fs.mkdirSync(options.uploadDir, { recursive: true });
   const upload = multer({ dest: options.uploadDir, limits: { fileSize: options.maxBytes, files: 1 } }).single('file');
+  const repository = importRepository(options.pool);
   const router = Router();
 
+  /** Streams the multipart upload to disk; multer's refusals become errors naming the file field. */
+  const receive = (req: Request, res: Response) =>
+    new Promise<void>((resolve, reject) =>
+      upload(req, res, (err: unknown) => {
+        if (err instanceof multer.MulterError) {
+          if (err.code === 'LIMIT_FILE_SIZE')
+            reject(
+              new AppError(413, 'too_large', `file: larger than ${Math.round(options.maxBytes / 1e6)} MB`, 'file'),
+            );
+          else reject(badRequest(`file: ${err.message}`, 'file'));
+        } else if (err) reject(err);
+        else resolve();
+      }),
+    );
+
   router.get('/', requireCapability('importData'), async (_req, res) => {
-    const { rows } = await options.pool.query('SELECT * FROM imports ORDER BY id DESC LIMIT 100');
-    res.json(rows.map(present));
+    res.json((await listImports(repository)).map(presentImport));
   });
 
   router.get('/:id', requireCapability('importData'), async (req, res) => {
-    if (!/^\d+$/.test(String(req.params.id))) throw notFound('Import');
-    const { rows } = await options.pool.query('SELECT * FROM imports WHERE id = $1', [String(req.params.id)]);
-    if (!rows[0]) throw notFound('Import');
-    res.json(present(rows[0]));
+    res.json(presentImport(await getImport(repository, parseId(req.params.id, 'Import'))));
   });
 
-  router.post('/', requireCapability('importData'), (req, res, next) => {
-    upload(req, res, async (err: unknown) => {
-      try {
-        if (err instanceof multer.MulterError) {
-          if (err.code === 'LIMIT_FILE_SIZE')
-            throw new AppError(413, 'too_large', `file: larger than ${Math.round(options.maxBytes / 1e6)} MB`, 'file');
-          throw badRequest(`file: ${err.message}`, 'file');
-        }
-        if (err) throw err;
-        if (!req.file) throw badRequest('file: attach a CSV file in the form field "file"', 'file');
-        const kind = (req.body?.kind ?? 'readings') as string;
-        if (kind !== 'readings' && kind !== 'field-totals') {
-          fs.rm(req.file.path, { force: true }, () => undefined);
-          throw badRequest('kind: must be readings or field-totals', 'kind');
-        }
-        const { rows } = await options.pool.query(
-          `INSERT INTO imports (kind, filename, bytes_total, created_by) VALUES ($1, $2, $3, $4) RETURNING id::text`,
-          [kind, path.basename(req.file.originalname || 'upload.csv'), req.file.size, req.user!.id],
-        );
-        const id = rows[0].id as string;
-        const job =
-          kind === 'readings' ? options.jobs.readings(id, req.file.path) : options.jobs.fieldTotals(id, req.file.path);
-        job.catch((e) => console.error(`[imports] import ${id} failed:`, e));
-        res.status(202).json({ id, status: 'running' });
-      } catch (e) {
-        next(e);
-      }
-    });
+  router.post('/', requireCapability('importData'), async (req, res) => {
+    await receive(req, res);
+    if (!req.file) throw badRequest('file: attach a CSV file in the form field "file"', 'file');
+    const kind = importKindOf(req.body);
+    if (!kind) {
+      fs.rm(req.file.path, { force: true }, () => undefined);
+      throw badRequest('kind: must be readings or field-totals', 'kind');
+    }
+    const upload = { file: req.file.path, originalName: req.file.originalname, sizeBytes: req.file.size };
+    res.status(202).json(await startImport({ repository, jobs: options.jobs }, { kind, upload, actor: req.user! }));
   });
 
   return router;

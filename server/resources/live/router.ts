@@ -2,6 +2,10 @@ import { Router } from 'express';
 import { requireCapability } from '../../auth/passport';
 import type { LiveBoard } from '../../live-board';
 import type { LiveEvents } from '../../live';
+import { liveBoardSnapshot, watchBoard } from './use-cases';
+
+/** A snapshot at most this often while readings arrive; a heartbeat otherwise keeps proxies from closing the stream. */
+const STREAM_TICK_MS = 2000;
 
 /**
  * `GET /api/live/board` (a snapshot) and `GET /api/live/stream` (server-sent events: a board
@@ -13,7 +17,7 @@ export function liveRouter(board: LiveBoard, events: LiveEvents) {
   router.use(requireCapability('view'));
 
   router.get('/board', async (_req, res) => {
-    res.json(await board.snapshot());
+    res.json(await liveBoardSnapshot(board));
   });
 
   router.get('/stream', async (req, res) => {
@@ -33,20 +37,17 @@ export function liveRouter(board: LiveBoard, events: LiveEvents) {
       }
       dirty = false;
       try {
-        res.write(`event: board\ndata: ${JSON.stringify(await board.snapshot())}\n\n`);
+        res.write(`event: board\ndata: ${JSON.stringify(await liveBoardSnapshot(board))}\n\n`);
       } catch {
         /* the next tick tries again */
       }
     };
-    const mark = () => (dirty = true);
-    events.on('readings', mark);
-    events.on('history', mark);
-    const timer = setInterval(() => void send(), 2000);
+    const stopWatching = watchBoard(events, () => (dirty = true));
+    const timer = setInterval(() => void send(), STREAM_TICK_MS);
     req.on('close', () => {
       closed = true;
       clearInterval(timer);
-      events.off('readings', mark);
-      events.off('history', mark);
+      stopWatching();
     });
     await send();
   });

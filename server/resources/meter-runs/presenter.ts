@@ -1,8 +1,8 @@
-import type { ConfigVersion, MeterRun } from '../../models';
+import type { ConfigVersionRecord, MeterRunRecord } from './repository';
 
-export const presentConfigVersion = (c: ConfigVersion) => ({
-  id: String(c.id),
-  meterRunId: String(c.meterRunId),
+export const presentConfigVersion = (c: ConfigVersionRecord) => ({
+  id: c.id,
+  meterRunId: c.meterRunId,
   effectiveFrom: c.effectiveFrom.toISOString(),
   element: c.element,
   fluid: c.fluid,
@@ -10,9 +10,10 @@ export const presentConfigVersion = (c: ConfigVersion) => ({
   createdAt: c.createdAt.toISOString(),
 });
 
-export const presentMeterRun = (m: MeterRun, current?: ConfigVersion | null) => ({
-  id: String(m.id),
-  siteId: String(m.siteId),
+/** A meter run with the element and fluid of the configuration in force, when there is one. */
+export const presentMeterRun = (m: MeterRunRecord, current?: ConfigVersionRecord | null) => ({
+  id: m.id,
+  siteId: m.siteId,
   tag: m.tag,
   name: m.name,
   holdLimitS: m.holdLimitS,
@@ -20,5 +21,5 @@ export const presentMeterRun = (m: MeterRun, current?: ConfigVersion | null) => 
   stackSwitchUpShare: m.stackSwitchUpShare,
   stackSwitchDownShare: m.stackSwitchDownShare,
   line: m.line,
-  ...(current ? { element: current.element, fluid: current.fluid, configVersionId: String(current.id) } : {}),
+  ...(current ? { element: current.element, fluid: current.fluid, configVersionId: current.id } : {}),
 });

@@ -1,7 +1,7 @@
-import type { Site } from '../../models';
+import type { SiteRecord } from './repository';
 
-export const presentSite = (s: Site) => ({
-  id: String(s.id),
+export const presentSite = (s: SiteRecord) => ({
+  id: s.id,
   code: s.code,
   name: s.name,
   timeZone: s.timeZone,

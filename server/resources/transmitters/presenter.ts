@@ -1,8 +1,8 @@
-import type { Transmitter } from '../../models';
+import type { TransmitterRecord } from './repository';
 
-export const presentTransmitter = (t: Transmitter) => ({
-  id: String(t.id),
-  meterRunId: String(t.meterRunId),
+export const presentTransmitter = (t: TransmitterRecord) => ({
+  id: t.id,
+  meterRunId: t.meterRunId,
   tag: t.tag,
   measures: t.measures,
   unit: t.unit,

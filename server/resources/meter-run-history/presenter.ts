@@ -1,0 +1,62 @@
+import type { PeriodTotal } from '../../../shared/history/types';
+import type { RecomputeQueue } from './repository';
+import type { HistoryHourlyRecord, HistoryTotal, Trend } from './use-cases';
+
+const iso = (ms: number) => new Date(ms).toISOString();
+
+/** One entry of `GET /api/meter-runs/:id/totals`: instants as ISO 8601 strings, quantities in SI. */
+export const presentTotal = (t: HistoryTotal): PeriodTotal => ({
+  start: iso(t.startMs),
+  end: iso(t.endMs),
+  hours: t.hours,
+  flowTimeS: t.flowTimeS,
+  massKg: t.massKg,
+  volumeM3: t.volumeM3,
+  standardVolumeM3: t.standardVolumeM3,
+  energyJ: t.energyJ,
+  coverage: t.coverage,
+  flags: t.flags,
+  uncertaintyPercent: t.uncertaintyPercent,
+  status: t.status,
+});
+
+/** One entry of `GET /api/meter-runs/:id/hourly-records`: the total of the hour and what only an hour carries. */
+export const presentHourlyRecord = (r: HistoryHourlyRecord) => ({
+  ...presentTotal(r),
+  averageDpPa: r.averageDpPa,
+  averagePressurePa: r.averagePressurePa,
+  averageTemperatureK: r.averageTemperatureK,
+  integralValue: r.integralValue,
+  configVersionId: r.configVersionId,
+  dpBands: r.dpBands,
+  activeTransmitterTimeS: r.activeTransmitterTimeS,
+  computedAt: iso(r.computedAtMs),
+});
+
+export const presentRecomputeStatus = (q: RecomputeQueue) => ({
+  pendingHours: q.pendingHours,
+  oldestPendingHour: q.oldestPendingMs === null ? null : iso(q.oldestPendingMs),
+});
+
+/** The trend, echoing the window as the caller wrote it. */
+export const presentTrend = (window: { from: string; to: string }, trend: Trend) => ({
+  from: window.from,
+  to: window.to,
+  buckets: trend.buckets,
+  series: trend.series.map((s) => ({
+    transmitterId: s.id,
+    tag: s.tag,
+    measures: s.measures,
+    unit: s.unit,
+    stackRole: s.stackRole,
+    lowerRange: s.lowerRange,
+    upperRange: s.upperRange,
+    points: s.points.map((p) => ({ time: iso(p.timeMs), min: p.min, max: p.max, mean: p.mean, count: p.count })),
+  })),
+  flow: trend.flow.map((f) => ({
+    time: iso(f.startMs),
+    massFlowKgPerS: f.massFlowKgPerS,
+    standardVolumeFlowM3PerS: f.standardVolumeFlowM3PerS,
+    coverage: f.coverage,
+  })),
+});

@@ -1,0 +1,21 @@
+import { z } from 'zod';
+import { idField } from '../../http/params';
+import { transmitterSchema } from '../../../shared/schemas/setup';
+
+/** `GET /api/transmitters[?meterRunId]` */
+export const transmitterListQuery = z.object({ meterRunId: idField('meter run').optional() });
+
+/** `POST /api/transmitters` (the form's own schema); also re-checks a whole transmitter after a change. */
+export const transmitterBody = transmitterSchema;
+export type TransmitterInput = z.infer<typeof transmitterBody>;
+
+/** `PATCH /api/transmitters/:id`: a re-range, a new accuracy or calibration date. */
+export const updateTransmitterBody = z
+  .object({
+    lowerRange: z.number().optional(),
+    upperRange: z.number().optional(),
+    accuracyPercentOfSpan: z.number().positive().max(10).optional(),
+    calibrationDue: z.iso.date('must be a date YYYY-MM-DD').nullable().optional(),
+  })
+  .strict();
+export type TransmitterChanges = z.infer<typeof updateTransmitterBody>;
