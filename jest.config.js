@@ -13,6 +13,16 @@ module.exports = {
   testTimeout: 60_000,
   projects: [
     { ...base, displayName: 'shared', testMatch: ['<rootDir>/shared/**/*.test.ts'] },
+    // The client's pure modules (parsing, unit display, tables): plain Node, no DOM, no database.
+    {
+      ...base,
+      displayName: 'client',
+      testMatch: [
+        '<rootDir>/components/**/*.test.ts',
+        '<rootDir>/hooks/**/*.test.ts',
+        '<rootDir>/constants/**/*.test.ts',
+      ],
+    },
     {
       ...base,
       displayName: 'server',

@@ -9,26 +9,13 @@ import { AppText } from '@/components/ui/AppText';
 import { Button } from '@/components/ui/Button';
 import { ChoiceGroup } from '@/components/ui/ChoiceGroup';
 import { Panel } from '@/components/ui/Panel';
-import { alarmStyle, space } from '@/constants/theme';
+import { space } from '@/constants/theme';
 import type { AlarmFilters } from '@/hooks/api/alarms';
 import type { MeterRun } from '@/hooks/api/meterRuns';
 import type { Site } from '@/hooks/api/sites';
+import { describeFilters, priorityChoices, stateChoices } from './alarmFilterParams';
 
-export const stateChoices = [
-  { value: 'open', label: 'Open' },
-  { value: 'unacknowledged', label: 'Unacknowledged' },
-  { value: 'shelved', label: 'Shelved' },
-  { value: 'out-of-service', label: 'Out of service' },
-  { value: 'normal', label: 'Normal (closed)' },
-  { value: 'all', label: 'All states' },
-] as const satisfies readonly { value: AlarmFilters['state']; label: string }[];
-
-const priorityChoices = [
-  { value: '', label: 'Any priority' },
-  { value: 'high', label: `${alarmStyle.high.shape} High` },
-  { value: 'medium', label: `${alarmStyle.medium.shape} Medium` },
-  { value: 'low', label: `${alarmStyle.low.shape} Low` },
-] as const;
+export { describeFilters, stateChoices };
 
 interface AlarmsFiltersProps {
   filters: AlarmFilters;
@@ -37,19 +24,6 @@ interface AlarmsFiltersProps {
   onChange: (filters: AlarmFilters) => void;
   /** Start folded (phones). */
   folded: boolean;
-}
-
-/** @returns what the filters show, in a line, e.g. "Open · any priority · KFG · KFG-101" */
-export function describeFilters(filters: AlarmFilters, sites: readonly Site[], meterRuns: readonly MeterRun[]): string {
-  const state = stateChoices.find((c) => c.value === filters.state)?.label ?? filters.state;
-  const priority = priorityChoices.find((c) => c.value === (filters.priority ?? ''))?.label ?? 'Any priority';
-  const site = filters.siteId
-    ? (sites.find((s) => s.id === filters.siteId)?.code ?? `site ${filters.siteId}`)
-    : 'all sites';
-  const run = filters.meterRunId
-    ? (meterRuns.find((r) => r.id === filters.meterRunId)?.tag ?? `meter run ${filters.meterRunId}`)
-    : null;
-  return [state, priority.toLowerCase(), site, run].filter(Boolean).join(' · ');
 }
 
 export function AlarmsFilters({ filters, sites, meterRuns, onChange, folded: startFolded }: AlarmsFiltersProps) {

@@ -20,28 +20,13 @@ import { useMeterRuns } from '@/hooks/api/meterRuns';
 import { useSites } from '@/hooks/api/sites';
 import { useSignedInUser } from '@/hooks/session/SessionProvider';
 import { useBreakpoint } from '@/hooks/useBreakpoint';
-import { ALARM_PRIORITIES, type AlarmPriority } from '@/shared/alarms/alarm-codes';
-import { AlarmsFilters, describeFilters, stateChoices } from './AlarmsFilters';
+import { describeFilters, filtersFromParams, type AlarmsScreenParams } from './alarmFilterParams';
+import { AlarmsFilters } from './AlarmsFilters';
+
+export { filtersFromParams, type AlarmsScreenParams };
 
 /** Newest first, this many at most: more than a shift's worth for an operator (TRADE.md §7). */
 const listLimit = 300;
-
-export interface AlarmsScreenParams {
-  state?: string;
-  siteId?: string;
-  meterRunId?: string;
-  priority?: string;
-}
-
-/** @returns the filters an address asks for, with anything unknown dropped */
-export function filtersFromParams(params: AlarmsScreenParams): AlarmFilters {
-  const digits = (value: string | undefined) => (value && /^\d+$/.test(value) ? value : undefined);
-  const state = stateChoices.find((choice) => choice.value === params.state)?.value ?? 'open';
-  const priority = ALARM_PRIORITIES.includes(params.priority as AlarmPriority)
-    ? (params.priority as AlarmPriority)
-    : undefined;
-  return { state, priority, siteId: digits(params.siteId), meterRunId: digits(params.meterRunId) };
-}
 
 export function AlarmsScreen({ params }: { params: AlarmsScreenParams }) {
   const user = useSignedInUser();

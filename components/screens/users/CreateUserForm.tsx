@@ -12,21 +12,11 @@ import { roleLabel, roles, roleSummary, type Role } from '@/constants/roles';
 import { space } from '@/constants/theme';
 import { ApiError } from '@/hooks/api/client';
 import { useCreateUser, type NewUser } from '@/hooks/api/users';
+import { localProblems, minPasswordLength } from './newUserProblems';
 
 type Field = keyof NewUser;
 const fields: readonly Field[] = ['name', 'email', 'role', 'password'];
-const minPasswordLength = 8;
 const roleOptions = roles.map((role) => ({ value: role, label: roleLabel[role] }));
-
-/** Checks what can be checked before asking the server; the server has the last word. */
-function localProblems(user: NewUser): Partial<Record<Field, string>> {
-  const problems: Partial<Record<Field, string>> = {};
-  if (!user.name.trim()) problems.name = 'Enter the person’s name.';
-  if (!/^[^\s@]+@[^\s@]+$/.test(user.email.trim())) problems.email = 'Enter an email address such as name@example.com.';
-  // The server's rule (server/resources/users/schema.ts); repeated here only to answer sooner.
-  if (user.password.length < minPasswordLength) problems.password = `Use at least ${minPasswordLength} characters.`;
-  return problems;
-}
 
 export function CreateUserForm() {
   const create = useCreateUser();
