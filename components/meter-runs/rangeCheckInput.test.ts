@@ -105,6 +105,15 @@ describe('runRangeCheck reading numbers as typed', () => {
     expect(runOf(si({ staticPressure: '4,000' })).input.conditions.staticPressurePa).toBeCloseTo(4_000_000, 6);
   });
 
+  it('refuses a decimal comma instead of reading "4,5" kPa as 45 kPa', () => {
+    expect(runRangeCheck(si({ staticPressure: '4,5' })).problems).toEqual({
+      staticPressure: '“4,5” is not a number.',
+    });
+    expect(runRangeCheck(si({ pipeDiameter: '154,05' })).problems).toEqual({
+      pipeDiameter: '“154,05” is not a number.',
+    });
+  });
+
   it('reads exponents, so "4e3" kPa is 4 000 000 Pa', () => {
     expect(runOf(si({ staticPressure: '4e3' })).input.conditions.staticPressurePa).toBeCloseTo(4_000_000, 6);
   });

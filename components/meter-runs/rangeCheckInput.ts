@@ -88,9 +88,19 @@ const fluidFields: Record<string, RangeCheckField> = {
   expansionPerK: 'liquidExpansion',
 };
 
-/** Reads a typed number; blank is `undefined` (optional fields), anything else not a number is NaN. */
+/** Thousands grouped by commas ("4,000", "12,500.5"); any other comma is not read as a number. */
+const commaGrouped = /^[+-]?\d{1,3}(,\d{3})+(\.\d*)?$/;
+
+/**
+ * Reads a typed number; blank is `undefined` (optional fields), anything else not a number is NaN.
+ * A comma counts only as a thousands separator in whole groups of three: "4,5" is refused rather
+ * than silently read as 45 (a decimal comma typed out of habit would be off by a factor of ten).
+ */
 function numberOf(text: string): number | undefined {
-  return text.trim() === '' ? undefined : Number(text.trim().replace(/,/g, ''));
+  const trimmed = text.trim();
+  if (trimmed === '') return undefined;
+  if (trimmed.includes(',')) return commaGrouped.test(trimmed) ? Number(trimmed.replace(/,/g, '')) : NaN;
+  return Number(trimmed);
 }
 
 /** "methane 0.965222" per line (also "methane: 0.965222" or "methane=0.965222"). */
