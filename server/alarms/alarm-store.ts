@@ -32,6 +32,34 @@ export const ALARM_SELECT = `
 
 export type AlarmRow = Record<string, unknown> & { id: string; state: AlarmState; condition_active: boolean };
 
+/** One row of ALARM_SELECT as pg returns it: bigints cast to text, timestamptz as Date, jsonb parsed. */
+export interface AlarmSelectRow {
+  id: string;
+  meter_run_id: string;
+  meter_run_tag: string;
+  site_id: string;
+  transmitter_id: string | null;
+  transmitter_tag: string | null;
+  condition: AlarmCondition;
+  priority: AlarmPriority;
+  state: AlarmState;
+  condition_active: boolean;
+  onset_at: Date;
+  raised_at: Date;
+  cleared_at: Date | null;
+  acknowledged_at: Date | null;
+  acknowledged_by_id: string | null;
+  /** The acknowledging user's email. */
+  acknowledged_by: string | null;
+  shelved_until: Date | null;
+  shelve_reason: string | null;
+  activations: number;
+  message: string;
+  detail: Record<string, unknown>;
+  notify_status: 'pending' | 'sent' | 'summarised' | 'not-needed';
+  notified_at: Date | null;
+}
+
 async function logEvent(
   db: Db,
   alarmId: string,
@@ -144,7 +172,7 @@ export async function applyAction(
   action: Exclude<AlarmAction, 'raise' | 'clear'>,
   actor: Actor | null,
   options: { minutes?: number; reason?: string; nowMs?: number } = {},
-): Promise<AlarmRow | null> {
+): Promise<AlarmSelectRow | null> {
   const nowMs = options.nowMs ?? Date.now();
   const client = await pool.connect();
   try {
@@ -190,7 +218,7 @@ export async function applyAction(
     const note = action === 'shelve' ? `${options.minutes} min: ${options.reason}` : (options.reason ?? null);
     await logEvent(client, alarmId, nowMs, actionName[action], row.state, next.state, actor, note);
     await client.query('COMMIT');
-    return (await pool.query(`${ALARM_SELECT} WHERE a.id = $1`, [alarmId])).rows[0] as AlarmRow;
+    return (await pool.query<AlarmSelectRow>(`${ALARM_SELECT} WHERE a.id = $1`, [alarmId])).rows[0];
   } catch (err) {
     await client.query('ROLLBACK').catch(() => undefined);
     throw err;

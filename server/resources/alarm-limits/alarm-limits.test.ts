@@ -93,4 +93,37 @@ describe('/api/alarm-limits', () => {
   it('refuses an operator changing limits with 403', async () => {
     expect((await post(operator, { meterRunId: f.meterRunId, condition: 'stale', maxAgeS: 60 })).status).toBe(403);
   });
+
+  it('refuses a read without a meter run, or of one that does not exist', async () => {
+    const get = (query: string) => t.http().get(`/api/alarm-limits${query}`).set('Authorization', `Bearer ${operator}`);
+    const missing = await get('');
+    expect(missing.status).toBe(400);
+    expect(missing.body.error).toMatchObject({ field: 'meterRunId', message: 'meterRunId: is required' });
+    expect((await get('?meterRunId=MR-1')).body.error.field).toBe('meterRunId');
+    expect((await get('?meterRunId=987654321')).status).toBe(404);
+    const unknownRun = await post(engineer, { meterRunId: '987654321', condition: 'stale', maxAgeS: 120 });
+    expect(unknownRun.status).toBe(400);
+    expect(unknownRun.body.error.field).toBe('meterRunId');
+  });
+
+  it('deletes a stored setting, so its point goes back to the default, records it, and answers a second delete with 404', async () => {
+    const saved = await post(engineer, { meterRunId: f.meterRunId, condition: 'stale', maxAgeS: 120 });
+    expect(saved.status).toBe(201);
+    const del = () => t.http().delete(`/api/alarm-limits/${saved.body.id}`).set('Authorization', `Bearer ${engineer}`);
+    expect((await del()).status).toBe(204);
+    const got = await t
+      .http()
+      .get(`/api/alarm-limits?meterRunId=${f.meterRunId}`)
+      .set('Authorization', `Bearer ${operator}`);
+    expect(got.body.effective.find((e: { condition: string }) => e.condition === 'stale').source).toBe('default');
+    const [rows] = await t.sequelize.query(
+      "SELECT before FROM audit_events WHERE action = 'alarm-limits.delete' AND entity_id = :id ORDER BY id DESC LIMIT 1",
+      { replacements: { id: f.meterRunId } },
+    );
+    expect((rows as { before: unknown }[])[0].before).toMatchObject({ condition: 'stale', settings: { maxAgeS: 120 } });
+    expect((await del()).status).toBe(404);
+    expect((await t.http().delete('/api/alarm-limits/stale').set('Authorization', `Bearer ${engineer}`)).status).toBe(
+      404,
+    );
+  });
 });

@@ -134,4 +134,52 @@ describe('/api/alarms', () => {
     expect(res.status).toBe(400);
     expect(res.body.error.field).toBe('state');
   });
+
+  it('lists each alarm with its log when asked to include events', async () => {
+    const res = await as('accountant').get(
+      `/api/alarms?meterRunId=${f.meterRunId}&condition=dp-low-in-range&include=events`,
+    );
+    expect(res.status).toBe(200);
+    const [low] = res.body;
+    expect(low.events.map((e: { action: string }) => e.action).slice(0, 2)).toEqual(['raised', 'acknowledged']);
+    expect(low.events.every((e: { alarmId: string }) => e.alarmId === low.id)).toBe(true);
+  });
+
+  it('keeps an alarm in a window it overlaps and leaves it out of windows before it was raised or after it cleared', async () => {
+    // Raised at 06:15 (5 % from 06:10, on-delay 300 s); cleared soon after DP went back to 40 % at 06:40.
+    const list = async (window: string) =>
+      (await as('operator').get(`/api/alarms?meterRunId=${f.meterRunId}&condition=dp-low-in-range&${window}`)).body.map(
+        (a: { id: string }) => a.id,
+      );
+    const a = await lowAlarm();
+    expect(await list('from=2026-10-02T06:20:00Z&to=2026-10-02T06:30:00Z')).toEqual([a.id]);
+    expect(await list('from=2026-10-02T05:00:00Z&to=2026-10-02T06:15:00Z')).toEqual([]);
+    expect(await list('from=2026-10-02T07:00:00Z&to=2026-10-02T08:00:00Z')).toEqual([]);
+    const bad = await as('operator').get('/api/alarms?from=2026-10-02T06:20:00');
+    expect(bad.status).toBe(400);
+    expect(bad.body.error.field).toBe('from');
+  });
+
+  it('counts the alarms of one site, and none for a site that does not exist', async () => {
+    const site = await as('operator').get(`/api/alarms/counts?siteId=${f.siteId}`);
+    expect(site.status).toBe(200);
+    expect(site.body.unacknowledgedByPriority).toEqual({
+      high: expect.any(Number),
+      medium: expect.any(Number),
+      low: expect.any(Number),
+    });
+    const none = await as('operator').get('/api/alarms/counts?siteId=987654321');
+    expect(none.body).toMatchObject({ open: 0, unacknowledged: 0, byState: {}, raisedLast10Minutes: 0, flood: false });
+    const bad = await as('operator').get('/api/alarms/counts?siteId=north');
+    expect(bad.status).toBe(400);
+    expect(bad.body.error.field).toBe('siteId');
+  });
+
+  it('answers an alarm that does not exist, or an id that cannot name one, with 404', async () => {
+    expect((await as('operator').get('/api/alarms/987654321')).status).toBe(404);
+    expect((await as('operator').get('/api/alarms/first/events')).status).toBe(404);
+    expect((await as('operator').post('/api/alarms/987654321/acknowledge')).status).toBe(404);
+    // The body is checked first: a shelve without its fields is a 400 whatever the alarm.
+    expect((await as('operator').post('/api/alarms/first/shelve')).status).toBe(400);
+  });
 });

@@ -1,37 +1,45 @@
 import { z } from 'zod';
-import { ALARM_CONDITIONS, ALARM_PRIORITIES, ALARM_STATES } from '../../../shared/alarms/alarm-codes';
+import { ALARM_CONDITIONS, ALARM_PRIORITIES, ALARM_STATES, type AlarmState } from '../../../shared/alarms/alarm-codes';
+import { idField, isoInstant } from '../../http/params';
 
-const id = (what: string) => z.string().regex(/^\d+$/, `must be a ${what} id`);
-const isoTime = z.iso.datetime({ offset: true, error: 'must be ISO 8601 with an offset or Z' });
-/** A comma-separated list of codes; "open" stands for every state but normal. */
+/** A state filter: a state code, or "open" for every state but normal. */
+export type AlarmStateFilter = AlarmState | 'open';
+
 const allowedStates: readonly string[] = [...ALARM_STATES, 'open'];
+const isStateFilter = (code: string): code is AlarmStateFilter => allowedStates.includes(code);
 const splitList = (s: string) =>
   s
     .split(',')
     .map((x) => x.trim())
     .filter(Boolean);
+/** A comma-separated list of state codes. */
 const stateList = z
   .string()
   .refine(
-    (s) => splitList(s).length > 0 && splitList(s).every((x) => allowedStates.includes(x)),
+    (s) => splitList(s).length > 0 && splitList(s).every(isStateFilter),
     `must be one or more of ${ALARM_STATES.join(', ')} or open, comma-separated`,
   )
-  .transform((s) => splitList(s) as ((typeof ALARM_STATES)[number] | 'open')[]);
+  .transform((s) => splitList(s).filter(isStateFilter));
 
+/** `GET /api/alarms`: filters, newest first, at most `limit`; `include=events` adds each alarm's log. */
 export const alarmListQuery = z.object({
-  meterRunId: id('meter run').optional(),
-  siteId: id('site').optional(),
-  transmitterId: id('transmitter').optional(),
+  meterRunId: idField('meter run').optional(),
+  siteId: idField('site').optional(),
+  transmitterId: idField('transmitter').optional(),
   state: stateList.optional(),
   condition: z.enum(ALARM_CONDITIONS, { error: `must be one of ${ALARM_CONDITIONS.join(', ')}` }).optional(),
   priority: z.enum(ALARM_PRIORITIES, { error: `must be one of ${ALARM_PRIORITIES.join(', ')}` }).optional(),
-  from: isoTime.optional(),
-  to: isoTime.optional(),
+  from: isoInstant.optional(),
+  to: isoInstant.optional(),
   limit: z.coerce.number().int().min(1).max(2000).default(500),
   include: z.enum(['events'], { error: 'must be events' }).optional(),
 });
 
-export const countsQuery = z.object({ siteId: id('site').optional(), meterRunId: id('meter run').optional() });
+/** `GET /api/alarms/counts`: for the whole system, a site or a meter run. */
+export const countsQuery = z.object({
+  siteId: idField('site').optional(),
+  meterRunId: idField('meter run').optional(),
+});
 
 /** ISA-18.2: shelving is time-limited; a day at most here. */
 export const MAX_SHELVE_MINUTES = 1440;
