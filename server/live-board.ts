@@ -3,7 +3,8 @@ import { toSI } from '../shared/units';
 import { solveFlowCase } from '../shared/flow/solve-flow-case';
 import { chooseStackedTransmitter, type StackedRole } from '../shared/flow/stacked-pair';
 import { contractDayBounds, contractDayOf } from '../shared/history/contract-day';
-import type { FlowCase } from '../shared/flow/flow-types';
+import type { ElementSpec } from '../shared/flow/flow-types';
+import type { FluidSpec } from '../shared/fluids';
 
 export interface BoardTransmitter {
   id: string;
@@ -37,6 +38,46 @@ export interface BoardRow {
   warnings: string[];
 }
 
+interface MeterRunRow {
+  id: string;
+  tag: string;
+  name: string;
+  hold_limit_s: number;
+  stack_switch_up_share: number;
+  stack_switch_down_share: number;
+  site_code: string;
+  time_zone: string;
+  contract_hour: number;
+  base_pressure_pa: number;
+  base_temperature_k: number;
+  atmospheric_pressure_pa: number;
+  /** The configuration in effect now, or null before the first one takes effect. */
+  config: { element: ElementSpec; fluid: FluidSpec } | null;
+}
+
+/** A transmitter and its latest reading (time, value and quality are null before its first reading). */
+interface LatestReadingRow {
+  id: string;
+  meter_run_id: string;
+  tag: string;
+  measures: string;
+  unit: string;
+  pressure_reference: 'absolute' | 'gauge';
+  lower_range: number;
+  upper_range: number;
+  stack_role: string;
+  time: Date | null;
+  value: number | null;
+  quality: number | null;
+}
+
+/** Sums of the contract day's hourly records so far (energy is null when no record has any). */
+interface TodayRow {
+  m: number;
+  v: number;
+  e: number | null;
+}
+
 /**
  * The operator's live board: every meter run's live rate (from the latest readings through
  * the flow engine), today's running total (contract day so far), DP as a share of the active
@@ -49,14 +90,14 @@ export class LiveBoard {
   constructor(private readonly pool: Pool) {}
 
   async snapshot(nowMs = Date.now()): Promise<BoardRow[]> {
-    const { rows: runs } = await this.pool.query(
+    const { rows: runs } = await this.pool.query<MeterRunRow>(
       `SELECT m.id::text, m.tag, m.name, m.hold_limit_s, m.stack_switch_up_share, m.stack_switch_down_share,
               s.code AS site_code, s.time_zone, s.contract_hour, s.base_pressure_pa, s.base_temperature_k, s.atmospheric_pressure_pa,
               (SELECT row_to_json(c) FROM (SELECT element, fluid FROM config_versions cv WHERE cv.meter_run_id = m.id AND cv.effective_from <= now()
                  ORDER BY effective_from DESC LIMIT 1) c) AS config
          FROM meter_runs m JOIN sites s ON s.id = m.site_id ORDER BY s.code, m.tag`,
     );
-    const { rows: latest } = await this.pool.query(
+    const { rows: latest } = await this.pool.query<LatestReadingRow>(
       `SELECT t.id::text, t.meter_run_id::text, t.tag, t.measures, t.unit, t.pressure_reference, t.lower_range, t.upper_range, t.stack_role,
               r.time, r.value, r.quality
          FROM transmitters t
@@ -69,16 +110,17 @@ export class LiveBoard {
       const day = contractDayOf(nowMs, run.time_zone, run.contract_hour);
       const bounds = contractDayBounds(day, run.time_zone, run.contract_hour);
       const today = (
-        await this.pool.query(
+        await this.pool.query<TodayRow>(
           `SELECT coalesce(sum(mass_kg), 0) AS m, coalesce(sum(standard_volume_m3), 0) AS v, sum(energy_j) AS e
            FROM hourly_records WHERE meter_run_id = $1 AND start >= to_timestamp($2 / 1000.0) AND start < to_timestamp($3 / 1000.0)`,
           [run.id, bounds.startMs, bounds.endMs],
         )
       ).rows[0];
       const fresh = (t: (typeof ts)[number]) =>
-        t.time && nowMs - (t.time as Date).getTime() <= run.hold_limit_s * 1000 && t.quality !== 2;
+        t.time && nowMs - t.time.getTime() <= run.hold_limit_s * 1000 && t.quality !== 2;
+      // Only fresh transmitters are converted, and a fresh one has a reading.
       const si = (t: (typeof ts)[number]) =>
-        toSI(t.value, t.unit) +
+        toSI(t.value ?? 0, t.unit) +
         (t.measures === 'static-pressure' && t.pressure_reference === 'gauge' ? run.atmospheric_pressure_pa : 0);
       const dps = ts.filter((t) => t.measures === 'differential-pressure');
       const p = ts.find((t) => t.measures === 'static-pressure' && fresh(t));
@@ -115,7 +157,7 @@ export class LiveBoard {
               fluid: run.config.fluid,
               conditions: { differentialPressurePa: dpPa, staticPressurePa: si(p), temperatureK: si(temp) },
               base: { pressurePa: run.base_pressure_pa, temperatureK: run.base_temperature_k },
-            } as FlowCase);
+            });
             massFlow = result.massFlowKgPerS;
             standardFlow = result.standardVolumeFlowM3PerS;
           } catch (err) {
@@ -131,8 +173,8 @@ export class LiveBoard {
         if (!active) warnings.push('no fresh differential pressure');
       }
       const share = (t: (typeof ts)[number]) =>
-        t.time ? (t.value - t.lower_range) / (t.upper_range - t.lower_range) : null;
-      const newest = Math.max(...ts.map((t) => (t.time ? (t.time as Date).getTime() : 0)));
+        t.value !== null ? (t.value - t.lower_range) / (t.upper_range - t.lower_range) : null;
+      const newest = Math.max(...ts.map((t) => (t.time ? t.time.getTime() : 0)));
       board.push({
         meterRunId: run.id,
         tag: run.tag,
@@ -141,9 +183,9 @@ export class LiveBoard {
         timeZone: run.time_zone,
         massFlowKgPerS: massFlow,
         standardVolumeFlowM3PerS: standardFlow,
-        todayMassKg: Number(today.m),
-        todayStandardVolumeM3: Number(today.v),
-        todayEnergyJ: today.e === null ? null : Number(today.e),
+        todayMassKg: today.m,
+        todayStandardVolumeM3: today.v,
+        todayEnergyJ: today.e,
         todayStart: new Date(bounds.startMs).toISOString(),
         activeTransmitterId: active ? active.id : null,
         activeStackRole: activeRole,
@@ -156,8 +198,8 @@ export class LiveBoard {
           unit: t.unit,
           stackRole: t.stack_role,
           value: t.value ?? null,
-          time: t.time ? (t.time as Date).toISOString() : null,
-          ageS: t.time ? (nowMs - (t.time as Date).getTime()) / 1000 : null,
+          time: t.time ? t.time.toISOString() : null,
+          ageS: t.time ? (nowMs - t.time.getTime()) / 1000 : null,
           shareOfSpan: share(t),
         })),
         warnings,

@@ -20,19 +20,27 @@ import { EventEmitter } from 'node:events';
 import type { Pool, PoolClient } from 'pg';
 import { DateTime } from 'luxon';
 import { toSI } from '../../shared/units';
-import {
-  initialAlarmWalkState,
-  walkMeterRunAlarms,
-  type AlarmWalkState,
-  type WalkHour,
-  type WalkReading,
-  type WalkTransmitter,
-} from '../../shared/alarms/meter-run-alarm-walk';
+import { walkMeterRunAlarms, type WalkReading, type WalkTransmitter } from '../../shared/alarms/meter-run-alarm-walk';
 import { alarmMessage } from '../../shared/alarms/alarm-message';
 import type { Quality } from '../../shared/history/types';
 import { loadMeterRunContext, type MeterRunContext } from '../history/load-context';
+import { componentLogger } from '../log';
 import { applySignal, setClockCondition, unshelveExpired } from './alarm-store';
+import {
+  calibrationTransmitters,
+  lockWalkState,
+  meterRunIds,
+  meterRunTag,
+  nextReadingMs,
+  readingSpan,
+  readingsAround,
+  saveWalkState,
+  settledHours,
+  transmitterTags,
+} from './evaluation-repository';
 import { limitsResolver, loadStoredLimits } from './limits-store';
+
+const log = componentLogger('alarms');
 
 const qualityName: Quality[] = ['good', 'uncertain', 'bad', 'substituted'];
 const dayMs = 86_400_000;
@@ -63,7 +71,7 @@ export class AlarmEvaluator extends EventEmitter {
   /** The history worker recomputed these meter runs: judge their new readings (in the background). */
   meterRunsChanged(meterRunIds: string[]) {
     for (const id of meterRunIds)
-      void this.evaluate(id).catch((err) => console.error(`[alarms] meter run ${id}:`, err));
+      void this.evaluate(id).catch((err) => log.error({ err, meterRunId: id }, 'evaluating alarms failed'));
   }
 
   /**
@@ -97,12 +105,11 @@ export class AlarmEvaluator extends EventEmitter {
     const nowMs = this.now();
     const unshelved = await unshelveExpired(this.pool, nowMs);
     if (unshelved.length) this.emit('changed', unshelved);
-    const { rows } = await this.pool.query('SELECT id::text FROM meter_runs ORDER BY id');
-    for (const r of rows) {
+    for (const id of await meterRunIds(this.pool)) {
       try {
-        await this.evaluate(r.id, { clock: true });
+        await this.evaluate(id, { clock: true });
       } catch (err) {
-        console.error(`[alarms] meter run ${r.id}:`, err);
+        log.error({ err, meterRunId: id }, 'evaluating alarms by the clock failed');
       }
     }
     await this.evaluateCalibration(nowMs);
@@ -111,24 +118,16 @@ export class AlarmEvaluator extends EventEmitter {
   private async evaluateOnce(meterRunId: string, clock: boolean) {
     const ctx = await loadMeterRunContext(this.pool, meterRunId);
     if (!ctx) return;
-    const tag = (await this.pool.query('SELECT tag FROM meter_runs WHERE id = $1', [meterRunId])).rows[0]
-      ?.tag as string;
-    const tags = new Map(
-      (await this.pool.query('SELECT id::text, tag FROM transmitters WHERE meter_run_id = $1', [meterRunId])).rows.map(
-        (r) => [r.id as string, r.tag as string],
-      ),
-    );
-    const transmitters = walkTransmitters(ctx, tags);
+    // Its id stands in for the tag (as a transmitter's does below) only if the meter run vanished meanwhile.
+    const tag = (await meterRunTag(this.pool, meterRunId)) ?? meterRunId;
+    const transmitters = walkTransmitters(ctx, await transmitterTags(this.pool, meterRunId));
     const limits = limitsResolver(await loadStoredLimits(this.pool, meterRunId));
     const latest: Record<string, number> = {};
     let first = Infinity;
     for (const t of transmitters) {
-      const { rows } = await this.pool.query(
-        'SELECT min(time) AS first, max(time) AS last FROM readings WHERE transmitter_id = $1',
-        [t.id],
-      );
-      if (rows[0].last) latest[t.id] = (rows[0].last as Date).getTime();
-      if (rows[0].first) first = Math.min(first, (rows[0].first as Date).getTime());
+      const span = await readingSpan(this.pool, t.id);
+      if (span.lastMs !== null) latest[t.id] = span.lastMs;
+      if (span.firstMs !== null) first = Math.min(first, span.firstMs);
     }
     const nowMs = this.now();
     const lastMs = Math.max(-Infinity, ...Object.values(latest));
@@ -141,7 +140,7 @@ export class AlarmEvaluator extends EventEmitter {
       const client = await this.pool.connect();
       try {
         await client.query('BEGIN');
-        const state = await this.lockState(client, meterRunId);
+        const state = await lockWalkState(client, meterRunId);
         const watermark = state.watermarkMs ?? (Number.isFinite(first) ? first - 1 : null);
         if (watermark === null) {
           await client.query('ROLLBACK');
@@ -155,7 +154,9 @@ export class AlarmEvaluator extends EventEmitter {
           : watermark;
         const lastChunk = !hasReadings || chunkEnd >= horizon;
         const readings = hasReadings ? await this.loadReadings(client, ctx, watermark - lookbackMs, chunkEnd) : [];
-        const hours = await this.loadHours(client, meterRunId, state.recordsToMs, chunkEnd);
+        const hours = Number.isFinite(chunkEnd)
+          ? await settledHours(client, meterRunId, state.recordsToMs, chunkEnd)
+          : [];
         const walked = walkMeterRunAlarms({
           state: { ...state, watermarkMs: watermark },
           meterRunTag: tag,
@@ -183,10 +184,7 @@ export class AlarmEvaluator extends EventEmitter {
           if (applied) touchedIds.push(applied.alarmId);
           if (applied?.raised) raisedIds.push(applied.alarmId);
         }
-        await client.query(
-          'UPDATE alarm_evaluations SET state = $2, watermark = to_timestamp($3 / 1000.0), updated_at = now() WHERE meter_run_id = $1',
-          [meterRunId, JSON.stringify(walked.state), walked.state.watermarkMs],
-        );
+        await saveWalkState(client, meterRunId, walked.state);
         await client.query('COMMIT');
         if (lastChunk) break;
       } catch (err) {
@@ -206,54 +204,35 @@ export class AlarmEvaluator extends EventEmitter {
     return Math.max(0, ...windows) + ctx.maxGapS * 1000;
   }
 
+  /** The first reading of any of the transmitters after `afterMs`, or null. */
   private async nextReadingMs(
-    client: PoolClient,
+    db: PoolClient,
     transmitters: WalkTransmitter[],
     afterMs: number,
   ): Promise<number | null> {
     let next = Infinity;
     for (const t of transmitters) {
-      const { rows } = await client.query(
-        'SELECT time FROM readings WHERE transmitter_id = $1 AND time > to_timestamp($2 / 1000.0) ORDER BY time LIMIT 1',
-        [t.id, afterMs],
-      );
-      if (rows[0]) next = Math.min(next, (rows[0].time as Date).getTime());
+      const timeMs = await nextReadingMs(db, t.id, afterMs);
+      if (timeMs !== null) next = Math.min(next, timeMs);
     }
     return Number.isFinite(next) ? next : null;
   }
 
-  private async lockState(client: PoolClient, meterRunId: string): Promise<AlarmWalkState> {
-    await client.query(
-      'INSERT INTO alarm_evaluations (meter_run_id, state) VALUES ($1, $2) ON CONFLICT (meter_run_id) DO NOTHING',
-      [meterRunId, JSON.stringify(initialAlarmWalkState())],
-    );
-    const { rows } = await client.query('SELECT state FROM alarm_evaluations WHERE meter_run_id = $1 FOR UPDATE', [
-      meterRunId,
-    ]);
-    return { ...initialAlarmWalkState(), ...(rows[0].state as AlarmWalkState) };
-  }
-
   /** Readings of [fromMs, toMs] per transmitter in SI, plus the latest one before fromMs, merged in time order. */
   private async loadReadings(
-    client: PoolClient,
+    db: PoolClient,
     ctx: MeterRunContext,
     fromMs: number,
     toMs: number,
   ): Promise<WalkReading[]> {
     const out: WalkReading[] = [];
     for (const t of ctx.transmitters) {
-      const { rows } = await client.query(
-        `(SELECT time, value, quality FROM readings WHERE transmitter_id = $1 AND time < to_timestamp($2 / 1000.0) ORDER BY time DESC LIMIT 1)
-         UNION ALL
-         (SELECT time, value, quality FROM readings WHERE transmitter_id = $1 AND time >= to_timestamp($2 / 1000.0) AND time <= to_timestamp($3 / 1000.0) ORDER BY time)`,
-        [t.id, fromMs, toMs],
-      );
       const offset =
         t.measures === 'static-pressure' && t.pressureReference === 'gauge' ? ctx.atmosphericPressurePa : 0;
-      for (const r of rows)
+      for (const r of await readingsAround(db, t.id, fromMs, toMs))
         out.push({
           transmitterId: t.id,
-          timeMs: (r.time as Date).getTime(),
+          timeMs: r.timeMs,
           value: toSI(r.value, t.unit) + offset,
           quality: qualityName[r.quality] ?? 'bad',
         });
@@ -261,49 +240,19 @@ export class AlarmEvaluator extends EventEmitter {
     return out.sort((a, b) => a.timeMs - b.timeMs);
   }
 
-  /** Hourly records not yet judged, up to the horizon and before any hour still waiting to be recomputed. */
-  private async loadHours(
-    client: PoolClient,
-    meterRunId: string,
-    fromMs: number | null,
-    toMs: number,
-  ): Promise<WalkHour[]> {
-    if (!Number.isFinite(toMs)) return [];
-    const { rows } = await client.query(
-      `SELECT start, "end", flow_time_s, flags FROM hourly_records h
-        WHERE meter_run_id = $1 AND start >= to_timestamp($2 / 1000.0) AND "end" <= to_timestamp($3 / 1000.0)
-          AND "end" <= coalesce((SELECT min(start) FROM stale_hours s WHERE s.meter_run_id = $1), 'infinity'::timestamptz)
-        ORDER BY start`,
-      [meterRunId, fromMs ?? 0, toMs],
-    );
-    return rows.map((r) => ({
-      startMs: (r.start as Date).getTime(),
-      endMs: (r.end as Date).getTime(),
-      flowTimeS: r.flow_time_s,
-      flags: r.flags,
-    }));
-  }
-
   /**
    * Calibration due soon and overdue, by the date in the site's time zone: due from dueSoonDays
    * before the due date up to and including it, overdue after it. Judged by the clock, not readings.
    */
   async evaluateCalibration(nowMs = this.now()) {
-    const { rows } = await this.pool.query(
-      `SELECT t.id::text, t.tag, t.meter_run_id::text, to_char(t.calibration_due, 'YYYY-MM-DD') AS due, s.time_zone
-         FROM transmitters t JOIN meter_runs m ON m.id = t.meter_run_id JOIN sites s ON s.id = m.site_id
-        WHERE t.calibration_due IS NOT NULL
-           OR EXISTS (SELECT 1 FROM alarms a WHERE a.transmitter_id = t.id AND a.condition IN ('calibration-due', 'calibration-overdue') AND a.state <> 'normal')`,
-    );
     const raised: string[] = [];
     const touched: string[] = [];
     const byRun = new Map<string, ReturnType<typeof limitsResolver>>();
-    for (const r of rows) {
-      let limits = byRun.get(r.meter_run_id);
-      if (!limits)
-        byRun.set(r.meter_run_id, (limits = limitsResolver(await loadStoredLimits(this.pool, r.meter_run_id))));
-      const today = DateTime.fromMillis(nowMs, { zone: r.time_zone }).toISODate()!;
-      const due: string | null = r.due;
+    for (const r of await calibrationTransmitters(this.pool)) {
+      let limits = byRun.get(r.meterRunId);
+      if (!limits) byRun.set(r.meterRunId, (limits = limitsResolver(await loadStoredLimits(this.pool, r.meterRunId))));
+      const today = DateTime.fromMillis(nowMs, { zone: r.timeZone }).toISODate()!;
+      const due = r.due;
       const dueLimits = limits('calibration-due', r.id);
       const overdueLimits = limits('calibration-overdue', r.id);
       const soonFrom = due
@@ -320,7 +269,7 @@ export class AlarmEvaluator extends EventEmitter {
       ] as const) {
         const applied = await setClockCondition(
           this.pool,
-          r.meter_run_id,
+          r.meterRunId,
           r.id,
           condition,
           holds,

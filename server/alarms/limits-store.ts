@@ -15,9 +15,18 @@ export interface StoredLimits {
   updatedAt: string;
 }
 
+interface StoredLimitsRow {
+  id: string;
+  meter_run_id: string;
+  transmitter_id: string | null;
+  condition: AlarmCondition;
+  settings: Partial<AlarmLimits>;
+  updated_at: Date;
+}
+
 /** @returns the stored settings of a meter run (all levels) */
 export async function loadStoredLimits(db: Pool | PoolClient, meterRunId: string): Promise<StoredLimits[]> {
-  const { rows } = await db.query(
+  const { rows } = await db.query<StoredLimitsRow>(
     `SELECT id::text, meter_run_id::text, transmitter_id::text, condition, settings, updated_at FROM alarm_limits WHERE meter_run_id = $1 ORDER BY condition, transmitter_id NULLS FIRST`,
     [meterRunId],
   );
@@ -27,7 +36,7 @@ export async function loadStoredLimits(db: Pool | PoolClient, meterRunId: string
     transmitterId: r.transmitter_id,
     condition: r.condition,
     settings: r.settings,
-    updatedAt: (r.updated_at as Date).toISOString(),
+    updatedAt: r.updated_at.toISOString(),
   }));
 }
 

@@ -5,20 +5,21 @@ import { User } from '../models';
 import { forbidden, unauthorized } from '../errors';
 import { can, type Capability, type Role } from '../../shared/auth/roles';
 
-export interface SignedInUser {
-  id: string;
-  email: string;
-  name: string;
-  role: Role;
-}
-
 declare global {
   // eslint-disable-next-line @typescript-eslint/no-namespace
   namespace Express {
-    // passport's Request.user: our signed-in user.
-    interface User extends SignedInUser {}
+    /** passport's Request.user: the signed-in user (this merges with @types/passport's empty one). */
+    interface User {
+      id: string;
+      email: string;
+      name: string;
+      role: Role;
+    }
   }
 }
+
+/** The signed-in user, as passport puts it on the request. */
+export type SignedInUser = Express.User;
 
 /**
  * Bearer-token authentication. The user is re-read on every request so a disabled account or a

@@ -27,9 +27,49 @@ export interface MeterRunContext {
   atmosphericPressurePa: number;
 }
 
+type ContextTransmitter = MeterRunContext['transmitters'][number];
+
+interface MeterRunRow {
+  id: string;
+  hold_limit_s: number;
+  max_gap_s: number;
+  stack_switch_up_share: number;
+  stack_switch_down_share: number;
+  time_zone: string;
+  contract_hour: number;
+  base_pressure_pa: number;
+  base_temperature_k: number;
+  atmospheric_pressure_pa: number;
+}
+
+interface ConfigVersionRow {
+  id: string;
+  effective_from: Date;
+  element: ConfigVersionInput['element'];
+  fluid: ConfigVersionInput['fluid'];
+}
+
+interface TransmitterRow {
+  id: string;
+  measures: ContextTransmitter['measures'];
+  unit: string;
+  pressure_reference: ContextTransmitter['pressureReference'];
+  lower_range: number;
+  upper_range: number;
+  stack_role: ContextTransmitter['stackRole'];
+  accuracy_percent_of_span: number;
+}
+
+/** A stored reading: value in the transmitter's unit, quality as its code (0 good … 3 substituted). */
+interface ReadingRow {
+  time: Date;
+  value: number;
+  quality: number;
+}
+
 /** Everything about a meter run that its hourly computation needs, except the readings. */
 export async function loadMeterRunContext(pool: Pool, meterRunId: string): Promise<MeterRunContext | null> {
-  const run = await pool.query(
+  const run = await pool.query<MeterRunRow>(
     `SELECT m.id::text, m.hold_limit_s, m.max_gap_s, m.stack_switch_up_share, m.stack_switch_down_share,
             s.time_zone, s.contract_hour, s.base_pressure_pa, s.base_temperature_k, s.atmospheric_pressure_pa
        FROM meter_runs m JOIN sites s ON s.id = m.site_id WHERE m.id = $1`,
@@ -37,11 +77,11 @@ export async function loadMeterRunContext(pool: Pool, meterRunId: string): Promi
   );
   const r = run.rows[0];
   if (!r) return null;
-  const versions = await pool.query(
+  const versions = await pool.query<ConfigVersionRow>(
     'SELECT id::text, effective_from, element, fluid FROM config_versions WHERE meter_run_id = $1 ORDER BY effective_from',
     [meterRunId],
   );
-  const transmitters = await pool.query(
+  const transmitters = await pool.query<TransmitterRow>(
     `SELECT id::text, measures, unit, pressure_reference, lower_range, upper_range, stack_role, accuracy_percent_of_span
        FROM transmitters WHERE meter_run_id = $1 ORDER BY id`,
     [meterRunId],
@@ -58,7 +98,7 @@ export async function loadMeterRunContext(pool: Pool, meterRunId: string): Promi
     atmosphericPressurePa: r.atmospheric_pressure_pa,
     configVersions: versions.rows.map((v) => ({
       id: v.id,
-      effectiveFromMs: (v.effective_from as Date).getTime(),
+      effectiveFromMs: v.effective_from.getTime(),
       element: v.element,
       fluid: v.fluid,
     })),
@@ -94,7 +134,7 @@ export async function loadReadings(
 ): Promise<ReadingSeries> {
   const series: ReadingSeries = { dp: [], staticPressure: [], temperature: [] };
   for (const t of ctx.transmitters) {
-    const { rows } = await pool.query(
+    const { rows } = await pool.query<ReadingRow>(
       `(SELECT time, value, quality FROM readings WHERE transmitter_id = $1 AND time < to_timestamp($2 / 1000.0) ORDER BY time DESC LIMIT 1)
        UNION ALL
        (SELECT time, value, quality FROM readings WHERE transmitter_id = $1 AND time >= to_timestamp($2 / 1000.0) AND time < to_timestamp($3 / 1000.0) ORDER BY time)`,
@@ -102,7 +142,7 @@ export async function loadReadings(
     );
     const offset = t.measures === 'static-pressure' && t.pressureReference === 'gauge' ? ctx.atmosphericPressurePa : 0;
     const samples: Sample[] = rows.map((row) => ({
-      timeMs: (row.time as Date).getTime(),
+      timeMs: row.time.getTime(),
       value: toSI(row.value, t.unit) + offset,
       quality: qualityName[row.quality],
     }));

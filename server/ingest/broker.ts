@@ -1,5 +1,6 @@
 import net from 'node:net';
 import type { AddressInfo } from 'node:net';
+import type { Aedes } from 'aedes';
 
 /** Decides whether a device may connect with these credentials. */
 export type DeviceAuthenticator = (
@@ -21,7 +22,7 @@ export interface EmbeddedBroker {
   /** Closes every connection signed in as this device username. */
   disconnect(username: string): void;
   /** The aedes instance, for in-process subscribers (live views) and hooks. */
-  aedes: import('aedes').Aedes;
+  aedes: Aedes;
 }
 
 /**

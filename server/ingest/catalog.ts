@@ -1,4 +1,4 @@
-import type { Sequelize } from 'sequelize';
+import { QueryTypes, type Sequelize } from 'sequelize';
 
 /** What ingest needs to know about a transmitter, looked up by site code and tag. */
 export interface CatalogTransmitter {
@@ -33,14 +33,17 @@ export class Catalog {
   }
 
   private async load() {
-    const [rows] = await this.sequelize.query(`
+    const rows = await this.sequelize.query<CatalogTransmitter>(
+      `
       SELECT t.id::text, t.tag, t.meter_run_id::text AS "meterRunId", s.id::text AS "siteId", s.code AS "siteCode",
              s.time_zone AS "timeZone", t.measures, t.unit, t.pressure_reference AS "pressureReference",
              t.lower_range AS "lowerRange", t.upper_range AS "upperRange", s.atmospheric_pressure_pa AS "atmosphericPressurePa"
-        FROM transmitters t JOIN meter_runs m ON m.id = t.meter_run_id JOIN sites s ON s.id = m.site_id`);
+        FROM transmitters t JOIN meter_runs m ON m.id = t.meter_run_id JOIN sites s ON s.id = m.site_id`,
+      { type: QueryTypes.SELECT },
+    );
     const byTopic = new Map<string, CatalogTransmitter>();
     const byTag = new Map<string, CatalogTransmitter>();
-    for (const row of rows as CatalogTransmitter[]) {
+    for (const row of rows) {
       byTopic.set(`${row.siteCode}/${row.tag}`, row);
       byTag.set(row.tag, row);
     }

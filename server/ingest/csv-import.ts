@@ -146,7 +146,10 @@ export async function importFieldTotalsCsv(deps: { pool: Pool }, importId: strin
     parse({ bom: true, trim: true, skip_empty_lines: true, relax_column_count: true, info: true }),
   );
   const runs = new Map(
-    (await deps.pool.query('SELECT id::text, tag FROM meter_runs')).rows.map((r) => [r.tag as string, r.id as string]),
+    (await deps.pool.query<{ id: string; tag: string }>('SELECT id::text, tag FROM meter_runs')).rows.map((r) => [
+      r.tag,
+      r.id,
+    ]),
   );
   const column = { 'standard-volume': 'standard_volume_m3', mass: 'mass_kg', energy: 'energy_j' } as const;
   const expectedUnit = { 'standard-volume': 'volume', mass: 'mass', energy: 'energy' } as const;
@@ -192,7 +195,7 @@ export async function importFieldTotalsCsv(deps: { pool: Pool }, importId: strin
           continue;
         }
         const col = column[quantity];
-        const res = await deps.pool.query(
+        const res = await deps.pool.query<{ inserted: boolean }>(
           `INSERT INTO field_totals (meter_run_id, period_start, period_end, ${col}, import_id)
            VALUES ($1, to_timestamp($2 / 1000.0), to_timestamp($3 / 1000.0), $4, $5)
            ON CONFLICT (meter_run_id, period_start, period_end) DO UPDATE SET ${col} = EXCLUDED.${col}, import_id = EXCLUDED.import_id

@@ -94,7 +94,7 @@ export class ReadingWriter {
     const staleRows = [...stale.values()].sort((a, b) => Number(a[0]) - Number(b[0]) || a[1] - b[1]);
     const staleRuns = staleRows.map((s) => s[0]);
     const staleHours = staleRows.map((s) => s[1]);
-    const result = await this.pool.query(
+    const result = await this.pool.query<{ inserted: number }>(
       `WITH ins AS (
          INSERT INTO readings (transmitter_id, time, value, quality, source)
          SELECT u.t, to_timestamp(u.s), u.v, u.q, $5::int2
@@ -108,7 +108,7 @@ export class ReadingWriter {
        SELECT count(*)::int AS inserted FROM ins`,
       [ids, times, values, qualities, sourceCode[source], staleRuns, staleHours],
     );
-    const inserted = result.rows[0].inserted as number;
+    const inserted = result.rows[0].inserted;
     return { inserted, duplicates: n - inserted };
   }
 }

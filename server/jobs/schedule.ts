@@ -2,6 +2,9 @@ import cron from 'node-cron';
 import type { Pool } from 'pg';
 import type { HistoryWorker } from '../history/worker';
 import { ensureReadingPartition } from '../ingest/reading-writer';
+import { componentLogger } from '../log';
+
+const log = componentLogger('jobs');
 
 const hourMs = 3_600_000;
 
@@ -24,10 +27,12 @@ export function startSchedule(deps: { pool: Pool; history: HistoryWorker }) {
       const now = Date.now();
       void deps.history
         .queueHours('all', now - 2 * hourMs, now)
-        .catch((err) => console.error('[jobs] hourly sweep:', err));
+        .catch((err) => log.error({ err }, 'the hourly sweep could not queue the past hours'));
     }),
     cron.schedule('10 0 * * *', () => {
-      void makePartitionsAhead(deps.pool).catch((err) => console.error('[jobs] partitions:', err));
+      void makePartitionsAhead(deps.pool).catch((err) =>
+        log.error({ err }, 'the readings partitions of the coming months could not be made'),
+      );
     }),
   ];
   return { stop: () => tasks.forEach((t) => t.stop()) };
@@ -52,7 +57,7 @@ export function startAlarmSchedule(deps: {
       await deps.notifier.run();
       await deps.notifier.sendDigests();
     })()
-      .catch((err) => console.error('[jobs] alarms:', err))
+      .catch((err) => log.error({ err }, "the minute's alarm and mail jobs failed"))
       .finally(() => {
         busy = false;
       });

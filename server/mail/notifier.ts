@@ -15,7 +15,27 @@
  */
 import type { Pool } from 'pg';
 import { contractDayBounds, contractDayOf } from '../../shared/history/contract-day';
-import { alarmMail, digestMail, floodMail, type MailAlarm, type MailSite } from './alarm-mail-text';
+import { componentLogger } from '../log';
+import {
+  alarmPointMailedSince,
+  alarmsRaisedBetween,
+  alarmsRaisedSince,
+  claimDigest,
+  digestSites,
+  engineerEmails,
+  lastFloodMailMs,
+  markAlarms,
+  openAlarms,
+  pendingAlarms,
+  recordAlarmMail,
+  recordFloodMail,
+  releaseDigestClaim,
+  type AlarmToMail,
+  type NotifyStatus,
+} from './alarm-mail-repository';
+import { alarmMail, digestMail, floodMail, type MailSite } from './alarm-mail-text';
+
+const log = componentLogger('mail');
 
 export interface Mailer {
   send(message: { to: string | string[]; subject: string; text: string }): Promise<unknown>;
@@ -29,26 +49,6 @@ export interface NotifierOptions {
   floodCount?: number;
   floodWindowS?: number;
 }
-
-const alarmColumns = `a.id::text, a.condition, a.priority, a.state, a.message, a.raised_at, a.cleared_at, m.tag AS meter_run_tag, t.tag AS transmitter_tag,
-  a.meter_run_id::text, a.transmitter_id::text, m.site_id::text, s.code AS site_code, s.name AS site_name, s.time_zone`;
-const alarmFrom = `FROM alarms a JOIN meter_runs m ON m.id = a.meter_run_id JOIN sites s ON s.id = m.site_id LEFT JOIN transmitters t ON t.id = a.transmitter_id`;
-const toMailAlarm = (r: Record<string, unknown>): MailAlarm => ({
-  id: r.id as string,
-  condition: r.condition as string,
-  priority: r.priority as string,
-  state: r.state as string,
-  message: r.message as string,
-  raisedAt: r.raised_at as Date,
-  clearedAt: (r.cleared_at as Date | null) ?? null,
-  meterRunTag: r.meter_run_tag as string,
-  transmitterTag: (r.transmitter_tag as string | null) ?? null,
-});
-const toSite = (r: Record<string, unknown>): MailSite => ({
-  code: r.site_code as string,
-  name: r.site_name as string,
-  timeZone: r.time_zone as string,
-});
 
 export class AlarmNotifier {
   private running: Promise<unknown> | null = null;
@@ -74,7 +74,7 @@ export class AlarmNotifier {
     if (this.timer) return;
     this.timer = setTimeout(() => {
       this.timer = null;
-      void this.run().catch((err) => console.error('[mail] alarm mail:', err));
+      void this.run().catch((err) => log.error({ err }, 'sending alarm mail failed'));
     }, 1000);
     (this.timer as unknown as { unref?: () => void }).unref?.();
   }
@@ -96,95 +96,61 @@ export class AlarmNotifier {
     }
   }
 
-  private async recipients(): Promise<string[]> {
-    const { rows } = await this.pool.query(
-      `SELECT email FROM users WHERE role = 'engineer' AND NOT disabled ORDER BY email`,
-    );
-    return rows.map((r) => r.email as string);
-  }
-
   private async runOnce() {
     const nowMs = this.now();
     let alarmMails = 0;
     let floodMails = 0;
-    const { rows } = await this.pool.query(
-      `SELECT ${alarmColumns} ${alarmFrom} WHERE a.notify_status = 'pending' ORDER BY a.created_at, a.id`,
-    );
-    if (!rows.length) return { alarmMails, floodMails };
-    const to = await this.recipients();
-    const mark = (ids: string[], status: string) =>
-      this.pool.query(
-        `UPDATE alarms SET notify_status = $2, notified_at = CASE WHEN $2 IN ('sent', 'summarised') THEN to_timestamp($3 / 1000.0) ELSE notified_at END WHERE id = ANY($1::bigint[])`,
-        [ids, status, nowMs],
-      );
+    const pending = await pendingAlarms(this.pool);
+    if (!pending.length) return { alarmMails, floodMails };
+    const to = await engineerEmails(this.pool);
+    const mark = (ids: string[], status: NotifyStatus) => markAlarms(this.pool, ids, status, nowMs);
     // Not (or no longer) news: shelved, out of service, normal again and acknowledged, or no one to tell.
-    const stale = rows.filter(
-      (r) =>
-        !['active-unacknowledged', 'active-acknowledged', 'returned-unacknowledged'].includes(r.state as string) ||
+    const stale = pending.filter(
+      (p) =>
+        !['active-unacknowledged', 'active-acknowledged', 'returned-unacknowledged'].includes(p.alarm.state) ||
         !to.length,
     );
     if (stale.length)
       await mark(
-        stale.map((r) => r.id),
+        stale.map((p) => p.alarm.id),
         'not-needed',
       );
-    const bySite = new Map<string, Record<string, unknown>[]>();
-    for (const r of rows) if (!stale.includes(r)) bySite.set(r.site_id, [...(bySite.get(r.site_id) ?? []), r]);
+    const bySite = new Map<string, AlarmToMail[]>();
+    for (const p of pending) if (!stale.includes(p)) bySite.set(p.siteId, [...(bySite.get(p.siteId) ?? []), p]);
 
-    for (const [siteId, pending] of bySite) {
-      const site = toSite(pending[0]);
-      const recent = (
-        await this.pool.query(
-          `SELECT count(*)::int AS n FROM alarms a JOIN meter_runs m ON m.id = a.meter_run_id WHERE m.site_id = $1 AND a.raised_at > to_timestamp($2 / 1000.0)`,
-          [siteId, nowMs - this.floodWindowMs],
-        )
-      ).rows[0].n as number;
-      const lastFlood = (
-        await this.pool.query(`SELECT max(sent_at) AS t FROM alarm_mails WHERE site_id = $1 AND kind = 'flood'`, [
-          siteId,
-        ])
-      ).rows[0].t as Date | null;
-      const floodMailedRecently = lastFlood !== null && lastFlood.getTime() > nowMs - this.floodWindowMs;
-      if (recent > this.floodCount || pending.length > this.floodCount || floodMailedRecently) {
+    for (const [siteId, waiting] of bySite) {
+      const site = waiting[0].site;
+      const recent = await alarmsRaisedSince(this.pool, siteId, nowMs - this.floodWindowMs);
+      const lastFloodMs = await lastFloodMailMs(this.pool, siteId);
+      const floodMailedRecently = lastFloodMs !== null && lastFloodMs > nowMs - this.floodWindowMs;
+      if (recent > this.floodCount || waiting.length > this.floodCount || floodMailedRecently) {
         // A flood: one mail for all of them, at most one per window (the rest wait for the next one).
         if (floodMailedRecently) continue;
         const mail = floodMail(
-          pending.map(toMailAlarm),
+          waiting.map((p) => p.alarm),
           site,
           this.floodWindowMs / 60_000,
-          Math.max(recent, pending.length),
+          Math.max(recent, waiting.length),
         );
         await this.mailer.send({ to, ...mail });
-        await this.pool.query(
-          `INSERT INTO alarm_mails (site_id, kind, recipients, subject, sent_at) VALUES ($1, 'flood', $2, $3, to_timestamp($4 / 1000.0))`,
-          [siteId, to, mail.subject, nowMs],
-        );
+        await recordFloodMail(this.pool, { siteId, recipients: to, subject: mail.subject }, nowMs);
         await mark(
-          pending.map((r) => r.id as string),
+          waiting.map((p) => p.alarm.id),
           'summarised',
         );
         floodMails++;
         continue;
       }
-      for (const r of pending) {
-        const mailedRecently = (
-          await this.pool.query(
-            `SELECT 1 FROM alarm_mails x JOIN alarms b ON b.id = x.alarm_id
-            WHERE x.kind = 'alarm' AND b.meter_run_id = $1 AND b.transmitter_id IS NOT DISTINCT FROM $2::bigint AND b.condition = $3 AND x.sent_at > to_timestamp($4 / 1000.0) LIMIT 1`,
-            [r.meter_run_id, r.transmitter_id, r.condition, nowMs - this.intervalMs],
-          )
-        ).rowCount;
-        if (mailedRecently) {
-          await mark([r.id as string], 'not-needed');
+      for (const p of waiting) {
+        const point = { meterRunId: p.meterRunId, transmitterId: p.transmitterId, condition: p.alarm.condition };
+        if (await alarmPointMailedSince(this.pool, point, nowMs - this.intervalMs)) {
+          await mark([p.alarm.id], 'not-needed');
           continue;
         }
-        const mail = alarmMail(toMailAlarm(r), site);
+        const mail = alarmMail(p.alarm, site);
         await this.mailer.send({ to, ...mail });
-        await this.pool.query(
-          `INSERT INTO alarm_mails (site_id, kind, alarm_id, recipients, subject, sent_at) VALUES ($1, 'alarm', $2, $3, $4, to_timestamp($5 / 1000.0))`,
-          [siteId, r.id, to, mail.subject, nowMs],
-        );
-        await mark([r.id as string], 'sent');
+        await recordAlarmMail(this.pool, { siteId, alarmId: p.alarm.id, recipients: to, subject: mail.subject }, nowMs);
+        await mark([p.alarm.id], 'sent');
         alarmMails++;
       }
     }
@@ -197,44 +163,31 @@ export class AlarmNotifier {
    * @returns the sites mailed
    */
   async sendDigests(nowMs = this.now()): Promise<string[]> {
-    const sites = (
-      await this.pool.query('SELECT id::text, code, name, time_zone, contract_hour FROM sites ORDER BY id')
-    ).rows;
     const sent: string[] = [];
-    for (const s of sites) {
-      const today = contractDayBounds(contractDayOf(nowMs, s.time_zone, s.contract_hour), s.time_zone, s.contract_hour);
+    for (const s of await digestSites(this.pool)) {
+      const today = contractDayBounds(contractDayOf(nowMs, s.timeZone, s.contractHour), s.timeZone, s.contractHour);
       if (nowMs - today.startMs > 3_600_000) continue; // not within the hour after the contract hour
-      const day = contractDayOf(today.startMs - 1, s.time_zone, s.contract_hour);
-      const bounds = contractDayBounds(day, s.time_zone, s.contract_hour);
-      const site: MailSite = { code: s.code, name: s.name, timeZone: s.time_zone };
-      const raised = (
-        await this.pool.query(
-          `SELECT ${alarmColumns} ${alarmFrom} WHERE m.site_id = $1 AND a.raised_at >= to_timestamp($2 / 1000.0) AND a.raised_at < to_timestamp($3 / 1000.0) ORDER BY a.raised_at`,
-          [s.id, bounds.startMs, bounds.endMs],
-        )
-      ).rows.map(toMailAlarm);
-      const open = (
-        await this.pool.query(
-          `SELECT ${alarmColumns} ${alarmFrom} WHERE m.site_id = $1 AND a.state <> 'normal' ORDER BY a.priority, a.raised_at`,
-          [s.id],
-        )
-      ).rows.map(toMailAlarm);
+      const day = contractDayOf(today.startMs - 1, s.timeZone, s.contractHour);
+      const bounds = contractDayBounds(day, s.timeZone, s.contractHour);
+      const site: MailSite = { code: s.code, name: s.name, timeZone: s.timeZone };
+      const raised = await alarmsRaisedBetween(this.pool, s.id, bounds.startMs, bounds.endMs);
+      const open = await openAlarms(this.pool, s.id);
       if (!raised.length && !open.length) continue;
-      const to = await this.recipients();
+      const to = await engineerEmails(this.pool);
       if (!to.length) continue;
       const mail = digestMail(site, day, raised, open);
       // Claim the day first (unique per site and day), so two processes never both send it.
-      const claim = await this.pool.query(
-        `INSERT INTO alarm_mails (site_id, kind, contract_day, recipients, subject, sent_at) VALUES ($1, 'digest', $2, $3, $4, to_timestamp($5 / 1000.0))
-         ON CONFLICT (site_id, contract_day) WHERE kind = 'digest' DO NOTHING RETURNING id`,
-        [s.id, day, to, mail.subject, nowMs],
+      const claimId = await claimDigest(
+        this.pool,
+        { siteId: s.id, contractDay: day, recipients: to, subject: mail.subject },
+        nowMs,
       );
-      if (!claim.rowCount) continue;
+      if (claimId === null) continue;
       try {
         await this.mailer.send({ to, ...mail });
         sent.push(s.id);
       } catch (err) {
-        await this.pool.query('DELETE FROM alarm_mails WHERE id = $1', [claim.rows[0].id]);
+        await releaseDigestClaim(this.pool, claimId);
         throw err;
       }
     }

@@ -18,7 +18,10 @@ startEmbeddedBroker({
     process.on('SIGTERM', () => void broker.close().then(() => process.exit(0)));
   },
   (err) => {
-    console.error(err);
+    // Not the logger: it writes to stdout, where the parent reads the port line.
+    process.stderr.write(
+      `the plain broker could not start: ${err instanceof Error ? (err.stack ?? err.message) : String(err)}\n`,
+    );
     process.exit(1);
   },
 );
