@@ -96,7 +96,7 @@ export function startLivePublisher(options: LivePublisherOptions): LivePublisher
       flush(channel);
     });
     client.on('error', (err) => {
-      // Say it once per kind (a refused sign-in repeats on every reconnect attempt).
+      // Say it once per kind: a broker outage repeats the same error on every reconnect attempt.
       const refused = /bad user ?name or password|not authorized/i.test(err.message);
       const hint = refused ? ` (is the demo scenario seeded, and is TALLYRUN_DEMO_PASSWORD the server's?)` : '';
       if (channel.lastError !== err.message) log(`live: ${site.code} ${err.message}${hint}`);

@@ -1,3 +1,4 @@
+import type { AddressInfo } from 'node:net';
 import { testApp } from '../../server/test-support/app';
 
 /**
@@ -94,7 +95,7 @@ const cases = Object.entries(expected).flatMap(([route, allowed]) =>
 
 async function streamStatus(url: string, token: string | null) {
   const server = t.app.listen(0);
-  const port = (server.address() as import('node:net').AddressInfo).port;
+  const port = (server.address() as AddressInfo).port;
   const abort = new AbortController();
   try {
     const res = await fetch(`http://127.0.0.1:${port}${url}`, {

@@ -4,7 +4,7 @@
  * disable and enable the device.
  */
 import { client, signIn as apiSignIn, unique } from '../support/api';
-import { demoEmail, freshPage, launchBrowser, signIn, type TestBrowser } from './support';
+import { baseUrl, choose, demoEmail, freshPage, launchBrowser, signIn, type TestBrowser } from './support';
 
 let browser: TestBrowser;
 beforeAll(async () => {
@@ -33,7 +33,7 @@ describe('the devices screen', () => {
 
       const page = await freshPage(browser, viewport);
       await signIn(page, demoEmail('admin'));
-      await page.goto(page.url().replace(/\/$/, '') + '/devices');
+      await page.goto(`${baseUrl}/devices`);
       await page.getByTestId('device-create').waitFor();
 
       // No site chosen: the form says so before asking the server.
@@ -42,7 +42,7 @@ describe('the devices screen', () => {
       await page.getByTestId('device-create-submit').click();
       await page.getByTestId('device-create-site-error').waitFor();
 
-      await page.getByTestId(`device-create-site-${site.body.id}`).click();
+      await choose(page.getByTestId(`device-create-site-${site.body.id}`));
       await page.getByTestId('device-create-submit').click();
       await page.getByTestId('device-created').waitFor();
       const username = (await page.getByTestId('device-created-username').innerText()).trim();

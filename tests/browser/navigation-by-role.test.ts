@@ -5,6 +5,7 @@
 import type { Page } from 'playwright-core';
 
 import {
+  baseUrl,
   demoEmail,
   freshPage,
   launchBrowser,
@@ -84,7 +85,8 @@ describe.each(cases)('the %s on a %s screen', (role, viewport) => {
 
   it('is offered exactly the areas of their role, sees their name and role, and signs out', async () => {
     await signIn(page, demoEmail(role));
-    expect(new URL(page.url()).pathname).toBe('/');
+    // The router writes the address after it draws the screen: wait for it rather than read it.
+    await page.waitForURL((url) => url.pathname === '/');
 
     const who = (await page.getByTestId('current-user').innerText()).trim();
     expect(who).toContain(roleWords[role]);
@@ -97,11 +99,11 @@ describe.each(cases)('the %s on a %s screen', (role, viewport) => {
     }
 
     await signOut(page);
-    expect(new URL(page.url()).pathname).toBe('/sign-in');
+    await page.waitForURL((url) => url.pathname === '/sign-in');
     // The session is gone, not just hidden: the live board sends us back to sign in.
-    await page.goto(page.url().replace('/sign-in', '/'));
+    await page.goto(`${baseUrl}/`);
     await page.getByTestId('sign-in-email').waitFor();
-    expect(new URL(page.url()).pathname).toBe('/sign-in');
+    await page.waitForURL((url) => url.pathname === '/sign-in');
   });
 });
 
@@ -111,14 +113,18 @@ describe('moving between areas', () => {
     await signIn(page, demoEmail('engineer'));
     await page.getByTestId('nav-alarms').click();
     await page.waitForURL((url) => url.pathname === '/alarms');
-    expect(await page.getByTestId('area-title').innerText()).toBe('Alarms');
+    // The header names the area on the render after the address changes.
+    const title = page.getByTestId('area-title');
+    await title.filter({ hasText: 'Alarms' }).waitFor();
+    expect(await title.innerText()).toBe('Alarms');
 
     await page.getByTestId('nav-more').click();
     await page.getByTestId('nav-audit').click();
     await page.waitForURL((url) => url.pathname === '/audit');
-    expect(await page.getByTestId('area-title').innerText()).toBe('Audit log');
+    await title.filter({ hasText: 'Audit log' }).waitFor();
+    expect(await title.innerText()).toBe('Audit log');
     // The menu closes once an area is chosen.
-    expect(await page.getByTestId('more-menu').count()).toBe(0);
+    await page.getByTestId('more-menu').waitFor({ state: 'detached' });
 
     await signOut(page);
     await page.close();

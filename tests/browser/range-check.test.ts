@@ -9,7 +9,7 @@
  * qm / ε. A transmitter spanned 0–17 kPa therefore reaches full span at that flow, and at 10 % of
  * span, with C fixed, the flow is √0.1 of it (flow goes as √Δp, TRADE.md §6).
  */
-import { baseUrl, demoEmail, freshPage, launchBrowser, signIn, signOut, type TestBrowser } from './support';
+import { baseUrl, choose, demoEmail, freshPage, launchBrowser, signIn, signOut, type TestBrowser } from './support';
 import type { Page } from 'playwright-core';
 
 let browser: TestBrowser;
@@ -32,12 +32,12 @@ async function openRangeCheck(page: Page) {
 
 /** Types the O1 case as a liquid, in SI units, with one 0–17 kPa transmitter. */
 async function enterO1LiquidCase(page: Page) {
-  await page.getByTestId('range-check-units-si').click();
-  await page.getByTestId('range-check-element-orifice').click();
-  await page.getByTestId('range-check-taps-D-D/2').click();
+  await choose(page.getByTestId('range-check-units-si'));
+  await choose(page.getByTestId('range-check-element-orifice'));
+  await choose(page.getByTestId('range-check-taps-D-D/2'));
   await page.getByTestId('range-check-pipeDiameter').fill('73.66');
   await page.getByTestId('range-check-boreDiameter').fill('50');
-  await page.getByTestId('range-check-fluid-liquid').click();
+  await choose(page.getByTestId('range-check-fluid-liquid'));
   await page.getByTestId('range-check-liquidDensity').fill('999.1');
   // At the element's reference temperature (20 °C) neither the diameters nor the density move.
   await page.getByTestId('range-check-liquidReferenceTemperature').fill('20');
@@ -45,7 +45,7 @@ async function enterO1LiquidCase(page: Page) {
   await page.getByTestId('range-check-viscosity').fill('1.1');
   await page.getByTestId('range-check-staticPressure').fill('200');
   await page.getByTestId('range-check-temperature').fill('20');
-  await page.getByTestId('range-check-flow-unit-t/h').click();
+  await choose(page.getByTestId('range-check-flow-unit-t/h'));
   await page.getByTestId('range-check-minimumFlow').fill('5');
   await page.getByTestId('range-check-normalFlow').fill('15');
   await page.getByTestId('range-check-maximumFlow').fill('25');

@@ -5,10 +5,14 @@
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
-import { chromium, type BrowserContext, type Page } from 'playwright-core';
+import { chromium, type BrowserContext, type Locator, type Page } from 'playwright-core';
 
-/** Sign-in, navigation and the first fetches fit well inside this on a 2-core machine. */
-jest.setTimeout(60_000);
+/**
+ * Sign-in, navigation and the first fetches fit well inside this on a 2-core machine, even with
+ * the other test files (a second Chromium, the server, PostgreSQL) busy beside it. A ceiling, not
+ * a wait: a passing test takes what it needs and no more.
+ */
+jest.setTimeout(120_000);
 
 export const baseUrl = (process.env.TALLYRUN_BASE_URL ?? 'http://127.0.0.1:8080').replace(/\/+$/, '');
 export const demoPassword = process.env.TALLYRUN_DEMO_PASSWORD ?? 'tallyrun-demo';
@@ -51,7 +55,8 @@ export async function launchBrowser(): Promise<TestBrowser> {
     args: chromiumArgs,
     viewport: viewports.phone,
   });
-  context.setDefaultTimeout(15_000);
+  // Each action and wait ends as soon as its condition holds; this only bounds a failing one.
+  context.setDefaultTimeout(30_000);
   return {
     context,
     close: async () => {
@@ -119,4 +124,25 @@ export async function offeredAreas(page: Page): Promise<string[]> {
         .map((element) => element.getAttribute('data-testid') ?? ''),
     );
   return ids.filter((id) => id !== 'nav-more').map((id) => id.slice('nav-'.length));
+}
+
+/**
+ * Picks an option of a choice group or unit switch (role="radio") and waits until it reads as
+ * chosen, clicking again if a click did not take. Content that arrives late above a screen (the
+ * alarm banner appears when its counts come in, up to 10 s after a page opens) moves what is
+ * below it, and a click whose press and release land on different elements reaches no option.
+ * Pressing an option that is already chosen changes nothing, so the second click is harmless.
+ */
+export async function choose(option: Locator, timeoutMs = 30_000): Promise<void> {
+  const chosen = option.and(option.page().locator('[aria-checked="true"]'));
+  const deadline = Date.now() + timeoutMs;
+  for (;;) {
+    await option.click();
+    try {
+      await chosen.waitFor({ timeout: Math.max(1000, Math.min(3000, deadline - Date.now())) });
+      return;
+    } catch (err) {
+      if (Date.now() >= deadline) throw err;
+    }
+  }
 }

@@ -1,5 +1,5 @@
 /** The admin's users screen against the real API: add a person, see them listed, disable them. */
-import { freshPage, launchBrowser, signIn, signOut, demoEmail, type TestBrowser } from './support';
+import { baseUrl, choose, freshPage, launchBrowser, signIn, signOut, demoEmail, type TestBrowser } from './support';
 
 let browser: TestBrowser;
 beforeAll(async () => {
@@ -20,7 +20,7 @@ describe('the users screen', () => {
     const email = `field-tech-${Date.now()}@test.tallyrun`;
     await page.getByTestId('user-create-name').fill('Field Technician');
     await page.getByTestId('user-create-email').fill(email);
-    await page.getByTestId('user-create-role-engineer').click();
+    await choose(page.getByTestId('user-create-role-engineer'));
     await page.getByTestId('user-create-password').fill('a-first-password-1');
     await page.getByTestId('user-create-submit').click();
 
@@ -45,7 +45,7 @@ describe('the users screen', () => {
   it('shows the reason when the server refuses a new user', async () => {
     const page = await freshPage(browser, 'phone');
     await signIn(page, demoEmail('admin'));
-    await page.goto(page.url().replace(/\/$/, '') + '/users');
+    await page.goto(`${baseUrl}/users`);
     await page.getByTestId('user-create-name').fill('Someone Twice');
     // The demo operator exists already; the server refuses a second account for an email.
     await page.getByTestId('user-create-email').fill(demoEmail('operator'));

@@ -2,6 +2,7 @@ import { spawn, type ChildProcess } from 'node:child_process';
 import os from 'node:os';
 import path from 'node:path';
 import fs from 'node:fs';
+import readline from 'node:readline';
 import mqtt from 'mqtt';
 import { Client } from 'pg';
 import { readEnv } from '../../server/env';
@@ -25,8 +26,16 @@ beforeAll(async () => {
     [path.join(root, 'server', 'test-support', 'plain-broker.ts')],
     { stdio: ['ignore', 'pipe', 'inherit'] },
   );
+  // The port comes as one JSON line; read lines, not the first chunk of the pipe.
   brokerPort = await new Promise<number>((resolve, reject) => {
-    broker.stdout!.once('data', (d: Buffer) => resolve(JSON.parse(d.toString()).port));
+    readline.createInterface({ input: broker.stdout! }).on('line', (line) => {
+      try {
+        const port = JSON.parse(line).port;
+        if (typeof port === 'number') resolve(port);
+      } catch {
+        // not the helper's line (e.g. a warning from tsx)
+      }
+    });
     broker.once('exit', () => reject(new Error('the broker process exited')));
   });
   const url = process.env.TEST_DATABASE_URL!;
@@ -55,7 +64,8 @@ beforeAll(async () => {
     body: JSON.stringify({ email: 'ext-engineer@test.tallyrun', password: 'ext-password' }),
   });
   api = client((await res.json()).token, server.url);
-}, 60_000);
+  // A tsx child and a whole server starting on a loaded 2-core machine: a ceiling, not a wait.
+}, 120_000);
 
 afterAll(async () => {
   await server?.stop();
