@@ -97,13 +97,13 @@ export async function applySignal(
   priority: AlarmPriority,
   nowMs: number,
 ): Promise<{ alarmId: string; raised: boolean } | null> {
-  const open = (
-    await db.query(
+  const open: Pick<AlarmRow, 'id' | 'state' | 'condition_active'> | undefined = (
+    await db.query<Pick<AlarmRow, 'id' | 'state' | 'condition_active'>>(
       `SELECT id::text, state, condition_active FROM alarms
         WHERE meter_run_id = $1 AND transmitter_id IS NOT DISTINCT FROM $2::bigint AND condition = $3 AND state <> 'normal' FOR UPDATE`,
       [meterRunId, signal.transmitterId, signal.condition],
     )
-  ).rows[0] as AlarmRow | undefined;
+  ).rows[0];
   if (signal.kind === 'raise') {
     if (!open) {
       const { rows } = await db.query(
@@ -177,12 +177,13 @@ export async function applyAction(
   const client = await pool.connect();
   try {
     await client.query('BEGIN');
-    const row = (
-      await client.query(
+    type LockedAlarm = Pick<AlarmRow, 'id' | 'state' | 'condition_active' | 'priority' | 'raised_at'>;
+    const row: LockedAlarm | undefined = (
+      await client.query<LockedAlarm>(
         'SELECT id::text, state, condition_active, priority, raised_at FROM alarms WHERE id = $1 FOR UPDATE',
         [alarmId],
       )
-    ).rows[0] as AlarmRow | undefined;
+    ).rows[0];
     if (!row) {
       await client.query('ROLLBACK');
       return null;
