@@ -4,6 +4,7 @@ import { Client } from 'pg';
 import * as m0001 from '../migrations/0001-foundation';
 import * as m0002 from '../migrations/0002-setup-and-history';
 import * as m0003 from '../migrations/0003-alarms';
+import * as m0004 from '../migrations/0004-audit-chain';
 
 /**
  * Migrations are listed here, in order, rather than globbed: the list works the same under
@@ -13,6 +14,7 @@ const migrations = [
   { name: '0001-foundation', ...m0001 },
   { name: '0002-setup-and-history', ...m0002 },
   { name: '0003-alarms', ...m0003 },
+  { name: '0004-audit-chain', ...m0004 },
 ];
 
 export function migrator(sequelize: Sequelize) {

@@ -10,6 +10,11 @@ export class AuditEvent extends Model {
   declare entityId: string | null;
   declare before: unknown;
   declare after: unknown;
+  declare reason: string | null;
+  /** Set by the database's insert trigger (migration 0004): place in the chain and hashes. */
+  declare chainSeq: string;
+  declare previousHash: string | null;
+  declare hash: string;
 
   static initModel(sequelize: Sequelize) {
     AuditEvent.init(
@@ -23,6 +28,10 @@ export class AuditEvent extends Model {
         entityId: { type: DataTypes.TEXT },
         before: { type: DataTypes.JSONB },
         after: { type: DataTypes.JSONB },
+        reason: { type: DataTypes.TEXT },
+        chainSeq: { type: DataTypes.BIGINT },
+        previousHash: { type: DataTypes.TEXT },
+        hash: { type: DataTypes.TEXT },
       },
       { sequelize, tableName: 'audit_events', underscored: true, timestamps: false },
     );

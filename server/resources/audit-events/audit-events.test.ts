@@ -30,7 +30,13 @@ describe('GET /api/audit-events', () => {
       entityId: u.id,
       before: expect.objectContaining({ name: 'First' }),
       after: expect.objectContaining({ name: 'Second' }),
+      reason: null,
+      // Its place in the hash chain (the chain itself is checked in server/audit-chain.test.ts).
+      chainSeq: expect.stringMatching(/^\d+$/),
+      hash: expect.stringMatching(/^[0-9a-f]{64}$/),
+      previousHash: expect.stringMatching(/^[0-9a-f]{64}$/),
     });
+    expect(Number(res.body[0].chainSeq)).toBeGreaterThan(Number(res.body[1].chainSeq));
     expect((await get(accountant.token, `?entityType=user&entityId=${u.id}&limit=1`)).body).toHaveLength(1);
   });
 

@@ -10,5 +10,10 @@ export function presentAuditEvent(e: AuditEventRecord) {
     entityId: e.entityId,
     before: e.before,
     after: e.after,
+    reason: e.reason,
+    // The event's place in the hash chain; `npm run --silent audit-verify` checks the chain.
+    chainSeq: e.chainSeq,
+    hash: e.hash,
+    previousHash: e.previousHash,
   };
 }

@@ -10,6 +10,10 @@ export interface AuditEventRecord {
   entityId: string | null;
   before: unknown;
   after: unknown;
+  reason: string | null;
+  chainSeq: string;
+  hash: string;
+  previousHash: string | null;
 }
 
 export interface AuditEventFilter {
@@ -43,6 +47,10 @@ export function auditEventsRepository(): AuditEventsRepository {
         entityId: e.entityId,
         before: e.before,
         after: e.after,
+        reason: e.reason,
+        chainSeq: String(e.chainSeq),
+        hash: e.hash,
+        previousHash: e.previousHash,
       }));
     },
   };

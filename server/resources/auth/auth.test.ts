@@ -120,3 +120,25 @@ describe('bearer tokens', () => {
     expectErrorShape(res.body, 'not_found');
   });
 });
+
+describe('sign-ins in the audit trail', () => {
+  const signInEvents = async (email: string) => {
+    const [rows] = await t.sequelize.query(
+      "SELECT action, actor_email, after FROM audit_events WHERE entity_type = 'sign-in' AND (actor_email = :email OR after->>'email' = :email) ORDER BY chain_seq",
+      { replacements: { email } },
+    );
+    return rows as { action: string; actor_email: string | null; after: { email: string; why: string } | null }[];
+  };
+
+  it('records a sign-in under the user and a refusal with the email typed and why, never the password', async () => {
+    const u = await t.signedIn('accountant');
+    await t.http().post('/api/auth/login').send({ email: u.email, password: 'not-the-password' });
+    await t.http().post('/api/auth/login').send({ email: u.email, password: u.password });
+    const events = await signInEvents(u.email);
+    expect(events).toEqual([
+      { action: 'auth.sign-in-refused', actor_email: null, after: { email: u.email, why: 'wrong-password' } },
+      { action: 'auth.sign-in', actor_email: u.email, after: null },
+    ]);
+    expect(JSON.stringify(events)).not.toContain('not-the-password');
+  });
+});

@@ -6,6 +6,7 @@ import { loginLimiter } from './login-limiter';
 import { signIn } from './use-cases';
 import { usersRepository } from '../users/repository';
 import { presentUser } from '../users/presenter';
+import { recordAuditEvent } from '../../audit';
 
 /** Sign-in (`POST /login`, public, rate-limited) and the signed-in user (`GET /me`). */
 export function authRouter(options: {
@@ -20,7 +21,7 @@ export function authRouter(options: {
 
   router.post('/login', loginLimiter(options.loginLimit), async (req, res) => {
     const credentials = validate(loginSchema, req.body);
-    const { token, user } = await signIn(users, credentials, options);
+    const { token, user } = await signIn(users, credentials, options, (event) => recordAuditEvent(event));
     res.json({ token, user: presentUser(user, { brief: true }) });
   });
 
