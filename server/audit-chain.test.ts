@@ -30,7 +30,8 @@ beforeAll(async () => {
   await sequelize.close();
   db = new Client({ connectionString: urlOf(name) });
   await db.connect();
-  for (let i = 1; i <= 5; i++) {
+  // Twelve events: past nine, so an order by text (1, 10, 11, 2 …) instead of by number would show.
+  for (let i = 1; i <= 12; i++) {
     await db.query(
       `INSERT INTO audit_events (actor_email, action, entity_type, entity_id, before, after, reason)
        VALUES ('engineer@test.tallyrun', 'site.update', 'site', '7', $1, $2, $3)`,
@@ -76,9 +77,9 @@ describe('the audit trail', () => {
       `SELECT chain_seq::text, previous_hash, hash,
               jsonb_build_array(chain_seq, id, to_char(occurred_at AT TIME ZONE 'UTC', 'YYYY-MM-DD"T"HH24:MI:SS.US"Z"'),
                 actor_id, actor_email, action, entity_type, entity_id, before, after, reason, previous_hash)::text AS canonical
-         FROM audit_events ORDER BY chain_seq`,
+         FROM audit_events ORDER BY audit_events.chain_seq`,
     );
-    expect(rows.map((r) => r.chain_seq)).toEqual(['1', '2', '3', '4', '5']);
+    expect(rows.map((r) => Number(r.chain_seq))).toEqual([1, 2, 3, 4, 5, 6, 7, 8, 9, 10, 11, 12]);
     expect(rows[0].previous_hash).toBeNull();
     for (let i = 1; i < rows.length; i++) expect(rows[i].previous_hash).toBe(rows[i - 1].hash);
     // Node's SHA-256 (OpenSSL), not the database's, recomputes each stored hash.
@@ -96,10 +97,10 @@ describe('the audit trail', () => {
   });
 
   it('is found whole by the verifier and by `npm run --silent audit-verify` (exit 0)', async () => {
-    expect(await verifyAuditChain(db)).toEqual(expect.objectContaining({ ok: true, events: 5, firstBreak: null }));
+    expect(await verifyAuditChain(db)).toEqual(expect.objectContaining({ ok: true, events: 12, firstBreak: null }));
     const run = auditVerify();
     expect(run.status).toBe(0);
-    expect(run.stdout).toMatch(/^audit trail whole: 5 events; newest hash [0-9a-f]{64}$/m);
+    expect(run.stdout).toMatch(/^audit trail whole: 12 events; newest hash [0-9a-f]{64}$/m);
   });
 
   it('names the event a superuser edited, and is whole again once the edit is undone', async () => {

@@ -49,7 +49,7 @@ export async function verifyAuditChain(db: Pool | Client): Promise<AuditChainRep
                 chain_seq, id, to_char(occurred_at AT TIME ZONE 'UTC', 'YYYY-MM-DD"T"HH24:MI:SS.US"Z"'),
                 actor_id, actor_email, action, entity_type, entity_id, before, after, reason, previous_hash
               )::text AS canonical
-         FROM audit_events WHERE chain_seq > $1 ORDER BY chain_seq LIMIT ${BATCH}`,
+         FROM audit_events WHERE audit_events.chain_seq > $1 ORDER BY audit_events.chain_seq LIMIT ${BATCH}`,
       [afterSeq],
     );
     for (const row of rows) {
