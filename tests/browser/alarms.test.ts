@@ -220,11 +220,20 @@ describe('alarms on screen', () => {
     await page.getByTestId('out-of-service-reason').fill('DP transmitter removed for repair');
     await page.getByTestId('out-of-service-confirm').click();
     await expectRowState(page, 'Out of service');
-    await page.getByTestId(`alarm-rts-${f.alarmId}`).click();
-    await expectRowState(page, 'Active, unacknowledged');
-    const actions = (await f.engineer.get(`/api/alarms/${f.alarmId}/events`)).body.map(
-      (e: { action: string }) => e.action,
+    const returned = page.waitForResponse(
+      (r) =>
+        r.request().method() === 'POST' && new URL(r.url()).pathname === `/api/alarms/${f.alarmId}/return-to-service`,
     );
+    await page.getByTestId(`alarm-rts-${f.alarmId}`).click();
+    expect((await returned).status()).toBe(200);
+    await expectRowState(page, 'Active, unacknowledged');
+    // The log is read once it holds the return (the screen may be drawn before the list is re-read).
+    const actions = await until('the return to service in the alarm log', async () => {
+      const list = (await f.engineer.get(`/api/alarms/${f.alarmId}/events`)).body.map(
+        (e: { action: string }) => e.action,
+      ) as string[];
+      return list.includes('returned-to-service') ? list : null;
+    });
     expect(actions.slice(-2)).toEqual(['removed-from-service', 'returned-to-service']);
     await signOut(page);
     await page.close();
