@@ -58,6 +58,13 @@ export const configVersionResponseSchema = z.object({
   fluid: fluidSchema,
   reason: z.string().nullable(),
   createdAt: z.string(),
+  /** Who made the version (null for versions stored without an author). */
+  createdBy: z.object({ email: z.string(), name: z.string() }).nullable().optional(),
+  /** Field by field, against the version in force just before it; empty for the first. */
+  changes: z.array(z.object({ path: z.string(), before: z.unknown(), after: z.unknown() })).optional(),
+  first: z.boolean().optional(),
+  /** On a new version: the computed hours from the one containing its effective time on, queued again. */
+  recompute: z.object({ from: z.string(), hours: z.number() }).optional(),
 });
 export type ConfigVersion = z.infer<typeof configVersionResponseSchema>;
 

@@ -220,6 +220,15 @@ describe('the set-up screens', () => {
     await page.getByTestId('version-create-submit').click();
     await page.getByTestId('version-create-done').waitFor();
 
+    // The list, newest first, says who made the new version, why, and what it changed from the
+    // one before: the throat, in the metres its field name carries (90.2 mm = 0.0902 m).
+    const newest = page.getByTestId(/^version-row-\d+$/).first();
+    await newest.getByText('element.boreDiameterM').waitFor();
+    const row = await newest.innerText();
+    expect(row).toContain('Reason: Throat re-measured: 90.2 mm');
+    expect(row).toContain(`(${demoEmail('engineer')})`);
+    expect(row).toContain('0.09 m → 0.0902 m');
+
     const versions = (await api.get(`/api/meter-runs/${run.body.id}/config-versions`)).body as {
       effectiveFrom: string;
       reason: string;

@@ -1,4 +1,5 @@
 import type { ConfigVersionRecord, MeterRunRecord } from './repository';
+import type { ConfigVersionEntry, RecomputeSummary } from './use-cases';
 
 export const presentConfigVersion = (c: ConfigVersionRecord) => ({
   id: c.id,
@@ -8,6 +9,20 @@ export const presentConfigVersion = (c: ConfigVersionRecord) => ({
   fluid: c.fluid,
   reason: c.reason,
   createdAt: c.createdAt.toISOString(),
+});
+
+/** A version in a meter run's configuration history: who made it and what it changed, after the version's own keys. */
+export const presentConfigVersionEntry = (e: ConfigVersionEntry) => ({
+  ...presentConfigVersion(e.version),
+  createdBy: e.createdBy ? { email: e.createdBy.email, name: e.createdBy.name } : null,
+  changes: e.changes.map((c) => ({ path: c.path, before: c.before, after: c.after })),
+  first: e.first,
+});
+
+/** A new version, with the hours it sends back for recomputation. */
+export const presentCreatedConfigVersion = (e: ConfigVersionEntry & { recompute: RecomputeSummary }) => ({
+  ...presentConfigVersionEntry(e),
+  recompute: { from: new Date(e.recompute.fromMs).toISOString(), hours: e.recompute.hours },
 });
 
 /** A meter run with the element and fluid of the configuration in force, when there is one. */

@@ -14,12 +14,12 @@ import {
   updateMeterRun,
   type MeterRunHooks,
 } from './use-cases';
-import { presentConfigVersion, presentMeterRun } from './presenter';
+import { presentConfigVersionEntry, presentCreatedConfigVersion, presentMeterRun } from './presenter';
 
 /** Set-up of meter runs and their configuration versions (history is in meter-run-history). */
 export function meterRunsRouter(sequelize: Sequelize, hooks: MeterRunHooks) {
   const router = Router();
-  const repository = meterRunRepository();
+  const repository = meterRunRepository(sequelize);
   const deps = { sequelize, repository, hooks };
 
   router.get('/', requireCapability('view'), async (req, res) => {
@@ -48,14 +48,14 @@ export function meterRunsRouter(sequelize: Sequelize, hooks: MeterRunHooks) {
 
   router.get('/:id/config-versions', requireCapability('view'), async (req, res) => {
     const versions = await listConfigVersions(repository, parseId(req.params.id, 'Meter run'));
-    res.json(versions.map(presentConfigVersion));
+    res.json(versions.map(presentConfigVersionEntry));
   });
 
   router.post('/:id/config-versions', requireCapability('configure'), async (req, res) => {
     const input = validate(createConfigVersionBody, req.body);
     const meterRunId = parseId(req.params.id, 'Meter run');
     const version = await addConfigVersion(deps, { meterRunId, input, actor: req.user! });
-    res.status(201).json(presentConfigVersion(version));
+    res.status(201).json(presentCreatedConfigVersion(version));
   });
 
   return router;

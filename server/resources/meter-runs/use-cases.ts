@@ -2,12 +2,20 @@ import { UniqueConstraintError, type Sequelize } from 'sequelize';
 import { recordAuditEvent } from '../../audit';
 import type { SignedInUser } from '../../auth/passport';
 import { badRequest, conflict, notFound } from '../../errors';
-import type { ConfigVersionRecord, MeterRunRecord, MeterRunRepository } from './repository';
+import { configDifference, type FieldChange } from '../../../shared/config/config-difference';
+import { hourStartOf } from '../../../shared/history/contract-day';
+import type { ConfigVersionAuthor, ConfigVersionRecord, MeterRunRecord, MeterRunRepository } from './repository';
 import type { CreateConfigVersionInput, CreateMeterRunInput, MeterRunChanges } from './schema';
 import { presentConfigVersion, presentMeterRun } from './presenter';
 
 /** Before this, a meter run created without an effective date has no history to compute. */
 const beginningOfHistory = new Date('2000-01-01T00:00:00Z');
+
+/**
+ * How far ahead a version may be dated: enough for a change planned for tomorrow's contract
+ * hour, not so far that a mistyped year lies in wait unnoticed.
+ */
+const futureLimitMs = 24 * 3_600_000;
 
 export interface MeterRunHooks {
   /** A configuration version took effect at `from`: hours from then on must be recomputed. */
@@ -146,29 +154,85 @@ export async function updateMeterRun(
   return { meterRun, config: await repository.currentConfig(meterRun.id, new Date()) };
 }
 
+/** A configuration version as the history lists it: who made it and what it changed. */
+export interface ConfigVersionEntry {
+  version: ConfigVersionRecord;
+  createdBy: ConfigVersionAuthor | null;
+  /** Field by field, against the version in force just before it (by effective time). */
+  changes: FieldChange[];
+  /** The meter run's first version: its history starts here, and it has nothing to differ from. */
+  first: boolean;
+}
+
+/** The hours a new version sends back to the history worker. */
+export interface RecomputeSummary {
+  /** The start of the hour that contains the effective time, on the site's clock. */
+  fromMs: number;
+  /** Hourly records already computed from `fromMs` on, each recomputed with the new version. */
+  hours: number;
+}
+
+const configOf = (v: ConfigVersionRecord) => ({ element: v.element, fluid: v.fluid });
+
 /** @throws not found when the meter run does not exist */
-export async function listConfigVersions(repository: MeterRunRepository, meterRunId: string) {
+export async function listConfigVersions(
+  repository: MeterRunRepository,
+  meterRunId: string,
+): Promise<ConfigVersionEntry[]> {
   if (!(await repository.findById(meterRunId))) throw notFound('Meter run');
-  return repository.configVersions(meterRunId);
+  const history = await repository.configVersionHistory(meterRunId);
+  return history.map(({ version, createdBy }, i) => ({
+    version,
+    createdBy,
+    changes: i === 0 ? [] : configDifference(configOf(history[i - 1].version), configOf(version)),
+    first: i === 0,
+  }));
 }
 
 /**
- * Adds a configuration version, with its audit event, and queues the hours from its effective
- * time for recomputation (a back-dated version changes history already computed).
- * @throws not found when the meter run does not exist; conflict naming effectiveFrom for a taken instant
+ * An effective time must fall inside the meter run's history: not before its first version
+ * (there are no hours there to compute, and the first version's own time would be rewritten
+ * silently) and not more than a day ahead.
+ */
+function checkEffectiveFrom(effectiveFrom: Date, firstVersion: ConfigVersionRecord | undefined, nowMs: number) {
+  const limitMs = nowMs + futureLimitMs;
+  if (effectiveFrom.getTime() > limitMs)
+    throw badRequest(
+      `effectiveFrom: must be at most one day ahead (no later than ${new Date(limitMs).toISOString()})`,
+      'effectiveFrom',
+      'invalid_field',
+    );
+  if (firstVersion && effectiveFrom.getTime() < firstVersion.effectiveFrom.getTime())
+    throw badRequest(
+      `effectiveFrom: must not be before the meter run's history starts (its first configuration version, ${firstVersion.effectiveFrom.toISOString()})`,
+      'effectiveFrom',
+      'invalid_field',
+    );
+}
+
+/**
+ * Adds a configuration version, with its audit event and reason, and queues the hours from the
+ * one containing its effective time for recomputation (a back-dated version changes history
+ * already computed; the hour it falls in is computed in two parts, old version then new).
+ * @throws not found when the meter run does not exist; bad request naming effectiveFrom outside
+ *   the history; conflict naming effectiveFrom for a taken instant
  */
 export async function addConfigVersion(
   { sequelize, repository, hooks }: MeterRunDeps,
-  request: { meterRunId: string; input: CreateConfigVersionInput; actor: SignedInUser },
-): Promise<ConfigVersionRecord> {
+  request: { meterRunId: string; input: CreateConfigVersionInput; actor: SignedInUser; nowMs?: number },
+): Promise<ConfigVersionEntry & { recompute: RecomputeSummary }> {
   const { input, actor } = request;
   const meterRun = await repository.findById(request.meterRunId);
   if (!meterRun) throw notFound('Meter run');
   const effectiveFrom = new Date(input.effectiveFrom);
-  return refusingDuplicates(
+  const before = await repository.configVersionHistory(meterRun.id);
+  checkEffectiveFrom(effectiveFrom, before[0]?.version, request.nowMs ?? Date.now());
+  const timeZone = await repository.siteTimeZone(meterRun.siteId);
+  const fromMs = timeZone ? hourStartOf(effectiveFrom.getTime(), timeZone) : effectiveFrom.getTime();
+  const version = await refusingDuplicates(
     async () => {
-      const version = await sequelize.transaction(async (transaction) => {
-        const created = await repository.createConfigVersion(
+      const created = await sequelize.transaction(async (transaction) => {
+        const row = await repository.createConfigVersion(
           {
             meterRunId: meterRun.id,
             effectiveFrom,
@@ -185,15 +249,20 @@ export async function addConfigVersion(
             action: 'config-version.create',
             entityType: 'meter-run',
             entityId: meterRun.id,
-            after: presentConfigVersion(created),
+            after: presentConfigVersion(row),
+            reason: input.reason,
           },
           transaction,
         );
-        return created;
+        return row;
       });
-      await hooks.configChanged(meterRun.id, effectiveFrom);
-      return version;
+      await hooks.configChanged(meterRun.id, new Date(fromMs));
+      return created;
     },
     () => conflict('A configuration version with this effective time already exists.', 'effectiveFrom', 'duplicate'),
   );
+  const entries = await listConfigVersions(repository, meterRun.id);
+  const entry = entries.find((e) => e.version.id === version.id);
+  if (!entry) throw new Error(`configuration version ${version.id} vanished after it was written`);
+  return { ...entry, recompute: { fromMs, hours: await repository.computedHourCount(meterRun.id, fromMs) } };
 }
