@@ -22,7 +22,8 @@ import { Panel } from '@/components/ui/Panel';
 import { QueryState } from '@/components/ui/QueryState';
 import { Screen } from '@/components/ui/Screen';
 import { space } from '@/constants/theme';
-import { useConfigVersions, useMeterRun, type MeterRun } from '@/hooks/api/meterRuns';
+import { useConfigVersions, useMeterRun, type ConfigVersion, type MeterRun } from '@/hooks/api/meterRuns';
+import { formatOnSiteClock } from '@/components/setup/zonedTime';
 import { useSites, type Site } from '@/hooks/api/sites';
 import { useTransmitters } from '@/hooks/api/transmitters';
 import { useBreakpoint } from '@/hooks/useBreakpoint';
@@ -122,7 +123,8 @@ function Transmitters({ run, site }: { run: MeterRun; site: Site }) {
 function Versions({ run, site }: { run: MeterRun; site: Site }) {
   const versions = useConfigVersions(run.id);
   const [adding, setAdding] = useState(false);
-  const [added, setAdded] = useState(false);
+  // The last version added here, with the recompute it started (null until one is added).
+  const [added, setAdded] = useState<ConfigVersion | null>(null);
   return (
     <Panel
       title={versions.data ? `Configuration versions (${versions.data.length})` : 'Configuration versions'}
@@ -132,7 +134,7 @@ function Versions({ run, site }: { run: MeterRun; site: Site }) {
             label="Add a version"
             size="compact"
             onPress={() => {
-              setAdded(false);
+              setAdded(null);
               setAdding(true);
             }}
             testID="version-add"
@@ -147,16 +149,18 @@ function Versions({ run, site }: { run: MeterRun; site: Site }) {
       </AppText>
       {added ? (
         <Notice testID="version-create-done">
-          Version added. Hours from its effective time on are being recomputed.
+          {added.recompute && added.recompute.hours > 0
+            ? `Version added. ${added.recompute.hours} recorded hour${added.recompute.hours === 1 ? '' : 's'} from ${formatOnSiteClock(added.recompute.from, site.timeZone)} on ${added.recompute.hours === 1 ? 'is' : 'are'} being recomputed.`
+            : 'Version added. Hours from its effective time on are being recomputed.'}
         </Notice>
       ) : null}
       {adding ? (
         <ConfigVersionForm
           meterRun={run}
           site={site}
-          onDone={() => {
+          onDone={(created) => {
             setAdding(false);
-            setAdded(true);
+            setAdded(created);
           }}
           onCancel={() => setAdding(false)}
         />

@@ -12,7 +12,7 @@ import { Notice } from '@/components/ui/Notice';
 import { StateBadge } from '@/components/ui/StateBadge';
 import { TextField } from '@/components/ui/TextField';
 import { space } from '@/constants/theme';
-import { useCreateConfigVersion, type MeterRun } from '@/hooks/api/meterRuns';
+import { useCreateConfigVersion, type ConfigVersion, type MeterRun } from '@/hooks/api/meterRuns';
 import type { Site } from '@/hooks/api/sites';
 import type { ElementSpec } from '@/shared/flow/flow-types';
 import type { FluidSpec } from '@/shared/fluids/fluid-types';
@@ -40,7 +40,8 @@ const labels: Record<string, string> = {
 interface ConfigVersionFormProps {
   meterRun: MeterRun;
   site: Site;
-  onDone?: () => void;
+  /** Called with the stored version; its `recompute` says which recorded hours are being recomputed. */
+  onDone?: (created: ConfigVersion) => void;
   onCancel?: () => void;
 }
 
@@ -81,7 +82,7 @@ export function ConfigVersionForm({ meterRun, site, onDone, onCancel }: ConfigVe
       return;
     }
     setErrors({});
-    create.mutate(parsed.data, { onSuccess: () => onDone?.() });
+    create.mutate(parsed.data, { onSuccess: (created) => onDone?.(created) });
   };
 
   const serverErrors = fieldErrorFromServer(create.error);
