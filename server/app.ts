@@ -24,6 +24,7 @@ import { liveRouter } from './resources/live/router';
 import { alarmsRouter } from './resources/alarms/router';
 import { alarmLimitsRouter } from './resources/alarm-limits/router';
 import { rangeHealthRouter } from './resources/range-health/router';
+import { recordVersionsRouter } from './resources/record-versions/router';
 import { LiveBoard } from './live-board';
 import type { Services } from './services';
 
@@ -68,9 +69,12 @@ export function createApp(options: AppOptions): Express {
     [
       '/meter-runs',
       meterRunsRouter(sequelize, {
-        configChanged: async (meterRunId, from) => {
+        configChanged: async (meterRunId, from, configVersionId) => {
           setupChanged();
-          await services.history.queueHours([meterRunId], from.getTime(), Date.now());
+          await services.history.queueHours([meterRunId], from.getTime(), Date.now(), {
+            cause: 'configuration-version',
+            reference: configVersionId ?? null,
+          });
         },
       }),
     ],
@@ -91,6 +95,7 @@ export function createApp(options: AppOptions): Express {
       importsRouter({
         pool: services.pool,
         uploadDir: services.uploadDir,
+        originalsDir: services.originalsDir,
         maxBytes: options.maxUploadBytes ?? 200e6,
         jobs: services.imports,
       }),
@@ -101,6 +106,8 @@ export function createApp(options: AppOptions): Express {
     ['/alarms', alarmsRouter(services.pool)],
     ['/alarm-limits', alarmLimitsRouter(services.pool)], // new limits apply from the next evaluation (within a minute)
     ['/meter-runs', rangeHealthRouter(services.pool)],
+    // Record versions (issue 9): every version of an hourly record or a total, first against current.
+    ['/meter-runs', recordVersionsRouter(services.pool)],
   ];
   const api = express.Router();
   for (const [path, router] of publicRoutes) api.use(path, router);

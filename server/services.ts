@@ -50,6 +50,8 @@ export function createServices(options: { databaseUrl: string; sequelize: Sequel
     mqttIngest,
     imports,
     uploadDir: path.join(options.dataDir, 'uploads'),
+    /** Imported files kept as part of the record, beside the uploads (resources/imports/originals.ts). */
+    originalsDir: path.join(options.dataDir, 'originals'),
     async close() {
       await history.stop();
       await counters.close();

@@ -1,18 +1,20 @@
 /**
  * One import: its progress while it runs (bytes and rows read, from the server's record of
- * committed batches), then the final counts and every rejected line with its number and reason.
+ * committed batches), then the final counts and every rejected line with its number and reason;
+ * and the original file as kept, by its SHA-256, to download.
  */
 import { useState } from 'react';
-import { StyleSheet, View } from 'react-native';
+import { Platform, StyleSheet, View } from 'react-native';
 
 import { formatTimestamp } from '@/components/format/formatTimestamp';
 import { AppText } from '@/components/ui/AppText';
 import { Button } from '@/components/ui/Button';
+import { CopyButton } from '@/components/ui/CopyButton';
 import { Notice } from '@/components/ui/Notice';
 import { ProgressBar } from '@/components/ui/ProgressBar';
 import { StateBadge } from '@/components/ui/StateBadge';
 import { colors, radius, space } from '@/constants/theme';
-import type { Import } from '@/hooks/api/imports';
+import { useDownloadOriginal, type Import } from '@/hooks/api/imports';
 import { formatBytes, formatCount } from './ImportsFormat';
 
 /** Rejected lines drawn at first; the rest on request (the server lists up to 1000). */
@@ -39,6 +41,52 @@ function Count({ label, value, testID }: { label: string; value: number; testID:
   );
 }
 
+const monospace = Platform.select({
+  web: 'ui-monospace, SFMono-Regular, Menlo, Consolas, monospace',
+  default: 'monospace',
+});
+
+/** The first and last hex digits of a hash: enough to tell files apart by eye. */
+const shortHash = (sha256: string) => `${sha256.slice(0, 12)}…${sha256.slice(-8)}`;
+
+/** The kept original: its hash (shortened; the full value is read aloud and copied) and a download. */
+function Original({ item }: { item: Import & { sha256: string } }) {
+  const download = useDownloadOriginal();
+  return (
+    <View style={styles.original} testID="import-original">
+      <View style={styles.hash}>
+        <AppText variant="caption" tone="muted">
+          SHA-256
+        </AppText>
+        <AppText
+          tabular
+          selectable
+          style={styles.hashText}
+          testID="import-sha256"
+          aria-label={`SHA-256 ${item.sha256}`}
+        >
+          {shortHash(item.sha256)}
+        </AppText>
+      </View>
+      <View style={styles.originalActions}>
+        <CopyButton text={item.sha256} what="SHA-256" testID="import-sha256-copy" />
+        <Button
+          size="compact"
+          label="Download original"
+          busy={download.isPending}
+          onPress={() => download.mutate(item)}
+          testID="import-download-original"
+        />
+      </View>
+      {download.error ? (
+        <AppText tone="alarm" role="alert">
+          {download.error.message}
+        </AppText>
+      ) : null}
+    </View>
+  );
+}
+
 export function ImportsDetail({ item }: { item: Import }) {
   const [showAll, setShowAll] = useState(false);
   const running = item.status === 'running';
@@ -50,9 +98,10 @@ export function ImportsDetail({ item }: { item: Import }) {
       <View style={styles.heading}>
         <AppText variant="bodyStrong">{item.filename || '(unnamed file)'}</AppText>
         <AppText variant="caption" tone="muted">
-          {`${kindLabel[item.kind]} · started ${formatTimestamp(item.createdAt)}${item.finishedAt ? ` · finished ${formatTimestamp(item.finishedAt)}` : ''}`}
+          {`${kindLabel[item.kind]}${item.uploadedBy ? ` · uploaded by ${item.uploadedBy}` : ''} · started ${formatTimestamp(item.createdAt)}${item.finishedAt ? ` · finished ${formatTimestamp(item.finishedAt)}` : ''}`}
         </AppText>
       </View>
+      {item.sha256 ? <Original item={{ ...item, sha256: item.sha256 }} /> : null}
 
       <AppText variant="label" testID="import-status" aria-live="polite">
         {running ? '… Importing' : item.status === 'done' ? '✓ Finished' : '▲ Stopped before the end'}
@@ -133,6 +182,10 @@ export function ImportsDetail({ item }: { item: Import }) {
 const styles = StyleSheet.create({
   wrap: { gap: space.md },
   heading: { gap: space.xxs },
+  original: { flexDirection: 'row', flexWrap: 'wrap', alignItems: 'center', gap: space.sm },
+  hash: { gap: space.xxs, flexGrow: 1 },
+  hashText: { fontFamily: monospace },
+  originalActions: { flexDirection: 'row', flexWrap: 'wrap', gap: space.sm },
   counts: { flexDirection: 'row', flexWrap: 'wrap', gap: space.md },
   count: {
     minWidth: 120,

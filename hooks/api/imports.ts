@@ -1,6 +1,7 @@
 /**
  * CSV imports of readings and field totals (engineer, admin): POST /api/imports (multipart),
- * GET /api/imports/:id (progress and every rejected line), GET /api/imports (the latest 100).
+ * GET /api/imports/:id (progress and every rejected line), GET /api/imports (the latest 100),
+ * GET /api/imports/:id/original (the file as uploaded, kept with its SHA-256).
  *
  * The upload is multipart, which the JSON client (client.ts) does not send, so it is posted
  * here with the session's token; errors come back as the same ApiError.
@@ -35,6 +36,10 @@ export const importSchema = z.object({
     .transform((errors) => errors ?? []),
   createdAt: z.string(),
   finishedAt: z.string().nullable(),
+  /** SHA-256 (hex) of the kept original; null for imports made before originals were kept. */
+  sha256: z.string().nullable().catch(null),
+  uploadedBy: z.string().nullable().catch(null),
+  uploadedAt: z.string().nullable().catch(null),
 });
 export type Import = z.infer<typeof importSchema>;
 
@@ -86,6 +91,7 @@ export interface ImportFile {
   blob: Blob;
 }
 
+/** The server's error body of a refused upload or download, as an ApiError. */
 async function errorFromUpload(response: Response): Promise<ApiError> {
   const body = (await response.json().catch(() => null)) as {
     error?: { code?: string; message?: string; field?: string };
@@ -132,6 +138,43 @@ export function useStartImport() {
     },
     onSuccess: () => {
       void queryClient.invalidateQueries({ queryKey: importKeys.list() });
+    },
+  });
+}
+
+/**
+ * @returns a mutation that downloads an import's kept original under the name it was uploaded
+ * with (web: the browser's download; the file is fetched with the session's token, which a plain
+ * link could not send)
+ */
+export function useDownloadOriginal() {
+  const { state, signOut } = useSession();
+  const token = state.status === 'signed-in' ? state.token : null;
+  return useMutation({
+    mutationFn: async (item: { id: string; filename: string }) => {
+      if (typeof document === 'undefined')
+        throw new ApiError(0, 'unsupported', 'Download the original from Tallyrun in a web browser.');
+      let response: Response;
+      try {
+        response = await fetch(`${config.apiBaseUrl}/imports/${encodeURIComponent(item.id)}/original`, {
+          headers: token ? { Authorization: `Bearer ${token}` } : {},
+        });
+      } catch {
+        throw new ApiError(0, 'network_error', 'Cannot reach the Tallyrun server. Check the connection and try again.');
+      }
+      if (!response.ok) {
+        if (response.status === 401 && token) signOut('expired');
+        throw await errorFromUpload(response);
+      }
+      const url = URL.createObjectURL(await response.blob());
+      const link = document.createElement('a');
+      link.href = url;
+      link.download = item.filename || `import-${item.id}.csv`;
+      document.body.appendChild(link);
+      link.click();
+      link.remove();
+      // The browser has taken the file once the click is handled; free the blob after that.
+      setTimeout(() => URL.revokeObjectURL(url), 10_000);
     },
   });
 }

@@ -5,6 +5,8 @@ import * as m0001 from '../migrations/0001-foundation';
 import * as m0002 from '../migrations/0002-setup-and-history';
 import * as m0003 from '../migrations/0003-alarms';
 import * as m0004 from '../migrations/0004-audit-chain';
+import * as m0005 from '../migrations/0005-import-originals';
+import * as m0006 from '../migrations/0006-record-versions';
 
 /**
  * Migrations are listed here, in order, rather than globbed: the list works the same under
@@ -15,6 +17,8 @@ const migrations = [
   { name: '0002-setup-and-history', ...m0002 },
   { name: '0003-alarms', ...m0003 },
   { name: '0004-audit-chain', ...m0004 },
+  { name: '0005-import-originals', ...m0005 },
+  { name: '0006-record-versions', ...m0006 },
 ];
 
 export function migrator(sequelize: Sequelize) {

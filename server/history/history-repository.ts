@@ -6,6 +6,7 @@
  */
 import type { Pool } from 'pg';
 import type { HourlyRecord, PeriodTotal, RollUpRecord } from '../../shared/history/types';
+import type { RecomputeReason, RecordCause } from './record-causes';
 
 /** How long an hour must be quiet, or may wait at most, before it is claimed. */
 export interface ClaimTiming {
@@ -13,15 +14,35 @@ export interface ClaimTiming {
   maxWaitMs: number;
 }
 
-/** Hours of one meter run claimed for a round, as epoch ms, in time order. */
+/** Hours of one meter run claimed for a round, as epoch ms, in time order, with why each waited. */
 export interface ClaimedHours {
   meterRunId: string;
   hours: number[];
+  reasons: Map<number, RecomputeReason>;
 }
 
 interface ClaimedRow {
   meter_run_id: string;
   start: Date;
+  cause: RecomputeReason['cause'];
+  cause_reference: string | null;
+}
+
+/** What saving an hour did to its version: `changed` when it replaced a final record's different figures. */
+export interface SavedHour {
+  startMs: number;
+  version: number;
+  changed: boolean;
+  cause: RecordCause;
+  causeReference: string | null;
+}
+
+interface SavedHourRow {
+  start: Date;
+  version: number;
+  changed: boolean;
+  cause: RecordCause;
+  cause_reference: string | null;
 }
 
 interface HourlyRecordRow {
@@ -74,13 +95,14 @@ export async function claimHours(pool: Pool, timing: ClaimTiming, maxHours: numb
          WHERE ${readyCondition}
            AND meter_run_id = (SELECT meter_run_id FROM stale_hours WHERE ${readyCondition} ORDER BY first_queued_at LIMIT 1)
          ORDER BY start LIMIT ${maxHours} FOR UPDATE SKIP LOCKED)
-      RETURNING meter_run_id::text, start`,
+      RETURNING meter_run_id::text, start, cause, cause_reference`,
     [timing.quietMs, timing.maxWaitMs],
   );
   if (!rows.length) return null;
   return {
     meterRunId: rows[0].meter_run_id,
     hours: rows.map((r) => r.start.getTime()).sort((a, b) => a - b),
+    reasons: new Map(rows.map((r) => [r.start.getTime(), { cause: r.cause, reference: r.cause_reference }])),
   };
 }
 
@@ -121,19 +143,41 @@ export async function previousStackChoice(
   return rows[0]?.final_stack_choice ?? null;
 }
 
-/** Stores hourly records in one statement, replacing those of the same hours. */
-export async function saveHourlyRecords(pool: Pool, meterRunId: string, records: HourlyRecord[]): Promise<void> {
-  if (!records.length) return;
-  await pool.query(
-    `INSERT INTO hourly_records (meter_run_id, start, "end", flow_time_s, mass_kg, volume_m3, standard_volume_m3, energy_j,
+/**
+ * Stores hourly records in one statement, replacing those of the same hours. The table's trigger
+ * (migration 0006) keeps the figures a record replaces as a version when they differ and the
+ * record was final; `reasons` (by hour start) says why each hour was recomputed, `asOfMs` how far
+ * the data reached (an hour computed before its end is a running figure, replaced without a version).
+ * @returns per hour, the version in force after the save and whether this save made it
+ */
+export async function saveHourlyRecords(
+  pool: Pool,
+  meterRunId: string,
+  records: HourlyRecord[],
+  options: { asOfMs: number; reasons: Map<number, RecomputeReason> },
+): Promise<SavedHour[]> {
+  if (!records.length) return [];
+  const rows = records.map((r) => {
+    const reason = options.reasons.get(r.startMs);
+    return { ...r, recomputeCause: reason?.cause ?? 'scheduled', recomputeReference: reason?.reference ?? null };
+  });
+  const { rows: saved } = await pool.query<SavedHourRow>(
+    `WITH prior AS (
+       SELECT start, version FROM hourly_records
+        WHERE meter_run_id = $1 AND start = ANY(SELECT to_timestamp((r->>'startMs')::float8 / 1000) FROM jsonb_array_elements($2::jsonb) AS r)),
+     saved AS (
+     INSERT INTO hourly_records (meter_run_id, start, "end", flow_time_s, mass_kg, volume_m3, standard_volume_m3, energy_j,
        average_dp_pa, average_pressure_pa, average_temperature_k, integral_value, coverage, flags, uncertainty_percent,
-       config_version_id, dp_bands, active_transmitter_time, final_stack_choice, computed_at)
+       config_version_id, dp_bands, active_transmitter_time, final_stack_choice, computed_at, recompute_cause,
+       recompute_reference, as_of)
      SELECT $1, to_timestamp((r->>'startMs')::float8 / 1000), to_timestamp((r->>'endMs')::float8 / 1000),
             (r->>'flowTimeS')::float8, (r->>'massKg')::float8, (r->>'volumeM3')::float8, (r->>'standardVolumeM3')::float8,
             (r->>'energyJ')::float8, (r->>'averageDpPa')::float8, (r->>'averagePressurePa')::float8, (r->>'averageTemperatureK')::float8,
             (r->>'integralValue')::float8, (r->>'coverage')::float8,
             ARRAY(SELECT jsonb_array_elements_text(r->'flags')), (r->>'uncertaintyPercent')::float8,
-            (r->>'configVersionId')::bigint, r->'dpBands', r->'activeTransmitterTimeS', r->>'finalStackChoice', now()
+            (r->>'configVersionId')::bigint, r->'dpBands', r->'activeTransmitterTimeS', r->>'finalStackChoice', now(),
+            r->>'recomputeCause', r->>'recomputeReference',
+            least(to_timestamp((r->>'endMs')::float8 / 1000), to_timestamp($3::float8 / 1000))
        FROM jsonb_array_elements($2::jsonb) AS r
      ON CONFLICT (meter_run_id, start) DO UPDATE SET
        "end" = EXCLUDED."end", flow_time_s = EXCLUDED.flow_time_s, mass_kg = EXCLUDED.mass_kg, volume_m3 = EXCLUDED.volume_m3,
@@ -142,9 +186,20 @@ export async function saveHourlyRecords(pool: Pool, meterRunId: string, records:
        integral_value = EXCLUDED.integral_value, coverage = EXCLUDED.coverage, flags = EXCLUDED.flags,
        uncertainty_percent = EXCLUDED.uncertainty_percent, config_version_id = EXCLUDED.config_version_id,
        dp_bands = EXCLUDED.dp_bands, active_transmitter_time = EXCLUDED.active_transmitter_time,
-       final_stack_choice = EXCLUDED.final_stack_choice, computed_at = now()`,
-    [meterRunId, JSON.stringify(records)],
+       final_stack_choice = EXCLUDED.final_stack_choice, computed_at = now(), recompute_cause = EXCLUDED.recompute_cause,
+       recompute_reference = EXCLUDED.recompute_reference, as_of = EXCLUDED.as_of
+     RETURNING start, version, cause, cause_reference)
+     SELECT s.start, s.version, coalesce(s.version > p.version, false) AS changed, s.cause, s.cause_reference
+       FROM saved s LEFT JOIN prior p ON p.start = s.start`,
+    [meterRunId, JSON.stringify(rows), options.asOfMs],
   );
+  return saved.map((r) => ({
+    startMs: r.start.getTime(),
+    version: r.version,
+    changed: r.changed,
+    cause: r.cause,
+    causeReference: r.cause_reference,
+  }));
 }
 
 /** @returns the meter run's hourly records starting in [startMs, endMs), in time order, as a roll-up sums them */
@@ -175,7 +230,8 @@ export async function hourlyRecordsIn(
 
 /**
  * Stores the total of one contract day (`daily_totals`, keyed by `contract_day`) or contract
- * month (`monthly_totals`, keyed by `month`), replacing the previous one.
+ * month (`monthly_totals`, keyed by `month`), replacing the previous one; the table's trigger
+ * keeps a complete total's different figures as a version, with `reason` as the new version's cause.
  */
 export async function savePeriodTotal(
   pool: Pool,
@@ -183,16 +239,18 @@ export async function savePeriodTotal(
   meterRunId: string,
   key: string,
   total: PeriodTotal,
+  reason: RecomputeReason,
 ): Promise<void> {
   const { table, keyColumn } = period;
   await pool.query(
     `INSERT INTO ${table} (meter_run_id, ${keyColumn}, start, "end", hours, flow_time_s, mass_kg, volume_m3, standard_volume_m3,
-       energy_j, coverage, flags, uncertainty_percent, status, computed_at)
-     VALUES ($1, $2, $3, $4, $5, $6, $7, $8, $9, $10, $11, $12, $13, $14, now())
+       energy_j, coverage, flags, uncertainty_percent, status, computed_at, recompute_cause, recompute_reference)
+     VALUES ($1, $2, $3, $4, $5, $6, $7, $8, $9, $10, $11, $12, $13, $14, now(), $15, $16)
      ON CONFLICT (meter_run_id, ${keyColumn}) DO UPDATE SET start = EXCLUDED.start, "end" = EXCLUDED."end", hours = EXCLUDED.hours,
        flow_time_s = EXCLUDED.flow_time_s, mass_kg = EXCLUDED.mass_kg, volume_m3 = EXCLUDED.volume_m3,
        standard_volume_m3 = EXCLUDED.standard_volume_m3, energy_j = EXCLUDED.energy_j, coverage = EXCLUDED.coverage,
-       flags = EXCLUDED.flags, uncertainty_percent = EXCLUDED.uncertainty_percent, status = EXCLUDED.status, computed_at = now()`,
+       flags = EXCLUDED.flags, uncertainty_percent = EXCLUDED.uncertainty_percent, status = EXCLUDED.status, computed_at = now(),
+       recompute_cause = EXCLUDED.recompute_cause, recompute_reference = EXCLUDED.recompute_reference`,
     [
       meterRunId,
       key,
@@ -208,6 +266,8 @@ export async function savePeriodTotal(
       total.flags,
       total.uncertaintyPercent,
       total.status,
+      reason.cause,
+      reason.reference,
     ],
   );
 }
@@ -238,11 +298,23 @@ export async function firstReadingMs(pool: Pool, meterRunId: string): Promise<nu
   return rows[0].t ? rows[0].t.getTime() : null;
 }
 
-/** Queues hours of a meter run for recomputation (an hour already queued counts as queued again). */
-export async function queueHourStarts(pool: Pool, meterRunId: string, hourStartsMs: number[]): Promise<void> {
+/**
+ * Queues hours of a meter run for recomputation (an hour already queued counts as queued again).
+ * An hour already waiting keeps its reason against the hourly sweep's ('scheduled'); any other
+ * reason replaces it (a configuration change says more than late readings).
+ */
+export async function queueHourStarts(
+  pool: Pool,
+  meterRunId: string,
+  hourStartsMs: number[],
+  reason: RecomputeReason,
+): Promise<void> {
   await pool.query(
-    `INSERT INTO stale_hours (meter_run_id, start) SELECT $1, to_timestamp(h / 1000.0) FROM unnest($2::float8[]) AS h
-     ON CONFLICT (meter_run_id, start) DO UPDATE SET queued_at = clock_timestamp()`,
-    [meterRunId, hourStartsMs],
+    `INSERT INTO stale_hours (meter_run_id, start, cause, cause_reference)
+     SELECT $1, to_timestamp(h / 1000.0), $3, $4 FROM unnest($2::float8[]) AS h
+     ON CONFLICT (meter_run_id, start) DO UPDATE SET queued_at = clock_timestamp(),
+       cause = CASE WHEN EXCLUDED.cause = 'scheduled' THEN stale_hours.cause ELSE EXCLUDED.cause END,
+       cause_reference = CASE WHEN EXCLUDED.cause = 'scheduled' THEN stale_hours.cause_reference ELSE EXCLUDED.cause_reference END`,
+    [meterRunId, hourStartsMs, reason.cause, reason.reference],
   );
 }

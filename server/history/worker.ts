@@ -27,6 +27,8 @@ import {
   type PeriodTable,
 } from './history-repository';
 import { loadMeterRunContext, loadReadings, type MeterRunContext } from './load-context';
+import { periodIsClosed } from './closed-periods';
+import { scheduled, strongestReason, type RecomputeReason } from './record-causes';
 
 const log = componentLogger('history');
 
@@ -90,7 +92,7 @@ export class HistoryWorker {
         if (!claimed) break;
         touched.add(claimed.meterRunId);
         try {
-          await this.recompute(claimed.meterRunId, claimed.hours);
+          await this.recompute(claimed.meterRunId, claimed.hours, claimed.reasons);
           await dropComputedHours(this.pool, claimed.meterRunId, claimed.hours);
         } catch (err) {
           log.error(
@@ -113,8 +115,11 @@ export class HistoryWorker {
     }
   }
 
-  /** Recomputes the given hours of one meter run and the periods above them. */
-  async recompute(meterRunId: string, hours: number[]) {
+  /**
+   * Recomputes the given hours of one meter run and the periods above them. `reasons` (by hour
+   * start) says why each hour waited; it becomes the cause of any new version of its record.
+   */
+  async recompute(meterRunId: string, hours: number[], reasons = new Map<number, RecomputeReason>()) {
     const ctx = await loadMeterRunContext(this.pool, meterRunId);
     if (!ctx) return;
     const nowMs = this.now();
@@ -128,6 +133,8 @@ export class HistoryWorker {
     for (const startMs of hours) {
       const endMs = nextHourStart(startMs, ctx.timeZone);
       if (startMs > nowMs) continue;
+      // A closed period keeps its figures until it is reopened (none is closed yet; issue 9).
+      if (await periodIsClosed(this.pool, meterRunId, startMs, endMs)) continue;
       const record = computeHour({
         startMs,
         endMs,
@@ -146,34 +153,48 @@ export class HistoryWorker {
       previousChoice = record.finalStackChoice ?? previousChoice;
       records.push(record);
     }
-    await saveHourlyRecords(this.pool, meterRunId, records);
-    await this.rollUp(
-      ctx,
-      records.map((r) => r.startMs),
-      nowMs,
-    );
+    const saved = await saveHourlyRecords(this.pool, meterRunId, records, { asOfMs: nowMs, reasons });
+    // A total changes for the reason its hours changed: the cause of an hour's new version (a
+    // configuration version found in the record), else the reason the hour waited.
+    const hourReasons = new Map<number, RecomputeReason>();
+    for (const h of saved) {
+      const reason =
+        h.changed && h.cause !== 'initial'
+          ? { cause: h.cause, reference: h.causeReference }
+          : (reasons.get(h.startMs) ?? scheduled);
+      hourReasons.set(h.startMs, reason);
+    }
+    await this.rollUp(ctx, hourReasons, nowMs);
   }
 
-  /** Recomputes the contract days and months that contain the given hours. */
-  private async rollUp(ctx: MeterRunContext, hourStarts: number[], nowMs: number) {
-    const days = new Set(hourStarts.map((h) => contractDayOf(h, ctx.timeZone, ctx.contractHour)));
-    const months = new Set([...days].map((d) => d.slice(0, 7)));
-    for (const day of days) {
+  /** Recomputes the contract days and months that contain the given hours (with why each hour was recomputed). */
+  private async rollUp(ctx: MeterRunContext, hourReasons: Map<number, RecomputeReason>, nowMs: number) {
+    const days = new Map<string, RecomputeReason[]>();
+    for (const [startMs, reason] of hourReasons) {
+      const day = contractDayOf(startMs, ctx.timeZone, ctx.contractHour);
+      days.set(day, [...(days.get(day) ?? []), reason]);
+    }
+    const months = new Map<string, RecomputeReason[]>();
+    for (const [day, reasons] of days)
+      months.set(day.slice(0, 7), [...(months.get(day.slice(0, 7)) ?? []), ...reasons]);
+    for (const [day, reasons] of days) {
       await this.rollUpPeriod(
         { table: 'daily_totals', keyColumn: 'contract_day' },
         day,
         ctx,
         contractDayBounds(day, ctx.timeZone, ctx.contractHour),
         nowMs,
+        strongestReason(reasons),
       );
     }
-    for (const month of months) {
+    for (const [month, reasons] of months) {
       await this.rollUpPeriod(
         { table: 'monthly_totals', keyColumn: 'month' },
         `${month}-01`,
         ctx,
         contractMonthBounds(month, ctx.timeZone, ctx.contractHour),
         nowMs,
+        strongestReason(reasons),
       );
     }
   }
@@ -185,14 +206,19 @@ export class HistoryWorker {
     ctx: MeterRunContext,
     bounds: { startMs: number; endMs: number; hours: number },
     nowMs: number,
+    reason: RecomputeReason,
   ) {
+    if (await periodIsClosed(this.pool, ctx.meterRunId, bounds.startMs, bounds.endMs)) return;
     const records = await hourlyRecordsIn(this.pool, ctx.meterRunId, bounds.startMs, bounds.endMs);
     const total = rollUpRecords(records, bounds, { nowMs });
-    await savePeriodTotal(this.pool, period, ctx.meterRunId, key, total);
+    await savePeriodTotal(this.pool, period, ctx.meterRunId, key, total, reason);
   }
 
-  /** Queues every hour of every meter run in [fromMs, toMs) (the hourly sweep, a back-dated change). */
-  async queueHours(meterRunIds: string[] | 'all', fromMs: number, toMs: number) {
+  /**
+   * Queues every hour of every meter run in [fromMs, toMs) (the hourly sweep, a back-dated change),
+   * saying why: `scheduled` unless told (a configuration change passes 'configuration-version').
+   */
+  async queueHours(meterRunIds: string[] | 'all', fromMs: number, toMs: number, reason: RecomputeReason = scheduled) {
     for (const run of await meterRunZones(this.pool, meterRunIds)) {
       // Nothing before the meter run's first reading can change: start there.
       const firstMs = await firstReadingMs(this.pool, run.id);
@@ -200,7 +226,7 @@ export class HistoryWorker {
       const startMs = Math.max(fromMs, firstMs - 3_600_000);
       const starts = hourStartsBetween(startMs, Math.min(toMs, this.now()), run.timeZone);
       if (!starts.length) continue;
-      await queueHourStarts(this.pool, run.id, starts);
+      await queueHourStarts(this.pool, run.id, starts, reason);
     }
   }
 }

@@ -36,7 +36,8 @@ function reject(p: Progress, line: number, message: string) {
  * Streams a readings CSV (`time,tag,value[,quality][,unit]`) from disk into the readings table
  * in batches. Every rejected line is listed with its number and reason; good lines are kept;
  * a re-imported line (same tag and time) counts as a duplicate. The import's row is updated
- * after each committed batch, so the progress shown is what is really in the database.
+ * after each committed batch, so the progress shown is what is really in the database. The file
+ * is the import's kept original (read-only): it is read, never removed.
  */
 export async function importReadingsCsv(
   deps: { pool: Pool; catalog: Catalog; writer: ReadingWriter; onStored?: (r: ValidReading[]) => void },
@@ -128,15 +129,15 @@ export async function importReadingsCsv(
     await writing.catch(() => undefined);
     reject(p, p.rowsRead + 1, err instanceof Error ? err.message : String(err));
     await saveProgress(deps.pool, importId, p, 'failed');
-  } finally {
-    fs.rm(file, { force: true }, () => undefined);
   }
 }
 
 /**
  * Streams a field-totals CSV (`start,end,meterRun,quantity,value,unit`; quantity is
  * standard-volume, mass or energy, unit one of the named units) into field_totals, for
- * reconciliation against Tallyrun's own totals. A repeated row replaces the earlier value.
+ * reconciliation against Tallyrun's own totals. A repeated row (same meter run and period)
+ * replaces the value in force in field_totals and counts as a duplicate; every value imported is
+ * also kept in field_total_versions with its import and line, so the earlier one stays on record.
  */
 export async function importFieldTotalsCsv(deps: { pool: Pool }, importId: string, file: string) {
   const p: Progress = { bytesRead: 0, rowsRead: 0, rowsImported: 0, duplicates: 0, rejected: 0, errors: [] };
@@ -195,12 +196,17 @@ export async function importFieldTotalsCsv(deps: { pool: Pool }, importId: strin
           continue;
         }
         const col = column[quantity];
+        // One statement: the version is kept exactly when the value in force is written.
         const res = await deps.pool.query<{ inserted: boolean }>(
-          `INSERT INTO field_totals (meter_run_id, period_start, period_end, ${col}, import_id)
+          `WITH version AS (
+             INSERT INTO field_total_versions (meter_run_id, period_start, period_end, quantity, value_si, import_id, line)
+             VALUES ($1, to_timestamp($2 / 1000.0), to_timestamp($3 / 1000.0), $6, $4, $5, $7)
+           )
+           INSERT INTO field_totals (meter_run_id, period_start, period_end, ${col}, import_id)
            VALUES ($1, to_timestamp($2 / 1000.0), to_timestamp($3 / 1000.0), $4, $5)
            ON CONFLICT (meter_run_id, period_start, period_end) DO UPDATE SET ${col} = EXCLUDED.${col}, import_id = EXCLUDED.import_id
            RETURNING (xmax = 0) AS inserted`,
-          [runId, start, end, si, importId],
+          [runId, start, end, si, importId, quantity, line],
         );
         if (res.rows[0].inserted) p.rowsImported++;
         else p.duplicates++;
@@ -210,7 +216,5 @@ export async function importFieldTotalsCsv(deps: { pool: Pool }, importId: strin
   } catch (err) {
     reject(p, p.rowsRead + 1, err instanceof Error ? err.message : String(err));
     await saveProgress(deps.pool, importId, p, 'failed');
-  } finally {
-    fs.rm(file, { force: true }, () => undefined);
   }
 }

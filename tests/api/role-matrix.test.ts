@@ -50,6 +50,7 @@ const expected: Record<string, Who[] | typeof PUBLIC> = {
   // import readings and field totals: engineer and admin
   'GET /api/imports': ['engineer', 'admin'],
   'GET /api/imports/:id': ['engineer', 'admin'],
+  'GET /api/imports/:id/original': ['engineer', 'admin'],
   'POST /api/imports': ['engineer', 'admin'],
   // device credentials: admin
   'GET /api/devices': ['admin'],
@@ -72,6 +73,9 @@ const expected: Record<string, Who[] | typeof PUBLIC> = {
   'DELETE /api/alarm-limits/:id': ['engineer', 'admin'],
   // range health is a view of totals and trends: every role reads it
   'GET /api/meter-runs/:id/range-health': everyone,
+  // record versions are part of the history (issue 9): every role reads them
+  'GET /api/meter-runs/:id/hourly-records/versions': everyone,
+  'GET /api/meter-runs/:id/totals/versions': everyone,
 };
 
 /** Routes that stream (server-sent events): checked on a real socket, status only. */

@@ -1,8 +1,11 @@
 /**
  * The imports screen against the real server: an engineer uploads a readings CSV with some bad
  * lines, watches its progress to the end, and reads the counts and each rejected line by its
- * number; uploading the same file again counts every good row as a duplicate.
+ * number; uploading the same file again counts every good row as a duplicate. The kept original
+ * is shown by its SHA-256 (checked against coreutils' sha256sum) and downloads byte for byte.
  */
+import { execFileSync } from 'node:child_process';
+import fs from 'node:fs';
 import { client, createMeterRun, signIn as apiSignIn, unique, type Client } from '../support/api';
 import { baseUrl, choose, demoEmail, freshPage, launchBrowser, signIn, type TestBrowser } from './support';
 
@@ -118,22 +121,33 @@ describe('the imports screen', () => {
     await page.close();
   });
 
-  it('explains the columns of a field-totals file and imports one on a phone', async () => {
+  it('explains the columns of a field-totals file, imports one on a phone and gives back the original', async () => {
     const page = await freshPage(browser, 'phone');
     await signIn(page, demoEmail('engineer'));
     await page.goto(`${baseUrl}/imports`);
     await choose(page.getByTestId('import-kind-field-totals'));
     // The explanation is drawn again for the new kind: wait for it, do not read it at once.
     await page.getByTestId('import-columns').filter({ hasText: 'start,end,meterRun,quantity,value,unit' }).waitFor();
-    await page.getByTestId('import-file-input').setInputFiles({
-      name: 'totals.csv',
-      mimeType: 'text/csv',
-      buffer: Buffer.from('start,end,meterRun,quantity,value,unit\n'),
-    });
+    const bytes = Buffer.from('start,end,meterRun,quantity,value,unit\n');
+    await page
+      .getByTestId('import-file-input')
+      .setInputFiles({ name: 'totals.csv', mimeType: 'text/csv', buffer: bytes });
     await page.getByTestId('import-submit').click();
     // A header with no rows is imported as nothing: finished, with nothing read.
     await page.getByTestId('import-status').filter({ hasText: 'Finished' }).waitFor({ timeout: 30_000 });
     expect(await page.getByTestId('import-count-read').innerText()).toBe('0');
+
+    // The original as kept: its SHA-256 by coreutils, shortened on screen, and the same bytes back.
+    const sha256 = execFileSync('sha256sum', { input: bytes, encoding: 'utf8' }).split(' ')[0];
+    const shown = page.getByTestId('import-sha256');
+    expect(await shown.innerText()).toBe(`${sha256.slice(0, 12)}…${sha256.slice(-8)}`);
+    expect(await shown.getAttribute('aria-label')).toBe(`SHA-256 ${sha256}`);
+    const [download] = await Promise.all([
+      page.waitForEvent('download'),
+      page.getByTestId('import-download-original').click(),
+    ]);
+    expect(download.suggestedFilename()).toBe('totals.csv');
+    expect(fs.readFileSync(await download.path()).equals(bytes)).toBe(true);
     await page.screenshot({ path: '/tmp/tallyrun-imports-phone.png' });
     await page.close();
   });

@@ -16,6 +16,12 @@ export interface ImportRecord {
   errors: { line: number; message: string }[];
   createdAt: Date;
   finishedAt: Date | null;
+  /** SHA-256 (hex) of the uploaded file; null for imports made before originals were kept. */
+  sha256: string | null;
+  /** Where the original lies, relative to the data folder; null when it was not kept. */
+  originalPath: string | null;
+  /** The e-mail of the person who uploaded the file. */
+  uploadedBy: string | null;
 }
 
 /** bigint columns come from pg as decimal strings. */
@@ -33,6 +39,9 @@ interface ImportRow {
   errors: ImportRecord['errors'];
   created_at: Date;
   finished_at: Date | null;
+  sha256: string | null;
+  original_path: string | null;
+  uploaded_by: string | null;
 }
 
 const importRecord = (r: ImportRow): ImportRecord => ({
@@ -49,34 +58,67 @@ const importRecord = (r: ImportRow): ImportRecord => ({
   errors: r.errors,
   createdAt: r.created_at,
   finishedAt: r.finished_at,
+  sha256: r.sha256,
+  originalPath: r.original_path,
+  uploadedBy: r.uploaded_by,
 });
+
+/** An import with the e-mail of its uploader. */
+const selectImports = `SELECT i.*, u.email AS uploaded_by FROM imports i LEFT JOIN users u ON u.id = i.created_by`;
 
 export interface ImportRepository {
   /** The newest 100 imports, newest first. */
   recent(): Promise<ImportRecord[]>;
   findById(id: string): Promise<ImportRecord | null>;
-  /** Records a new, running import; returns its id. */
-  create(job: { kind: ImportKind; filename: string; bytesTotal: number; createdBy: string }): Promise<string>;
+  /** Records a new, running import with the hash of its file; returns its id and start time. */
+  create(job: {
+    kind: ImportKind;
+    filename: string;
+    bytesTotal: number;
+    createdBy: string;
+    sha256: string;
+  }): Promise<{ id: string; createdAt: Date }>;
+  /** Records where the import's original file is kept (set once: a kept path is never replaced). */
+  setOriginalPath(id: string, originalPath: string): Promise<void>;
+  /** Ends a running import as failed before its job started, with the reason as its only listed line. */
+  fail(id: string, message: string): Promise<void>;
 }
 
 export function importRepository(pool: Pool): ImportRepository {
   return {
     async recent() {
-      const { rows } = await pool.query<ImportRow>('SELECT * FROM imports ORDER BY id DESC LIMIT 100');
+      const { rows } = await pool.query<ImportRow>(`${selectImports} ORDER BY i.id DESC LIMIT 100`);
       return rows.map(importRecord);
     },
 
     async findById(id) {
-      const { rows } = await pool.query<ImportRow>('SELECT * FROM imports WHERE id = $1', [id]);
+      const { rows } = await pool.query<ImportRow>(`${selectImports} WHERE i.id = $1`, [id]);
       return rows[0] ? importRecord(rows[0]) : null;
     },
 
     async create(job) {
-      const { rows } = await pool.query<{ id: string }>(
-        `INSERT INTO imports (kind, filename, bytes_total, created_by) VALUES ($1, $2, $3, $4) RETURNING id::text`,
-        [job.kind, job.filename, job.bytesTotal, job.createdBy],
+      const { rows } = await pool.query<{ id: string; created_at: Date }>(
+        `INSERT INTO imports (kind, filename, bytes_total, created_by, sha256) VALUES ($1, $2, $3, $4, $5)
+         RETURNING id::text, created_at`,
+        [job.kind, job.filename, job.bytesTotal, job.createdBy, job.sha256],
       );
-      return rows[0].id;
+      return { id: rows[0].id, createdAt: rows[0].created_at };
+    },
+
+    async setOriginalPath(id, originalPath) {
+      const { rowCount } = await pool.query(
+        'UPDATE imports SET original_path = $2 WHERE id = $1 AND original_path IS NULL',
+        [id, originalPath],
+      );
+      if (rowCount !== 1) throw new Error(`import ${id}: its original path is already recorded`);
+    },
+
+    async fail(id, message) {
+      await pool.query(
+        `UPDATE imports SET status = 'failed', finished_at = now(), errors = jsonb_build_array(jsonb_build_object('line', 0, 'message', $2::text))
+         WHERE id = $1 AND status = 'running'`,
+        [id, message],
+      );
     },
   };
 }

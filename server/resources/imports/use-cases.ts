@@ -1,6 +1,9 @@
 import path from 'node:path';
+import { recordAuditEvent } from '../../audit';
+import type { SignedInUser } from '../../auth/passport';
 import { notFound } from '../../errors';
 import { componentLogger } from '../../log';
+import { sha256OfFile, type OriginalsStore } from './originals';
 import type { ImportRepository } from './repository';
 import type { ImportKind } from './schema';
 
@@ -23,28 +26,73 @@ export async function getImport(repository: ImportRepository, importId: string) 
 
 /**
  * Records an import of an uploaded file and starts its job without waiting for it: the caller
- * answers at once and the client follows the progress. A job that fails records that itself;
- * what escapes it is logged.
+ * answers at once and the client follows the progress. The file is hashed first and kept, read-
+ * only, as part of the record; the job reads the kept file, and the start is audited with the
+ * hash, so a figure imported can be traced to the exact bytes, the person and the time. A job
+ * that fails records that itself; what escapes it is logged.
  * @param upload the file on disk, the name the client gave it and its size in bytes
  */
 export async function startImport(
-  deps: { repository: ImportRepository; jobs: ImportJobs },
+  deps: { repository: ImportRepository; jobs: ImportJobs; originals: OriginalsStore },
   request: {
     kind: ImportKind;
     upload: { file: string; originalName: string; sizeBytes: number };
-    actor: { id: string };
+    actor: SignedInUser;
   },
 ) {
   const { kind, upload, actor } = request;
-  const importId = await deps.repository.create({
+  // Only the base name: it is shown on screen, and a client may send a whole path.
+  const filename = path.basename(upload.originalName || 'upload.csv');
+  const sha256 = await sha256OfFile(upload.file);
+  const { id: importId, createdAt } = await deps.repository.create({
     kind,
-    // Only the base name: it is shown on screen, and a client may send a whole path.
-    filename: path.basename(upload.originalName || 'upload.csv'),
+    filename,
     bytesTotal: upload.sizeBytes,
     createdBy: actor.id,
+    sha256,
   });
-  const job =
-    kind === 'readings' ? deps.jobs.readings(importId, upload.file) : deps.jobs.fieldTotals(importId, upload.file);
+  let originalPath: string;
+  try {
+    originalPath = await deps.originals.keep(upload.file, { importId, sha256, at: createdAt });
+    await deps.repository.setOriginalPath(importId, originalPath);
+  } catch (err) {
+    // Nothing is imported from a file that could not be kept; the import says so instead of running on.
+    await deps.repository.fail(importId, 'the uploaded file could not be kept, so nothing was imported');
+    throw err;
+  }
+  await recordAuditEvent({
+    actor,
+    action: 'import.create',
+    entityType: 'import',
+    entityId: importId,
+    after: { kind, filename, sizeBytes: upload.sizeBytes, sha256 },
+  });
+  const file = deps.originals.absolute(originalPath);
+  const job = kind === 'readings' ? deps.jobs.readings(importId, file) : deps.jobs.fieldTotals(importId, file);
   job.catch((err: unknown) => log.error({ err, importId }, 'import failed'));
   return { id: importId, status: 'running' as const };
+}
+
+/**
+ * The kept original of an import, for download; the download is audited.
+ * @throws not found when the import does not exist or its file was not kept (imports made
+ * before originals were kept) or is missing
+ */
+export async function originalOfImport(
+  deps: { repository: ImportRepository; originals: OriginalsStore },
+  importId: string,
+  actor: SignedInUser,
+) {
+  const found = await deps.repository.findById(importId);
+  if (!found) throw notFound('Import');
+  const file = found.originalPath && found.sha256 ? await deps.originals.find(found.originalPath) : null;
+  if (!file || !found.sha256) throw notFound('The original file of this import');
+  await recordAuditEvent({
+    actor,
+    action: 'import.download-original',
+    entityType: 'import',
+    entityId: importId,
+    after: { filename: found.filename, sha256: found.sha256 },
+  });
+  return { file, filename: found.filename, sha256: found.sha256 };
 }

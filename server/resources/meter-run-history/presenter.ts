@@ -4,8 +4,8 @@ import type { HistoryHourlyRecord, HistoryTotal, Trend } from './use-cases';
 
 const iso = (ms: number) => new Date(ms).toISOString();
 
-/** One entry of `GET /api/meter-runs/:id/totals`: instants as ISO 8601 strings, quantities in SI. */
-export const presentTotal = (t: HistoryTotal): PeriodTotal => ({
+/** The figures of a total or an hourly record: instants as ISO 8601 strings, quantities in SI. */
+const presentFigures = (t: HistoryTotal): PeriodTotal => ({
   start: iso(t.startMs),
   end: iso(t.endMs),
   hours: t.hours,
@@ -20,9 +20,19 @@ export const presentTotal = (t: HistoryTotal): PeriodTotal => ({
   status: t.status,
 });
 
+/** Added last (issue 9): the record's version and version 1's mass and standard volume (null: no record). */
+const presentVersion = (t: HistoryTotal) => ({
+  version: t.version,
+  firstMassKg: t.firstMassKg,
+  firstStandardVolumeM3: t.firstStandardVolumeM3,
+});
+
+/** One entry of `GET /api/meter-runs/:id/totals`. */
+export const presentTotal = (t: HistoryTotal) => ({ ...presentFigures(t), ...presentVersion(t) });
+
 /** One entry of `GET /api/meter-runs/:id/hourly-records`: the total of the hour and what only an hour carries. */
 export const presentHourlyRecord = (r: HistoryHourlyRecord) => ({
-  ...presentTotal(r),
+  ...presentFigures(r),
   averageDpPa: r.averageDpPa,
   averagePressurePa: r.averagePressurePa,
   averageTemperatureK: r.averageTemperatureK,
@@ -31,6 +41,7 @@ export const presentHourlyRecord = (r: HistoryHourlyRecord) => ({
   dpBands: r.dpBands,
   activeTransmitterTimeS: r.activeTransmitterTimeS,
   computedAt: iso(r.computedAtMs),
+  ...presentVersion(r),
 });
 
 export const presentRecomputeStatus = (q: RecomputeQueue) => ({

@@ -23,6 +23,11 @@ export interface StoredTotal {
   uncertaintyPercent: number | null;
   /** Days and months store their status; an hour has none (null), it follows from the clock. */
   status: TotalStatus | null;
+  /** The record's version (1, 2, … — issue 9); null for a period with no record. */
+  version: number | null;
+  /** Mass and standard volume of version 1 (the current ones when there is no other); null with no record. */
+  firstMassKg: number | null;
+  firstStandardVolumeM3: number | null;
 }
 
 /** A stored hourly record with what only hours carry: averages, configuration, DP bands. */
@@ -85,6 +90,9 @@ interface TotalRow {
   flags: string[];
   uncertainty_percent: number | null;
   status: TotalStatus | null;
+  version: number;
+  first_mass_kg: number;
+  first_standard_volume_m3: number;
 }
 
 interface HourlyRecordRow extends TotalRow {
@@ -110,6 +118,9 @@ interface TrendTransmitterRow {
 
 const totalColumns = `start, "end", flow_time_s, mass_kg, volume_m3, standard_volume_m3, energy_j, coverage, flags,
   uncertainty_percent`;
+/** The version and version 1's mass and standard volume (from `withFirstVersion`). */
+const versionColumns = `version, coalesce(v1_mass_kg, mass_kg) AS first_mass_kg,
+  coalesce(v1_standard_volume_m3, standard_volume_m3) AS first_standard_volume_m3`;
 
 /** Where each interval's totals are stored; an hourly record counts one hour and has no stored status. */
 const totalsSource: Record<TotalsInterval, { table: string; columns: string }> = {
@@ -117,6 +128,18 @@ const totalsSource: Record<TotalsInterval, { table: string; columns: string }> =
   day: { table: 'daily_totals', columns: `${totalColumns}, hours, status` },
   month: { table: 'monthly_totals', columns: `${totalColumns}, hours, status` },
 };
+
+/** Version 1 of each row where it was replaced (record versions, migration 0006): a primary-key lookup per row. */
+const firstVersionJoin: Record<TotalsInterval, string> = {
+  hour: `LEFT JOIN hourly_record_versions v1 ON v1.meter_run_id = t.meter_run_id AND v1.start = t.start AND v1.version = 1`,
+  day: `LEFT JOIN period_total_versions v1 ON v1.meter_run_id = t.meter_run_id AND v1.kind = 'day' AND v1.period = t.contract_day AND v1.version = 1`,
+  month: `LEFT JOIN period_total_versions v1 ON v1.meter_run_id = t.meter_run_id AND v1.kind = 'month' AND v1.period = t.month AND v1.version = 1`,
+};
+
+/** The rows of `interval`'s table matching `where` (on alias t), each with version 1's mass and standard volume. */
+const withFirstVersion = (interval: TotalsInterval, where: string) =>
+  `(SELECT t.*, v1.mass_kg AS v1_mass_kg, v1.standard_volume_m3 AS v1_standard_volume_m3
+      FROM ${totalsSource[interval].table} t ${firstVersionJoin[interval]} WHERE ${where}) AS r`;
 
 const storedTotal = (r: TotalRow): StoredTotal => ({
   startMs: r.start.getTime(),
@@ -131,6 +154,9 @@ const storedTotal = (r: TotalRow): StoredTotal => ({
   flags: r.flags,
   uncertaintyPercent: r.uncertainty_percent,
   status: r.status,
+  version: r.version,
+  firstMassKg: r.first_mass_kg,
+  firstStandardVolumeM3: r.first_standard_volume_m3,
 });
 
 /** What the history of a meter run reads: its site calendar, stored totals, hourly records, readings and queue. */
@@ -160,10 +186,10 @@ export function meterRunHistoryRepository(pool: Pool): MeterRunHistoryRepository
     },
 
     async totals(meterRunId, interval, fromMs, toMs) {
-      const { table, columns } = totalsSource[interval];
+      const { columns } = totalsSource[interval];
       const { rows } = await pool.query<TotalRow>(
-        `SELECT ${columns} FROM ${table}
-          WHERE meter_run_id = $1 AND start < to_timestamp($3 / 1000.0) AND "end" > to_timestamp($2 / 1000.0)
+        `SELECT ${columns}, ${versionColumns}
+           FROM ${withFirstVersion(interval, `t.meter_run_id = $1 AND t.start < to_timestamp($3 / 1000.0) AND t."end" > to_timestamp($2 / 1000.0)`)}
           ORDER BY start`,
         [meterRunId, fromMs, toMs],
       );
@@ -173,9 +199,8 @@ export function meterRunHistoryRepository(pool: Pool): MeterRunHistoryRepository
     async hourlyRecords(meterRunId, fromMs, toMs, limit) {
       const { rows } = await pool.query<HourlyRecordRow>(
         `SELECT ${totalsSource.hour.columns}, average_dp_pa, average_pressure_pa, average_temperature_k, integral_value,
-                config_version_id::text, dp_bands, active_transmitter_time, computed_at
-           FROM hourly_records
-          WHERE meter_run_id = $1 AND start >= to_timestamp($2 / 1000.0) AND start < to_timestamp($3 / 1000.0)
+                config_version_id::text, dp_bands, active_transmitter_time, computed_at, ${versionColumns}
+           FROM ${withFirstVersion('hour', `t.meter_run_id = $1 AND t.start >= to_timestamp($2 / 1000.0) AND t.start < to_timestamp($3 / 1000.0)`)}
           ORDER BY start LIMIT $4`,
         [meterRunId, fromMs, toMs, limit],
       );

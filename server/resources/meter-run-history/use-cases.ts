@@ -92,6 +92,9 @@ function emptyTotal(startMs: number, endMs: number, hours: number, nowMs: number
     flags: ['missing-data'],
     uncertaintyPercent: null,
     status: statusAt(null, endMs, nowMs),
+    version: null,
+    firstMassKg: null,
+    firstStandardVolumeM3: null,
   };
 }
 

@@ -18,8 +18,11 @@ const beginningOfHistory = new Date('2000-01-01T00:00:00Z');
 const futureLimitMs = 24 * 3_600_000;
 
 export interface MeterRunHooks {
-  /** A configuration version took effect at `from`: hours from then on must be recomputed. */
-  configChanged(meterRunId: string, from: Date): Promise<void>;
+  /**
+   * A configuration version (or a meter run setting) took effect at `from`: hours from then on
+   * must be recomputed; `configVersionId` names the version, so record versions can cite it.
+   */
+  configChanged(meterRunId: string, from: Date, configVersionId?: string): Promise<void>;
 }
 
 export interface MeterRunDeps {
@@ -256,7 +259,7 @@ export async function addConfigVersion(
         );
         return row;
       });
-      await hooks.configChanged(meterRun.id, new Date(fromMs));
+      await hooks.configChanged(meterRun.id, new Date(fromMs), created.id);
       return created;
     },
     () => conflict('A configuration version with this effective time already exists.', 'effectiveFrom', 'duplicate'),
