@@ -53,7 +53,7 @@ interface CalibrationRow {
 
 /** @returns every meter run's id, in id order */
 export async function meterRunIds(db: Db): Promise<string[]> {
-  const { rows } = await db.query<{ id: string }>('SELECT id::text FROM meter_runs ORDER BY id');
+  const { rows } = await db.query<{ id: string }>('SELECT id::text FROM meter_runs ORDER BY meter_runs.id');
   return rows.map((r) => r.id);
 }
 

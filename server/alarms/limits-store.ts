@@ -27,7 +27,7 @@ interface StoredLimitsRow {
 /** @returns the stored settings of a meter run (all levels) */
 export async function loadStoredLimits(db: Pool | PoolClient, meterRunId: string): Promise<StoredLimits[]> {
   const { rows } = await db.query<StoredLimitsRow>(
-    `SELECT id::text, meter_run_id::text, transmitter_id::text, condition, settings, updated_at FROM alarm_limits WHERE meter_run_id = $1 ORDER BY condition, transmitter_id NULLS FIRST`,
+    `SELECT id::text, meter_run_id::text, transmitter_id::text, condition, settings, updated_at FROM alarm_limits WHERE meter_run_id = $1 ORDER BY condition, alarm_limits.transmitter_id NULLS FIRST`,
     [meterRunId],
   );
   return rows.map((r) => ({

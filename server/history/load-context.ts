@@ -83,7 +83,7 @@ export async function loadMeterRunContext(pool: Pool, meterRunId: string): Promi
   );
   const transmitters = await pool.query<TransmitterRow>(
     `SELECT id::text, measures, unit, pressure_reference, lower_range, upper_range, stack_role, accuracy_percent_of_span
-       FROM transmitters WHERE meter_run_id = $1 ORDER BY id`,
+       FROM transmitters WHERE meter_run_id = $1 ORDER BY transmitters.id`,
     [meterRunId],
   );
   return {

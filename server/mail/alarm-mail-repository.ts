@@ -155,7 +155,7 @@ export async function recordFloodMail(
 /** @returns every site with its contract hour, in id order */
 export async function digestSites(pool: Pool): Promise<DigestSite[]> {
   const { rows } = await pool.query<SiteRow>(
-    'SELECT id::text, code, name, time_zone, contract_hour FROM sites ORDER BY id',
+    'SELECT id::text, code, name, time_zone, contract_hour FROM sites ORDER BY sites.id',
   );
   return rows.map((r) => ({
     id: r.id,

@@ -43,7 +43,7 @@ export function alarmLimitsRepository(pool: Pool): AlarmLimitsRepository {
       ]);
       if (!run.rows[0]) return null;
       const transmitters = await pool.query<LimitsMeterRun['transmitters'][number]>(
-        'SELECT id::text, tag, measures FROM transmitters WHERE meter_run_id = $1 ORDER BY id',
+        'SELECT id::text, tag, measures FROM transmitters WHERE meter_run_id = $1 ORDER BY transmitters.id',
         [meterRunId],
       );
       return { ...run.rows[0], transmitters: transmitters.rows };

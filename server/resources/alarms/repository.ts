@@ -202,7 +202,7 @@ export function alarmsRepository(pool: Pool): AlarmsRepository {
       if (!alarmIds.length) return [];
       const { rows } = await pool.query<AlarmEventRow>(
         `SELECT id::text, alarm_id::text, occurred_at, recorded_at, action, from_state, to_state, user_id::text, user_email, note
-           FROM alarm_events WHERE alarm_id = ANY($1::bigint[]) ORDER BY id`,
+           FROM alarm_events WHERE alarm_id = ANY($1::bigint[]) ORDER BY alarm_events.id`,
         [alarmIds],
       );
       return rows.map(toEvent);

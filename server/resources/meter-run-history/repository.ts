@@ -228,7 +228,7 @@ export function meterRunHistoryRepository(pool: Pool): MeterRunHistoryRepository
     async transmitters(meterRunId) {
       const { rows } = await pool.query<TrendTransmitterRow>(
         `SELECT id::text, tag, measures, unit, lower_range, upper_range, stack_role
-           FROM transmitters WHERE meter_run_id = $1 ORDER BY id`,
+           FROM transmitters WHERE meter_run_id = $1 ORDER BY transmitters.id`,
         [meterRunId],
       );
       return rows.map((r) => ({
