@@ -8,8 +8,8 @@ export interface SiteCalendar {
   contractHour: number;
 }
 
-/** A stored total of an hour, contract day or contract month (SI units, epoch milliseconds). */
-export interface StoredTotal {
+/** The figures of an hour, contract day or contract month (SI units, epoch milliseconds). */
+export interface PeriodFigures {
   startMs: number;
   endMs: number;
   hours: number;
@@ -23,6 +23,10 @@ export interface StoredTotal {
   uncertaintyPercent: number | null;
   /** Days and months store their status; an hour has none (null), it follows from the clock. */
   status: TotalStatus | null;
+}
+
+/** A stored total of an hour, contract day or contract month, with its place among its versions. */
+export interface StoredTotal extends PeriodFigures {
   /** The record's version (1, 2, … — issue 9); null for a period with no record. */
   version: number | null;
   /** Mass and standard volume of version 1 (the current ones when there is no other); null with no record. */

@@ -1,26 +1,14 @@
 import type { Pool } from 'pg';
 import type { RecordCause } from '../../history/record-causes';
+import type { PeriodFigures } from '../meter-run-history/repository';
 import type { TotalStatus } from '../../../shared/history/types';
 import type { VersionedInterval } from './schema';
 
 /** The figures of one version of an hourly record or a total (SI units, epoch milliseconds). */
-export interface StoredVersion {
+export interface StoredVersion extends PeriodFigures {
   version: number;
   cause: RecordCause;
   causeReference: string | null;
-  startMs: number;
-  endMs: number;
-  hours: number;
-  flowTimeS: number;
-  massKg: number;
-  volumeM3: number;
-  standardVolumeM3: number;
-  energyJ: number | null;
-  coverage: number;
-  flags: string[];
-  uncertaintyPercent: number | null;
-  /** A total's status; an hour has none (null). */
-  status: TotalStatus | null;
   /** The hour's configuration version; a total has none (null). */
   configVersionId: string | null;
   computedAtMs: number;
