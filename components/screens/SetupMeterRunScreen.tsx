@@ -12,6 +12,7 @@ import { ConfigVersionList } from '@/components/setup/ConfigVersionList';
 import { describeElement } from '@/components/setup/elementDraft';
 import { describeFluid } from '@/components/setup/fluidDraft';
 import { MeterRunDetailsForm } from '@/components/setup/MeterRunDetailsForm';
+import { SettingVersionsPanel } from '@/components/setup/SettingVersionList';
 import { SetupCaution } from '@/components/setup/SetupCaution';
 import { TransmitterForm } from '@/components/setup/TransmitterForm';
 import { TransmitterRow } from '@/components/setup/TransmitterRow';
@@ -69,7 +70,7 @@ function Details({ run, site }: { run: MeterRun; site: Site }) {
           <AppText
             variant="caption"
             tone="muted"
-          >{`Hold limit ${run.holdLimitS} s · longest gap ${run.maxGapS} s · stacked pair switches up at ${Math.round(run.stackSwitchUpShare * 100)} % and down at ${Math.round(run.stackSwitchDownShare * 100)} % of the low range`}</AppText>
+          >{`Hold limit ${run.holdLimitS} s · longest gap ${run.maxGapS} s · no-flow cutoff ${run.noFlowCutoffPercentOfSpan ?? 0.5} % of DP span · stacked pair switches up at ${Math.round(run.stackSwitchUpShare * 100)} % and down at ${Math.round(run.stackSwitchDownShare * 100)} % of the low range`}</AppText>
           <AppText variant="caption" tone="muted">
             {lineSummary(run)}
           </AppText>
@@ -103,7 +104,7 @@ function Transmitters({ run, site }: { run: MeterRun; site: Site }) {
         <Notice>{`Still needed for live flow: ${missing.join(', ')}.`}</Notice>
       ) : null}
       {list.map((transmitter) => (
-        <TransmitterRow key={transmitter.id} transmitter={transmitter} />
+        <TransmitterRow key={transmitter.id} transmitter={transmitter} timeZone={site.timeZone} />
       ))}
       {/* The form waits for the list: it checks a new DP transmitter against those already there. */}
       {transmitters.data ? (
@@ -231,6 +232,7 @@ export function SetupMeterRunScreen({ meterRunId }: { meterRunId: string }) {
           <Versions run={run.data} site={site} />
         </>
       )}
+      <SettingVersionsPanel run={run.data} site={site} />
       <SetupCaution />
     </Screen>
   );

@@ -1,7 +1,9 @@
 /**
  * A meter run's own details that may change without a new configuration version: its name,
- * hold limit, longest gap and line data. (The element and fluid change only through a dated
- * configuration version.) Changing a limit recomputes the meter run's history.
+ * hold limit, longest gap, no-flow cutoff and line data. (The element and fluid change only
+ * through a dated configuration version.) The hold limit, longest gap and no-flow cutoff are
+ * dated settings: a change takes effect from a time on the site's clock (default now), with a
+ * reason, and recomputes the meter run's history from then on only.
  */
 import { useState } from 'react';
 import { StyleSheet, View } from 'react-native';
@@ -9,6 +11,7 @@ import { z } from 'zod';
 
 import { Button } from '@/components/ui/Button';
 import { Notice } from '@/components/ui/Notice';
+import { StateBadge } from '@/components/ui/StateBadge';
 import { TextField } from '@/components/ui/TextField';
 import { space } from '@/constants/theme';
 import { useUpdateMeterRun, type MeterRunChange, type MeterRun } from '@/hooks/api/meterRuns';
@@ -27,17 +30,35 @@ import {
 } from './formFields';
 import { draftFromLine, LineFields, lineFieldLabels, lineFromDraft, type LineDraft } from './LineFields';
 import { NumberField } from './NumberField';
+import { formatOnSiteClock, siteClockNow, zonedIso } from './zonedTime';
+
+/** An effective time this little in the past is taken as now, not as a back-dating (as for configuration versions). */
+const backDatingGraceMs = 5 * 60 * 1000;
 
 const labels: Record<string, string> = {
   name: 'Name',
   holdLimitS: 'Hold limit',
   maxGapS: 'Longest gap',
+  noFlowCutoffPercentOfSpan: 'No-flow cutoff',
+  effectiveFrom: 'Effective from',
+  reason: 'Reason',
   ...lineFieldLabels,
 };
 
-/** The PATCH body's own fields, checked with the same rules as the meter run schema. */
+/** The PATCH body's own fields, checked with the same rules as the meter run schema (the server's for the cutoff). */
 const { name: nameRule, holdLimitS: holdLimitRule, maxGapS: maxGapRule } = meterRunSchema.shape;
-const changeSchema = z.object({ name: nameRule, holdLimitS: holdLimitRule, maxGapS: maxGapRule, line: lineSchema });
+const changeSchema = z.object({
+  name: nameRule,
+  holdLimitS: holdLimitRule,
+  maxGapS: maxGapRule,
+  noFlowCutoffPercentOfSpan: z
+    .number({ error: 'must be a number' })
+    .refine((v) => Number.isFinite(v) && v >= 0 && v <= 10, 'must be between 0 and 10 % of span'),
+  line: lineSchema,
+});
+
+/** The cutoff a meter run shows: the server's, or the 0.5 % default of a server that does not send it. */
+const cutoffOf = (meterRun: MeterRun) => meterRun.noFlowCutoffPercentOfSpan ?? 0.5;
 
 interface MeterRunDetailsFormProps {
   meterRun: MeterRun;
@@ -52,19 +73,28 @@ export function MeterRunDetailsForm({ meterRun, site, onDone, onCancel }: MeterR
   const [name, setName] = useState(meterRun.name);
   const [holdLimit, setHoldLimit] = useState(numberText(meterRun.holdLimitS));
   const [maxGap, setMaxGap] = useState(numberText(meterRun.maxGapS));
+  const [cutoff, setCutoff] = useState(numberText(cutoffOf(meterRun)));
+  const [effective, setEffective] = useState(() => siteClockNow(site.timeZone, Date.now()));
+  const [reason, setReason] = useState('');
   const [line, setLine] = useState<LineDraft>(() =>
     draftFromLine(meterRun.line, site.displayUnits === 'us' ? 'in' : 'mm'),
   );
   const [errors, setErrors] = useState<FieldErrors>({});
 
   const limitsChanged =
-    parseNumberText(holdLimit) !== meterRun.holdLimitS || parseNumberText(maxGap) !== meterRun.maxGapS;
+    parseNumberText(holdLimit) !== meterRun.holdLimitS ||
+    parseNumberText(maxGap) !== meterRun.maxGapS ||
+    parseNumberText(cutoff) !== cutoffOf(meterRun);
+  const effectiveFrom = zonedIso(effective.date, effective.time, site.timeZone);
+  const effectiveMs = Date.parse(effectiveFrom);
+  const backDated = Number.isFinite(effectiveMs) && effectiveMs < Date.now() - backDatingGraceMs;
 
   const submit = () => {
     const parsed = changeSchema.safeParse({
       name,
       holdLimitS: parseNumberText(holdLimit),
       maxGapS: parseNumberText(maxGap),
+      noFlowCutoffPercentOfSpan: parseNumberText(cutoff),
       line: lineFromDraft(line),
     });
     if (!parsed.success) {
@@ -72,7 +102,18 @@ export function MeterRunDetailsForm({ meterRun, site, onDone, onCancel }: MeterR
       return;
     }
     setErrors({});
-    const change: MeterRunChange = parsed.data;
+    // The dated settings go only when changed, with when and why; otherwise the server records no version.
+    const { holdLimitS, maxGapS, noFlowCutoffPercentOfSpan, ...details } = parsed.data;
+    const change: MeterRunChange = limitsChanged
+      ? {
+          ...details,
+          holdLimitS,
+          maxGapS,
+          noFlowCutoffPercentOfSpan,
+          effectiveFrom,
+          reason: reason.trim() || undefined,
+        }
+      : details;
     update.mutate({ id: meterRun.id, change }, { onSuccess: () => onDone?.() });
   };
 
@@ -103,12 +144,58 @@ export function MeterRunDetailsForm({ meterRun, site, onDone, onCancel }: MeterR
           error={shown.maxGapS}
           testID={id('maxGapS')}
         />
+        <NumberField
+          label="No-flow cutoff (% of DP span)"
+          value={cutoff}
+          onChangeText={setCutoff}
+          error={shown.noFlowCutoffPercentOfSpan}
+          testID={id('noFlowCutoffPercentOfSpan')}
+        />
       </FieldRow>
       {limitsChanged ? (
-        <Notice title="This recomputes the whole history">
-          The hold limit and the longest gap decide which time counts as flow and which as missing: a change recomputes
-          every hour of this meter run (closed months excepted).
-        </Notice>
+        <>
+          <FieldRow>
+            <View style={styles.field}>
+              <TextField
+                label={`Effective date (${site.timeZone})`}
+                value={effective.date}
+                onChangeText={(date) => setEffective((current) => ({ ...current, date }))}
+                error={shown.effectiveFrom}
+                hint="YYYY-MM-DD on the site’s clock"
+                testID={id('effectiveFrom')}
+              />
+            </View>
+            <View style={styles.field}>
+              <TextField
+                label="Effective time"
+                value={effective.time}
+                onChangeText={(time) => setEffective((current) => ({ ...current, time }))}
+                hint="HH:MM, 24 h"
+                testID={id('effectiveTime')}
+              />
+            </View>
+          </FieldRow>
+          <TextField
+            label="Reason"
+            value={reason}
+            onChangeText={setReason}
+            error={shown.reason}
+            hint="Why the limits change. It goes into the audit trail and the configuration history."
+            testID={id('reason')}
+          />
+          {backDated ? (
+            <StateBadge
+              priority="medium"
+              testID={`${prefix}-backdated`}
+              label={`Back-dated: saving this recomputes the hourly records, contract days and monthly totals of ${meterRun.tag} from ${formatOnSiteClock(effectiveFrom, site.timeZone)} on (closed months stay as they are).`}
+            />
+          ) : null}
+          <Notice title="Dated settings">
+            The hold limit, the longest gap and the no-flow cutoff decide which time counts as flow, as no flow and as
+            missing. A change takes effect from the time above: hours before it keep the settings then in force, and the
+            hour it falls in is split into two records.
+          </Notice>
+        </>
       ) : null}
       <FormSection title="Line data">
         <LineFields draft={line} onChange={setLine} errors={shown} testPrefix={prefix} />
@@ -129,5 +216,6 @@ export function MeterRunDetailsForm({ meterRun, site, onDone, onCancel }: MeterR
 
 const styles = StyleSheet.create({
   form: { gap: space.md },
+  field: { flexGrow: 1, flexBasis: 200, minWidth: 160 },
   actions: { flexDirection: 'row', flexWrap: 'wrap', gap: space.sm },
 });

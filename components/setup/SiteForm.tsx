@@ -2,6 +2,8 @@
  * A site: code, name, time zone, contract hour, base conditions and atmospheric pressure, and
  * the units its screens show. Pressures and temperatures are typed in the unit chosen beside
  * them and sent in SI; the draft is checked with the server's own siteSchema before sending.
+ * Editing, the contract hour, base conditions and atmospheric pressure are dated settings: a
+ * change takes effect from a time on the site's clock (default now), with a reason.
  */
 import { useState } from 'react';
 import { StyleSheet, View } from 'react-native';
@@ -25,6 +27,7 @@ import {
   type FieldErrors,
 } from './formFields';
 import { NumberField } from './NumberField';
+import { siteClockNow, zonedIso } from './zonedTime';
 import {
   absolutePressureUnits,
   fromSI,
@@ -137,6 +140,9 @@ export function SiteForm({ site, onDone, onCancel }: SiteFormProps) {
   const [draft, setDraft] = useState<SiteDraft>(() => (site ? draftFromSite(site) : emptyDraft()));
   const [errors, setErrors] = useState<FieldErrors>({});
   const [saved, setSaved] = useState<string | null>(null);
+  const [effective, setEffective] = useState(() => siteClockNow(site?.timeZone ?? 'UTC', Date.now()));
+  const [reason, setReason] = useState('');
+  const datedChanged = site ? datedSettingsDiffer(site, bodyFrom(draft)) : false;
 
   const edit = <K extends keyof SiteDraft>(key: K, value: SiteDraft[K]) => {
     setDraft((current) => ({ ...current, [key]: value }));
@@ -175,7 +181,10 @@ export function SiteForm({ site, onDone, onCancel }: SiteFormProps) {
     if (site) {
       // The code names the site in every MQTT topic: it stays as it was created.
       const { code: _code, ...change } = parsed.data;
-      update.mutate({ id: site.id, change }, { onSuccess });
+      const dated = datedChanged
+        ? { effectiveFrom: zonedIso(effective.date, effective.time, site.timeZone), reason: reason.trim() || undefined }
+        : {};
+      update.mutate({ id: site.id, change: { ...change, ...dated } }, { onSuccess });
     } else {
       create.mutate(parsed.data, { onSuccess });
     }
@@ -273,6 +282,44 @@ export function SiteForm({ site, onDone, onCancel }: SiteFormProps) {
           testID={id('atmosphericPressurePa')}
         />
       </FieldRow>
+      {datedChanged && site ? (
+        <>
+          <FieldRow>
+            <View style={styles.field}>
+              <TextField
+                label={`Effective date (${site.timeZone})`}
+                value={effective.date}
+                onChangeText={(date) => setEffective((current) => ({ ...current, date }))}
+                error={shown.effectiveFrom}
+                hint="YYYY-MM-DD on the site’s clock"
+                testID={id('effectiveFrom')}
+              />
+            </View>
+            <View style={styles.field}>
+              <TextField
+                label="Effective time"
+                value={effective.time}
+                onChangeText={(time) => setEffective((current) => ({ ...current, time }))}
+                hint="HH:MM, 24 h"
+                testID={id('effectiveTime')}
+              />
+            </View>
+          </FieldRow>
+          <TextField
+            label="Reason"
+            value={reason}
+            onChangeText={setReason}
+            error={shown.reason}
+            hint="Why the setting changes. It goes into the audit trail."
+            testID={id('reason')}
+          />
+          <Notice title="Dated settings">
+            The contract hour, base conditions and atmospheric pressure take effect from the time above: the site’s
+            meter runs are recomputed from then on, and hours before it keep the settings then in force. A new contract
+            hour starts at the next contract-day start; the day that spans the change is longer or shorter.
+          </Notice>
+        </>
+      ) : null}
       <ChoiceGroup
         label="Units on screen"
         options={displayUnitOptions}
@@ -299,3 +346,15 @@ const styles = StyleSheet.create({
   field: { flexGrow: 1, flexBasis: 200, minWidth: 160 },
   actions: { flexDirection: 'row', gap: space.sm, flexWrap: 'wrap' },
 });
+
+/** Whether the draft changes a dated setting (a unit round trip's last-digit noise is not a change). */
+function datedSettingsDiffer(site: Site, body: ReturnType<typeof bodyFrom>): boolean {
+  const differs = (a: number | undefined, b: number) =>
+    a !== undefined && Number.isFinite(a) && Math.abs(a - b) > 1e-12 * Math.max(Math.abs(a), Math.abs(b));
+  return (
+    differs(body.contractHour, site.contractHour) ||
+    differs(body.basePressurePa, site.basePressurePa) ||
+    differs(body.baseTemperatureK, site.baseTemperatureK) ||
+    differs(body.atmosphericPressurePa, site.atmosphericPressurePa)
+  );
+}

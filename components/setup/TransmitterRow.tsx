@@ -1,7 +1,8 @@
 /**
  * One transmitter of a meter run: what it measures, its range, its place in a stacked pair,
  * accuracy and calibration due date (overdue or near, said in words); re-range it or record a
- * new due date. A re-range changes what later readings mean, not earlier ones.
+ * new due date. A re-range is a dated setting: it takes effect from a time on the site's clock
+ * (default now), with a reason, and changes what readings from then on mean, not earlier ones.
  */
 import { useState } from 'react';
 import { StyleSheet, View } from 'react-native';
@@ -24,6 +25,7 @@ import {
   type FieldErrors,
 } from './formFields';
 import { NumberField } from './NumberField';
+import { siteClockNow, zonedIso } from './zonedTime';
 import { measuresLabel, rangeLabel, unitLabel, type TransmitterUnitCode } from './transmitterUnits';
 
 /** Calibrations due within this many days are pointed out. */
@@ -47,13 +49,15 @@ const stackWords = {
   high: ' · HIGH range of the stacked pair',
 } as const;
 
-export function TransmitterRow({ transmitter }: { transmitter: Transmitter }) {
+export function TransmitterRow({ transmitter, timeZone }: { transmitter: Transmitter; timeZone: string }) {
   const update = useUpdateTransmitter();
   const [editing, setEditing] = useState(false);
   const [lower, setLower] = useState('');
   const [upper, setUpper] = useState('');
   const [accuracy, setAccuracy] = useState('');
   const [due, setDue] = useState('');
+  const [effective, setEffective] = useState(() => siteClockNow(timeZone, Date.now()));
+  const [reason, setReason] = useState('');
   const [errors, setErrors] = useState<FieldErrors>({});
   const state = calibrationState(transmitter.calibrationDue, Date.now());
   const unit = unitLabel[transmitter.unit as TransmitterUnitCode] ?? transmitter.unit;
@@ -64,6 +68,8 @@ export function TransmitterRow({ transmitter }: { transmitter: Transmitter }) {
     setUpper(numberText(transmitter.upperRange));
     setAccuracy(numberText(transmitter.accuracyPercentOfSpan));
     setDue(transmitter.calibrationDue ?? '');
+    setEffective(siteClockNow(timeZone, Date.now()));
+    setReason('');
     setErrors({});
     update.reset();
     setEditing(true);
@@ -85,8 +91,18 @@ export function TransmitterRow({ transmitter }: { transmitter: Transmitter }) {
     const found = parsed.success ? {} : fieldErrorsFromZod(parsed.error);
     setErrors(found);
     if (Object.keys(found).length) return;
-    update.mutate({ id: transmitter.id, change }, { onSuccess: () => setEditing(false) });
+    // A new range or accuracy is dated; a new calibration date alone is not.
+    const dated = rangeChanged
+      ? { effectiveFrom: zonedIso(effective.date, effective.time, timeZone), reason: reason.trim() || undefined }
+      : {};
+    update.mutate({ id: transmitter.id, change: { ...change, ...dated } }, { onSuccess: () => setEditing(false) });
   };
+
+  const rangeChanged =
+    editing &&
+    (parseNumberText(lower) !== transmitter.lowerRange ||
+      parseNumberText(upper) !== transmitter.upperRange ||
+      parseNumberText(accuracy) !== transmitter.accuracyPercentOfSpan);
 
   const serverErrors = fieldErrorFromServer(update.error);
   const shown = { ...serverErrors, ...errors };
@@ -115,6 +131,8 @@ export function TransmitterRow({ transmitter }: { transmitter: Transmitter }) {
               upperRange: 'Upper range value',
               accuracyPercentOfSpan: 'Accuracy',
               calibrationDue: 'Calibration due',
+              effectiveFrom: 'Effective from',
+              reason: 'Reason',
             }}
             general={update.error && !serverErrors ? update.error.message : null}
           />
@@ -151,9 +169,43 @@ export function TransmitterRow({ transmitter }: { transmitter: Transmitter }) {
               />
             </View>
           </FieldRow>
+          {rangeChanged ? (
+            <>
+              <FieldRow>
+                <View style={styles.field}>
+                  <TextField
+                    label={`Re-ranged on (${timeZone})`}
+                    value={effective.date}
+                    onChangeText={(date) => setEffective((current) => ({ ...current, date }))}
+                    error={shown.effectiveFrom}
+                    hint="YYYY-MM-DD on the site’s clock"
+                    testID={`${testID}-effectiveFrom`}
+                  />
+                </View>
+                <View style={styles.field}>
+                  <TextField
+                    label="At"
+                    value={effective.time}
+                    onChangeText={(time) => setEffective((current) => ({ ...current, time }))}
+                    hint="HH:MM, 24 h"
+                    testID={`${testID}-effectiveTime`}
+                  />
+                </View>
+              </FieldRow>
+              <TextField
+                label="Reason"
+                value={reason}
+                onChangeText={setReason}
+                error={shown.reason}
+                hint="E.g. “Re-ranged at the calibration visit, certificate 2291”. It goes into the audit trail."
+                testID={`${testID}-reason`}
+              />
+            </>
+          ) : null}
           <AppText variant="caption" tone="muted">
             Change the range here once the transmitter itself has been re-ranged in the field: the range decides the
-            share of span, low-in-range flags, stacked-pair switching and the uncertainty.
+            share of span, low-in-range flags, stacked-pair switching and the uncertainty. Hours before the time it took
+            effect keep the range then in force; the hour it falls in is split into two records.
           </AppText>
           <View style={styles.actions}>
             <Button

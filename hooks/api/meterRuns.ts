@@ -41,6 +41,8 @@ export const meterRunResponseSchema = z.object({
   maxGapS: z.number(),
   stackSwitchUpShare: z.number(),
   stackSwitchDownShare: z.number(),
+  /** No-flow cutoff, percent of the active DP transmitter's span (a dated setting; absent from older servers). */
+  noFlowCutoffPercentOfSpan: z.number().optional(),
   /** Line data (nominal size, schedule, materials, straight lengths...), all optional. */
   line: z.record(z.string(), z.unknown()).catch({}),
   /** Absent when no configuration version is in effect yet. */
@@ -73,7 +75,36 @@ export const meterRunKeys = {
   list: (siteId?: string) => [...meterRunKeys.all, 'list', { siteId: siteId ?? null }] as const,
   detail: (meterRunId: string) => [...meterRunKeys.all, 'detail', meterRunId] as const,
   configVersions: (meterRunId: string) => [...meterRunKeys.all, 'config-versions', meterRunId] as const,
+  settingVersions: (meterRunId: string) => [...meterRunKeys.all, 'setting-versions', meterRunId] as const,
 };
+
+/** One dated setting version (issue 9): the meter run's limits, a transmitter's range, or the site's settings. */
+export const settingVersionResponseSchema = z.object({
+  kind: z.enum(['meter-run', 'transmitter', 'site']),
+  id,
+  subject: z.object({ id, tag: z.string().nullable() }),
+  effectiveFrom: z.string(),
+  values: z.record(z.string(), z.number()),
+  reason: z.string(),
+  createdAt: z.string(),
+  createdBy: z.object({ email: z.string(), name: z.string() }).nullable(),
+  changes: z.array(z.object({ path: z.string(), before: z.unknown(), after: z.unknown() })),
+  first: z.boolean(),
+});
+export type SettingVersion = z.infer<typeof settingVersionResponseSchema>;
+
+/** @param meterRunId the meter run whose dated settings (its own, its transmitters', its site's) to list, oldest first */
+export function useSettingVersions(meterRunId: string) {
+  return useQuery({
+    queryKey: meterRunKeys.settingVersions(meterRunId),
+    queryFn: ({ signal }) =>
+      apiRequest({
+        path: `/meter-runs/${encodeURIComponent(meterRunId)}/setting-versions`,
+        schema: z.array(settingVersionResponseSchema),
+        signal,
+      }),
+  });
+}
 
 /** @param siteId only this site's meter runs; every meter run when undefined */
 export function useMeterRuns(siteId?: string) {
@@ -135,7 +166,11 @@ export interface MeterRunChange {
   name?: string;
   holdLimitS?: number;
   maxGapS?: number;
+  noFlowCutoffPercentOfSpan?: number;
   line?: MeterRunInput['line'];
+  /** When a change of the hold limit, longest gap or no-flow cutoff takes effect (ISO 8601; default now). */
+  effectiveFrom?: string;
+  reason?: string;
 }
 
 /** @returns a mutation that creates a meter run with its first configuration version */

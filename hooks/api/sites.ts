@@ -70,7 +70,8 @@ export function refreshAfterSiteChange(queryClient: QueryClient, site: Site): vo
 
 /** The body of POST /api/sites: the site schema's input (displayUnits may be left out). */
 export type NewSite = z.input<typeof siteSchema>;
-export type SiteChange = Partial<SiteInput>;
+/** A change of a site; the dated settings (contract hour, base conditions, atmospheric pressure) with when and why. */
+export type SiteChange = Partial<SiteInput> & { effectiveFrom?: string; reason?: string };
 
 /** @returns a mutation that creates a site */
 export function useCreateSite() {

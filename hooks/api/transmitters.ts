@@ -12,6 +12,7 @@ import { z } from 'zod';
 import { measures, transmitterUnits, type transmitterSchema } from '@/shared/schemas/setup';
 import { apiRequest } from './client';
 import { liveKeys } from './live';
+import { meterRunKeys } from './meterRuns';
 import { upsertInList } from './upsertInList';
 
 const id = z.union([z.string(), z.number()]).transform(String);
@@ -61,6 +62,8 @@ export function refreshAfterTransmitterChange(queryClient: QueryClient, transmit
   upsertInList(queryClient, transmitterKeys.list(), transmitter);
   void queryClient.invalidateQueries({ queryKey: transmitterKeys.all });
   void queryClient.invalidateQueries({ queryKey: liveKeys.all });
+  // A re-range is a dated setting: the meter run's list of them changes too.
+  void queryClient.invalidateQueries({ queryKey: meterRunKeys.settingVersions(transmitter.meterRunId) });
 }
 
 export type NewTransmitter = z.input<typeof transmitterSchema>;
@@ -69,6 +72,9 @@ export interface TransmitterChange {
   upperRange?: number;
   accuracyPercentOfSpan?: number;
   calibrationDue?: string | null;
+  /** When a new range or accuracy takes effect (ISO 8601; default now), and why (issue 9: dated settings). */
+  effectiveFrom?: string;
+  reason?: string;
 }
 
 /** @returns a mutation that adds a transmitter to a meter run */

@@ -28,9 +28,22 @@ interface ClaimedRow {
   cause_reference: string | null;
 }
 
-/** What saving an hour did to its version: `changed` when it replaced a final record's different figures. */
-export interface SavedHour {
+/**
+ * The records computed for one hour [startMs, endMs): one, or one per part where a dated setting
+ * took effect inside the hour (each part's record keyed by its own start).
+ */
+export interface ComputedHour {
   startMs: number;
+  endMs: number;
+  records: HourlyRecord[];
+}
+
+/** What saving a record did to its version: `changed` when it replaced a final record's different figures. */
+export interface SavedHour {
+  /** The record's start (the hour's, or a part's). */
+  startMs: number;
+  /** The start of the hour the record belongs to. */
+  hourStartMs: number;
   version: number;
   changed: boolean;
   cause: RecordCause;
@@ -144,46 +157,64 @@ export async function previousStackChoice(
 }
 
 /**
- * Stores hourly records in one statement, replacing those of the same hours. The table's trigger
- * (migration 0006) keeps the figures a record replaces as a version when they differ and the
- * record was final; `reasons` (by hour start) says why each hour was recomputed, `asOfMs` how far
- * the data reached (an hour computed before its end is a running figure, replaced without a version).
- * @returns per hour, the version in force after the save and whether this save made it
+ * Stores the records of the given hours in one statement, replacing those of the same hours. The
+ * table's trigger (migration 0006) keeps the figures a record replaces as a version when they
+ * differ and the record was final; a record of a recomputed hour whose start is no longer a
+ * part's start (a version instant moved or went) is deleted, and the delete trigger (0007) keeps
+ * it as a version first, so no part survives as an orphan and none vanishes without a trace. An
+ * hour stored whole before and split now keeps its start: its record gets a new version with the
+ * shorter end. `reasons` (by hour start) says why each hour was recomputed, `asOfMs` how far the
+ * data reached (an hour computed before its end is a running figure, replaced without a version).
+ * @returns per record, the version in force after the save and whether this save made it
  */
 export async function saveHourlyRecords(
   pool: Pool,
   meterRunId: string,
-  records: HourlyRecord[],
+  hours: ComputedHour[],
   options: { asOfMs: number; reasons: Map<number, RecomputeReason> },
 ): Promise<SavedHour[]> {
-  if (!records.length) return [];
-  const rows = records.map((r) => {
-    const reason = options.reasons.get(r.startMs);
-    return { ...r, recomputeCause: reason?.cause ?? 'scheduled', recomputeReference: reason?.reference ?? null };
+  const filled = hours.filter((h) => h.records.length);
+  if (!filled.length) return [];
+  const hourOfRecord = new Map<number, number>();
+  const rows = filled.flatMap((h) => {
+    const reason = options.reasons.get(h.startMs);
+    return h.records.map((r) => {
+      hourOfRecord.set(r.startMs, h.startMs);
+      return { ...r, recomputeCause: reason?.cause ?? 'scheduled', recomputeReference: reason?.reference ?? null };
+    });
   });
+  const spans = filled.map((h) => ({ startMs: h.startMs, endMs: h.endMs }));
   const { rows: saved } = await pool.query<SavedHourRow>(
-    `WITH prior AS (
-       SELECT start, version FROM hourly_records
-        WHERE meter_run_id = $1 AND start = ANY(SELECT to_timestamp((r->>'startMs')::float8 / 1000) FROM jsonb_array_elements($2::jsonb) AS r)),
+    `WITH input AS (
+       SELECT r, to_timestamp((r->>'startMs')::float8 / 1000) AS start FROM jsonb_array_elements($2::jsonb) AS r),
+     prior AS (
+       SELECT start, version FROM hourly_records WHERE meter_run_id = $1 AND start = ANY(SELECT start FROM input)),
+     removed AS (
+       DELETE FROM hourly_records h USING jsonb_array_elements($4::jsonb) AS span
+        WHERE h.meter_run_id = $1
+          AND h.start >= to_timestamp((span->>'startMs')::float8 / 1000)
+          AND h.start < to_timestamp((span->>'endMs')::float8 / 1000)
+          AND h.start <> ALL(SELECT start FROM input)),
      saved AS (
      INSERT INTO hourly_records (meter_run_id, start, "end", flow_time_s, mass_kg, volume_m3, standard_volume_m3, energy_j,
-       average_dp_pa, average_pressure_pa, average_temperature_k, integral_value, coverage, flags, uncertainty_percent,
-       config_version_id, dp_bands, active_transmitter_time, final_stack_choice, computed_at, recompute_cause,
-       recompute_reference, as_of)
-     SELECT $1, to_timestamp((r->>'startMs')::float8 / 1000), to_timestamp((r->>'endMs')::float8 / 1000),
+       average_dp_pa, average_pressure_pa, average_temperature_k, integral_value, integral_multiplier_value, coverage, flags,
+       uncertainty_percent, config_version_id, dp_bands, active_transmitter_time, final_stack_choice, computed_at,
+       recompute_cause, recompute_reference, as_of)
+     SELECT $1, i.start, to_timestamp((r->>'endMs')::float8 / 1000),
             (r->>'flowTimeS')::float8, (r->>'massKg')::float8, (r->>'volumeM3')::float8, (r->>'standardVolumeM3')::float8,
             (r->>'energyJ')::float8, (r->>'averageDpPa')::float8, (r->>'averagePressurePa')::float8, (r->>'averageTemperatureK')::float8,
-            (r->>'integralValue')::float8, (r->>'coverage')::float8,
+            (r->>'integralValue')::float8, (r->>'integralMultiplierValue')::float8, (r->>'coverage')::float8,
             ARRAY(SELECT jsonb_array_elements_text(r->'flags')), (r->>'uncertaintyPercent')::float8,
             (r->>'configVersionId')::bigint, r->'dpBands', r->'activeTransmitterTimeS', r->>'finalStackChoice', now(),
             r->>'recomputeCause', r->>'recomputeReference',
             least(to_timestamp((r->>'endMs')::float8 / 1000), to_timestamp($3::float8 / 1000))
-       FROM jsonb_array_elements($2::jsonb) AS r
+       FROM input i
      ON CONFLICT (meter_run_id, start) DO UPDATE SET
        "end" = EXCLUDED."end", flow_time_s = EXCLUDED.flow_time_s, mass_kg = EXCLUDED.mass_kg, volume_m3 = EXCLUDED.volume_m3,
        standard_volume_m3 = EXCLUDED.standard_volume_m3, energy_j = EXCLUDED.energy_j, average_dp_pa = EXCLUDED.average_dp_pa,
        average_pressure_pa = EXCLUDED.average_pressure_pa, average_temperature_k = EXCLUDED.average_temperature_k,
-       integral_value = EXCLUDED.integral_value, coverage = EXCLUDED.coverage, flags = EXCLUDED.flags,
+       integral_value = EXCLUDED.integral_value, integral_multiplier_value = EXCLUDED.integral_multiplier_value,
+       coverage = EXCLUDED.coverage, flags = EXCLUDED.flags,
        uncertainty_percent = EXCLUDED.uncertainty_percent, config_version_id = EXCLUDED.config_version_id,
        dp_bands = EXCLUDED.dp_bands, active_transmitter_time = EXCLUDED.active_transmitter_time,
        final_stack_choice = EXCLUDED.final_stack_choice, computed_at = now(), recompute_cause = EXCLUDED.recompute_cause,
@@ -191,10 +222,11 @@ export async function saveHourlyRecords(
      RETURNING start, version, cause, cause_reference)
      SELECT s.start, s.version, coalesce(s.version > p.version, false) AS changed, s.cause, s.cause_reference
        FROM saved s LEFT JOIN prior p ON p.start = s.start`,
-    [meterRunId, JSON.stringify(rows), options.asOfMs],
+    [meterRunId, JSON.stringify(rows), options.asOfMs, JSON.stringify(spans)],
   );
   return saved.map((r) => ({
     startMs: r.start.getTime(),
+    hourStartMs: hourOfRecord.get(r.start.getTime()) ?? r.start.getTime(),
     version: r.version,
     changed: r.changed,
     cause: r.cause,

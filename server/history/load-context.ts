@@ -1,9 +1,43 @@
 import type { Pool } from 'pg';
 import { toSI } from '../../shared/units';
 import type { ConfigVersionInput, DpSeries, Quality, Sample } from '../../shared/history/types';
+import { inEffectAt } from '../../shared/history/dated';
 
 const qualityName: Quality[] = ['good', 'uncertain', 'bad', 'substituted'];
 
+/** The meter-run settings in force from `effectiveFromMs` (a meter_run_setting_versions row). */
+export interface MeterRunSettings {
+  effectiveFromMs: number;
+  holdLimitS: number;
+  maxGapS: number;
+  noFlowCutoffShare: number;
+  stackSwitchUpShare: number;
+  stackSwitchDownShare: number;
+}
+
+/** The site settings in force from `effectiveFromMs` (a site_setting_versions row). */
+export interface SiteSettings {
+  effectiveFromMs: number;
+  contractHour: number;
+  basePressurePa: number;
+  baseTemperatureK: number;
+  atmosphericPressurePa: number;
+}
+
+/** A transmitter's range and accuracy in force from `effectiveFromMs`, in its own unit. */
+export interface TransmitterRange {
+  effectiveFromMs: number;
+  lowerRange: number;
+  upperRange: number;
+  accuracyPercentOfSpan: number;
+}
+
+/**
+ * A meter run's context. The plain fields are the latest values (what the set-up shows now, and
+ * what the alarm walk and range health use); the history worker computes each part of an hour
+ * with the versions in force then (`settingVersions`, `siteVersions`, each transmitter's `ranges`,
+ * `configVersions`), each list sorted by effective time and never empty.
+ */
 export interface MeterRunContext {
   meterRunId: string;
   timeZone: string;
@@ -11,9 +45,12 @@ export interface MeterRunContext {
   base: { pressurePa: number; temperatureK: number };
   holdLimitS: number;
   maxGapS: number;
+  noFlowCutoffShare: number;
   stackSwitchUpShare: number;
   stackSwitchDownShare: number;
   configVersions: ConfigVersionInput[];
+  settingVersions: MeterRunSettings[];
+  siteVersions: SiteSettings[];
   transmitters: {
     id: string;
     measures: 'differential-pressure' | 'static-pressure' | 'temperature';
@@ -23,6 +60,7 @@ export interface MeterRunContext {
     upperRange: number;
     stackRole: 'single' | 'low' | 'high';
     accuracyPercentOfSpan: number;
+    ranges: TransmitterRange[];
   }[];
   atmosphericPressurePa: number;
 }
@@ -31,8 +69,10 @@ type ContextTransmitter = MeterRunContext['transmitters'][number];
 
 interface MeterRunRow {
   id: string;
+  site_id: string;
   hold_limit_s: number;
   max_gap_s: number;
+  no_flow_cutoff_share: number;
   stack_switch_up_share: number;
   stack_switch_down_share: number;
   time_zone: string;
@@ -60,6 +100,31 @@ interface TransmitterRow {
   accuracy_percent_of_span: number;
 }
 
+interface SettingVersionRow {
+  effective_from: Date;
+  hold_limit_s: number;
+  max_gap_s: number;
+  no_flow_cutoff_share: number;
+  stack_switch_up_share: number;
+  stack_switch_down_share: number;
+}
+
+interface SiteVersionRow {
+  effective_from: Date;
+  contract_hour: number;
+  base_pressure_pa: number;
+  base_temperature_k: number;
+  atmospheric_pressure_pa: number;
+}
+
+interface RangeVersionRow {
+  transmitter_id: string;
+  effective_from: Date;
+  lower_range: number;
+  upper_range: number;
+  accuracy_percent_of_span: number;
+}
+
 /** A stored reading: value in the transmitter's unit, quality as its code (0 good … 3 substituted). */
 interface ReadingRow {
   time: Date;
@@ -67,11 +132,16 @@ interface ReadingRow {
   quality: number;
 }
 
-/** Everything about a meter run that its hourly computation needs, except the readings. */
+/**
+ * Everything about a meter run that its hourly computation needs, except the readings. A meter
+ * run, site or transmitter written without versions (before migration 0007, or by the demo seed's
+ * SQL) gets one from its current columns, in force from the beginning.
+ */
 export async function loadMeterRunContext(pool: Pool, meterRunId: string): Promise<MeterRunContext | null> {
   const run = await pool.query<MeterRunRow>(
-    `SELECT m.id::text, m.hold_limit_s, m.max_gap_s, m.stack_switch_up_share, m.stack_switch_down_share,
-            s.time_zone, s.contract_hour, s.base_pressure_pa, s.base_temperature_k, s.atmospheric_pressure_pa
+    `SELECT m.id::text, m.site_id::text, m.hold_limit_s, m.max_gap_s, m.no_flow_cutoff_share, m.stack_switch_up_share,
+            m.stack_switch_down_share, s.time_zone, s.contract_hour, s.base_pressure_pa, s.base_temperature_k,
+            s.atmospheric_pressure_pa
        FROM meter_runs m JOIN sites s ON s.id = m.site_id WHERE m.id = $1`,
     [meterRunId],
   );
@@ -86,6 +156,54 @@ export async function loadMeterRunContext(pool: Pool, meterRunId: string): Promi
        FROM transmitters WHERE meter_run_id = $1 ORDER BY transmitters.id`,
     [meterRunId],
   );
+  const settings = await pool.query<SettingVersionRow>(
+    `SELECT effective_from, hold_limit_s, max_gap_s, no_flow_cutoff_share, stack_switch_up_share, stack_switch_down_share
+       FROM meter_run_setting_versions WHERE meter_run_id = $1 ORDER BY effective_from, id`,
+    [meterRunId],
+  );
+  const siteSettings = await pool.query<SiteVersionRow>(
+    `SELECT effective_from, contract_hour, base_pressure_pa, base_temperature_k, atmospheric_pressure_pa
+       FROM site_setting_versions WHERE site_id = $1 ORDER BY effective_from, id`,
+    [r.site_id],
+  );
+  const ranges = await pool.query<RangeVersionRow>(
+    `SELECT v.transmitter_id::text, v.effective_from, v.lower_range, v.upper_range, v.accuracy_percent_of_span
+       FROM transmitter_range_versions v JOIN transmitters t ON t.id = v.transmitter_id
+      WHERE t.meter_run_id = $1 ORDER BY v.effective_from, v.id`,
+    [meterRunId],
+  );
+  const settingVersions: MeterRunSettings[] = settings.rows.map((v) => ({
+    effectiveFromMs: v.effective_from.getTime(),
+    holdLimitS: v.hold_limit_s,
+    maxGapS: v.max_gap_s,
+    noFlowCutoffShare: v.no_flow_cutoff_share,
+    stackSwitchUpShare: v.stack_switch_up_share,
+    stackSwitchDownShare: v.stack_switch_down_share,
+  }));
+  if (!settingVersions.length)
+    settingVersions.push({
+      effectiveFromMs: -Infinity,
+      holdLimitS: r.hold_limit_s,
+      maxGapS: r.max_gap_s,
+      noFlowCutoffShare: r.no_flow_cutoff_share,
+      stackSwitchUpShare: r.stack_switch_up_share,
+      stackSwitchDownShare: r.stack_switch_down_share,
+    });
+  const siteVersions: SiteSettings[] = siteSettings.rows.map((v) => ({
+    effectiveFromMs: v.effective_from.getTime(),
+    contractHour: v.contract_hour,
+    basePressurePa: v.base_pressure_pa,
+    baseTemperatureK: v.base_temperature_k,
+    atmosphericPressurePa: v.atmospheric_pressure_pa,
+  }));
+  if (!siteVersions.length)
+    siteVersions.push({
+      effectiveFromMs: -Infinity,
+      contractHour: r.contract_hour,
+      basePressurePa: r.base_pressure_pa,
+      baseTemperatureK: r.base_temperature_k,
+      atmosphericPressurePa: r.atmospheric_pressure_pa,
+    });
   return {
     meterRunId,
     timeZone: r.time_zone,
@@ -93,6 +211,7 @@ export async function loadMeterRunContext(pool: Pool, meterRunId: string): Promi
     base: { pressurePa: r.base_pressure_pa, temperatureK: r.base_temperature_k },
     holdLimitS: r.hold_limit_s,
     maxGapS: r.max_gap_s,
+    noFlowCutoffShare: r.no_flow_cutoff_share,
     stackSwitchUpShare: r.stack_switch_up_share,
     stackSwitchDownShare: r.stack_switch_down_share,
     atmosphericPressurePa: r.atmospheric_pressure_pa,
@@ -102,16 +221,38 @@ export async function loadMeterRunContext(pool: Pool, meterRunId: string): Promi
       element: v.element,
       fluid: v.fluid,
     })),
-    transmitters: transmitters.rows.map((t) => ({
-      id: t.id,
-      measures: t.measures,
-      unit: t.unit,
-      pressureReference: t.pressure_reference,
-      lowerRange: t.lower_range,
-      upperRange: t.upper_range,
-      stackRole: t.stack_role,
-      accuracyPercentOfSpan: t.accuracy_percent_of_span,
-    })),
+    settingVersions,
+    siteVersions,
+    transmitters: transmitters.rows.map((t) => {
+      const own: TransmitterRange[] = ranges.rows
+        .filter((v) => v.transmitter_id === t.id)
+        .map((v) => ({
+          effectiveFromMs: v.effective_from.getTime(),
+          lowerRange: v.lower_range,
+          upperRange: v.upper_range,
+          accuracyPercentOfSpan: v.accuracy_percent_of_span,
+        }));
+      return {
+        id: t.id,
+        measures: t.measures,
+        unit: t.unit,
+        pressureReference: t.pressure_reference,
+        lowerRange: t.lower_range,
+        upperRange: t.upper_range,
+        stackRole: t.stack_role,
+        accuracyPercentOfSpan: t.accuracy_percent_of_span,
+        ranges: own.length
+          ? own
+          : [
+              {
+                effectiveFromMs: -Infinity,
+                lowerRange: t.lower_range,
+                upperRange: t.upper_range,
+                accuracyPercentOfSpan: t.accuracy_percent_of_span,
+              },
+            ],
+      };
+    }),
   };
 }
 
@@ -123,7 +264,7 @@ export interface ReadingSeries {
 
 /**
  * The readings of a meter run in [fromMs, toMs), converted to SI (gauge pressures made
- * absolute with the site's atmospheric pressure), plus the latest reading of each transmitter
+ * absolute with the site's atmospheric pressure in force at each reading's time), plus the latest reading of each transmitter
  * before fromMs, which covers the start of the window.
  */
 export async function loadReadings(
@@ -140,10 +281,11 @@ export async function loadReadings(
        (SELECT time, value, quality FROM readings WHERE transmitter_id = $1 AND time >= to_timestamp($2 / 1000.0) AND time < to_timestamp($3 / 1000.0) ORDER BY time)`,
       [t.id, fromMs, toMs],
     );
-    const offset = t.measures === 'static-pressure' && t.pressureReference === 'gauge' ? ctx.atmosphericPressurePa : 0;
+    const gauge = t.measures === 'static-pressure' && t.pressureReference === 'gauge';
+    const offsetAt = (timeMs: number) => (gauge ? inEffectAt(ctx.siteVersions, timeMs).atmosphericPressurePa : 0);
     const samples: Sample[] = rows.map((row) => ({
       timeMs: row.time.getTime(),
-      value: toSI(row.value, t.unit) + offset,
+      value: toSI(row.value, t.unit) + offsetAt(row.time.getTime()),
       quality: qualityName[row.quality],
     }));
     samples.sort((a, b) => a.timeMs - b.timeMs);

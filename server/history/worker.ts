@@ -1,14 +1,13 @@
 import type { Pool } from 'pg';
 import { computeHour } from '../../shared/history/compute-hour';
-import {
-  contractDayBounds,
-  contractDayOf,
-  contractMonthBounds,
-  hourStartsBetween,
-} from '../../shared/history/contract-day';
+import { hourStartsBetween } from '../../shared/history/contract-day';
+import { contractCalendar, type ContractCalendar } from '../../shared/history/contract-calendar';
+import { inEffectAt, versionInstantsWithin, type Dated } from '../../shared/history/dated';
 import { rollUpRecords } from '../../shared/history/roll-up';
 import type { HourlyRecord } from '../../shared/history/types';
+import { toSI } from '../../shared/units';
 import { componentLogger } from '../log';
+import { applyCorrections, loadCorrectionsInForce, overlayReadings } from './corrections-overlay';
 import {
   claimHours,
   dropComputedHours,
@@ -24,9 +23,10 @@ import {
   saveHourlyRecords,
   savePeriodTotal,
   type ClaimTiming,
+  type ComputedHour,
   type PeriodTable,
 } from './history-repository';
-import { loadMeterRunContext, loadReadings, type MeterRunContext } from './load-context';
+import { loadMeterRunContext, loadReadings, type MeterRunContext, type ReadingSeries } from './load-context';
 import { periodIsClosed } from './closed-periods';
 import { scheduled, strongestReason, type RecomputeReason } from './record-causes';
 
@@ -118,42 +118,47 @@ export class HistoryWorker {
   /**
    * Recomputes the given hours of one meter run and the periods above them. `reasons` (by hour
    * start) says why each hour waited; it becomes the cause of any new version of its record.
+   * Each hour is split at every instant inside it where a configuration version, a meter-run
+   * setting, a site setting or a DP transmitter's range takes effect, and each part is computed
+   * with the settings in force then and stored as a record of its own (API MPMS 21.1).
    */
   async recompute(meterRunId: string, hours: number[], reasons = new Map<number, RecomputeReason>()) {
     const ctx = await loadMeterRunContext(this.pool, meterRunId);
     if (!ctx) return;
     const nowMs = this.now();
-    const lookBackMs = Math.max(ctx.holdLimitS, ctx.maxGapS) * 1000;
-    // Load readings once for the whole span of claimed hours.
+    // Far enough back for the longest hold limit or gap any version allows.
+    const lookBackMs = Math.max(...ctx.settingVersions.map((v) => Math.max(v.holdLimitS, v.maxGapS))) * 1000;
+    // Load readings and corrections once for the whole span of claimed hours.
     const spanStart = hours[0];
     const spanEnd = hours[hours.length - 1] + hourMs;
-    const readings = await loadReadings(this.pool, ctx, spanStart - lookBackMs, spanEnd);
+    const inForce = await loadCorrectionsInForce(this.pool, meterRunId, spanStart, spanEnd);
+    const readings = overlayReadings(await loadReadings(this.pool, ctx, spanStart - lookBackMs, spanEnd), inForce);
     let previousChoice = await previousStackChoice(this.pool, meterRunId, spanStart);
-    const records: HourlyRecord[] = [];
+    const splitLists: Dated[][] = [
+      ctx.configVersions,
+      ctx.settingVersions,
+      ctx.siteVersions,
+      ...ctx.transmitters.filter((t) => t.measures === 'differential-pressure').map((t) => t.ranges),
+    ];
+    const computed: ComputedHour[] = [];
     for (const startMs of hours) {
       const endMs = nextHourStart(startMs, ctx.timeZone);
       if (startMs > nowMs) continue;
       // A closed period keeps its figures until it is reopened (none is closed yet; issue 9).
       if (await periodIsClosed(this.pool, meterRunId, startMs, endMs)) continue;
-      const record = computeHour({
-        startMs,
-        endMs,
-        asOfMs: Math.min(endMs, nowMs),
-        dp: readings.dp.map((s) => ({ ...s, samples: window(s.samples, startMs, endMs) })),
-        staticPressure: window(readings.staticPressure, startMs, endMs),
-        temperature: window(readings.temperature, startMs, endMs),
-        configVersions: ctx.configVersions,
-        base: ctx.base,
-        holdLimitS: ctx.holdLimitS,
-        maxGapS: ctx.maxGapS,
-        stackSwitchUpShare: ctx.stackSwitchUpShare,
-        stackSwitchDownShare: ctx.stackSwitchDownShare,
-        initialStackChoice: previousChoice ?? undefined,
-      });
-      previousChoice = record.finalStackChoice ?? previousChoice;
-      records.push(record);
+      const cuts = [startMs, ...versionInstantsWithin(splitLists, startMs, endMs), endMs];
+      const records: HourlyRecord[] = [];
+      for (let k = 0; k + 1 < cuts.length && cuts[k] <= nowMs; k++) {
+        const record = applyCorrections(
+          computePart(ctx, readings, { startMs: cuts[k], endMs: cuts[k + 1], nowMs, previousChoice }),
+          inForce,
+        );
+        previousChoice = record.finalStackChoice ?? previousChoice;
+        records.push(record);
+      }
+      computed.push({ startMs, endMs, records });
     }
-    const saved = await saveHourlyRecords(this.pool, meterRunId, records, { asOfMs: nowMs, reasons });
+    const saved = await saveHourlyRecords(this.pool, meterRunId, computed, { asOfMs: nowMs, reasons });
     // A total changes for the reason its hours changed: the cause of an hour's new version (a
     // configuration version found in the record), else the reason the hour waited.
     const hourReasons = new Map<number, RecomputeReason>();
@@ -161,17 +166,19 @@ export class HistoryWorker {
       const reason =
         h.changed && h.cause !== 'initial'
           ? { cause: h.cause, reference: h.causeReference }
-          : (reasons.get(h.startMs) ?? scheduled);
-      hourReasons.set(h.startMs, reason);
+          : (reasons.get(h.hourStartMs) ?? scheduled);
+      const known = hourReasons.get(h.hourStartMs);
+      hourReasons.set(h.hourStartMs, known ? strongestReason([known, reason]) : reason);
     }
     await this.rollUp(ctx, hourReasons, nowMs);
   }
 
   /** Recomputes the contract days and months that contain the given hours (with why each hour was recomputed). */
   private async rollUp(ctx: MeterRunContext, hourReasons: Map<number, RecomputeReason>, nowMs: number) {
+    const calendar = calendarOf(ctx);
     const days = new Map<string, RecomputeReason[]>();
     for (const [startMs, reason] of hourReasons) {
-      const day = contractDayOf(startMs, ctx.timeZone, ctx.contractHour);
+      const day = calendar.dayOf(startMs);
       days.set(day, [...(days.get(day) ?? []), reason]);
     }
     const months = new Map<string, RecomputeReason[]>();
@@ -182,7 +189,7 @@ export class HistoryWorker {
         { table: 'daily_totals', keyColumn: 'contract_day' },
         day,
         ctx,
-        contractDayBounds(day, ctx.timeZone, ctx.contractHour),
+        calendar.dayBounds(day),
         nowMs,
         strongestReason(reasons),
       );
@@ -192,7 +199,7 @@ export class HistoryWorker {
         { table: 'monthly_totals', keyColumn: 'month' },
         `${month}-01`,
         ctx,
-        contractMonthBounds(month, ctx.timeZone, ctx.contractHour),
+        calendar.monthBounds(month),
         nowMs,
         strongestReason(reasons),
       );
@@ -248,4 +255,58 @@ function window<T extends { timeMs: number }>(samples: T[], startMs: number, end
 function nextHourStart(startMs: number, timeZone: string): number {
   const next = hourStartsBetween(startMs + 1, startMs + 2 * hourMs, timeZone)[0];
   return next ?? startMs + hourMs;
+}
+
+/** The site's contract days, with its contract hour as dated (shared/history/contract-calendar.ts). */
+function calendarOf(ctx: MeterRunContext): ContractCalendar {
+  return contractCalendar(
+    ctx.timeZone,
+    ctx.siteVersions.map((v) => ({ effectiveFromMs: v.effectiveFromMs, contractHour: v.contractHour })),
+    ctx.contractHour,
+  );
+}
+
+/**
+ * One record for [startMs, endMs) (an hour, or the part of one between two version instants),
+ * computed with the settings in force at its start: no version takes effect inside it.
+ */
+function computePart(
+  ctx: MeterRunContext,
+  readings: ReadingSeries,
+  part: { startMs: number; endMs: number; nowMs: number; previousChoice: 'low' | 'high' | null },
+): HourlyRecord {
+  const { startMs, endMs } = part;
+  const settings = inEffectAt(ctx.settingVersions, startMs);
+  const site = inEffectAt(ctx.siteVersions, startMs);
+  const dp = readings.dp.map((series) => {
+    const transmitter = ctx.transmitters.find((t) => t.id === series.transmitterId);
+    const range = transmitter ? inEffectAt(transmitter.ranges, startMs) : null;
+    return {
+      ...series,
+      ...(transmitter && range
+        ? {
+            lowerRangePa: toSI(range.lowerRange, transmitter.unit),
+            upperRangePa: toSI(range.upperRange, transmitter.unit),
+            accuracyPercentOfSpan: range.accuracyPercentOfSpan,
+          }
+        : {}),
+      samples: window(series.samples, startMs, endMs),
+    };
+  });
+  return computeHour({
+    startMs,
+    endMs,
+    asOfMs: Math.min(endMs, part.nowMs),
+    dp,
+    staticPressure: window(readings.staticPressure, startMs, endMs),
+    temperature: window(readings.temperature, startMs, endMs),
+    configVersions: ctx.configVersions,
+    base: { pressurePa: site.basePressurePa, temperatureK: site.baseTemperatureK },
+    holdLimitS: settings.holdLimitS,
+    maxGapS: settings.maxGapS,
+    noFlowCutoffShare: settings.noFlowCutoffShare,
+    stackSwitchUpShare: settings.stackSwitchUpShare,
+    stackSwitchDownShare: settings.stackSwitchDownShare,
+    initialStackChoice: part.previousChoice ?? undefined,
+  });
 }

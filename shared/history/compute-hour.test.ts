@@ -73,6 +73,8 @@ describe('computeHour: integration of rate × time', () => {
     const imv =
       (q.dischargeCoefficient * q.expansibility * (Math.PI / 4) * d * d * Math.SQRT2) / Math.sqrt(1 - q.beta ** 4);
     expect(relative(imv * (r.integralValue as number) * r.flowTimeS, r.massKg)).toBeLessThan(1e-12);
+    // The stored integral multiplier value is that IMV for a steady hour (flow-extension-weighted otherwise).
+    expect(relative(r.integralMultiplierValue as number, imv)).toBeLessThan(1e-12);
   });
 
   it('counts a gap longer than maxGapS as missing time: samples stop at 600 s and resume at 1800 s with maxGapS 120, so 1200 − 120 = 1080 s are missing and coverage is 2520/3600 = 0.7', () => {
@@ -414,5 +416,25 @@ describe('computeHour: energy and bad input', () => {
         } as Partial<HourInputs> & Pick<HourInputs, 'dp'>),
       ),
     ).toThrow(/boreDiameterM/);
+  });
+});
+
+describe('computeHour: the no-flow cutoff as a dated setting', () => {
+  // 400 Pa on a 0–50 kPa transmitter is 0.8 % of span.
+  const at400Pa = () => hourInputs({ dp: [singleDp(dpEvery10s(() => 400))] });
+
+  it('counts 400 Pa on a 0–50 kPa span (0.8 %) as flow under the default 0.5 % cutoff: mass = rate(400 Pa) × 3600 s', () => {
+    const r = computeHour(at400Pa());
+    expect(r.flowTimeS).toBe(3600);
+    expect(relative(r.massKg, rate(400).massFlowKgPerS * 3600)).toBeLessThan(1e-12);
+  });
+
+  it('counts the same hour as valid time without flow under a 1 % cutoff: no mass, coverage 1, no integral multiplier value', () => {
+    const r = computeHour({ ...at400Pa(), noFlowCutoffShare: 0.01 });
+    expect(r).toMatchObject({ flowTimeS: 0, massKg: 0, coverage: 1, integralMultiplierValue: null });
+  });
+
+  it('refuses a cutoff that is not a share in [0, 1), naming noFlowCutoffShare', () => {
+    expect(() => computeHour({ ...at400Pa(), noFlowCutoffShare: 1.5 })).toThrow(/noFlowCutoffShare/);
   });
 });

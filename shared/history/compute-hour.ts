@@ -25,10 +25,12 @@
  * - A bad DP sample is not used: its interval is missing time. A bad P or T sample is skipped
  *   (the last usable one within the hold limit is used) and flagged.
  * A configuration version taking effect mid-hour changes the rate exactly at its effective
- * time. API 21.1 wants a separate record when a constant changes; here the hour is split
- * internally per version and reported as ONE record flagged 'config-changed', whose
- * configVersionId is the version in effect at the end; the server may instead call computeHour
- * once per part (startMs/endMs need not be whole hours) to store the separate records.
+ * time. API 21.1 wants a separate record when a constant changes: the server's history worker
+ * calls computeHour once per part of the hour (startMs/endMs need not be whole hours), split at
+ * every instant where a configuration version or a dated setting (transmitter range, meter-run
+ * setting, site setting) takes effect, and stores one record per part. Called over a span with
+ * several versions, computeHour still splits internally per version and reports ONE record
+ * flagged 'config-changed', whose configVersionId is the version in effect at the end.
  */
 import { dpSelector } from './dp-selector';
 import { addFlowingInterval, dpBandOf, emptyHourSums, hourlyRecordFromSums } from './hour-sums';
@@ -38,7 +40,8 @@ import { isUsableSample, sampleCursor } from './sample-cursor';
 import type { DpSeries, HourInputs, HourlyRecord, Sample } from './types';
 
 /**
- * No-flow cutoff: a DP below 0.5 % of the active transmitter's span (or ≤ 0) is no flow.
+ * Default no-flow cutoff (a dated meter-run setting since issue 9, `noFlowCutoffShare`): a DP
+ * below 0.5 % of the active transmitter's span (or ≤ 0) is no flow.
  * Near zero a transmitter's offset (e.g. 0.075 % of span) is a large share of the reading, so
  * readings there are noise rather than flow; a low-flow cutoff of about 0.5 % of DP span is
  * common practice (flow then is about 7 % of the flow at full span, since qm ∝ √Δp).
@@ -59,6 +62,9 @@ function checkInputs(inputs: HourInputs): void {
     throw new Error(`computeHour: endMs must be after startMs (got ${inputs.startMs} to ${inputs.endMs})`);
   if (!(inputs.holdLimitS > 0)) throw new Error(`computeHour: holdLimitS must be > 0 (got ${inputs.holdLimitS})`);
   if (!(inputs.maxGapS > 0)) throw new Error(`computeHour: maxGapS must be > 0 (got ${inputs.maxGapS})`);
+  const cutoff = inputs.noFlowCutoffShare;
+  if (cutoff !== undefined && !(cutoff >= 0 && cutoff < 1))
+    throw new Error(`computeHour: noFlowCutoffShare must be a share in [0, 1) (got ${cutoff})`);
   if (!Array.isArray(inputs.dp) || inputs.dp.length === 0)
     throw new Error('computeHour: dp must hold at least one DP series');
   for (const field of ['staticPressure', 'temperature', 'configVersions'] as const) {
@@ -128,6 +134,7 @@ export function computeHour(inputs: HourInputs): HourlyRecord {
   const { startMs, endMs, configVersions, base } = inputs;
   const elapsedEndMs = Math.max(startMs, Math.min(inputs.asOfMs, endMs));
   const holdMs = inputs.holdLimitS * 1000;
+  const noFlowCutoffShare = inputs.noFlowCutoffShare ?? NO_FLOW_CUTOFF_SHARE_OF_SPAN;
   const selector = dpSelector(inputs.dp, {
     maxGapMs: inputs.maxGapS * 1000,
     stackSwitchUpShare: inputs.stackSwitchUpShare,
@@ -173,7 +180,7 @@ export function computeHour(inputs: HourInputs): HourlyRecord {
     const dpPa = dpSample.value;
     const spanPa = series.upperRangePa - series.lowerRangePa;
     const share = (dpPa - series.lowerRangePa) / spanPa;
-    if (dpPa <= 0 || share < NO_FLOW_CUTOFF_SHARE_OF_SPAN) {
+    if (dpPa <= 0 || share < noFlowCutoffShare) {
       sums.validMs += durationMs; // known to be no flow
       continue;
     }

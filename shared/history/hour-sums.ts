@@ -6,12 +6,15 @@
  *   time-weighted over flowing time only (API MPMS 21.1; TRADE.md §5); null without flow;
  * - integral value IV = (1/flow time) ∫ √(Δp·ρ₁) dt over flowing time, in √(Pa·kg/m³)
  *   (= kg/(m²·s)). With ISO 5167-1 eq. (1), qm = C ε (π/4) d² √2 / √(1 − β⁴) · √(Δp ρ₁), so
- *   mass = IMV × IV × flow time, where the integral multiplier value
- *   IMV = C ε (π/4) d² √2 / √(1 − β⁴) is evaluated from the element (d, β at the average
- *   temperature) and C, ε at the hour's averages. That recomputation is exact when C and ε are
- *   constant over the hour and otherwise differs by their flow-weighted variation (usually well
- *   under 50 ppm for a steady hour); the stored mass, integrated sample by sample, is the figure
- *   of record;
+ *   mass = IMV × IV × flow time with the integral multiplier value
+ *   IMV = C ε (π/4) d² √2 / √(1 − β⁴) (in m²);
+ * - integral multiplier value IMV, as stored: ∫ qm dt / ∫ √(Δp ρ₁) dt over flowing time, i.e. the
+ *   multiplier C ε (π/4) d² √2 / √(1 − β⁴) weighted by the flow extension. It equals that
+ *   formula exactly when C, ε and d are constant over the record (a steady hour), and differs
+ *   by their flow-weighted variation otherwise (usually well under 50 ppm). Stored this way,
+ *   IMV × IV × flow time gives the record's mass to rounding, so a third party recomputes the
+ *   quantity from the record alone (API MPMS 21.1); evaluating the formula at the hour's
+ *   averages instead would not reproduce the mass integrated sample by sample;
  * - coverage: valid time / (min(asOf, end) − start): time with a known rate (flow or no flow)
  *   over the elapsed part of the hour, so a complete past hour with all data has coverage 1,
  *   and so does the current hour so far;
@@ -163,6 +166,7 @@ export function hourlyRecordFromSums(
     averagePressurePa: perFlowMs(sums.pressurePaMs),
     averageTemperatureK: perFlowMs(sums.temperatureKMs),
     integralValue: perFlowMs(sums.flowExtensionMs),
+    integralMultiplierValue: flowing && sums.flowExtensionMs > 0 ? sums.massKgMs / sums.flowExtensionMs : null,
     coverage,
     flags: HOUR_FLAG_ORDER.filter((f) => flags.has(f)),
     uncertaintyPercent: sums.massKgMs > 0 ? sums.massTimesUncertaintyMs / sums.massKgMs : null,

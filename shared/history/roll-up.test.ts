@@ -122,4 +122,39 @@ describe('rollUpRecords', () => {
   it('rejects bounds that end before they start, naming the field', () => {
     expect(() => rollUpRecords([], { startMs: 10, endMs: 5, hours: 1 }, { nowMs: 0 })).toThrow(/rollUpRecords: bounds/);
   });
+
+  it('counts an hour stored as two parts (split at 20 min where a setting took effect) once: the day stays complete with coverage 1 and the sum of the parts', () => {
+    const records = allHours().flatMap((r, k) =>
+      k === 5
+        ? [
+            { ...r, endMs: r.startMs + 20 * 60_000, flowTimeS: 1200, massKg: 400 },
+            { ...r, startMs: r.startMs + 20 * 60_000, flowTimeS: 2400, massKg: 600.25 },
+          ]
+        : [r],
+    );
+    const t = rollUpRecords(records, longDay, { nowMs: longDay.endMs });
+    expect(t.hours).toBe(25);
+    expect(t.status).toBe('complete');
+    expect(t.coverage).toBe(1);
+    expect(t.flowTimeS).toBe(90000);
+    expect(t.massKg).toBeCloseTo(25 * 1000.25, 9);
+  });
+
+  it('weights each part by its own length: a 20-minute part at coverage 0.4 beside a full 40-minute part gives (24 + (20 × 0.4 + 40)/60)/25', () => {
+    const records = allHours().flatMap((r, k) =>
+      k === 5
+        ? [
+            { ...r, endMs: r.startMs + 20 * 60_000, coverage: 0.4 },
+            { ...r, startMs: r.startMs + 20 * 60_000 },
+          ]
+        : [r],
+    );
+    const t = rollUpRecords(records, longDay, { nowMs: longDay.endMs });
+    expect(t.coverage).toBeCloseTo((24 + (20 * 0.4 + 40) / 60) / 25, 12);
+  });
+
+  it('leaves a day provisional when a split hour lacks its second part', () => {
+    const records = allHours().map((r, k) => (k === 5 ? { ...r, endMs: r.startMs + 20 * 60_000 } : r));
+    expect(rollUpRecords(records, longDay, { nowMs: longDay.endMs }).status).toBe('provisional');
+  });
 });

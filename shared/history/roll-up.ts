@@ -31,8 +31,11 @@ export interface RollUpOptions {
  * - Status: 'closed' when options.closed; else 'complete' once now ≥ end and every hour of the
  *   period has a record; else 'provisional'.
  * Hours are the period's start + k h for k < hours (a contract day starts at a local hour, and
- * every hour of a whole-hour or :30/:45 zone is 3600 s long); records outside the period are
- * ignored, and of two records for one hour the later in the array wins.
+ * every hour of a whole-hour or :30/:45 zone is 3600 s long). An hour may be stored as several
+ * records, split where a dated setting took effect (API MPMS 21.1: a new record when a constant
+ * changes): each record is weighted by its own elapsed part, min(now, record end) − record start,
+ * and an hour counts as recorded when its records together cover it. Records starting outside
+ * the period are ignored, and of two records with one start the later in the array wins.
  * @param records hourly records (or the summed fields of them)
  * @param bounds the period's bounds and its length in hours
  * @param options nowMs, and closed for a closed month
@@ -91,21 +94,26 @@ export function rollUpRecords(
     for (const f of r.flags) if (!flags.includes(f)) flags.push(f);
   }
 
-  // Coverage over the elapsed part of the period, hour by hour.
+  // Coverage over the elapsed part of the period: each record (a whole hour or a part of one)
+  // weighs its elapsed part; the elapsed part of the period is counted hour by hour.
   const elapsedEndMs = Math.min(nowMs, endMs);
+  const hourCount = Math.ceil(hours - 1e-9);
   let coveredMs = 0;
+  const recordedMs = new Float64Array(hourCount);
+  for (const r of byStart.values()) {
+    const recordEndMs = Math.min(r.endMs, endMs);
+    coveredMs += Math.max(0, Math.min(elapsedEndMs, recordEndMs) - r.startMs) * Math.min(Math.max(r.coverage, 0), 1);
+    const k = Math.floor((r.startMs - startMs) / MS_PER_HOUR);
+    if (k < hourCount) recordedMs[k] += Math.max(0, recordEndMs - r.startMs);
+  }
   let elapsedMs = 0;
   let everyHourHasRecord = true;
-  const hourCount = Math.ceil(hours - 1e-9);
   for (let k = 0; k < hourCount; k++) {
     const hourStart = startMs + k * MS_PER_HOUR;
     const hourEnd = Math.min(hourStart + MS_PER_HOUR, endMs);
-    const record = byStart.get(hourStart);
-    if (!record) everyHourHasRecord = false;
+    if (recordedMs[k] < hourEnd - hourStart) everyHourHasRecord = false;
     if (hourStart >= elapsedEndMs) continue;
-    const weightMs = Math.min(elapsedEndMs, hourEnd) - hourStart;
-    elapsedMs += weightMs;
-    if (record) coveredMs += weightMs * Math.min(Math.max(record.coverage, 0), 1);
+    elapsedMs += Math.min(elapsedEndMs, hourEnd) - hourStart;
   }
   const coverage = elapsedMs > 0 ? coveredMs / elapsedMs : 0;
   if (coverage < 1 && !flags.includes('missing-data')) flags.push('missing-data');

@@ -57,6 +57,11 @@ export interface HourInputs {
   stackSwitchUpShare: number;
   stackSwitchDownShare: number;
   /**
+   * No-flow cutoff, a share of the active DP transmitter's span: a DP below it (or ≤ 0) is valid
+   * time without flow. A dated meter-run setting; NO_FLOW_CUTOFF_SHARE_OF_SPAN (0.005) when not given.
+   */
+  noFlowCutoffShare?: number;
+  /**
    * The transmitter in use at the end of the previous hour (the previous record's finalStackChoice).
    * It is kept at startMs only while the pair of readings in force just before startMs is still in
    * force (found from the latest sample before startMs that dp includes); a reading arriving at
@@ -80,6 +85,12 @@ export interface HourlyRecord {
   averagePressurePa: number | null;
   averageTemperatureK: number | null;
   integralValue: number | null;
+  /**
+   * Integral multiplier value (API MPMS 21.1), kg/(√(Pa·kg/m³)·s)·s: massKg = IMV × IV × flowTimeS,
+   * so a third party can recompute the quantity from the record alone; null without flow.
+   * computeHour always sets it (optional only so records built by hand elsewhere still type-check).
+   */
+  integralMultiplierValue?: number | null;
   coverage: number;
   flags: string[];
   uncertaintyPercent: number | null;

@@ -24,7 +24,7 @@ describe('a configuration version back-dated into the middle of an hour', () => 
       await api.get(
         `/api/meter-runs/${f.meterRun.id}/totals?interval=hour&from=${new Date(h0).toISOString()}&to=${new Date(h0 + 6 * hourMs).toISOString()}`,
       )
-    ).body as { start: string; massKg: number }[];
+    ).body as { start: string; massKg: number; hours: number }[];
 
   beforeAll(async () => {
     f = await createMeterRun(api, { timeZone: 'UTC', contractHour: 0, maxGapS: 900 });
@@ -62,8 +62,40 @@ describe('a configuration version back-dated into the middle of an hour', () => 
 
     await settled(api, f.meterRun.id);
     const after = await hours();
+    // API MPMS 21.1: a constant changed mid-hour gives two records, 03:00–03:30 and 03:30–04:00.
+    expect(after.map((h) => h.start)).toEqual(
+      [0, 1, 2, 3, 3.5, 4, 5].map((k) => new Date(h0 + k * hourMs).toISOString()),
+    );
     for (let i = 0; i < 3; i++) expect(after[i].massKg).toBe(before[i].massKg);
-    expect(relative(after[3].massKg, rate * 1800 + newRate * 1800)).toBeLessThan(1e-9);
-    for (let i = 4; i < 6; i++) expect(relative(after[i].massKg, newRate * 3600)).toBeLessThan(1e-9);
+    expect(relative(after[3].massKg, rate * 1800)).toBeLessThan(1e-9);
+    expect(relative(after[4].massKg, newRate * 1800)).toBeLessThan(1e-9);
+    expect(relative(after[3].massKg + after[4].massKg, rate * 1800 + newRate * 1800)).toBeLessThan(1e-9);
+    for (let i = 5; i < 7; i++) expect(relative(after[i].massKg, newRate * 3600)).toBeLessThan(1e-9);
+    // Each part counts its share of the hour, so the listed hours still add up to six.
+    expect(after.map((h) => h.hours)).toEqual([1, 1, 1, 0.5, 0.5, 1, 1]);
+  });
+
+  it('stores each part with its own configuration version, no config-changed flag, and IMV × IV × flow time equal to its mass', async () => {
+    const records = (
+      await api.get(
+        `/api/meter-runs/${f.meterRun.id}/hourly-records?from=${new Date(h0 + 3 * hourMs).toISOString()}&to=${new Date(h0 + 4 * hourMs).toISOString()}`,
+      )
+    ).body as {
+      end: string;
+      massKg: number;
+      flowTimeS: number;
+      integralValue: number;
+      integralMultiplierValue: number;
+      configVersionId: string;
+      flags: string[];
+    }[];
+    expect(records).toHaveLength(2);
+    expect(records[0].end).toBe(new Date(h0 + 3.5 * hourMs).toISOString());
+    expect(records[0].configVersionId).not.toBe(records[1].configVersionId);
+    for (const r of records) {
+      expect(r.flags).not.toContain('config-changed');
+      expect(r.flowTimeS).toBe(1800);
+      expect(relative(r.integralMultiplierValue * r.integralValue * r.flowTimeS, r.massKg)).toBeLessThan(1e-12);
+    }
   });
 });

@@ -243,4 +243,143 @@ describe('the set-up screens', () => {
     expect(versions[1].element.boreDiameterM).toBeCloseTo(0.0902, 12);
     await page.close();
   });
+
+  it('dates a change of the no-flow cutoff (beside the hold limit), a transmitter range and the site contract hour, each with its effective time and reason', async () => {
+    const page = await freshPage(browser, 'wide');
+    const code = `C${unique()}`;
+    const site = await api.post('/api/sites', {
+      code,
+      name: 'Cutoff test site',
+      timeZone: 'UTC',
+      contractHour: 0,
+      basePressurePa: 101325,
+      baseTemperatureK: 288.15,
+      atmosphericPressurePa: 101325,
+    });
+    expect(site.status).toBe(201);
+    const run = await api.post('/api/meter-runs', {
+      siteId: site.body.id,
+      tag: `${code}-W1`,
+      name: 'Water line',
+      element: { kind: 'venturi', venturiType: 'machined', pipeDiameterM: 0.15, boreDiameterM: 0.09 },
+      fluid: { kind: 'water' },
+      effectiveFrom: '2024-01-01T00:00:00Z',
+    });
+    expect(run.status).toBe(201);
+    expect(run.body.noFlowCutoffPercentOfSpan).toBe(0.5);
+
+    await openSetup(page);
+    await page.goto(`${baseUrl}/setup?meterRun=${run.body.id}`);
+    await page
+      .getByTestId('run-summary')
+      .getByText(/no-flow cutoff 0\.5 % of DP span/)
+      .waitFor();
+    await page.getByTestId('run-edit').click();
+    await page.getByTestId('run-edit-noFlowCutoffPercentOfSpan').fill('1');
+    // Only a changed dated setting asks when it takes effect and why.
+    await page.getByTestId('run-edit-effectiveFrom').fill('2025-06-01');
+    await page.getByTestId('run-edit-effectiveTime').fill('00:00');
+    await page.getByTestId('run-edit-reason').fill('Cutoff raised: zero drift at low flow');
+    await page
+      .getByTestId('run-edit-backdated')
+      .filter({ hasText: /from 1 Jun 2025, 00:00/ })
+      .waitFor();
+    await page.getByTestId('run-edit-submit').click();
+    await page
+      .getByTestId('run-summary')
+      .getByText(/no-flow cutoff 1 % of DP span/)
+      .waitFor();
+    // The dated settings list the change with its time, reason and difference.
+    const newest = page.getByTestId(/^setting-row-meter-run-\d+$/).first();
+    await newest.getByText('0.5 → 1').waitFor();
+    const row = await newest.innerText();
+    expect(row).toContain('From 1 Jun 2025, 00:00');
+    expect(row).toContain('Reason: Cutoff raised: zero drift at low flow');
+    expect(row).toContain('noFlowCutoffPercentOfSpan');
+
+    // A re-range is dated too: on the site's clock, with a reason; a new calibration date alone asks neither.
+    const tag = `${code}-DP1`;
+    const dp = await api.post('/api/transmitters', {
+      meterRunId: run.body.id,
+      tag,
+      measures: 'differential-pressure',
+      unit: 'kPa',
+      lowerRange: 0,
+      upperRange: 50,
+    });
+    expect(dp.status).toBe(201);
+    await page.reload();
+    await page.getByTestId(`tx-row-${tag}-edit`).click();
+    await page.getByTestId(`tx-row-${tag}-calibrationDue`).fill('2027-01-31');
+    expect(await page.getByTestId(`tx-row-${tag}-reason`).count()).toBe(0);
+    await page.getByTestId(`tx-row-${tag}-upperRange`).fill('25');
+    await page.getByTestId(`tx-row-${tag}-effectiveFrom`).fill('2025-07-01');
+    await page.getByTestId(`tx-row-${tag}-effectiveTime`).fill('08:00');
+    await page.getByTestId(`tx-row-${tag}-reason`).fill('Re-ranged to 0–25 kPa for summer flows');
+    await page.getByTestId(`tx-row-${tag}-save`).click();
+    await page
+      .getByTestId(`tx-row-${tag}-range`)
+      .getByText(/^0 – 25 kPa/)
+      .waitFor();
+    const ranges = (
+      (await api.get(`/api/meter-runs/${run.body.id}/setting-versions`)).body as {
+        kind: string;
+        effectiveFrom: string;
+        reason: string;
+        changes: unknown[];
+      }[]
+    ).filter((v) => v.kind === 'transmitter');
+    expect(ranges).toHaveLength(2);
+    expect(ranges[1]).toMatchObject({
+      effectiveFrom: '2025-07-01T08:00:00.000Z',
+      reason: 'Re-ranged to 0–25 kPa for summer flows',
+      changes: [{ path: 'upperRange', before: 50, after: 25 }],
+    });
+
+    // The site's contract hour is dated the same way; saving the site unchanged makes no version.
+    await page.goto(`${baseUrl}/setup?site=${site.body.id}`);
+    await page.getByTestId('site-edit').click();
+    expect(await page.getByTestId('site-edit-reason').count()).toBe(0);
+    await page.getByTestId('site-edit-contractHour').fill('6');
+    await page.getByTestId('site-edit-effectiveFrom').fill('2025-08-01');
+    await page.getByTestId('site-edit-effectiveTime').fill('00:00');
+    await page.getByTestId('site-edit-reason').fill('Contract hour moved to 06:00 by the new sales contract');
+    await page.getByTestId('site-edit-submit').click();
+    await until('the site change to be saved', async () => {
+      const list = (await api.get(`/api/meter-runs/${run.body.id}/setting-versions`)).body as {
+        kind: string;
+        effectiveFrom: string;
+        reason: string;
+      }[];
+      return list.filter((v) => v.kind === 'site').length === 2 ? list : null;
+    });
+    const siteVersions = (
+      (await api.get(`/api/meter-runs/${run.body.id}/setting-versions`)).body as {
+        kind: string;
+        effectiveFrom: string;
+        reason: string;
+        changes: unknown[];
+      }[]
+    ).filter((v) => v.kind === 'site');
+    expect(siteVersions[1]).toMatchObject({
+      effectiveFrom: '2025-08-01T00:00:00.000Z',
+      reason: 'Contract hour moved to 06:00 by the new sales contract',
+      changes: [{ path: 'contractHour', before: 0, after: 6 }],
+    });
+
+    const versions = (await api.get(`/api/meter-runs/${run.body.id}/setting-versions`)).body as {
+      kind: string;
+      effectiveFrom: string;
+      reason: string;
+      changes: unknown[];
+    }[];
+    const own = versions.filter((v) => v.kind === 'meter-run');
+    expect(own).toHaveLength(2);
+    expect(own[1]).toMatchObject({
+      effectiveFrom: '2025-06-01T00:00:00.000Z',
+      reason: 'Cutoff raised: zero drift at low flow',
+      changes: [{ path: 'noFlowCutoffPercentOfSpan', before: 0.5, after: 1 }],
+    });
+    await page.close();
+  });
 });

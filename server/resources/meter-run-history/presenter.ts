@@ -37,6 +37,7 @@ export const presentHourlyRecord = (r: HistoryHourlyRecord) => ({
   averagePressurePa: r.averagePressurePa,
   averageTemperatureK: r.averageTemperatureK,
   integralValue: r.integralValue,
+  integralMultiplierValue: r.integralMultiplierValue,
   configVersionId: r.configVersionId,
   dpBands: r.dpBands,
   activeTransmitterTimeS: r.activeTransmitterTimeS,

@@ -40,6 +40,8 @@ export interface StoredHourlyRecord extends StoredTotal {
   averagePressurePa: number | null;
   averageTemperatureK: number | null;
   integralValue: number | null;
+  /** Integral multiplier value (API MPMS 21.1): massKg = IMV × IV × flowTimeS; null without flow or before issue 9. */
+  integralMultiplierValue: number | null;
   configVersionId: string | null;
   dpBands: Partial<Record<DpBandName, { timeS: number; massKg: number }>>;
   activeTransmitterTimeS: Record<string, number>;
@@ -104,6 +106,7 @@ interface HourlyRecordRow extends TotalRow {
   average_pressure_pa: number | null;
   average_temperature_k: number | null;
   integral_value: number | null;
+  integral_multiplier_value: number | null;
   config_version_id: string | null;
   dp_bands: StoredHourlyRecord['dpBands'];
   active_transmitter_time: Record<string, number>;
@@ -126,9 +129,12 @@ const totalColumns = `start, "end", flow_time_s, mass_kg, volume_m3, standard_vo
 const versionColumns = `version, coalesce(v1_mass_kg, mass_kg) AS first_mass_kg,
   coalesce(v1_standard_volume_m3, standard_volume_m3) AS first_standard_volume_m3`;
 
-/** Where each interval's totals are stored; an hourly record counts one hour and has no stored status. */
+/** Where each interval's totals are stored; an hourly record counts its length in hours (a part of an hour split at a version counts its share) and has no stored status. */
 const totalsSource: Record<TotalsInterval, { table: string; columns: string }> = {
-  hour: { table: 'hourly_records', columns: `${totalColumns}, 1 AS hours, NULL::text AS status` },
+  hour: {
+    table: 'hourly_records',
+    columns: `${totalColumns}, extract(epoch FROM "end" - start)::float8 / 3600 AS hours, NULL::text AS status`,
+  },
   day: { table: 'daily_totals', columns: `${totalColumns}, hours, status` },
   month: { table: 'monthly_totals', columns: `${totalColumns}, hours, status` },
 };
@@ -203,7 +209,7 @@ export function meterRunHistoryRepository(pool: Pool): MeterRunHistoryRepository
     async hourlyRecords(meterRunId, fromMs, toMs, limit) {
       const { rows } = await pool.query<HourlyRecordRow>(
         `SELECT ${totalsSource.hour.columns}, average_dp_pa, average_pressure_pa, average_temperature_k, integral_value,
-                config_version_id::text, dp_bands, active_transmitter_time, computed_at, ${versionColumns}
+                integral_multiplier_value, config_version_id::text, dp_bands, active_transmitter_time, computed_at, ${versionColumns}
            FROM ${withFirstVersion('hour', `t.meter_run_id = $1 AND t.start >= to_timestamp($2 / 1000.0) AND t.start < to_timestamp($3 / 1000.0)`)}
           ORDER BY start LIMIT $4`,
         [meterRunId, fromMs, toMs, limit],
@@ -214,6 +220,7 @@ export function meterRunHistoryRepository(pool: Pool): MeterRunHistoryRepository
         averagePressurePa: r.average_pressure_pa,
         averageTemperatureK: r.average_temperature_k,
         integralValue: r.integral_value,
+        integralMultiplierValue: r.integral_multiplier_value,
         configVersionId: r.config_version_id,
         dpBands: r.dp_bands,
         activeTransmitterTimeS: r.active_transmitter_time,

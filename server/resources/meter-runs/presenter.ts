@@ -1,5 +1,8 @@
 import type { ConfigVersionRecord, MeterRunRecord } from './repository';
-import type { ConfigVersionEntry, RecomputeSummary } from './use-cases';
+import type { ConfigVersionEntry, RecomputeSummary, SettingVersionEntry } from './use-cases';
+
+/** A share as percent, without binary noise (0.005 → 0.5, not 0.5000000000000001). */
+const percentOf = (share: number) => Number((share * 100).toPrecision(12));
 
 export const presentConfigVersion = (c: ConfigVersionRecord) => ({
   id: c.id,
@@ -36,5 +39,20 @@ export const presentMeterRun = (m: MeterRunRecord, current?: ConfigVersionRecord
   stackSwitchUpShare: m.stackSwitchUpShare,
   stackSwitchDownShare: m.stackSwitchDownShare,
   line: m.line,
+  noFlowCutoffPercentOfSpan: percentOf(m.noFlowCutoffShare),
   ...(current ? { element: current.element, fluid: current.fluid, configVersionId: current.id } : {}),
+});
+
+/** One entry of `GET /api/meter-runs/:id/setting-versions`. */
+export const presentSettingVersionEntry = (e: SettingVersionEntry) => ({
+  kind: e.kind,
+  id: e.id,
+  subject: e.subject,
+  effectiveFrom: e.effectiveFrom.toISOString(),
+  values: e.values,
+  reason: e.reason,
+  createdAt: e.createdAt.toISOString(),
+  createdBy: e.createdBy ? { email: e.createdBy.email, name: e.createdBy.name } : null,
+  changes: e.changes.map((c) => ({ path: c.path, before: c.before, after: c.after })),
+  first: e.first,
 });

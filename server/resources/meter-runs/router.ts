@@ -11,10 +11,16 @@ import {
   getMeterRun,
   listConfigVersions,
   listMeterRuns,
+  listSettingVersions,
   updateMeterRun,
   type MeterRunHooks,
 } from './use-cases';
-import { presentConfigVersionEntry, presentCreatedConfigVersion, presentMeterRun } from './presenter';
+import {
+  presentConfigVersionEntry,
+  presentCreatedConfigVersion,
+  presentMeterRun,
+  presentSettingVersionEntry,
+} from './presenter';
 
 /** Set-up of meter runs and their configuration versions (history is in meter-run-history). */
 export function meterRunsRouter(sequelize: Sequelize, hooks: MeterRunHooks) {
@@ -49,6 +55,12 @@ export function meterRunsRouter(sequelize: Sequelize, hooks: MeterRunHooks) {
   router.get('/:id/config-versions', requireCapability('view'), async (req, res) => {
     const versions = await listConfigVersions(repository, parseId(req.params.id, 'Meter run'));
     res.json(versions.map(presentConfigVersionEntry));
+  });
+
+  // Dated settings (issue 9): the meter run's own, its transmitters' ranges and its site's, with who, why and what changed.
+  router.get('/:id/setting-versions', requireCapability('view'), async (req, res) => {
+    const versions = await listSettingVersions(repository, parseId(req.params.id, 'Meter run'));
+    res.json(versions.map(presentSettingVersionEntry));
   });
 
   router.post('/:id/config-versions', requireCapability('configure'), async (req, res) => {

@@ -4,7 +4,13 @@ import type { SignedInUser } from '../../auth/passport';
 import { badRequest, conflict, notFound } from '../../errors';
 import { configDifference, type FieldChange } from '../../../shared/config/config-difference';
 import { hourStartOf } from '../../../shared/history/contract-day';
-import type { ConfigVersionAuthor, ConfigVersionRecord, MeterRunRecord, MeterRunRepository } from './repository';
+import type {
+  ConfigVersionAuthor,
+  ConfigVersionRecord,
+  MeterRunRecord,
+  MeterRunRepository,
+  MeterRunSettingValues,
+} from './repository';
 import type { CreateConfigVersionInput, CreateMeterRunInput, MeterRunChanges } from './schema';
 import { presentConfigVersion, presentMeterRun } from './presenter';
 
@@ -19,8 +25,9 @@ const futureLimitMs = 24 * 3_600_000;
 
 export interface MeterRunHooks {
   /**
-   * A configuration version (or a meter run setting) took effect at `from`: hours from then on
-   * must be recomputed; `configVersionId` names the version, so record versions can cite it.
+   * A configuration version (or a meter run setting) took effect at `from`: hours from the one
+   * containing it on must be recomputed; `configVersionId` names the version (a settings version
+   * as `meter-run-settings:<id>`), so record versions can cite it.
    */
   configChanged(meterRunId: string, from: Date, configVersionId?: string): Promise<void>;
 }
@@ -98,10 +105,11 @@ export async function createMeterRun(
           },
           transaction,
         );
+        const effectiveFrom = input.effectiveFrom ? new Date(input.effectiveFrom) : beginningOfHistory;
         const config = await repository.createConfigVersion(
           {
             meterRunId: meterRun.id,
-            effectiveFrom: input.effectiveFrom ? new Date(input.effectiveFrom) : beginningOfHistory,
+            effectiveFrom,
             element: input.element,
             fluid: input.fluid,
             reason: 'first configuration',
@@ -109,36 +117,117 @@ export async function createMeterRun(
           },
           transaction,
         );
+        await repository.addSettingVersion(
+          meterRun.id,
+          {
+            holdLimitS: meterRun.holdLimitS,
+            maxGapS: meterRun.maxGapS,
+            noFlowCutoffShare: input.noFlowCutoffPercentOfSpan / 100,
+            stackSwitchUpShare: meterRun.stackSwitchUpShare,
+            stackSwitchDownShare: meterRun.stackSwitchDownShare,
+            effectiveFrom,
+            reason: 'first settings',
+            createdBy: actor.id,
+          },
+          transaction,
+        );
+        const created = (await repository.lockForUpdate(meterRun.id, transaction)) ?? meterRun;
         await recordAuditEvent(
           {
             actor,
             action: 'meter-run.create',
             entityType: 'meter-run',
             entityId: meterRun.id,
-            after: presentMeterRun(meterRun, config),
+            after: presentMeterRun(created, config),
           },
           transaction,
         );
-        return { meterRun, config };
+        return { meterRun: created, config };
       }),
     () => conflict(`A meter run tagged ${input.tag} already exists.`, 'tag', 'duplicate'),
   );
 }
 
+/** The meter run's settings as they are, with the dated ones a change asks for. */
+function changedSettings(before: MeterRunRecord, changes: MeterRunChanges): MeterRunSettingValues | null {
+  const after: MeterRunSettingValues = {
+    holdLimitS: changes.holdLimitS ?? before.holdLimitS,
+    maxGapS: changes.maxGapS ?? before.maxGapS,
+    noFlowCutoffShare:
+      changes.noFlowCutoffPercentOfSpan !== undefined
+        ? changes.noFlowCutoffPercentOfSpan / 100
+        : before.noFlowCutoffShare,
+    stackSwitchUpShare: before.stackSwitchUpShare,
+    stackSwitchDownShare: before.stackSwitchDownShare,
+  };
+  const same =
+    after.holdLimitS === before.holdLimitS &&
+    after.maxGapS === before.maxGapS &&
+    after.noFlowCutoffShare === before.noFlowCutoffShare;
+  return same ? null : after;
+}
+
 /**
- * Changes a meter run in place, with its audit event. A new hold limit or gap changes how every
- * hour is computed, so all its history is queued for recomputation.
- * @throws not found when the meter run does not exist
+ * When a change of dated settings takes effect: `effectiveFrom` when given, else now, under the
+ * rule of configuration versions (checkEffectiveFrom). Giving `effectiveFrom` without changing any
+ * dated setting is refused, rather than ignored.
+ * @throws bad request naming effectiveFrom
+ */
+export function datedChangeTime(
+  effectiveFrom: string | undefined,
+  changesDatedSetting: boolean,
+  historyStart: Date | null,
+  nowMs: number,
+): Date {
+  if (effectiveFrom !== undefined && !changesDatedSetting)
+    throw badRequest(
+      'effectiveFrom: only a change of a dated setting takes an effective time (nothing dated changes)',
+      'effectiveFrom',
+      'invalid_field',
+    );
+  const at = effectiveFrom !== undefined ? new Date(effectiveFrom) : new Date(nowMs);
+  checkEffectiveFrom(at, historyStart, nowMs);
+  return at;
+}
+
+/**
+ * Changes a meter run, with its audit event (old and new values, and the reason). The name and
+ * line change in place; the hold limit, largest gap and no-flow cutoff are dated settings: a
+ * change appends a version in force from `effectiveFrom` (default now) and recomputes the hours
+ * from the one containing it on, and no earlier hour.
+ * @throws not found when the meter run does not exist; bad request naming effectiveFrom outside
+ *   the meter run's history
  */
 export async function updateMeterRun(
   { sequelize, repository, hooks }: MeterRunDeps,
-  request: { meterRunId: string; changes: MeterRunChanges; actor: SignedInUser },
+  request: { meterRunId: string; changes: MeterRunChanges; actor: SignedInUser; nowMs?: number },
 ): Promise<MeterRunWithConfig> {
   const { meterRunId, changes, actor } = request;
-  const meterRun = await sequelize.transaction(async (transaction) => {
+  const current = await repository.findById(meterRunId);
+  if (!current) throw notFound('Meter run');
+  const history = await repository.configVersionHistory(meterRunId);
+  const wanted = changedSettings(current, changes);
+  const effectiveFrom = datedChangeTime(
+    changes.effectiveFrom,
+    wanted !== null,
+    history[0]?.version.effectiveFrom ?? null,
+    request.nowMs ?? Date.now(),
+  );
+  const { meterRun, settingVersionId } = await sequelize.transaction(async (transaction) => {
     const before = await repository.lockForUpdate(meterRunId, transaction);
     if (!before) throw notFound('Meter run');
-    const after = await repository.update(before.id, changes, transaction);
+    let after = await repository.update(before.id, { name: changes.name, line: changes.line }, transaction);
+    const settings = changedSettings(before, changes);
+    let versionId: string | null = null;
+    if (settings) {
+      await repository.ensureSettingBaseline(before.id, transaction);
+      versionId = await repository.addSettingVersion(
+        before.id,
+        { ...settings, effectiveFrom, reason: changes.reason ?? '', createdBy: actor.id },
+        transaction,
+      );
+      after = (await repository.lockForUpdate(before.id, transaction)) ?? after;
+    }
     await recordAuditEvent(
       {
         actor,
@@ -146,14 +235,21 @@ export async function updateMeterRun(
         entityType: 'meter-run',
         entityId: after.id,
         before: presentMeterRun(before),
-        after: presentMeterRun(after),
+        after: settings
+          ? { ...presentMeterRun(after), settingsEffectiveFrom: effectiveFrom.toISOString() }
+          : presentMeterRun(after),
+        reason: changes.reason ?? null,
       },
       transaction,
     );
-    return after;
+    return { meterRun: after, settingVersionId: versionId };
   });
-  if (changes.holdLimitS !== undefined || changes.maxGapS !== undefined)
-    await hooks.configChanged(meterRun.id, beginningOfHistory);
+  if (settingVersionId !== null) {
+    // From the hour that contains the effective time: it is split there into two records.
+    const timeZone = await repository.siteTimeZone(meterRun.siteId);
+    const fromMs = timeZone ? hourStartOf(effectiveFrom.getTime(), timeZone) : effectiveFrom.getTime();
+    await hooks.configChanged(meterRun.id, new Date(fromMs), `meter-run-settings:${settingVersionId}`);
+  }
   return { meterRun, config: await repository.currentConfig(meterRun.id, new Date()) };
 }
 
@@ -195,9 +291,10 @@ export async function listConfigVersions(
 /**
  * An effective time must fall inside the meter run's history: not before its first version
  * (there are no hours there to compute, and the first version's own time would be rewritten
- * silently) and not more than a day ahead.
+ * silently) and not more than a day ahead. The rule of configuration versions and of every dated
+ * setting (meter runs, transmitters, sites).
  */
-function checkEffectiveFrom(effectiveFrom: Date, firstVersion: ConfigVersionRecord | undefined, nowMs: number) {
+export function checkEffectiveFrom(effectiveFrom: Date, historyStart: Date | null, nowMs: number) {
   const limitMs = nowMs + futureLimitMs;
   if (effectiveFrom.getTime() > limitMs)
     throw badRequest(
@@ -205,9 +302,9 @@ function checkEffectiveFrom(effectiveFrom: Date, firstVersion: ConfigVersionReco
       'effectiveFrom',
       'invalid_field',
     );
-  if (firstVersion && effectiveFrom.getTime() < firstVersion.effectiveFrom.getTime())
+  if (historyStart && effectiveFrom.getTime() < historyStart.getTime())
     throw badRequest(
-      `effectiveFrom: must not be before the meter run's history starts (its first configuration version, ${firstVersion.effectiveFrom.toISOString()})`,
+      `effectiveFrom: must not be before the meter run's history starts (its first configuration version, ${historyStart.toISOString()})`,
       'effectiveFrom',
       'invalid_field',
     );
@@ -229,7 +326,7 @@ export async function addConfigVersion(
   if (!meterRun) throw notFound('Meter run');
   const effectiveFrom = new Date(input.effectiveFrom);
   const before = await repository.configVersionHistory(meterRun.id);
-  checkEffectiveFrom(effectiveFrom, before[0]?.version, request.nowMs ?? Date.now());
+  checkEffectiveFrom(effectiveFrom, before[0]?.version.effectiveFrom ?? null, request.nowMs ?? Date.now());
   const timeZone = await repository.siteTimeZone(meterRun.siteId);
   const fromMs = timeZone ? hourStartOf(effectiveFrom.getTime(), timeZone) : effectiveFrom.getTime();
   const version = await refusingDuplicates(
@@ -268,4 +365,90 @@ export async function addConfigVersion(
   const entry = entries.find((e) => e.version.id === version.id);
   if (!entry) throw new Error(`configuration version ${version.id} vanished after it was written`);
   return { ...entry, recompute: { fromMs, hours: await repository.computedHourCount(meterRun.id, fromMs) } };
+}
+
+/** One dated setting version as the history lists it: what it is about, its values, who, why and what changed. */
+export interface SettingVersionEntry {
+  kind: 'meter-run' | 'transmitter' | 'site';
+  id: string;
+  /** The meter run, transmitter or site the version belongs to, with its tag or code where it has one. */
+  subject: { id: string; tag: string | null };
+  effectiveFrom: Date;
+  reason: string;
+  createdAt: Date;
+  createdBy: ConfigVersionAuthor | null;
+  values: Record<string, number>;
+  /** Field by field, against the version of the same subject in force just before it (by effective time). */
+  changes: FieldChange[];
+  first: boolean;
+}
+
+/**
+ * The dated settings of a meter run (issue 9 §5): its own settings (hold limit, largest gap,
+ * no-flow cutoff in percent of span, stacked-pair shares), its transmitters' ranges and
+ * accuracies, and its site's contract hour, base conditions and atmospheric pressure, each with
+ * who, why and the difference from the version before, all by effective time.
+ * @throws not found when the meter run does not exist
+ */
+export async function listSettingVersions(
+  repository: MeterRunRepository,
+  meterRunId: string,
+): Promise<SettingVersionEntry[]> {
+  const meterRun = await repository.findById(meterRunId);
+  if (!meterRun) throw notFound('Meter run');
+  const entries: SettingVersionEntry[] = [];
+  const add = (
+    kind: SettingVersionEntry['kind'],
+    subject: SettingVersionEntry['subject'],
+    versions: {
+      id: string;
+      effectiveFrom: Date;
+      reason: string;
+      createdAt: Date;
+      createdBy: ConfigVersionAuthor | null;
+    }[],
+    valuesOf: (i: number) => Record<string, number>,
+  ) =>
+    versions.forEach((v, i) =>
+      entries.push({
+        kind,
+        id: v.id,
+        subject,
+        effectiveFrom: v.effectiveFrom,
+        reason: v.reason,
+        createdAt: v.createdAt,
+        createdBy: v.createdBy,
+        values: valuesOf(i),
+        changes: i === 0 ? [] : configDifference(valuesOf(i - 1), valuesOf(i)),
+        first: i === 0,
+      }),
+    );
+  const own = await repository.settingVersionHistory(meterRun.id);
+  add('meter-run', { id: meterRun.id, tag: meterRun.tag }, own, (i) => ({
+    holdLimitS: own[i].holdLimitS,
+    maxGapS: own[i].maxGapS,
+    noFlowCutoffPercentOfSpan: Number((own[i].noFlowCutoffShare * 100).toPrecision(12)),
+    stackSwitchUpShare: own[i].stackSwitchUpShare,
+    stackSwitchDownShare: own[i].stackSwitchDownShare,
+  }));
+  const ranges = await repository.transmitterRangeHistory(meterRun.id);
+  for (const transmitterId of [...new Set(ranges.map((r) => r.transmitterId))]) {
+    const own = ranges.filter((r) => r.transmitterId === transmitterId);
+    add('transmitter', { id: transmitterId, tag: own[0].tag }, own, (i) => ({
+      lowerRange: own[i].lowerRange,
+      upperRange: own[i].upperRange,
+      accuracyPercentOfSpan: own[i].accuracyPercentOfSpan,
+    }));
+  }
+  const site = await repository.siteSettingHistory(meterRun.siteId);
+  add('site', { id: meterRun.siteId, tag: null }, site, (i) => ({
+    contractHour: site[i].contractHour,
+    basePressurePa: site[i].basePressurePa,
+    baseTemperatureK: site[i].baseTemperatureK,
+    atmosphericPressurePa: site[i].atmosphericPressurePa,
+  }));
+  // By effective time, then as written (a stable order for versions at one instant).
+  return entries.sort(
+    (a, b) => a.effectiveFrom.getTime() - b.effectiveFrom.getTime() || a.createdAt.getTime() - b.createdAt.getTime(),
+  );
 }

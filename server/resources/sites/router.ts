@@ -5,14 +5,14 @@ import { validate } from '../../http/validate';
 import { parseId } from '../../http/params';
 import { createSiteBody, updateSiteBody } from './schema';
 import { siteRepository } from './repository';
-import { createSite, getSite, listSites, updateSite } from './use-cases';
+import { createSite, getSite, listSites, updateSite, type SiteHooks } from './use-cases';
 import { presentSite } from './presenter';
 
 /** Sites: the time zone, contract hour and base conditions their meter runs are computed in. */
-export function sitesRouter(sequelize: Sequelize) {
+export function sitesRouter(sequelize: Sequelize, hooks: SiteHooks) {
   const router = Router();
-  const repository = siteRepository();
-  const deps = { sequelize, repository };
+  const repository = siteRepository(sequelize);
+  const deps = { sequelize, repository, hooks };
 
   router.get('/', requireCapability('view'), async (_req, res) => {
     res.json((await listSites(repository)).map(presentSite));

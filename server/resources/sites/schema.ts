@@ -1,10 +1,15 @@
 import type { z } from 'zod';
 import { siteSchema } from '../../../shared/schemas/setup';
+import { datedChangeFields } from '../meter-runs/schema';
 
 /** `POST /api/sites` (the form's own schema). */
 export const createSiteBody = siteSchema;
 export type SiteInput = z.infer<typeof createSiteBody>;
 
-/** `PATCH /api/sites/:id`: any of the fields, each checked as on creation. */
-export const updateSiteBody = siteSchema.partial().strict();
+/**
+ * `PATCH /api/sites/:id`: any of the fields, each checked as on creation. The contract hour, base
+ * conditions and atmospheric pressure are dated: a change is a version in force from
+ * `effectiveFrom` (default now), with a `reason`, and recomputes the site's meter runs from then only.
+ */
+export const updateSiteBody = siteSchema.partial().extend(datedChangeFields).strict();
 export type SiteChanges = z.infer<typeof updateSiteBody>;

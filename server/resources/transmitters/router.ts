@@ -5,17 +5,24 @@ import { validate } from '../../http/validate';
 import { parseId } from '../../http/params';
 import { transmitterBody, transmitterListQuery, updateTransmitterBody } from './schema';
 import { transmitterRepository } from './repository';
-import { createTransmitter, getTransmitter, listTransmitters, updateTransmitter } from './use-cases';
+import {
+  createTransmitter,
+  getTransmitter,
+  listTransmitters,
+  updateTransmitter,
+  type TransmitterHooks,
+} from './use-cases';
 import { presentTransmitter } from './presenter';
 
 /**
  * Transmitters of the meter runs. A change reaches ingest and the live board through
- * `hooks.changed` (the transmitter catalog is read again).
+ * `hooks.changed` (the transmitter catalog is read again); a dated re-range recomputes history
+ * from its effective time through `hooks.rangeChanged`.
  */
-export function transmittersRouter(sequelize: Sequelize, hooks: { changed(): void }) {
+export function transmittersRouter(sequelize: Sequelize, hooks: TransmitterHooks) {
   const router = Router();
-  const repository = transmitterRepository();
-  const deps = { sequelize, repository, changed: () => hooks.changed() };
+  const repository = transmitterRepository(sequelize);
+  const deps = { sequelize, repository, hooks };
 
   router.get('/', requireCapability('view'), async (req, res) => {
     const query = validate(transmitterListQuery, req.query, 'query');

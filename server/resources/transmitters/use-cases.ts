@@ -3,15 +3,26 @@ import { recordAuditEvent } from '../../audit';
 import type { SignedInUser } from '../../auth/passport';
 import { badRequest, conflict, notFound } from '../../errors';
 import { validate } from '../../http/validate';
+import { datedChangeTime } from '../meter-runs/use-cases';
+import { hourStartOf } from '../../../shared/history/contract-day';
 import type { TransmitterRecord, TransmitterRepository } from './repository';
 import { transmitterBody, type TransmitterChanges, type TransmitterInput } from './schema';
 import { presentTransmitter } from './presenter';
 
+export interface TransmitterHooks {
+  /** A transmitter was added or changed: ingest's catalog and the live board must re-read the set-up. */
+  changed(): void;
+  /**
+   * A dated range or accuracy took effect at `from`: the meter run's hours from the one containing
+   * it on must be recomputed; `reference` names the version (`transmitter-range:<id>`).
+   */
+  rangeChanged(meterRunId: string, from: Date, reference: string): Promise<void>;
+}
+
 export interface TransmitterDeps {
   sequelize: Sequelize;
   repository: TransmitterRepository;
-  /** A transmitter was added or changed: ingest's catalog and the live board must re-read the set-up. */
-  changed(): void;
+  hooks: TransmitterHooks;
 }
 
 export const listTransmitters = (repository: TransmitterRepository, filter: { meterRunId?: string }) =>
@@ -31,7 +42,7 @@ export async function getTransmitter(repository: TransmitterRepository, transmit
  *   stackRole or measures when the meter run already has that transmitter, tag when the tag is in use
  */
 export async function createTransmitter(
-  { sequelize, repository, changed }: TransmitterDeps,
+  { sequelize, repository, hooks }: TransmitterDeps,
   input: TransmitterInput,
   actor: SignedInUser,
 ): Promise<TransmitterRecord> {
@@ -57,6 +68,19 @@ export async function createTransmitter(
   try {
     const created = await sequelize.transaction(async (transaction) => {
       const transmitter = await repository.create(input, transaction);
+      // Its first range is in force over the meter run's whole history.
+      await repository.addRangeVersion(
+        transmitter.id,
+        {
+          lowerRange: transmitter.lowerRange,
+          upperRange: transmitter.upperRange,
+          accuracyPercentOfSpan: transmitter.accuracyPercentOfSpan,
+          effectiveFrom: await repository.rangeHistoryStart(transmitter.meterRunId, transaction),
+          reason: 'first range',
+          createdBy: actor.id,
+        },
+        transaction,
+      );
       await recordAuditEvent(
         {
           actor,
@@ -69,7 +93,7 @@ export async function createTransmitter(
       );
       return transmitter;
     });
-    changed();
+    hooks.changed();
     return created;
   } catch (err) {
     if (err instanceof UniqueConstraintError)
@@ -79,25 +103,48 @@ export async function createTransmitter(
 }
 
 /**
- * Re-ranges a transmitter or changes its accuracy or calibration date, with its audit event.
+ * Re-ranges a transmitter or changes its accuracy or calibration date, with its audit event (old
+ * and new values, and the reason). The range and accuracy are dated: a change appends a version
+ * in force from `effectiveFrom` (default now, under the rule of configuration versions) and
+ * recomputes the meter run's hours from the one containing it on, and no earlier hour.
  * @throws not found when the transmitter does not exist; bad request naming the field when the
- *   changed transmitter would be invalid as a whole
+ *   changed transmitter would be invalid as a whole, or effectiveFrom outside the history
  */
 export async function updateTransmitter(
-  { sequelize, repository, changed }: TransmitterDeps,
-  request: { transmitterId: string; changes: TransmitterChanges; actor: SignedInUser },
+  { sequelize, repository, hooks }: TransmitterDeps,
+  request: { transmitterId: string; changes: TransmitterChanges; actor: SignedInUser; nowMs?: number },
 ): Promise<TransmitterRecord> {
   const { changes, actor } = request;
-  const updated = await sequelize.transaction(async (transaction) => {
+  const current = await repository.findById(request.transmitterId);
+  if (!current) throw notFound('Transmitter');
+  const effectiveFrom = datedChangeTime(
+    changes.effectiveFrom,
+    rangeOf(current, changes) !== null,
+    await repository.meterRunHistoryStart(current.meterRunId),
+    request.nowMs ?? Date.now(),
+  );
+  const { updated, versionId } = await sequelize.transaction(async (transaction) => {
     const before = await repository.lockForUpdate(request.transmitterId, transaction);
     if (!before) throw notFound('Transmitter');
+    const { effectiveFrom: _when, reason: _why, ...fields } = changes;
     // Re-validate the whole transmitter so a re-range cannot leave upper below lower, or a unit of the wrong kind.
     validate(transmitterBody, {
       ...presentTransmitter(before),
-      ...changes,
+      ...fields,
       calibrationDue: changes.calibrationDue ?? before.calibrationDue ?? undefined,
     });
-    const after = await repository.update(before.id, changes, transaction);
+    let after = await repository.update(before.id, { calibrationDue: changes.calibrationDue }, transaction);
+    const range = rangeOf(before, changes);
+    let id: string | null = null;
+    if (range) {
+      await repository.ensureRangeBaseline(before.id, transaction);
+      id = await repository.addRangeVersion(
+        before.id,
+        { ...range, effectiveFrom, reason: changes.reason ?? '', createdBy: actor.id },
+        transaction,
+      );
+      after = (await repository.lockForUpdate(before.id, transaction)) ?? after;
+    }
     await recordAuditEvent(
       {
         actor,
@@ -105,12 +152,35 @@ export async function updateTransmitter(
         entityType: 'transmitter',
         entityId: after.id,
         before: presentTransmitter(before),
-        after: presentTransmitter(after),
+        after: range
+          ? { ...presentTransmitter(after), rangeEffectiveFrom: effectiveFrom.toISOString() }
+          : presentTransmitter(after),
+        reason: changes.reason ?? null,
       },
       transaction,
     );
-    return after;
+    return { updated: after, versionId: id };
   });
-  changed();
+  hooks.changed();
+  if (versionId !== null) {
+    // From the hour that contains the effective time: it is split there into two records.
+    const timeZone = await repository.meterRunTimeZone(updated.meterRunId);
+    const fromMs = timeZone ? hourStartOf(effectiveFrom.getTime(), timeZone) : effectiveFrom.getTime();
+    await hooks.rangeChanged(updated.meterRunId, new Date(fromMs), `transmitter-range:${versionId}`);
+  }
   return updated;
+}
+
+/** The range and accuracy a change asks for, or null when they stay as they are. */
+function rangeOf(before: TransmitterRecord, changes: TransmitterChanges) {
+  const range = {
+    lowerRange: changes.lowerRange ?? before.lowerRange,
+    upperRange: changes.upperRange ?? before.upperRange,
+    accuracyPercentOfSpan: changes.accuracyPercentOfSpan ?? before.accuracyPercentOfSpan,
+  };
+  const same =
+    range.lowerRange === before.lowerRange &&
+    range.upperRange === before.upperRange &&
+    range.accuracyPercentOfSpan === before.accuracyPercentOfSpan;
+  return same ? null : range;
 }
