@@ -1,6 +1,7 @@
 /**
  * Imports (engineer, admin): upload a CSV of readings or field totals, follow its progress,
- * then read the counts and every rejected line; the latest imports below.
+ * then read the counts and every rejected line; the readings re-sent with another value
+ * (conflicts) to resolve; the latest imports below.
  */
 import { useState } from 'react';
 import { StyleSheet, View } from 'react-native';
@@ -15,6 +16,7 @@ import { space } from '@/constants/theme';
 import { useImport, useImports, useStartImport, type ImportFile, type ImportKind } from '@/hooks/api/imports';
 import { useBreakpoint } from '@/hooks/useBreakpoint';
 import { ImportsColumns } from './ImportsColumns';
+import { ImportsConflicts } from './ImportsConflicts';
 import { ImportsDetail } from './ImportsDetail';
 import { ImportsFilePicker } from './ImportsFilePicker';
 import { ImportsRecent } from './ImportsRecent';
@@ -110,6 +112,12 @@ export function ImportsScreen() {
     </Panel>
   ) : null;
 
+  const conflictsPanel = (
+    <Panel title="Conflicting readings" testID="import-conflicts">
+      <ImportsConflicts />
+    </Panel>
+  );
+
   const recentPanel = (
     <Panel
       title="Recent imports"
@@ -141,6 +149,7 @@ export function ImportsScreen() {
           <View style={styles.mainWide}>
             {uploadPanel}
             {detailPanel}
+            {conflictsPanel}
           </View>
           {recentPanel}
         </View>
@@ -148,6 +157,7 @@ export function ImportsScreen() {
         <>
           {uploadPanel}
           {detailPanel}
+          {conflictsPanel}
           {recentPanel}
         </>
       )}

@@ -15,6 +15,8 @@ interface Progress {
   rowsRead: number;
   rowsImported: number;
   duplicates: number;
+  /** Duplicates whose value or quality differed from the stored reading: recorded as conflicts, not rejected. */
+  conflicts: number;
   rejected: number;
   errors: { line: number; message: string }[];
 }
@@ -22,8 +24,19 @@ interface Progress {
 async function saveProgress(pool: Pool, id: string, p: Progress, status?: 'done' | 'failed') {
   await pool.query(
     `UPDATE imports SET bytes_read = $2, rows_read = $3, rows_imported = $4, duplicates = $5, rejected = $6, errors = $7::jsonb,
-            status = COALESCE($8, status), finished_at = CASE WHEN $8::text IS NULL THEN NULL ELSE now() END WHERE id = $1`,
-    [id, p.bytesRead, p.rowsRead, p.rowsImported, p.duplicates, p.rejected, JSON.stringify(p.errors), status ?? null],
+            status = COALESCE($8, status), finished_at = CASE WHEN $8::text IS NULL THEN NULL ELSE now() END, conflicts = $9
+      WHERE id = $1`,
+    [
+      id,
+      p.bytesRead,
+      p.rowsRead,
+      p.rowsImported,
+      p.duplicates,
+      p.rejected,
+      JSON.stringify(p.errors),
+      status ?? null,
+      p.conflicts,
+    ],
   );
 }
 
@@ -35,7 +48,9 @@ function reject(p: Progress, line: number, message: string) {
 /**
  * Streams a readings CSV (`time,tag,value[,quality][,unit]`) from disk into the readings table
  * in batches. Every rejected line is listed with its number and reason; good lines are kept;
- * a re-imported line (same tag and time) counts as a duplicate. The import's row is updated
+ * a re-imported line (same tag and time) counts as a duplicate, and one whose value or quality
+ * differs from the stored reading also counts as a conflict (listed for an engineer to resolve;
+ * the first reading stays stored). Each stored reading carries the import's id. The import's row is updated
  * after each committed batch, so the progress shown is what is really in the database. The file
  * is the import's kept original (read-only): it is read, never removed.
  */
@@ -44,7 +59,15 @@ export async function importReadingsCsv(
   importId: string,
   file: string,
 ) {
-  const p: Progress = { bytesRead: 0, rowsRead: 0, rowsImported: 0, duplicates: 0, rejected: 0, errors: [] };
+  const p: Progress = {
+    bytesRead: 0,
+    rowsRead: 0,
+    rowsImported: 0,
+    duplicates: 0,
+    conflicts: 0,
+    rejected: 0,
+    errors: [],
+  };
   const input = fs.createReadStream(file, { highWaterMark: 1 << 20 });
   input.on('data', (chunk) => (p.bytesRead += chunk.length));
   // Plain records (no per-record info, no trim: both halve csv-parse's speed). Empty lines are
@@ -60,9 +83,10 @@ export async function importReadingsCsv(
     if (!batch.length) return;
     const rows = batch;
     batch = [];
-    writing = deps.writer.write(rows, 'csv').then(async ({ inserted, duplicates }) => {
+    writing = deps.writer.write(rows, 'csv', { importId }).then(async ({ inserted, duplicates, conflicts }) => {
       p.rowsImported += inserted;
       p.duplicates += duplicates;
+      p.conflicts += conflicts;
       deps.onStored?.(rows);
       await saveProgress(deps.pool, importId, p);
     });
@@ -140,7 +164,15 @@ export async function importReadingsCsv(
  * also kept in field_total_versions with its import and line, so the earlier one stays on record.
  */
 export async function importFieldTotalsCsv(deps: { pool: Pool }, importId: string, file: string) {
-  const p: Progress = { bytesRead: 0, rowsRead: 0, rowsImported: 0, duplicates: 0, rejected: 0, errors: [] };
+  const p: Progress = {
+    bytesRead: 0,
+    rowsRead: 0,
+    rowsImported: 0,
+    duplicates: 0,
+    conflicts: 0,
+    rejected: 0,
+    errors: [],
+  };
   const input = fs.createReadStream(file);
   input.on('data', (chunk) => (p.bytesRead += chunk.length));
   const parser = input.pipe(

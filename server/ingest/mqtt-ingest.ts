@@ -13,7 +13,9 @@ export interface IngestOutcome {
 /**
  * The MQTT path: topic → transmitter, payload → readings, each reading checked, the good ones
  * committed (group commit) before the caller acknowledges the message. A bad reading is
- * counted against the device and never stops the good ones of the same message.
+ * counted against the device and never stops the good ones of the same message. Each reading
+ * carries the device that published it; a re-sent reading with another value is recorded as a
+ * conflict by the writer, and the first one stays stored.
  */
 export function createMqttIngest(deps: {
   catalog: Catalog;
@@ -46,7 +48,10 @@ export function createMqttIngest(deps: {
     for (const r of raw) {
       const checked = validateReading(r, transmitter, nowMs);
       if (typeof checked === 'string') reasons.push(checked);
-      else good.push(checked);
+      else {
+        if (device) checked.deviceId = device.id;
+        good.push(checked);
+      }
     }
     if (good.length) await deps.committer.submit(good);
     if (device)

@@ -13,6 +13,8 @@ export interface ValidReading {
   timeMs: number;
   value: number;
   quality: number;
+  /** The device that published it over MQTT (its provenance); left out for imports and unknown publishers. */
+  deviceId?: string;
 }
 
 /** How far ahead of the server's clock a timestamp may be (device clocks drift a little). */

@@ -105,6 +105,61 @@ it('counts a redelivered message as a duplicate, not a second reading', async ()
   }
 });
 
+it('keeps the first of two readings for the same time with different values, and lists the second as a conflict', async () => {
+  const c = await connect(device.username, device.password);
+  try {
+    const t = new Date(Date.now() - 180_000).toISOString();
+    const topic = `tallyrun/${f.site.code}/${f.dp.tag}`;
+    await publish(c, topic, { t, v: 7.25, q: 'good' });
+    await publish(c, topic, { t, v: 7.75, q: 'good' });
+    const window = `from=${t}&to=${new Date(Date.parse(t) + 1).toISOString()}`;
+    const stored = await engineer.get(`/api/readings?transmitterId=${f.dp.id}&${window}&provenance=true`);
+    expect(stored.body).toEqual([
+      {
+        time: t,
+        value: 7.25,
+        quality: 'good',
+        source: 'mqtt',
+        deviceId: device.id,
+        importId: null,
+        arrivedAt: expect.any(String),
+      },
+    ]);
+    const conflictsAt = async () =>
+      (await engineer.get(`/api/reading-conflicts?meterRunId=${f.meterRun.id}&status=open`)).body.filter(
+        (x: { time: string }) => x.time === t,
+      );
+    expect(await conflictsAt()).toEqual([
+      expect.objectContaining({
+        transmitterId: f.dp.id,
+        storedValue: 7.25,
+        offeredValue: 7.75,
+        storedSource: `device:${device.id}`,
+        offeredSource: `device:${device.id}`,
+        status: 'open',
+      }),
+    ]);
+    // The stored one again (a QoS 1 redelivery): a silent duplicate, no second conflict.
+    await publish(c, topic, { t, v: 7.25, q: 'good' });
+    expect(await conflictsAt()).toHaveLength(1);
+  } finally {
+    c.end(true);
+  }
+});
+
+it('counts a redelivered message as a duplicate without a conflict', async () => {
+  const c = await connect(device.username, device.password);
+  try {
+    const t = Date.now() - 240_000;
+    await publish(c, `tallyrun/${f.site.code}/${f.pt.tag}`, { t, v: 2.5 });
+    await publish(c, `tallyrun/${f.site.code}/${f.pt.tag}`, { t, v: 2.5 });
+    const open = await engineer.get(`/api/reading-conflicts?meterRunId=${f.meterRun.id}&status=open`);
+    expect(open.body.filter((x: { transmitterId: string }) => x.transmitterId === f.pt.id)).toEqual([]);
+  } finally {
+    c.end(true);
+  }
+});
+
 it('rejects bad payloads and foreign topics, counts them for the device, and keeps the connection', async () => {
   const c = await connect(device.username, device.password);
   try {

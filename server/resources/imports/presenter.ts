@@ -14,6 +14,7 @@ export const presentImport = (r: ImportRecord) => ({
   rowsRead: r.rowsRead,
   rowsImported: r.rowsImported,
   duplicates: r.duplicates,
+  conflicts: r.conflicts,
   rejected: r.rejected,
   errors: r.errors,
   createdAt: r.createdAt.toISOString(),

@@ -12,6 +12,8 @@ export interface ImportRecord {
   rowsRead: number;
   rowsImported: number;
   duplicates: number;
+  /** Re-sent readings with another value or quality than the stored ones (recorded as conflicts). */
+  conflicts: number;
   rejected: number;
   errors: { line: number; message: string }[];
   createdAt: Date;
@@ -35,6 +37,7 @@ interface ImportRow {
   rows_read: string;
   rows_imported: string;
   duplicates: string;
+  conflicts: string;
   rejected: string;
   errors: ImportRecord['errors'];
   created_at: Date;
@@ -54,6 +57,7 @@ const importRecord = (r: ImportRow): ImportRecord => ({
   rowsRead: Number(r.rows_read),
   rowsImported: Number(r.rows_imported),
   duplicates: Number(r.duplicates),
+  conflicts: Number(r.conflicts),
   rejected: Number(r.rejected),
   errors: r.errors,
   createdAt: r.created_at,

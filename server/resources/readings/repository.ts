@@ -10,6 +10,12 @@ export interface StoredReading {
   value: number;
   quality: (typeof qualityNames)[number];
   source: (typeof sourceNames)[number];
+  /** The device that published it (MQTT), or null. */
+  deviceId: string | null;
+  /** The CSV import it came with, or null. */
+  importId: string | null;
+  /** When the server received it; null for readings stored before arrival times were kept. */
+  arrivedAtMs: number | null;
 }
 
 interface ReadingRow {
@@ -17,6 +23,9 @@ interface ReadingRow {
   value: number;
   quality: number;
   source: number;
+  device_id: string | null;
+  import_id: string | null;
+  arrived_at: Date | null;
 }
 
 /** What the readings resource reads. */
@@ -38,7 +47,7 @@ export function readingRepository(pool: Pool): ReadingRepository {
 
     async readings(transmitterId, window, limit) {
       const { rows } = await pool.query<ReadingRow>(
-        `SELECT time, value, quality, source FROM readings
+        `SELECT time, value, quality, source, device_id::text, import_id::text, arrived_at FROM readings
           WHERE transmitter_id = $1 AND time >= $2 AND time < $3 ORDER BY time LIMIT $4`,
         [transmitterId, window.from ?? '-infinity', window.to ?? 'infinity', limit],
       );
@@ -47,6 +56,9 @@ export function readingRepository(pool: Pool): ReadingRepository {
         value: r.value,
         quality: qualityNames[r.quality],
         source: sourceNames[r.source],
+        deviceId: r.device_id,
+        importId: r.import_id,
+        arrivedAtMs: r.arrived_at ? r.arrived_at.getTime() : null,
       }));
     },
   };

@@ -5,16 +5,20 @@ import { validate } from '../../http/validate';
 import { readingsQuery } from './schema';
 import { readingRepository } from './repository';
 import { readingsForWindow } from './use-cases';
-import { presentReading } from './presenter';
+import { presentReading, presentReadingWithProvenance } from './presenter';
 
-/** `GET /api/readings?transmitterId=&from=&to=`: raw readings in the transmitter's unit, oldest first. */
+/**
+ * `GET /api/readings?transmitterId=&from=&to=[&provenance=true]`: raw readings in the transmitter's
+ * unit, oldest first; with provenance, each also names its device or import and its arrival time.
+ */
 export function readingsRouter(pool: Pool) {
   const router = Router();
   const repository = readingRepository(pool);
 
   router.get('/', requireCapability('view'), async (req, res) => {
     const query = validate(readingsQuery, req.query, 'query');
-    res.json((await readingsForWindow(repository, query)).map(presentReading));
+    const readings = await readingsForWindow(repository, query);
+    res.json(readings.map(query.provenance ? presentReadingWithProvenance : presentReading));
   });
 
   return router;
