@@ -15,7 +15,8 @@ import { from as copyFrom } from 'pg-copy-streams';
 import { pipeline } from 'node:stream/promises';
 import { Readable } from 'node:stream';
 import mqtt from 'mqtt';
-import { ensureCluster, ensureDatabase } from '../cli/postgres';
+import { ensureCluster } from '../cli/postgres';
+import { prepareDatabase } from '../db/prepare';
 import { readEnv } from '../env';
 import { startServer } from '../index';
 import { startEmbeddedBroker } from '../ingest/broker';
@@ -103,8 +104,13 @@ async function main() {
       port: Number(process.env.TALLYRUN_PG_PORT ?? 54329),
       log: () => undefined,
     });
-    await ensureDatabase(cluster.url('postgres'), 'tallyrun_bench', { fresh: true });
-    url = cluster.url('tallyrun_bench');
+    const prepared = await prepareDatabase({
+      adminUrl: cluster.url('postgres'),
+      database: 'tallyrun_bench',
+      secretsDir: cluster.secretsDir,
+      fresh: true,
+    });
+    url = prepared.serverUrl;
   }
   const server = await startServer(
     readEnv({

@@ -3,12 +3,15 @@
  * event matches its hash and names the one before it; exit 1 naming the first broken event;
  * exit 2 when the check could not run (no database).
  *
- * The database is `DATABASE_URL` when set, otherwise the project's own cluster (database
- * `tallyrun`, as `npm start` uses it); a cluster this command had to start is stopped again.
+ * The database is `DATABASE_URL` when set (any role that may read audit_events), otherwise the
+ * project's own cluster (database `tallyrun`, as `npm start` uses it), read as the app role
+ * `tallyrun_app` (server/db/roles.ts); a cluster this command had to start is stopped again.
  */
+import fs from 'node:fs';
 import path from 'node:path';
 import { Client } from 'pg';
 import { ensureCluster, type Cluster } from './postgres';
+import { appRole, urlAs } from '../db/roles';
 import { verifyAuditChain } from '../audit-chain';
 
 const root = path.resolve(__dirname, '..', '..');
@@ -22,7 +25,11 @@ async function main(): Promise<number> {
     if (!url) {
       const dataDir = path.resolve(process.env.TALLYRUN_DATA_DIR ?? path.join(root, '.tallyrun'));
       cluster = await ensureCluster({ dataDir, port: Number(process.env.TALLYRUN_PG_PORT ?? 54329), log: () => {} });
-      url = cluster.url('tallyrun');
+      // The app role once `npm start` has made it; a cluster from before the roles has only the superuser.
+      const appPassword = path.join(cluster.secretsDir, 'pg-app-password');
+      url = fs.existsSync(appPassword)
+        ? urlAs(cluster.url('tallyrun'), appRole, fs.readFileSync(appPassword, 'utf8').trim())
+        : cluster.url('tallyrun');
     }
     client = new Client({ connectionString: url });
     await client.connect();

@@ -6,7 +6,8 @@
 import { spawn, type ChildProcess } from 'node:child_process';
 import fs from 'node:fs';
 import path from 'node:path';
-import { ensureCluster, ensureDatabase, type Cluster } from './postgres';
+import { ensureCluster, type Cluster } from './postgres';
+import { prepareDatabase } from '../db/prepare';
 import { exportWebClient } from './web-export';
 import { readEnv } from '../env';
 import { startServer, type RunningServer } from '../index';
@@ -55,12 +56,20 @@ async function main() {
   process.on('SIGTERM', () => void shutdown(0));
 
   try {
-    let databaseUrl = process.env.DATABASE_URL;
-    if (!databaseUrl) {
+    // DATABASE_URL, when set, is a superuser's connection to the database to use: it makes the
+    // roles and migrates as the owner, and the server connects as the app role (server/db/roles.ts).
+    let adminUrl = process.env.DATABASE_URL;
+    let secretsDir = dataDir;
+    if (!adminUrl) {
       cluster = await ensureCluster({ dataDir, port: Number(process.env.TALLYRUN_PG_PORT ?? 54329), log });
-      await ensureDatabase(cluster.url('postgres'), 'tallyrun');
-      databaseUrl = cluster.url('tallyrun');
+      adminUrl = cluster.url('tallyrun');
+      secretsDir = cluster.secretsDir;
     }
+    const database = decodeURIComponent(new URL(adminUrl).pathname.slice(1)) || 'tallyrun';
+    const prepared = await prepareDatabase({ adminUrl, database, secretsDir });
+    if (!prepared.separateRoles)
+      launcher.warn('DATABASE_URL is no superuser, so it cannot make the database roles: the server connects with it');
+    const databaseUrl = prepared.serverUrl;
     exportWebClient(root, log);
     const env = readEnv({
       ...process.env,
@@ -78,6 +87,7 @@ async function main() {
         stdio: ['ignore', 'inherit', 'inherit'],
         env: {
           ...process.env,
+          // The back-fill writes readings as the server does, so it connects as the server does.
           DATABASE_URL: databaseUrl,
           TALLYRUN_MQTT_URL: env.MQTT_URL ?? `mqtt://127.0.0.1:${server.mqttPort}`,
         },

@@ -6,12 +6,11 @@
 import { execFileSync, spawn, spawnSync, type SpawnOptions } from 'node:child_process';
 import fs from 'node:fs';
 import path from 'node:path';
-import { dropDatabase, ensureCluster, ensureDatabase, type Cluster } from './postgres';
+import { dropDatabase, ensureCluster, type Cluster } from './postgres';
 import { exportWebClient } from './web-export';
 import { readEnv } from '../env';
 import { startServer, type RunningServer } from '../index';
-import { connectDatabase } from '../db/connect';
-import { migrate } from '../db/migrate';
+import { prepareDatabase } from '../db/prepare';
 import { componentLogger } from '../log';
 import { runStaticChecks } from './static-checks';
 
@@ -67,29 +66,24 @@ async function main(): Promise<number> {
     // they are dropped at the end.
     const e2eName = `tallyrun_e2e_${process.pid}`;
     const jestName = `tallyrun_jest_${process.pid}`;
-    let e2eUrl: string;
-    let jestUrl: string;
+    // DATABASE_URL, when set, is a superuser's connection to an outside server: the two test
+    // databases are made beside the given one. Each is owned by tallyrun_owner, migrated as it,
+    // and used through the role the server connects as (server/db/roles.ts).
+    let secretsDir = dataDir;
     if (process.env.DATABASE_URL) {
-      // An outside server: make the two test databases beside the given one.
       const admin = new URL(process.env.DATABASE_URL);
       admin.pathname = '/postgres';
       adminUrl = admin.toString();
-      await ensureDatabase(adminUrl, e2eName, { fresh: true });
-      await ensureDatabase(adminUrl, jestName, { fresh: true });
-      e2eUrl = Object.assign(new URL(admin), { pathname: `/${e2eName}` }).toString();
-      jestUrl = Object.assign(new URL(admin), { pathname: `/${jestName}` }).toString();
     } else {
       cluster = await ensureCluster({ dataDir, port: Number(process.env.TALLYRUN_PG_PORT ?? 54329), log });
       adminUrl = cluster.url('postgres');
-      await ensureDatabase(adminUrl, e2eName, { fresh: true });
-      await ensureDatabase(adminUrl, jestName, { fresh: true });
-      e2eUrl = cluster.url(e2eName);
-      jestUrl = cluster.url(jestName);
+      secretsDir = cluster.secretsDir;
     }
     databases.push(e2eName, jestName);
-    const jestDb = connectDatabase(jestUrl);
-    await migrate(jestDb, jestUrl);
-    await jestDb.close();
+    const e2e = await prepareDatabase({ adminUrl, database: e2eName, secretsDir, fresh: true });
+    const jestDb = await prepareDatabase({ adminUrl, database: jestName, secretsDir, fresh: true });
+    const e2eUrl = e2e.serverUrl;
+    const jestUrl = jestDb.serverUrl;
 
     exportWebClient(root, log);
     const password = process.env.TALLYRUN_DEMO_PASSWORD ?? 'tallyrun-demo';
@@ -128,6 +122,11 @@ async function main(): Promise<number> {
           TALLYRUN_SMTP_PORT: String(server.smtpPort),
           TALLYRUN_E2E_DATABASE_URL: e2eUrl,
           TEST_DATABASE_URL: jestUrl,
+          // The same test database as the owner and as the app role, and the superuser's
+          // connection (database postgres), for the tests of the roles themselves.
+          TEST_OWNER_DATABASE_URL: jestDb.ownerUrl,
+          TEST_APP_DATABASE_URL: jestDb.appUrl,
+          TEST_ADMIN_DATABASE_URL: adminUrl,
           TALLYRUN_DEMO_PASSWORD: password,
         },
       },
