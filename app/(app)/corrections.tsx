@@ -1,5 +1,5 @@
-import { UpcomingScreen } from '@/components/screens/UpcomingScreen';
+import { CorrectionsScreen } from '@/components/screens/CorrectionsScreen';
 
 export default function CorrectionsRoute() {
-  return <UpcomingScreen area="corrections" />;
+  return <CorrectionsScreen />;
 }

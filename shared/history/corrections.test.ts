@@ -1,0 +1,209 @@
+import {
+  correctRecord,
+  estimateFromPreviousDays,
+  studentT975,
+  substituteSamples,
+  type CorrectionToApply,
+} from './corrections';
+import type { HourlyRecord } from './types';
+
+const H = 3_600_000;
+const T0 = Date.parse('2026-06-01T15:00:00Z');
+
+/** A record of one hour with round figures: 100 kg, 120 m³, 140 m³ at base, 5 MJ, U 1 %. */
+function record(overrides: Partial<HourlyRecord> = {}): HourlyRecord {
+  return {
+    startMs: T0,
+    endMs: T0 + H,
+    flowTimeS: 3600,
+    massKg: 100,
+    volumeM3: 120,
+    standardVolumeM3: 140,
+    energyJ: 5e6,
+    averageDpPa: 1000,
+    averagePressurePa: 2e6,
+    averageTemperatureK: 300,
+    integralValue: null,
+    coverage: 1,
+    flags: [],
+    uncertaintyPercent: 1,
+    configVersionId: '1',
+    dpBands: {
+      '0-10': { timeS: 0, massKg: 0 },
+      '10-25': { timeS: 1800, massKg: 40 },
+      '25-50': { timeS: 1800, massKg: 60 },
+      '50-100': { timeS: 0, massKg: 0 },
+      over: { timeS: 0, massKg: 0 },
+    },
+    activeTransmitterTimeS: { '7': 3600 },
+    finalStackChoice: null,
+    ...overrides,
+  };
+}
+
+function correction(overrides: Partial<CorrectionToApply>): CorrectionToApply {
+  return {
+    id: '1',
+    startMs: T0,
+    endMs: T0 + H,
+    kind: 'substitute',
+    massKg: null,
+    factor: null,
+    readings: false,
+    origin: 'manual',
+    estimateUncertaintyPercent: null,
+    fallbackRatios: null,
+    ...overrides,
+  };
+}
+
+describe('correctRecord', () => {
+  it('multiplies every quantity of a record inside the period by the factor and flags it corrected', () => {
+    const out = correctRecord(record(), [correction({ kind: 'adjust', factor: 1.05 })]);
+    // 100 × 1.05 = 105 kg; 120 × 1.05 = 126 m³; 140 × 1.05 = 147 m³; 5 MJ × 1.05 = 5.25 MJ
+    expect(out.massKg).toBeCloseTo(105, 12);
+    expect(out.volumeM3).toBeCloseTo(126, 12);
+    expect(out.standardVolumeM3).toBeCloseTo(147, 12);
+    expect(out.energyJ).toBeCloseTo(5.25e6, 6);
+    expect(out.dpBands['25-50'].massKg).toBeCloseTo(63, 12);
+    expect(out.uncertaintyPercent).toBe(1);
+    expect(out.flags).toEqual(['corrected']);
+  });
+
+  it('adjusts only the share of a record that lies inside the period', () => {
+    // The correction covers the last 15 minutes: scale 1 + (0.8 − 1) × 0.25 = 0.95.
+    const out = correctRecord(record(), [correction({ kind: 'adjust', factor: 0.8, startMs: T0 + 0.75 * H })]);
+    expect(out.massKg).toBeCloseTo(95, 12);
+  });
+
+  it('spreads a substituted mass over the period pro rata by time, at the record’s own ratios', () => {
+    // 240 kg over two hours: this hour gets 120 kg; its own ratios 1.2 m³/kg, 1.4 m³/kg, 50 kJ/kg.
+    const out = correctRecord(record(), [correction({ massKg: 240, endMs: T0 + 2 * H })]);
+    expect(out.massKg).toBeCloseTo(120, 12);
+    expect(out.volumeM3).toBeCloseTo(144, 12);
+    expect(out.standardVolumeM3).toBeCloseTo(168, 12);
+    expect(out.energyJ).toBeCloseTo(6e6, 6);
+    // A mass typed by a person states no uncertainty.
+    expect(out.uncertaintyPercent).toBeNull();
+    expect(out.flags).toEqual(['corrected']);
+  });
+
+  it('fills a record without flow at the ratios of the last records with flow, with the estimate’s uncertainty', () => {
+    const gap = record({ massKg: 0, volumeM3: 0, standardVolumeM3: 0, energyJ: null, flags: ['missing-data'] });
+    const out = correctRecord(gap, [
+      correction({
+        massKg: 80,
+        origin: 'estimate',
+        estimateUncertaintyPercent: 4,
+        fallbackRatios: { volumeM3PerKg: 1.5, standardVolumeM3PerKg: 1.25, energyJPerKg: 5e4 },
+      }),
+    ]);
+    // 80 kg × 1.5 = 120 m³; × 1.25 = 100 m³ at base; × 50 kJ/kg = 4 MJ.
+    expect(out.massKg).toBe(80);
+    expect(out.volumeM3).toBeCloseTo(120, 12);
+    expect(out.standardVolumeM3).toBeCloseTo(100, 12);
+    expect(out.energyJ).toBeCloseTo(4e6, 6);
+    expect(out.uncertaintyPercent).toBe(4);
+    expect(out.flags).toEqual(['missing-data', 'corrected', 'estimated']);
+  });
+
+  it('keeps the record’s own mass outside the period and weights the uncertainty by mass', () => {
+    // Substitution of the first half hour with 30 kg (an estimate at 6 %): kept 50 kg at 1 %, 30 kg at 6 %.
+    const out = correctRecord(record(), [
+      correction({ massKg: 30, endMs: T0 + 0.5 * H, origin: 'estimate', estimateUncertaintyPercent: 6 }),
+    ]);
+    expect(out.massKg).toBeCloseTo(80, 12);
+    expect(out.volumeM3).toBeCloseTo(60 + 36, 12);
+    expect(out.uncertaintyPercent).toBeCloseTo((50 * 1 + 30 * 6) / 80, 12);
+  });
+
+  it('applies corrections in order: a substitution, then a factor on it', () => {
+    const out = correctRecord(record(), [correction({ massKg: 50 }), correction({ kind: 'adjust', factor: 2 })]);
+    expect(out.massKg).toBeCloseTo(100, 12);
+    expect(out.volumeM3).toBeCloseTo(120, 12);
+  });
+
+  it('leaves a record outside every correction as it is', () => {
+    const r = record();
+    expect(correctRecord(r, [correction({ kind: 'adjust', factor: 2, startMs: T0 + H, endMs: T0 + 2 * H })])).toBe(r);
+  });
+
+  it('flags a record under a reading substitution as corrected without changing its figures', () => {
+    const out = correctRecord(record(), [correction({ readings: true })]);
+    expect(out.massKg).toBe(100);
+    expect(out.flags).toEqual(['corrected']);
+  });
+});
+
+describe('substituteSamples', () => {
+  const good = (timeMs: number, value: number) => ({ timeMs, value, quality: 'good' as const });
+
+  it('writes substituted samples every minute inside the period and gives the stored reading back at its end', () => {
+    const stored = [good(T0 - 60_000, 10), good(T0 + 30 * 60_000, 99), good(T0 + 3 * 60_000 + 5_000, 11)].sort(
+      (a, b) => a.timeMs - b.timeMs,
+    );
+    const out = substituteSamples(stored, T0, T0 + 3 * 60_000, 20, { coverMs: 120_000, markGapAfter: true });
+    expect(out.map((s) => [s.timeMs - T0, s.value, s.quality])).toEqual([
+      [-60_000, 10, 'good'],
+      [0, 20, 'substituted'],
+      [60_000, 20, 'substituted'],
+      [120_000, 20, 'substituted'],
+      // Nothing stored was in force at the end (the last stored sample before it is at −1 min, older than 2 min): a gap.
+      [180_000, Number.NaN, 'bad'],
+      [185_000, 11, 'good'],
+      [1_800_000, 99, 'good'],
+    ]);
+  });
+
+  it('holds the last usable stored value from before the period, never a bad one', () => {
+    const stored = [good(T0 - 120_000, 7), { timeMs: T0 - 60_000, value: 1e9, quality: 'bad' as const }];
+    const out = substituteSamples(stored, T0, T0 + 60_000, 'hold', { coverMs: 30_000, markGapAfter: false });
+    // Every 30 s (the cover is shorter than a minute): 0 and 30 s.
+    expect(out.filter((s) => s.quality === 'substituted').map((s) => [s.timeMs - T0, s.value])).toEqual([
+      [0, 7],
+      [30_000, 7],
+    ]);
+  });
+
+  it('repeats the stored sample that would be in force at the end of the period', () => {
+    const stored = [good(T0 + 50_000, 5)];
+    const out = substituteSamples(stored, T0, T0 + 60_000, 3, { coverMs: 120_000, markGapAfter: true });
+    expect(out[out.length - 1]).toEqual(good(T0 + 60_000, 5));
+  });
+});
+
+describe('estimateFromPreviousDays', () => {
+  it('is the mean of the same hour on previous days with a 95 % prediction interval, worked by hand', () => {
+    // 100, 102, 98, 101, 99, 100, 100: mean 100; deviations 0, 2, −2, 1, −1, 0, 0 → Σd² = 10,
+    // s = √(10 / 6) = 1.290994; √(1 + 1/7) = 1.069045; t(0.975, 6) = 2.447 →
+    // U = 2.447 × 1.290994 × 1.069045 = 3.37716 kg, 3.37716 % of 100 kg.
+    const est = estimateFromPreviousDays([{ startMs: T0, previousMassesKg: [100, 102, 98, 101, 99, 100, 100] }]);
+    expect(est.ok).toBe(true);
+    if (!est.ok) return;
+    expect(est.massKg).toBeCloseTo(100, 12);
+    expect(est.hours[0].standardDeviationKg).toBeCloseTo(1.290994, 6);
+    expect(est.uncertaintyPercent).toBeCloseTo(3.37716, 4);
+  });
+
+  it('adds the hours and their intervals (hours taken as fully correlated)', () => {
+    // Hour 1: 10, 20 → mean 15, s = 7.071068, t(1) = 12.706, √1.5 = 1.224745 → 110.0382 kg.
+    // Hour 2: 30, 30, 30 → mean 30, s = 0. Total 45 kg, U = 110.0382 / 45 = 244.529 %.
+    const est = estimateFromPreviousDays([
+      { startMs: T0, previousMassesKg: [10, 20] },
+      { startMs: T0 + H, previousMassesKg: [30, 30, 30] },
+    ]);
+    expect(est.ok && est.massKg).toBeCloseTo(45, 12);
+    expect(est.ok && est.uncertaintyPercent).toBeCloseTo(244.529, 2);
+  });
+
+  it('refuses an hour with fewer than two previous days, naming it', () => {
+    const est = estimateFromPreviousDays([{ startMs: T0, previousMassesKg: [5] }]);
+    expect(est).toEqual({ ok: false, problem: expect.stringContaining('2026-06-01T15:00:00.000Z') });
+  });
+
+  it('reads Student’s t from the NIST table', () => {
+    expect(studentT975(1)).toBe(12.706);
+    expect(studentT975(6)).toBe(2.447);
+    expect(studentT975(100)).toBe(2.042);
+  });
+});
