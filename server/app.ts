@@ -20,11 +20,13 @@ import { transmittersRouter } from './resources/transmitters/router';
 import { devicesRouter } from './resources/devices/router';
 import { importsRouter } from './resources/imports/router';
 import { readingsRouter } from './resources/readings/router';
+import { readingConflictsRouter } from './resources/reading-conflicts/router';
 import { liveRouter } from './resources/live/router';
 import { alarmsRouter } from './resources/alarms/router';
 import { alarmLimitsRouter } from './resources/alarm-limits/router';
 import { rangeHealthRouter } from './resources/range-health/router';
 import { recordVersionsRouter } from './resources/record-versions/router';
+import { correctionsRouter } from './resources/corrections/router';
 import { LiveBoard } from './live-board';
 import type { Services } from './services';
 
@@ -62,10 +64,22 @@ export function createApp(options: AppOptions): Express {
   };
   const signedInRoutes: [string, Router][] = [
     ['/users', usersRouter(sequelize)],
-    ['/audit-events', auditEventsRouter()],
+    ['/audit-events', auditEventsRouter(services.pool)],
     ['/mail', mailRouter()],
     ['/calculations', calculationsRouter()],
-    ['/sites', sitesRouter(sequelize)],
+    [
+      '/sites',
+      sitesRouter(sequelize, {
+        // Dated site settings (issue 9): the site's meter runs recompute from the version's time only.
+        settingsChanged: async (meterRunIds, from, reference) => {
+          if (meterRunIds.length)
+            await services.history.queueHours(meterRunIds, from.getTime(), Date.now(), {
+              cause: 'configuration-version',
+              reference,
+            });
+        },
+      }),
+    ],
     [
       '/meter-runs',
       meterRunsRouter(sequelize, {
@@ -79,7 +93,18 @@ export function createApp(options: AppOptions): Express {
       }),
     ],
     ['/meter-runs', meterRunHistoryRouter(services.pool)],
-    ['/transmitters', transmittersRouter(sequelize, { changed: setupChanged })],
+    [
+      '/transmitters',
+      transmittersRouter(sequelize, {
+        changed: setupChanged,
+        // A dated re-range (issue 9): the meter run recomputes from the version's time only.
+        rangeChanged: (meterRunId, from, reference) =>
+          services.history.queueHours([meterRunId], from.getTime(), Date.now(), {
+            cause: 'configuration-version',
+            reference,
+          }),
+      }),
+    ],
     [
       '/devices',
       devicesRouter(sequelize, {
@@ -101,6 +126,8 @@ export function createApp(options: AppOptions): Express {
       }),
     ],
     ['/readings', readingsRouter(services.pool)],
+    // Re-sent readings that differed from the stored ones (issue 9): listed, resolved by engineers.
+    ['/reading-conflicts', readingConflictsRouter(sequelize)],
     ['/live', liveRouter(new LiveBoard(services.pool), services.live)],
     // Alarms (issue 5): the list and lifecycle, limits per meter run or transmitter, range health.
     ['/alarms', alarmsRouter(services.pool)],
@@ -108,6 +135,16 @@ export function createApp(options: AppOptions): Express {
     ['/meter-runs', rangeHealthRouter(services.pool)],
     // Record versions (issue 9): every version of an hourly record or a total, first against current.
     ['/meter-runs', recordVersionsRouter(services.pool)],
+    // Corrections with four eyes (issue 9): an approval recomputes the correction's hours.
+    [
+      '/corrections',
+      correctionsRouter({
+        sequelize,
+        pool: services.pool,
+        approved: (meterRunId, fromMs, toMs, correctionId) =>
+          services.history.queueHours([meterRunId], fromMs, toMs, { cause: 'correction', reference: correctionId }),
+      }),
+    ],
   ];
   const api = express.Router();
   for (const [path, router] of publicRoutes) api.use(path, router);

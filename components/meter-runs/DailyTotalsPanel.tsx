@@ -1,4 +1,7 @@
-/** The last 31 contract days of a meter run, newest first: quantities, coverage, flags, uncertainty, status. */
+/**
+ * The last 31 contract days of a meter run, newest first: quantities, coverage, flags, uncertainty,
+ * status, and a marker on a day recomputed since it was first totalled, opening its versions.
+ */
 import { useState } from 'react';
 
 import { AppText } from '@/components/ui/AppText';
@@ -11,6 +14,7 @@ import type { Site } from '@/hooks/api/sites';
 import { useTotals } from '@/hooks/api/totals';
 import { contractDayBounds, contractDayOf } from '@/shared/history/contract-day';
 import { FlagList } from './FlagList';
+import { RecordVersionsView, VersionMarker, versionColumn } from './RecordVersionsView';
 import { formatSiteTime } from './siteTime';
 import { totalCells } from './totalCells';
 
@@ -36,6 +40,7 @@ function lastDaysWindow(site: Site): { from: string; to: string } {
 export function DailyTotalsPanel({ meterRunId, site }: { meterRunId: string; site: Site }) {
   const [period] = useState(() => lastDaysWindow(site));
   const totals = useTotals(meterRunId, 'day', period.from, period.to);
+  const [opened, setOpened] = useState<string | null>(null);
   const set = unitsFor(site.displayUnits);
 
   const columns: DataColumn[] = [
@@ -49,6 +54,7 @@ export function DailyTotalsPanel({ meterRunId, site }: { meterRunId: string; sit
     { key: 'flags', title: 'Flags', width: 170, align: 'left' },
     { key: 'uncertainty', title: 'U (k = 2)', width: 88 },
     { key: 'status', title: 'Status', width: 100, align: 'left' },
+    versionColumn,
   ];
 
   const rows = [...(totals.data ?? [])].reverse().map((total, index) => ({
@@ -60,6 +66,13 @@ export function DailyTotalsPanel({ meterRunId, site }: { meterRunId: string; sit
       flowTime: formatNumber(total.flowTimeS / 3600, 3),
       ...totalCells(total, set),
       flags: <FlagList flags={total.flags} />,
+      versions: (
+        <VersionMarker
+          version={total.version}
+          onOpen={() => setOpened(total.start)}
+          testID={`daily-versions-${index}`}
+        />
+      ),
     },
   }));
 
@@ -91,8 +104,16 @@ export function DailyTotalsPanel({ meterRunId, site }: { meterRunId: string; sit
           testID="daily-table"
         />
       ) : null}
+      {opened ? (
+        <RecordVersionsView
+          meterRunId={meterRunId}
+          site={site}
+          record={{ kind: 'day', start: opened }}
+          onClose={() => setOpened(null)}
+        />
+      ) : null}
       <AppText variant="caption" tone="muted">
-        {`Each contract day starts at ${String(site.contractHour).padStart(2, '0')}:00 site time (23 or 25 hours on clock-change days). Volume at base conditions. A day with nothing recorded shows zero with coverage 0. U: expanded uncertainty (k = 2).`}
+        {`Each contract day starts at ${String(site.contractHour).padStart(2, '0')}:00 site time (23 or 25 hours on clock-change days). Volume at base conditions. A day with nothing recorded shows zero with coverage 0. U: expanded uncertainty (k = 2). A version marker (v2, v3…) shows a day recomputed since it was first totalled: open it to compare the first and current figures.`}
       </AppText>
     </Panel>
   );

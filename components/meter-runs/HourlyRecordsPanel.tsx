@@ -1,6 +1,9 @@
 /**
  * The hourly records of one contract day (the standard's quantity transaction records): start,
- * flow time, quantities, flow-dependent averages, coverage, flags, uncertainty and status.
+ * flow time, quantities, flow-dependent averages, coverage, flags, uncertainty and status, and
+ * the integral value and integral multiplier value from which a third party recomputes the mass
+ * (mass = IMV × IV × flow time, API MPMS 21.1). An hour in which a dated setting took effect is
+ * two records (or more), each shown with its start and end.
  */
 import { useState } from 'react';
 import { StyleSheet, View } from 'react-native';
@@ -22,6 +25,7 @@ import { useHourlyRecords } from '@/hooks/api/totals';
 import type { Site } from '@/hooks/api/sites';
 import { contractDayBounds, contractDayOf } from '@/shared/history/contract-day';
 import { FlagList } from './FlagList';
+import { RecordVersionsView, VersionMarker, versionColumn } from './RecordVersionsView';
 import { formatSiteTime } from './siteTime';
 import { totalCells } from './totalCells';
 
@@ -39,6 +43,7 @@ export function HourlyRecordsPanel({ meterRunId, site }: HourlyRecordsPanelProps
     new Date(bounds.endMs).toISOString(),
   );
   const today = contractDayOf(Date.now(), site.timeZone, site.contractHour);
+  const [openedHour, setOpenedHour] = useState<string | null>(null);
   const set = unitsFor(site.displayUnits);
 
   const columns: DataColumn[] = [
@@ -50,17 +55,23 @@ export function HourlyRecordsPanel({ meterRunId, site }: HourlyRecordsPanelProps
     { key: 'dp', title: `DP avg, ${set.differentialPressure.label}`, width: 100 },
     { key: 'pressure', title: `P avg, ${set.staticPressure.label}`, width: 84 },
     { key: 'temperature', title: `T avg, ${set.temperature.label}`, width: 68 },
+    // SI whatever the display units: they are the record's own constants, to recompute its mass.
+    { key: 'integral', title: 'IV, √(Pa·kg/m³)', width: 96 },
+    { key: 'multiplier', title: 'IMV, m²', width: 96 },
     { key: 'coverage', title: 'Coverage', width: 80 },
     { key: 'flags', title: 'Flags', width: 160, align: 'left' },
     { key: 'uncertainty', title: 'U (k = 2)', width: 80 },
     { key: 'status', title: 'Status', width: 96, align: 'left' },
+    versionColumn,
   ];
 
   const rows = (records.data ?? []).map((record, index) => ({
     key: record.start,
     testID: `hourly-row-${index}`,
     cells: {
-      start: formatSiteTime(record.start, site.timeZone, 'HH:mm'),
+      start: wholeHour(record)
+        ? formatSiteTime(record.start, site.timeZone, 'HH:mm')
+        : `${formatSiteTime(record.start, site.timeZone, 'HH:mm')}–${formatSiteTime(record.end, site.timeZone, 'HH:mm')}`,
       flowTime: formatNumber(record.flowTimeS / 60, 3),
       ...totalCells(record, set),
       dp: record.averageDpPa === null ? '—' : formatNumber(differentialPressureForDisplay(record.averageDpPa, set)),
@@ -72,7 +83,16 @@ export function HourlyRecordsPanel({ meterRunId, site }: HourlyRecordsPanelProps
         record.averageTemperatureK === null
           ? '—'
           : formatNumber(temperatureForDisplay(record.averageTemperatureK, set), 3),
+      integral: formatNumber(record.integralValue, 6),
+      multiplier: formatNumber(record.integralMultiplierValue, 6),
       flags: <FlagList flags={record.flags} />,
+      versions: (
+        <VersionMarker
+          version={record.version}
+          onOpen={() => setOpenedHour(record.start)}
+          testID={`hourly-versions-${index}`}
+        />
+      ),
     },
   }));
 
@@ -111,6 +131,14 @@ export function HourlyRecordsPanel({ meterRunId, site }: HourlyRecordsPanelProps
           testID="hourly-table"
         />
       ) : null}
+      {openedHour ? (
+        <RecordVersionsView
+          meterRunId={meterRunId}
+          site={site}
+          record={{ kind: 'hour', start: openedHour }}
+          onClose={() => setOpenedHour(null)}
+        />
+      ) : null}
       <AppText variant="caption" tone="muted">
         Averages are flow-dependent: taken over the flowing time, with no-flow time left out. U: expanded uncertainty (k
         = 2) of the hour's quantity. Provisional: the hour is not over yet; closed: its month is locked. Times on the
@@ -124,3 +152,7 @@ const styles = StyleSheet.create({
   dayRow: { flexDirection: 'row', flexWrap: 'wrap', alignItems: 'center', gap: space.sm },
   day: { flexShrink: 1 },
 });
+
+/** A record of a whole hour, rather than a part of one split where a dated setting took effect. */
+const wholeHour = (record: { start: string; end: string }) =>
+  Date.parse(record.end) - Date.parse(record.start) === 3_600_000;

@@ -1,6 +1,7 @@
 /**
  * One meter run (all roles): what it is (element, fluid, line, transmitters), its trends over a
- * chosen window, the hourly records of a contract day and the last 31 contract days' totals.
+ * chosen window, the hourly records of a contract day, the last 31 contract days' totals (each
+ * record's versions on request) and the event log of its configuration and constants.
  */
 import { Link } from 'expo-router';
 import { StyleSheet, View } from 'react-native';
@@ -8,6 +9,7 @@ import { StyleSheet, View } from 'react-native';
 // Alarm history and the range health link: a section owned by the alarms screens (components/alarms).
 import { MeterRunAlarmsSection } from '@/components/alarms/MeterRunAlarmsSection';
 import { DailyTotalsPanel } from '@/components/meter-runs/DailyTotalsPanel';
+import { EventLogPanel } from '@/components/meter-runs/EventLogPanel';
 import { HourlyRecordsPanel } from '@/components/meter-runs/HourlyRecordsPanel';
 import { MeterRunHeader } from '@/components/meter-runs/MeterRunHeader';
 import { formatSiteTime } from '@/components/meter-runs/siteTime';
@@ -78,6 +80,7 @@ export function MeterRunScreen({ meterRunId }: { meterRunId: string }) {
           />
           <HourlyRecordsPanel meterRunId={meterRunId} site={site.data} />
           <DailyTotalsPanel meterRunId={meterRunId} site={site.data} />
+          <EventLogPanel meterRunId={meterRunId} site={site.data} />
           {/* Alarm history and range health (components/alarms). */}
           <MeterRunAlarmsSection meterRunId={meterRunId} timeZone={site.data.timeZone} />
         </>

@@ -26,6 +26,8 @@ const totalFields = {
   /** Expanded (k = 2) uncertainty of the period's quantity, percent. */
   uncertaintyPercent: z.number().nullable(),
   status: z.string(),
+  /** The record's version (issue 9): above 1 once it was recomputed; null for a period with no record. */
+  version: z.number().nullable().optional(),
 };
 
 export const totalSchema = z.object(totalFields);
@@ -37,6 +39,8 @@ export const hourlyRecordSchema = z.object({
   averagePressurePa: z.number().nullable(),
   averageTemperatureK: z.number().nullable(),
   integralValue: z.number().nullable(),
+  /** Integral multiplier value (API MPMS 21.1): mass = IMV × IV × flow time; absent from records made before issue 9. */
+  integralMultiplierValue: z.number().nullable().optional(),
   configVersionId: z.string().nullable(),
   dpBands: z
     .record(z.string(), z.object({ timeS: z.number(), massKg: z.number() }))

@@ -22,6 +22,7 @@ const expected: Record<string, Who[] | typeof PUBLIC> = {
   'GET /api/mail': ['admin'],
   // audit log: read by engineer, accountant, admin
   'GET /api/audit-events': ['engineer', 'accountant', 'admin'],
+  'GET /api/audit-events/actors': ['engineer', 'accountant', 'admin'],
   // calculations are part of "live view, trends, totals": every role
   'POST /api/calculations/flow': everyone,
   // live view, trends, totals: every role reads set-up, readings, history and the live board
@@ -30,6 +31,7 @@ const expected: Record<string, Who[] | typeof PUBLIC> = {
   'GET /api/meter-runs': everyone,
   'GET /api/meter-runs/:id': everyone,
   'GET /api/meter-runs/:id/config-versions': everyone,
+  'GET /api/meter-runs/:id/setting-versions': everyone,
   'GET /api/meter-runs/:id/totals': everyone,
   'GET /api/meter-runs/:id/hourly-records': everyone,
   'GET /api/meter-runs/:id/trend': everyone,
@@ -76,6 +78,16 @@ const expected: Record<string, Who[] | typeof PUBLIC> = {
   // record versions are part of the history (issue 9): every role reads them
   'GET /api/meter-runs/:id/hourly-records/versions': everyone,
   'GET /api/meter-runs/:id/totals/versions': everyone,
+  // corrections (issue 9): every role reads them; engineer and admin propose, estimate and decide
+  'GET /api/corrections': everyone,
+  'GET /api/corrections/estimate': ['engineer', 'admin'],
+  'GET /api/corrections/:id': everyone,
+  'POST /api/corrections': ['engineer', 'admin'],
+  'POST /api/corrections/:id/approve': ['engineer', 'admin'],
+  'POST /api/corrections/:id/reject': ['engineer', 'admin'],
+  // conflicts of re-sent readings (issue 9): every role lists them; those who propose corrections resolve them
+  'GET /api/reading-conflicts': everyone,
+  'POST /api/reading-conflicts/:id/resolve': ['engineer', 'admin'],
 };
 
 /** Routes that stream (server-sent events): checked on a real socket, status only. */

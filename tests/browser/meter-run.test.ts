@@ -169,4 +169,53 @@ describe('the meter run screens', () => {
     await signOut(page);
     await page.close();
   });
+
+  it('shows a back-dated version in the event log and a recomputed hour beside its first figures (phone)', async () => {
+    const api = client(await apiSignIn(demoEmail('engineer')));
+    const run = await api.get(`/api/meter-runs/${fixture.meterRun.id}`);
+    // The bore found 0.1 mm larger, three hours ago: the hours from then on are recomputed.
+    const effectiveFrom = new Date(Math.floor((Date.now() - 3 * hourMs) / hourMs) * hourMs).toISOString();
+    const version = await api.post(`/api/meter-runs/${fixture.meterRun.id}/config-versions`, {
+      element: { ...run.body.element, boreDiameterM: 0.0512 },
+      fluid: run.body.fluid,
+      effectiveFrom,
+      reason: 'bore re-measured at inspection',
+    });
+    expect(version.status).toBe(201);
+    await settled(api, fixture.meterRun.id);
+
+    const page = await freshPage(browser, 'phone');
+    await signIn(page, demoEmail('engineer'));
+    await page.goto(`${baseUrl}/meter-runs/${fixture.meterRun.id}`);
+    const newest = page.getByTestId('event-log-entry-0');
+    await newest.waitFor();
+    const entry = await newest.innerText();
+    expect(entry).toContain('Configuration version');
+    expect(entry).toContain('Why: bore re-measured at inspection');
+    expect(entry).toMatch(/element\.boreDiameterM\s+0\.0511 → 0\.0512/);
+    await newest.scrollIntoViewIfNeeded();
+    await page.screenshot({ path: '/tmp/shots-E/event-log-phone.png' });
+
+    // The hours after it, computed to their end before the version, now have a second version
+    // (today's total is still provisional, and a running figure keeps no versions).
+    await page.locator('[data-testid^="hourly-versions-"]').first().click();
+    await page.getByTestId('record-versions-mass').waitFor();
+    const mass = await page.getByTestId('record-versions-mass').innerText();
+    expect(mass).toMatch(/Mass, lb/);
+    // A larger bore passes more gas: current above first (ISO 5167-2 flow grows with β).
+    expect(mass).toMatch(/\+[\d.,]+ %/);
+    expect(await page.getByTestId('record-versions-list').innerText()).toMatch(/configuration version/);
+    await page.getByTestId('record-versions').scrollIntoViewIfNeeded();
+    await page.screenshot({ path: '/tmp/shots-E/record-versions-phone.png' });
+    // The same side by side as a table on a wide screen (screenshots for review).
+    await page.setViewportSize({ width: 1440, height: 900 });
+    // The wide layout is a different shell, so the screen opens afresh.
+    await page.locator('[data-testid^="hourly-versions-"]').first().click();
+    await page.getByTestId('record-versions').scrollIntoViewIfNeeded();
+    await page.screenshot({ path: '/tmp/shots-E/record-versions-wide.png' });
+    await page.getByTestId('event-log-entry-0').scrollIntoViewIfNeeded();
+    await page.screenshot({ path: '/tmp/shots-E/event-log-wide.png' });
+    await signOut(page);
+    await page.close();
+  });
 });

@@ -7,6 +7,7 @@ import { AppText } from '@/components/ui/AppText';
 import { Button } from '@/components/ui/Button';
 import { colors, radius, space } from '@/constants/theme';
 import type { AuditEvent } from '@/hooks/api/auditEvents';
+import { AUDIT_KIND_LABELS } from '@/shared/audit/audit-kinds';
 
 function asJson(value: unknown): string {
   if (value === null || value === undefined) return '(none)';
@@ -30,6 +31,9 @@ export function AuditEventRow({ event }: { event: AuditEvent }) {
         <AppText variant="bodyStrong" style={styles.what}>
           {event.action}
         </AppText>
+        <AppText variant="caption" tone="muted" testID={`audit-event-${event.id}-kind`}>
+          {AUDIT_KIND_LABELS[event.kind]}
+        </AppText>
         <AppText tone="muted" style={styles.entity}>
           {event.entityId ? `${event.entityType} ${event.entityId}` : event.entityType}
         </AppText>
@@ -37,6 +41,7 @@ export function AuditEventRow({ event }: { event: AuditEvent }) {
           {event.actorEmail ?? 'system'}
         </AppText>
       </View>
+      {event.reason ? <AppText variant="caption">{`Reason: ${event.reason}`}</AppText> : null}
       {hasChange ? (
         <View style={styles.toggle}>
           <Button
