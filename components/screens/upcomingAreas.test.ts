@@ -2,7 +2,6 @@
 import { actionLinesFor, upcomingAreas } from './upcomingAreas';
 
 const totals = upcomingAreas.totals;
-const corrections = upcomingAreas.corrections;
 
 describe('actionLinesFor', () => {
   it('tells an accountant they will close months and export volumes, but not reopen a month', () => {
@@ -23,12 +22,8 @@ describe('actionLinesFor', () => {
     ]);
   });
 
-  it('lets engineers and administrators approve corrections, and no one else', () => {
-    if (!corrections) throw new Error('corrections is still a placeholder');
-    for (const role of ['engineer', 'admin'] as const)
-      expect(actionLinesFor(corrections, role)[0]).toMatch(/^You will be able to approve/);
-    for (const role of ['operator', 'accountant'] as const)
-      expect(actionLinesFor(corrections, role)[0]).toBe('Approving corrections is for engineers and administrators.');
+  it('leaves the corrections placeholder out now that corrections have a screen', () => {
+    expect(upcomingAreas.corrections).toBeUndefined();
   });
 
   it('gives no lines for an area without role-dependent actions', () => {

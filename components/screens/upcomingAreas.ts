@@ -1,7 +1,7 @@
 /**
  * What each area not yet built will hold, in the trade's words, and which of its actions a
  * role gets. Later issues replace these placeholders with the real screens; an area leaves this
- * list when its screen is built (only totals and corrections are still placeholders).
+ * list when its screen is built (only totals is still a placeholder).
  */
 import type { AreaKey } from '@/constants/areas';
 import { can, type Capability, type Role } from '@/constants/roles';
@@ -32,16 +32,6 @@ export const upcomingAreas: Partial<Record<AreaKey, UpcomingArea>> = {
         capability: 'exportVolumes',
         allowed: 'You will be able to export monthly volumes as CSV or Excel.',
         refused: 'Exporting volumes is for engineers, accountants and administrators.',
-      },
-    ],
-  },
-  corrections: {
-    lead: 'Propose a substitution or an adjustment for a period of a meter run, with a reason; another engineer or an administrator approves or rejects it. A closed month cannot be corrected.',
-    actions: [
-      {
-        capability: 'approveCorrection',
-        allowed: "You will be able to approve or reject other people's corrections, never your own.",
-        refused: 'Approving corrections is for engineers and administrators.',
       },
     ],
   },

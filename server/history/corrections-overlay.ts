@@ -92,15 +92,23 @@ export async function loadCorrectionsInForce(
   fromMs: number,
   toMs: number,
 ): Promise<CorrectionsInForce> {
-  const run = await pool.query<{ max_gap_s: number; hold_limit_s: number }>(
-    'SELECT max_gap_s, hold_limit_s FROM meter_runs WHERE id = $1',
+  // The shortest gap and hold limit any dated version allows (migration 0007), so that the
+  // substituted samples are close enough together whichever version is in force.
+  const run = await pool.query<{ max_gap_s: number | null; hold_limit_s: number | null }>(
+    `SELECT least(min(v.max_gap_s), m.max_gap_s) AS max_gap_s, least(min(v.hold_limit_s), m.hold_limit_s) AS hold_limit_s
+       FROM meter_runs m LEFT JOIN meter_run_setting_versions v ON v.meter_run_id = m.id
+      WHERE m.id = $1 GROUP BY m.id`,
     [meterRunId],
   );
   const dpCoverMs = (run.rows[0]?.max_gap_s ?? 60) * 1000;
   const holdCoverMs = (run.rows[0]?.hold_limit_s ?? 60) * 1000;
   const { rows } = await pool.query<CorrectionRow>(
     `SELECT c.id::text, c.start, c."end", c.kind, c.mass_kg, c.factor, c.substitute, c.origin, c.estimate,
-            t.measures, t.unit, t.pressure_reference, s.atmospheric_pressure_pa
+            t.measures, t.unit, t.pressure_reference,
+            -- the site's atmospheric pressure in force at the correction's start (dated, migration 0007)
+            coalesce((SELECT v.atmospheric_pressure_pa FROM site_setting_versions v
+                       WHERE v.site_id = s.id AND v.effective_from <= c.start
+                       ORDER BY v.effective_from DESC, v.id DESC LIMIT 1), s.atmospheric_pressure_pa) AS atmospheric_pressure_pa
        FROM corrections c
        JOIN meter_runs m ON m.id = c.meter_run_id
        JOIN sites s ON s.id = m.site_id
