@@ -27,7 +27,7 @@ import {
   type PeriodTable,
 } from './history-repository';
 import { loadMeterRunContext, loadReadings, type MeterRunContext, type ReadingSeries } from './load-context';
-import { periodIsClosed } from './closed-periods';
+import { holdHours, periodIsClosed } from './closed-periods';
 import { scheduled, strongestReason, type RecomputeReason } from './record-causes';
 
 const log = componentLogger('history');
@@ -141,11 +141,17 @@ export class HistoryWorker {
       ...ctx.transmitters.filter((t) => t.measures === 'differential-pressure').map((t) => t.ranges),
     ];
     const computed: ComputedHour[] = [];
+    const held: number[] = [];
+    // One question for the whole span first: most rounds touch no closed month.
+    const spanTouchesClosed = await periodIsClosed(this.pool, meterRunId, spanStart, spanEnd);
     for (const startMs of hours) {
       const endMs = nextHourStart(startMs, ctx.timeZone);
       if (startMs > nowMs) continue;
-      // A closed period keeps its figures until it is reopened (none is closed yet; issue 9).
-      if (await periodIsClosed(this.pool, meterRunId, startMs, endMs)) continue;
+      // A closed month keeps its figures; the hour waits in held_hours until the month is reopened.
+      if (spanTouchesClosed && (await periodIsClosed(this.pool, meterRunId, startMs, endMs))) {
+        held.push(startMs);
+        continue;
+      }
       const cuts = [startMs, ...versionInstantsWithin(splitLists, startMs, endMs), endMs];
       const records: HourlyRecord[] = [];
       for (let k = 0; k + 1 < cuts.length && cuts[k] <= nowMs; k++) {
@@ -158,6 +164,15 @@ export class HistoryWorker {
       }
       computed.push({ startMs, endMs, records });
     }
+    // A month closed while this round computed keeps its figures too (asked again just before saving).
+    if (!spanTouchesClosed && computed.length && (await periodIsClosed(this.pool, meterRunId, spanStart, spanEnd))) {
+      for (let i = computed.length - 1; i >= 0; i--) {
+        if (!(await periodIsClosed(this.pool, meterRunId, computed[i].startMs, computed[i].endMs))) continue;
+        held.push(computed[i].startMs);
+        computed.splice(i, 1);
+      }
+    }
+    if (held.length) await holdHours(this.pool, meterRunId, held, reasons);
     const saved = await saveHourlyRecords(this.pool, meterRunId, computed, { asOfMs: nowMs, reasons });
     // A total changes for the reason its hours changed: the cause of an hour's new version (a
     // configuration version found in the record), else the reason the hour waited.

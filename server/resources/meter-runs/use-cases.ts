@@ -4,6 +4,7 @@ import type { SignedInUser } from '../../auth/passport';
 import { badRequest, conflict, notFound } from '../../errors';
 import { configDifference, type FieldChange } from '../../../shared/config/config-difference';
 import { hourStartOf } from '../../../shared/history/contract-day';
+import { refuseDatedChangeInClosedMonth } from '../../history/closed-periods';
 import type {
   ConfigVersionAuthor,
   ConfigVersionRecord,
@@ -213,6 +214,7 @@ export async function updateMeterRun(
     history[0]?.version.effectiveFrom ?? null,
     request.nowMs ?? Date.now(),
   );
+  if (wanted !== null) await refuseDatedChangeInClosedMonth(sequelize, { meterRunId }, effectiveFrom);
   const { meterRun, settingVersionId } = await sequelize.transaction(async (transaction) => {
     const before = await repository.lockForUpdate(meterRunId, transaction);
     if (!before) throw notFound('Meter run');
@@ -327,6 +329,7 @@ export async function addConfigVersion(
   const effectiveFrom = new Date(input.effectiveFrom);
   const before = await repository.configVersionHistory(meterRun.id);
   checkEffectiveFrom(effectiveFrom, before[0]?.version.effectiveFrom ?? null, request.nowMs ?? Date.now());
+  await refuseDatedChangeInClosedMonth(sequelize, { meterRunId: meterRun.id }, effectiveFrom);
   const timeZone = await repository.siteTimeZone(meterRun.siteId);
   const fromMs = timeZone ? hourStartOf(effectiveFrom.getTime(), timeZone) : effectiveFrom.getTime();
   const version = await refusingDuplicates(

@@ -5,6 +5,7 @@ import { conflict, notFound } from '../../errors';
 import type { SiteRecord, SiteRepository, SiteSettingValues } from './repository';
 import { datedChangeTime } from '../meter-runs/use-cases';
 import { hourStartOf } from '../../../shared/history/contract-day';
+import { refuseDatedChangeInClosedMonth } from '../../history/closed-periods';
 import type { SiteChanges, SiteInput } from './schema';
 import { presentSite } from './presenter';
 
@@ -102,6 +103,8 @@ export async function updateSite(
     await repository.historyStart(current.id),
     request.nowMs ?? Date.now(),
   );
+  if (settingsOf(current, changes) !== null)
+    await refuseDatedChangeInClosedMonth(sequelize, { siteId: current.id }, effectiveFrom);
   const { site, versionId } = await sequelize.transaction(async (transaction) => {
     const before = await repository.lockForUpdate(request.siteId, transaction);
     if (!before) throw notFound('Site');

@@ -5,6 +5,7 @@ import { badRequest, conflict, notFound } from '../../errors';
 import { validate } from '../../http/validate';
 import { datedChangeTime } from '../meter-runs/use-cases';
 import { hourStartOf } from '../../../shared/history/contract-day';
+import { refuseDatedChangeInClosedMonth } from '../../history/closed-periods';
 import type { TransmitterRecord, TransmitterRepository } from './repository';
 import { transmitterBody, type TransmitterChanges, type TransmitterInput } from './schema';
 import { presentTransmitter } from './presenter';
@@ -123,6 +124,8 @@ export async function updateTransmitter(
     await repository.meterRunHistoryStart(current.meterRunId),
     request.nowMs ?? Date.now(),
   );
+  if (rangeOf(current, changes) !== null)
+    await refuseDatedChangeInClosedMonth(sequelize, { meterRunId: current.meterRunId }, effectiveFrom);
   const { updated, versionId } = await sequelize.transaction(async (transaction) => {
     const before = await repository.lockForUpdate(request.transmitterId, transaction);
     if (!before) throw notFound('Transmitter');
