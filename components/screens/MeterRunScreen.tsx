@@ -14,6 +14,8 @@ import { HourlyRecordsPanel } from '@/components/meter-runs/HourlyRecordsPanel';
 import { MeterRunHeader } from '@/components/meter-runs/MeterRunHeader';
 import { formatSiteTime } from '@/components/meter-runs/siteTime';
 import { TrendsPanel } from '@/components/meter-runs/TrendsPanel';
+import { ReconciliationPanel } from '@/components/reconciliation/ReconciliationPanel';
+import { recentMonthsWindow } from '@/components/reconciliation/reconciliationView';
 import { AppText } from '@/components/ui/AppText';
 import { Notice } from '@/components/ui/Notice';
 import { QueryState } from '@/components/ui/QueryState';
@@ -80,6 +82,11 @@ export function MeterRunScreen({ meterRunId }: { meterRunId: string }) {
           />
           <HourlyRecordsPanel meterRunId={meterRunId} site={site.data} />
           <DailyTotalsPanel meterRunId={meterRunId} site={site.data} />
+          <ReconciliationPanel
+            meterRunId={meterRunId}
+            timeZone={site.data.timeZone}
+            {...recentMonthsWindow(Date.now(), site.data.timeZone)}
+          />
           <EventLogPanel meterRunId={meterRunId} site={site.data} />
           {/* Alarm history and range health (components/alarms). */}
           <MeterRunAlarmsSection meterRunId={meterRunId} timeZone={site.data.timeZone} />

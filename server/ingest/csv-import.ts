@@ -231,14 +231,15 @@ export async function importFieldTotalsCsv(deps: { pool: Pool }, importId: strin
         // One statement: the version is kept exactly when the value in force is written.
         const res = await deps.pool.query<{ inserted: boolean }>(
           `WITH version AS (
-             INSERT INTO field_total_versions (meter_run_id, period_start, period_end, quantity, value_si, import_id, line)
-             VALUES ($1, to_timestamp($2 / 1000.0), to_timestamp($3 / 1000.0), $6, $4, $5, $7)
+             INSERT INTO field_total_versions (meter_run_id, period_start, period_end, quantity, value_si, import_id, line, unit)
+             VALUES ($1, to_timestamp($2 / 1000.0), to_timestamp($3 / 1000.0), $6, $4, $5, $7, $8)
            )
            INSERT INTO field_totals (meter_run_id, period_start, period_end, ${col}, import_id)
            VALUES ($1, to_timestamp($2 / 1000.0), to_timestamp($3 / 1000.0), $4, $5)
            ON CONFLICT (meter_run_id, period_start, period_end) DO UPDATE SET ${col} = EXCLUDED.${col}, import_id = EXCLUDED.import_id
            RETURNING (xmax = 0) AS inserted`,
-          [runId, start, end, si, importId, quantity, line],
+          // The unit as the field device reported it, so reconciliation shows figures in it.
+          [runId, start, end, si, importId, quantity, line, row.unit],
         );
         if (res.rows[0].inserted) p.rowsImported++;
         else p.duplicates++;

@@ -1,0 +1,54 @@
+import { Router } from 'express';
+import type { Pool } from 'pg';
+import { requireCapability } from '../../auth/passport';
+import { validate } from '../../http/validate';
+import { parseId, parseTimeWindow } from '../../http/params';
+import { RECONCILIATIONS_MAX_DAYS, reconciliationsQuery, toleranceBody } from './schema';
+import { reconciliationRepository } from './repository';
+import {
+  reconciliationMeterRun,
+  reconciliationsForWindow,
+  reconciliationSummary,
+  setReconciliationTolerance,
+} from './use-cases';
+import { presentReconciliation, presentReconciliationSum } from './presenter';
+
+/**
+ * Reconciliation against field totals (issue 10 §2). Everyone who sees totals reads it; the
+ * tolerance is part of a meter run's configuration (engineer, admin).
+ * - `GET /api/reconciliations?meterRunId&from&to`: one row per contract day and quantity with a field total;
+ * - `GET /api/reconciliations/summary?meterRunId&from&to`: their sums per quantity and unit (a month's sum);
+ * - `PATCH /api/reconciliations/tolerances/:id { tolerancePercent }`: the meter run's tolerance (audited).
+ * `from` and `to` are instants, or plain dates read in the site's zone.
+ */
+export function reconciliationsRouter(pool: Pool) {
+  const router = Router();
+  const repository = reconciliationRepository(pool);
+
+  /** The query's meter run and window (a plain date needs the site's zone, so the meter run is read first). */
+  const request = async (query: unknown) => {
+    const q = validate(reconciliationsQuery, query, 'query');
+    const run = await reconciliationMeterRun(repository, q.meterRunId);
+    const window = parseTimeWindow(q, { maxDays: RECONCILIATIONS_MAX_DAYS, timeZone: run.timeZone });
+    return { run, ...window };
+  };
+
+  router.get('/', requireCapability('view'), async (req, res) => {
+    const days = await reconciliationsForWindow(repository, await request(req.query));
+    res.json(days.map(presentReconciliation));
+  });
+
+  router.get('/summary', requireCapability('view'), async (req, res) => {
+    const r = await request(req.query);
+    const sums = await reconciliationSummary(repository, r);
+    res.json(sums.map((s) => presentReconciliationSum(r, s)));
+  });
+
+  router.patch('/tolerances/:id', requireCapability('configure'), async (req, res) => {
+    const meterRunId = parseId(req.params.id, 'Meter run');
+    const body = validate(toleranceBody, req.body);
+    res.json(await setReconciliationTolerance(repository, { meterRunId, ...body, actor: req.user! }));
+  });
+
+  return router;
+}
