@@ -25,8 +25,13 @@ import { liveRouter } from './resources/live/router';
 import { alarmsRouter } from './resources/alarms/router';
 import { alarmLimitsRouter } from './resources/alarm-limits/router';
 import { rangeHealthRouter } from './resources/range-health/router';
+import { reconciliationsRouter } from './resources/reconciliations/router';
 import { recordVersionsRouter } from './resources/record-versions/router';
 import { correctionsRouter } from './resources/corrections/router';
+import { periodsRouter } from './resources/periods/router';
+import { monthlyVolumesRouter } from './resources/monthly-volumes/router';
+import { exportsRouter } from './resources/exports/router';
+import { balanceGroupsRouter } from './resources/balance-groups/router';
 import { LiveBoard } from './live-board';
 import type { Services } from './services';
 
@@ -133,6 +138,8 @@ export function createApp(options: AppOptions): Express {
     ['/alarms', alarmsRouter(services.pool)],
     ['/alarm-limits', alarmLimitsRouter(services.pool)], // new limits apply from the next evaluation (within a minute)
     ['/meter-runs', rangeHealthRouter(services.pool)],
+    // Reconciliation against field totals (issue 10 §2): every role reads; the tolerance is configuration.
+    ['/reconciliations', reconciliationsRouter(services.pool)],
     // Record versions (issue 9): every version of an hourly record or a total, first against current.
     ['/meter-runs', recordVersionsRouter(services.pool)],
     // Corrections with four eyes (issue 9): an approval recomputes the correction's hours.
@@ -145,6 +152,20 @@ export function createApp(options: AppOptions): Express {
           services.history.queueHours([meterRunId], fromMs, toMs, { cause: 'correction', reference: correctionId }),
       }),
     ],
+    // Period close per site and contract month (issue 10): a reopen recomputes the month, held hours included.
+    [
+      '/periods',
+      periodsRouter({
+        sequelize,
+        reopened: (meterRunIds, fromMs, toMs, reference) =>
+          services.history.queueHours(meterRunIds, fromMs, toMs, { cause: 'reopen', reference }),
+      }),
+    ],
+    // Month end (issue 10): the accountant's monthly volumes and their exports (audited).
+    ['/monthly-volumes', monthlyVolumesRouter(services.pool)],
+    ['/exports', exportsRouter(services.pool, sequelize)],
+    // Station balances and pro-rata allocation (issue 10 §3, §4): every role reads; engineers define groups.
+    ['/balance-groups', balanceGroupsRouter(sequelize)],
   ];
   const api = express.Router();
   for (const [path, router] of publicRoutes) api.use(path, router);

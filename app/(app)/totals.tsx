@@ -1,5 +1,5 @@
-import { UpcomingScreen } from '@/components/screens/UpcomingScreen';
+import { MonthlyVolumesScreen } from '@/components/screens/MonthlyVolumesScreen';
 
 export default function TotalsRoute() {
-  return <UpcomingScreen area="totals" />;
+  return <MonthlyVolumesScreen />;
 }

@@ -1,7 +1,7 @@
 /**
  * What each area not yet built will hold, in the trade's words, and which of its actions a
  * role gets. Later issues replace these placeholders with the real screens; an area leaves this
- * list when its screen is built (only totals is still a placeholder).
+ * list when its screen is built (none is left: totals became monthly volumes in issue 10).
  */
 import type { AreaKey } from '@/constants/areas';
 import { can, type Capability, type Role } from '@/constants/roles';
@@ -14,28 +14,7 @@ export interface UpcomingArea {
   caution?: string;
 }
 
-export const upcomingAreas: Partial<Record<AreaKey, UpcomingArea>> = {
-  totals: {
-    lead: 'Hourly, contract-day and monthly totals per meter run and site (mass, actual volume, volume at base conditions, energy) with coverage, flags and uncertainty, and the balance groups beside them.',
-    actions: [
-      {
-        capability: 'closePeriod',
-        allowed: 'You will be able to close a month, locking its records against change.',
-        refused: 'Closing a month is for accountants and administrators.',
-      },
-      {
-        capability: 'reopenPeriod',
-        allowed: 'You will be able to reopen a closed month, giving a reason.',
-        refused: 'Reopening a closed month is for administrators.',
-      },
-      {
-        capability: 'exportVolumes',
-        allowed: 'You will be able to export monthly volumes as CSV or Excel.',
-        refused: 'Exporting volumes is for engineers, accountants and administrators.',
-      },
-    ],
-  },
-};
+export const upcomingAreas: Partial<Record<AreaKey, UpcomingArea>> = {};
 
 /**
  * @param area the area's placeholder text

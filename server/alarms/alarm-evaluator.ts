@@ -1,7 +1,7 @@
 /**
  * Evaluates alarm conditions for meter runs: after each history recompute round (the history
  * worker's onChange) and on the minute (the clock: stale transmitters, calibration dates,
- * shelving that ran out).
+ * shelving that ran out, contract days against field totals).
  *
  * Per meter run a watermark is kept in alarm_evaluations: each round walks the readings after it
  * in time order (shared/alarms/meter-run-alarm-walk.ts), in chunks, up to a horizon of
@@ -39,6 +39,8 @@ import {
   transmitterTags,
 } from './evaluation-repository';
 import { limitsResolver, loadStoredLimits } from './limits-store';
+import { judgeReconciliationAlarms } from './reconciliation-alarm';
+import { judgeBalanceAlarms } from './balance-alarm';
 
 const log = componentLogger('alarms');
 
@@ -113,6 +115,22 @@ export class AlarmEvaluator extends EventEmitter {
       }
     }
     await this.evaluateCalibration(nowMs);
+    await this.evaluateReconciliation(nowMs);
+    await this.evaluateBalances(nowMs);
+  }
+
+  /** Station balances of the balance groups (server/alarms/balance-alarm.ts), judged on the minute. */
+  async evaluateBalances(nowMs = this.now()) {
+    const { touched, raised } = await judgeBalanceAlarms(this.pool, nowMs);
+    if (touched.length) this.emit('changed', touched);
+    if (raised.length) this.emit('raised', raised);
+  }
+
+  /** Contract days against field totals (server/alarms/reconciliation-alarm.ts), judged on the minute. */
+  async evaluateReconciliation(nowMs = this.now()) {
+    const { touched, raised } = await judgeReconciliationAlarms(this.pool, nowMs);
+    if (touched.length) this.emit('changed', touched);
+    if (raised.length) this.emit('raised', raised);
   }
 
   private async evaluateOnce(meterRunId: string, clock: boolean) {

@@ -12,6 +12,9 @@ import * as m0007 from '../migrations/0007-setting-versions';
 import * as m0008 from '../migrations/0008-reading-provenance';
 import * as m0009 from '../migrations/0009-corrections';
 import * as m0010 from '../migrations/0010-database-roles';
+import * as m0011 from '../migrations/0011-periods';
+import * as m0012 from '../migrations/0012-reconciliation';
+import * as m0013 from '../migrations/0013-balance-groups';
 
 /**
  * Migrations are listed here, in order, rather than globbed: the list works the same under
@@ -28,6 +31,9 @@ const migrations = [
   { name: '0008-reading-provenance', ...m0008 },
   { name: '0009-corrections', ...m0009 },
   { name: '0010-database-roles', ...m0010 },
+  { name: '0011-periods', ...m0011 },
+  { name: '0012-reconciliation', ...m0012 },
+  { name: '0013-balance-groups', ...m0013 },
 ];
 
 export function migrator(sequelize: Sequelize) {

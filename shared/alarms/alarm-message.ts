@@ -7,6 +7,7 @@ import type { AlarmCondition } from './alarm-codes';
 export type AlarmDetail = Record<string, number | string | null>;
 
 const pct = (share: unknown, digits = 1) => (typeof share === 'number' ? `${(share * 100).toFixed(digits)} %` : '?');
+const num = (v: unknown, digits = 2) => (typeof v === 'number' ? v.toFixed(digits) : '?');
 const iso = (ms: unknown) => (typeof ms === 'number' ? new Date(ms).toISOString().replace('.000Z', 'Z') : '?');
 
 /**
@@ -35,6 +36,10 @@ export function alarmMessage(condition: AlarmCondition, subject: string, detail:
       return `${subject} is due for calibration on ${detail.calibrationDue}.`;
     case 'calibration-overdue':
       return `${subject} is overdue for calibration (due ${detail.calibrationDue}).`;
+    case 'reconciliation-out-of-tolerance':
+      return `${subject}: the contract day from ${iso(detail.dayStartMs)} differs from the field total by ${num(detail.differencePercent)} % (${detail.quantity}), outside the tolerance of ${num(detail.tolerancePercent)} %.`;
+    case 'balance-out-of-tolerance':
+      return `${subject}: the contract day from ${iso(detail.dayStartMs)} is out of balance by ${num(detail.imbalancePercent)} % of the inlet (${num(detail.imbalanceM3, 0)} m³), outside the tolerance of ${num(detail.tolerancePercent)} %${detail.exceedsUncertainty === 'true' ? '; larger than its own uncertainty' : detail.exceedsUncertainty === 'false' ? '; within its own uncertainty' : ''}.`;
     default:
       return `${subject}: ${condition}.`;
   }

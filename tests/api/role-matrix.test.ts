@@ -85,9 +85,27 @@ const expected: Record<string, Who[] | typeof PUBLIC> = {
   'POST /api/corrections': ['engineer', 'admin'],
   'POST /api/corrections/:id/approve': ['engineer', 'admin'],
   'POST /api/corrections/:id/reject': ['engineer', 'admin'],
+  // month end (issue 10): every role reads the monthly volumes; engineer, accountant and admin export them
+  'GET /api/monthly-volumes': everyone,
+  'GET /api/exports/monthly-volumes': ['engineer', 'accountant', 'admin'],
+  'GET /api/exports/monthly-statement': ['engineer', 'accountant', 'admin'],
   // conflicts of re-sent readings (issue 9): every role lists them; those who propose corrections resolve them
   'GET /api/reading-conflicts': everyone,
   'POST /api/reading-conflicts/:id/resolve': ['engineer', 'admin'],
+  // balance groups (issue 10): balances are in the view row, every role reads; defining a group is configuration
+  'GET /api/balance-groups': everyone,
+  'GET /api/balance-groups/:id': everyone,
+  'GET /api/balance-groups/:id/balance': everyone,
+  'GET /api/balance-groups/:id/allocation': everyone,
+  'POST /api/balance-groups': ['engineer', 'admin'],
+  // period close (issue 10): every role reads a month's status; accountant and admin close; admin reopens
+  'GET /api/periods/:month': everyone,
+  'POST /api/periods/:month/close': ['accountant', 'admin'],
+  'POST /api/periods/:month/reopen': ['admin'],
+  // reconciliation against field totals (issue 10): a view of totals, every role reads; the tolerance is configuration
+  'GET /api/reconciliations': everyone,
+  'GET /api/reconciliations/summary': everyone,
+  'PATCH /api/reconciliations/tolerances/:id': ['engineer', 'admin'],
 };
 
 /** Routes that stream (server-sent events): checked on a real socket, status only. */

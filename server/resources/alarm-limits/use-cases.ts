@@ -20,10 +20,8 @@ import {
 import type { AlarmLimitsRepository, LimitsMeterRun } from './repository';
 import type { AlarmLimitsInput } from './schema';
 
-/** Conditions that this server evaluates (the reconciliation and balance ones come with their issue). */
-const EVALUATED: AlarmCondition[] = ALARM_CONDITIONS.filter(
-  (c) => c !== 'reconciliation-out-of-tolerance' && c !== 'balance-out-of-tolerance',
-);
+/** Conditions that this server evaluates: all of them, now that reconciliation and balances are judged. */
+const EVALUATED: AlarmCondition[] = [...ALARM_CONDITIONS];
 
 /** Called after a change, with the meter run whose limits changed. */
 type Changed = ((meterRunId: string) => void) | undefined;

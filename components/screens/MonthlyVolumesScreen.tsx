@@ -1,0 +1,202 @@
+/**
+ * Monthly volumes (issue 10), the accountant's home: pick a site and a contract month; a card per
+ * meter run on a phone, one table on a wider screen; the site's total; the month's close; the
+ * exports (CSV, Excel, a printable statement); a drill-down to contract days, then hours.
+ */
+import { useState } from 'react';
+import { StyleSheet, View } from 'react-native';
+
+import { AllocationPanel } from '@/components/month-end/AllocationPanel';
+import { MeterRunMonthCard } from '@/components/month-end/MeterRunMonthCard';
+import { MonthClosePanel } from '@/components/month-end/MonthClosePanel';
+import { MonthDrillDown } from '@/components/month-end/MonthDrillDown';
+import { MonthlyVolumesTable } from '@/components/month-end/MonthlyVolumesTable';
+import { lastMonth, shiftMonth } from '@/components/month-end/monthFormat';
+import { AppText } from '@/components/ui/AppText';
+import { Button } from '@/components/ui/Button';
+import { ChoiceGroup } from '@/components/ui/ChoiceGroup';
+import { Panel } from '@/components/ui/Panel';
+import { QueryState } from '@/components/ui/QueryState';
+import { Screen } from '@/components/ui/Screen';
+import { can } from '@/constants/roles';
+import { space } from '@/constants/theme';
+import { formatNumber } from '@/constants/units-display';
+import { useBreakpoint } from '@/hooks/useBreakpoint';
+import {
+  useExportMonthlyVolumes,
+  useMonthlyVolumes,
+  useOpenStatement,
+  type MonthlyVolumes,
+} from '@/hooks/api/monthlyVolumes';
+import { useSites } from '@/hooks/api/sites';
+import { useSignedInUser } from '@/hooks/session/SessionProvider';
+import { fromSI } from '@/shared/units';
+
+/** Base conditions in the site's units, as the figures are stated at them. */
+function baseConditions(site: MonthlyVolumes['site']): string {
+  return site.displayUnits === 'us'
+    ? `${formatNumber(fromSI(site.basePressurePa, 'psi'), 5)} psia, ${formatNumber(fromSI(site.baseTemperatureK, 'degF'), 4)} °F`
+    : `${formatNumber(fromSI(site.basePressurePa, 'kPa'), 6)} kPa abs, ${formatNumber(fromSI(site.baseTemperatureK, 'degC'), 4)} °C`;
+}
+
+export function MonthlyVolumesScreen() {
+  const user = useSignedInUser();
+  const breakpoint = useBreakpoint();
+  const sites = useSites();
+  const [chosenSiteId, setSiteId] = useState<string | undefined>(undefined);
+  const [month, setMonth] = useState(() => lastMonth(Date.now()));
+  const [drill, setDrill] = useState<string | null>(null);
+  const siteId = chosenSiteId ?? sites.data?.[0]?.id;
+  const volumes = useMonthlyVolumes(siteId, month);
+  const exportFile = useExportMonthlyVolumes();
+  const statement = useOpenStatement();
+  const v = volumes.data;
+  const drillRun = v?.meterRuns.find((r) => r.meterRunId === drill);
+  const mayExport = can(user.role, 'exportVolumes');
+
+  return (
+    <Screen
+      testID="screen-monthly-volumes"
+      lead="Last month's volumes per meter run and for the site, at the site's base conditions, with their coverage, uncertainty and status; close the month and export it for billing."
+    >
+      <Panel title="Site and month">
+        <QueryState isPending={sites.isPending} error={sites.error} onRetry={() => void sites.refetch()} noun="sites" />
+        {sites.data?.length ? (
+          <ChoiceGroup
+            label="Site"
+            options={sites.data.map((s) => ({ value: s.id, label: s.code }))}
+            value={siteId ?? ''}
+            onChange={(id) => {
+              setSiteId(id);
+              setDrill(null);
+            }}
+            testIDPrefix="monthly-site"
+          />
+        ) : null}
+        <View style={styles.monthRow}>
+          <Button
+            label="◂ Earlier"
+            size="compact"
+            onPress={() => {
+              setMonth((m) => shiftMonth(m, -1));
+              setDrill(null);
+            }}
+            testID="monthly-month-earlier"
+          />
+          <AppText variant="title" testID="monthly-month" accessibilityLabel={`Contract month ${month}`}>
+            {month}
+          </AppText>
+          <Button
+            label="Later ▸"
+            size="compact"
+            onPress={() => {
+              setMonth((m) => shiftMonth(m, 1));
+              setDrill(null);
+            }}
+            testID="monthly-month-later"
+          />
+        </View>
+      </Panel>
+
+      <QueryState
+        isPending={volumes.isPending && siteId !== undefined}
+        error={volumes.error}
+        onRetry={() => void volumes.refetch()}
+        noun="monthly volumes"
+      />
+
+      {v ? (
+        <>
+          <AppText testID="monthly-summary">
+            {`${v.site.code} ${v.site.name} · ${v.month} · status ${v.status} · at ${baseConditions(v.site)} · contract day from ${String(v.site.contractHour).padStart(2, '0')}:00 ${v.site.timeZone}`}
+          </AppText>
+          {breakpoint === 'phone' ? (
+            <View style={styles.cards}>
+              {v.meterRuns.map((r, index) => (
+                <MeterRunMonthCard
+                  key={r.meterRunId}
+                  title={`${r.tag} · ${r.name}`}
+                  figures={r}
+                  displayUnits={v.site.displayUnits}
+                  onOpenDays={() => setDrill(r.meterRunId)}
+                  testID={`monthly-card-${index}`}
+                />
+              ))}
+              <MeterRunMonthCard
+                title={`Site total · ${v.site.code}`}
+                figures={v.totals}
+                displayUnits={v.site.displayUnits}
+                testID="monthly-card-total"
+              />
+            </View>
+          ) : (
+            <Panel title="Meter runs and site total">
+              <MonthlyVolumesTable volumes={v} onOpenDays={setDrill} />
+            </Panel>
+          )}
+          {!v.meterRuns.some((r) => r.version !== null) ? (
+            <AppText tone="muted" testID="monthly-empty">
+              No meter run of this site has a total for this month.
+            </AppText>
+          ) : null}
+          {drillRun ? (
+            <MonthDrillDown
+              key={drillRun.meterRunId}
+              meterRunId={drillRun.meterRunId}
+              tag={drillRun.tag}
+              from={v.start}
+              to={v.end}
+              timeZone={v.site.timeZone}
+              displayUnits={v.site.displayUnits}
+              onClose={() => setDrill(null)}
+            />
+          ) : null}
+          <AppText variant="caption" tone="muted">
+            Volume at base conditions is compared with the previous month and the same month a year earlier. U: expanded
+            uncertainty (k = 2) of the volume at base conditions; the site's U combines the meter runs as uncorrelated
+            (root-sum-square). Coverage of the site is its least covered meter run.
+          </AppText>
+          <AllocationPanel siteId={v.site.id} month={v.month} displayUnits={v.site.displayUnits} />
+          <MonthClosePanel siteId={v.site.id} month={v.month} canClose={can(user.role, 'closePeriod')} />
+          <Panel title="Export" testID="monthly-export">
+            {mayExport ? (
+              <View style={styles.buttons}>
+                {(['csv', 'xlsx'] as const).map((format) => (
+                  <Button
+                    key={format}
+                    label={format === 'csv' ? 'Download CSV' : 'Download Excel'}
+                    busy={exportFile.isPending && exportFile.variables?.format === format}
+                    onPress={() => exportFile.mutate({ siteId: v.site.id, siteCode: v.site.code, month, format })}
+                    testID={`monthly-export-${format}`}
+                  />
+                ))}
+                <Button
+                  label="Printable statement"
+                  busy={statement.isPending}
+                  onPress={() => statement.mutate({ siteId: v.site.id, month })}
+                  testID="monthly-statement"
+                />
+              </View>
+            ) : (
+              <AppText tone="muted">Exporting volumes is for engineers, accountants and administrators.</AppText>
+            )}
+            {exportFile.error || statement.error ? (
+              <AppText tone="alarm" testID="monthly-export-error">
+                {(exportFile.error ?? statement.error)?.message}
+              </AppText>
+            ) : null}
+            <AppText variant="caption" tone="muted">
+              Every export is recorded in the audit trail with who took it and when.
+            </AppText>
+          </Panel>
+        </>
+      ) : null}
+    </Screen>
+  );
+}
+
+const styles = StyleSheet.create({
+  monthRow: { flexDirection: 'row', alignItems: 'center', gap: space.md },
+  cards: { gap: space.md },
+  buttons: { flexDirection: 'row', flexWrap: 'wrap', gap: space.sm },
+});
