@@ -13,7 +13,8 @@ import { Panel } from '@/components/ui/Panel';
 import { ReasonDialog } from '@/components/ui/ReasonDialog';
 import { space } from '@/constants/theme';
 import { isApiError } from '@/hooks/api/client';
-import { useDecideCorrection, type Correction } from './api';
+import { useCorrectionTransmitters, useDecideCorrection, type Correction } from './api';
+import { estimateMethodText } from './estimateMethod';
 
 interface Props {
   correction: Correction;
@@ -27,12 +28,13 @@ const kg = (n: number) => `${n.toLocaleString('en', { maximumFractionDigits: 1, 
 const m3 = (n: number) => `${n.toLocaleString('en', { maximumFractionDigits: 1, minimumFractionDigits: 1 })} m³`;
 const signed = (n: number, unit: (n: number) => string) => `${n >= 0 ? '+' : '−'}${unit(Math.abs(n))}`;
 
-function whatText(c: Correction): string {
+/** @param transmitterTag the substituted transmitter's tag (its id until the transmitters have loaded) */
+function whatText(c: Correction, transmitterTag: string): string {
   if (c.kind === 'adjust') return `Adjustment: every quantity × ${c.factor}`;
   if (c.substitute) {
     return c.substitute.hold
-      ? `Substituted readings of transmitter ${c.substitute.transmitterId}: the value held from before`
-      : `Substituted readings of transmitter ${c.substitute.transmitterId}: ${c.substitute.value} in its unit`;
+      ? `Substituted readings of ${transmitterTag}: the value held from before`
+      : `Substituted readings of ${transmitterTag}: ${c.substitute.value} in its unit`;
   }
   const u = c.estimate?.uncertaintyPercent;
   return c.origin === 'estimate'
@@ -47,9 +49,20 @@ export function CorrectionCard({ correction: c, meterRunTag, timeZone, canDecide
   const decide = useDecideCorrection();
   const error = decide.error;
   const figures = c.figures;
+  // Only a reading substitution needs the meter run's transmitters (to show the tag, not the id).
+  const transmitters = useCorrectionTransmitters(c.meterRunId, Boolean(c.substitute));
+  const transmitterTag = c.substitute
+    ? (transmitters.data?.find((x) => x.id === c.substitute?.transmitterId)?.tag ??
+      `transmitter ${c.substitute.transmitterId}`)
+    : '';
   return (
     <Panel title={`${meterRunTag} · ${statusText[c.status]}`} testID={`correction-${c.id}`}>
-      <AppText variant="bodyStrong">{whatText(c)}</AppText>
+      <AppText variant="bodyStrong">{whatText(c, transmitterTag)}</AppText>
+      {c.origin === 'estimate' && c.estimate ? (
+        <AppText variant="caption" tone="muted" testID={`correction-${c.id}-method`}>
+          {estimateMethodText(c.estimate.method, c.estimate.basis)}
+        </AppText>
+      ) : null}
       <AppText>{`${formatOnSiteClock(c.start, timeZone)} → ${formatOnSiteClock(c.end, timeZone)}`}</AppText>
       <AppText tone="muted">{`Why: ${c.reason}`}</AppText>
       <AppText variant="caption" tone="muted">

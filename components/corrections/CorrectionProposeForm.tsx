@@ -18,6 +18,7 @@ import type { MeterRun } from '@/hooks/api/meterRuns';
 import type { Site } from '@/hooks/api/sites';
 import { useTransmitters } from '@/hooks/api/transmitters';
 import { useEstimate, useProposeCorrection, type CorrectionEstimate } from './api';
+import { estimateMethodText } from './estimateMethod';
 import { emptyDraft, periodOf, proposalFromDraft, type CorrectionMode, type DraftErrors } from './proposalDraft';
 
 interface Props {
@@ -156,7 +157,7 @@ export function CorrectionProposeForm({ meterRuns, sites, onDone }: Props) {
             testID="correction-mass"
           />
           <Button
-            label="Estimate from previous days"
+            label="Estimate"
             variant="secondary"
             busy={estimator.isPending}
             onPress={askEstimate}
@@ -166,7 +167,7 @@ export function CorrectionProposeForm({ meterRuns, sites, onDone }: Props) {
             <AppText variant="caption" tone="muted" testID="correction-estimate-text">
               {`Estimate: ${estimate.massKg.toFixed(1)} kg ± ${
                 estimate.uncertaintyPercent === null ? '—' : estimate.uncertaintyPercent.toFixed(1)
-              } % (95 %), the mean of the same hours over the previous 7 days. Proposed as an estimate; it is flagged estimated once approved.`}
+              } % (95 %). ${estimateMethodText(estimate.method, estimate.basis)} Proposed as an estimate; it is flagged estimated once approved.`}
             </AppText>
           ) : null}
         </View>

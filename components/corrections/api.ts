@@ -7,6 +7,7 @@ import { keepPreviousData, useMutation, useQuery, useQueryClient } from '@tansta
 import { z } from 'zod';
 
 import { apiRequest } from '@/hooks/api/client';
+import { transmitterKeys, transmitterResponseSchema } from '@/hooks/api/transmitters';
 
 const id = z.union([z.string(), z.number()]).transform(String);
 const person = z.object({ id, name: z.string(), email: z.string() });
@@ -91,6 +92,19 @@ export function useCorrections(filters: CorrectionFilters) {
     placeholderData: keepPreviousData,
     // Others decide corrections, and an approval's recompute lands a few seconds after it.
     refetchInterval: 10_000,
+  });
+}
+
+/**
+ * The meter run's transmitters (the same query and cache as the set-up screens), fetched only
+ * when `enabled`: a correction card needs them only to show a substituted transmitter's tag.
+ */
+export function useCorrectionTransmitters(meterRunId: string, enabled: boolean) {
+  return useQuery({
+    queryKey: transmitterKeys.list(meterRunId),
+    queryFn: ({ signal }) =>
+      apiRequest({ path: '/transmitters', query: { meterRunId }, schema: z.array(transmitterResponseSchema), signal }),
+    enabled,
   });
 }
 

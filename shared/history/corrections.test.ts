@@ -1,6 +1,7 @@
 import {
   correctRecord,
   estimateFromPreviousDays,
+  estimateFromSalesMeter,
   studentT975,
   substituteSamples,
   type CorrectionToApply,
@@ -205,5 +206,87 @@ describe('estimateFromPreviousDays', () => {
     expect(studentT975(1)).toBe(12.706);
     expect(studentT975(6)).toBe(2.447);
     expect(studentT975(100)).toBe(2.042);
+  });
+});
+
+describe('estimateFromSalesMeter', () => {
+  /**
+   * Worked by hand. Two hours; sales meter S 1 000 kg and 1 400 m³ at base each hour, U 0.5 %;
+   * the other well B 300 kg and 420 m³ each hour, U 1 %. Over the period S = 2 000 kg (U_S = 10 kg,
+   * the hours of one meter adding), B = 600 kg (U_B = 6 kg).
+   * Allowance 2 % of the inlet: well = S / (1 − 0.02) − B = 2 040.816 327 − 600 = 1 440.816 327 kg;
+   *   at base 2 800 / 0.98 − 840 = 2 017.142 857 m³.
+   *   U² = (10 / 0.98)² + 6² = 104.123 282 + 36 = 140.123 282 (JCGM 100:2008 §5.1.2 eq. 10)
+   *   → U = 11.837 368 kg = 0.821 574 % of 1 440.816 327 kg.
+   * Fixed allowance 20 m³ for the two hours (240 m³ a day): at S's 2 000 / 2 800 kg/m³ = 14.285 714 kg;
+   *   well = 2 000 + 14.285 714 − 600 = 1 414.285 714 kg, 2 800 + 20 − 840 = 1 980 m³;
+   *   U = √(10² + 6²) = 11.661 904 kg = 0.824 579 %.
+   */
+  const rec = (k: number, massKg: number, standardVolumeM3: number, uncertaintyPercent: number) => ({
+    startMs: T0 + k * H,
+    endMs: T0 + (k + 1) * H,
+    massKg,
+    standardVolumeM3,
+    coverage: 1,
+    flags: [] as string[],
+    uncertaintyPercent,
+  });
+  const sales = { meterRunId: '1', tag: 'S', records: [rec(0, 1000, 1400, 0.5), rec(1, 1000, 1400, 0.5)] };
+  const wellB = { meterRunId: '2', tag: 'B', records: [rec(0, 300, 420, 1), rec(1, 300, 420, 1)] };
+  const period = { startMs: T0, endMs: T0 + 2 * H };
+
+  it('is the sales meter over (1 − allowance) minus the other wells, with a root-sum-square uncertainty', () => {
+    const e = estimateFromSalesMeter({ ...period, sales, otherWells: [wellB], allowance: { percent: 2 } });
+    if (!e.ok) throw new Error(e.problem);
+    expect(e.massKg).toBeCloseTo(1440.816327, 5);
+    expect(e.standardVolumeM3).toBeCloseTo(2017.142857, 5);
+    expect(e.expandedUncertaintyKg).toBeCloseTo(11.837368, 5);
+    expect(e.uncertaintyPercent).toBeCloseTo(0.821574, 5);
+    expect(e.sales).toMatchObject({ tag: 'S', massKg: 2000, expandedUncertaintyKg: 10 });
+    expect(e.allowance.massKg).toBeCloseTo(40.816327, 5);
+  });
+
+  it('adds a fixed allowance at the sales meter’s mass per standard cubic metre, taken as exact', () => {
+    const e = estimateFromSalesMeter({ ...period, sales, otherWells: [wellB], allowance: { standardVolumeM3: 20 } });
+    if (!e.ok) throw new Error(e.problem);
+    expect(e.massKg).toBeCloseTo(1414.285714, 5);
+    expect(e.standardVolumeM3).toBeCloseTo(1980, 9);
+    expect(e.uncertaintyPercent).toBeCloseTo(0.824579, 5);
+  });
+
+  it('counts an hour split by a configuration version as its two records', () => {
+    const split = {
+      ...wellB,
+      records: [
+        { ...rec(0, 100, 140, 1), endMs: T0 + H / 3 },
+        { ...rec(0, 200, 280, 1), startMs: T0 + H / 3 },
+        rec(1, 300, 420, 1),
+      ],
+    };
+    const e = estimateFromSalesMeter({ ...period, sales, otherWells: [split], allowance: { percent: 2 } });
+    if (!e.ok) throw new Error(e.problem);
+    expect(e.massKg).toBeCloseTo(1440.816327, 5);
+  });
+
+  it('is refused, naming the member, when a member has an incomplete or estimated hour', () => {
+    const gappy = { ...wellB, records: [{ ...rec(0, 150, 210, 1), coverage: 0.5 }, rec(1, 300, 420, 1)] };
+    const e = estimateFromSalesMeter({ ...period, sales, otherWells: [gappy], allowance: { percent: 2 } });
+    expect(e).toEqual({
+      ok: false,
+      problem: expect.stringContaining('B has complete, not estimated records for 1.00 of the 2.00 hours'),
+    });
+    const estimated = {
+      ...sales,
+      records: [sales.records[0], { ...sales.records[1], flags: ['corrected', 'estimated'] }],
+    };
+    expect(
+      estimateFromSalesMeter({ ...period, sales: estimated, otherWells: [wellB], allowance: { percent: 0 } }).ok,
+    ).toBe(false);
+  });
+
+  it('is refused when the other wells exceed the sales meter', () => {
+    const big = { ...wellB, records: [rec(0, 1200, 1680, 1), rec(1, 1200, 1680, 1)] };
+    const e = estimateFromSalesMeter({ ...period, sales, otherWells: [big], allowance: { percent: 0 } });
+    expect(e.ok).toBe(false);
   });
 });

@@ -1,7 +1,8 @@
 /**
  * Corrections of hourly records (issue 9 §6, §8), pure: how an approved correction changes a
- * computed record, how substituted readings are laid over stored ones, and the estimate for
- * missing time from the same hours of previous days. SI and epoch milliseconds throughout.
+ * computed record, how substituted readings are laid over stored ones, and the estimates for
+ * missing time: from the same hours of previous days, or for a well from its sales meter minus the
+ * other wells. SI and epoch milliseconds throughout.
  *
  * A record [rs, re) and a correction [cs, ce) overlap for `overlap` ms; the record's share is
  * overlap / (re − rs) and the correction's share is overlap / (ce − cs).
@@ -225,4 +226,171 @@ export function estimateFromPreviousDays(hours: readonly EstimateHour[]): Previo
     out.push({ startMs: h.startMs, days: n, meanKg: mean, standardDeviationKg: s });
   }
   return { ok: true, massKg, uncertaintyPercent: massKg > 0 ? (expandedKg / massKg) * 100 : null, hours: out };
+}
+
+/** One hourly record of a balance-group member, as the sales-meter estimate reads it. */
+export interface MemberHourRecord {
+  startMs: number;
+  endMs: number;
+  massKg: number;
+  standardVolumeM3: number;
+  coverage: number;
+  flags: readonly string[];
+  /** Expanded (95 %) uncertainty, percent of massKg; null when the record has none. */
+  uncertaintyPercent: number | null;
+}
+
+/** A member of the balance group with its records over the estimate's period. */
+export interface EstimateMember {
+  meterRunId: string;
+  tag: string;
+  records: readonly MemberHourRecord[];
+}
+
+/** One member's quantities over the period, as the estimate used them. */
+export interface MemberQuantity {
+  meterRunId: string;
+  tag: string;
+  massKg: number;
+  standardVolumeM3: number;
+  /** Expanded uncertainty, kg (null when a record had none). */
+  expandedUncertaintyKg: number | null;
+}
+
+export type SalesMeterEstimate =
+  | {
+      ok: true;
+      massKg: number;
+      standardVolumeM3: number;
+      /** Expanded (95 %) uncertainty of the estimate, percent of massKg (null when unknown or massKg is 0). */
+      uncertaintyPercent: number | null;
+      expandedUncertaintyKg: number | null;
+      sales: MemberQuantity;
+      otherWells: MemberQuantity[];
+      allowance: { massKg: number; standardVolumeM3: number };
+    }
+  | { ok: false; problem: string };
+
+/** A record counts towards the estimate with (nearly) full coverage and when it is not itself an estimate. */
+export const SALES_ESTIMATE_MIN_COVERAGE = 0.99;
+
+/**
+ * Sums a member's records over [startMs, endMs), or says why they are not complete: every instant
+ * of the period must lie in a record with coverage ≥ 0.99 that is not estimated (an hour split by a
+ * configuration version is two records, so time is counted, not records). The hours of one meter
+ * share its systematic errors, so their absolute uncertainties add (fully correlated), as the
+ * roll-up's mass-weighted percent does.
+ */
+function memberQuantity(
+  member: EstimateMember,
+  startMs: number,
+  endMs: number,
+): { ok: true; q: MemberQuantity } | { ok: false; problem: string } {
+  let coveredMs = 0;
+  let massKg = 0;
+  let standardVolumeM3 = 0;
+  let expandedUncertaintyKg: number | null = 0;
+  for (const r of member.records) {
+    if (r.endMs <= startMs || r.startMs >= endMs) continue;
+    if (r.startMs < startMs || r.endMs > endMs)
+      return { ok: false, problem: `${member.tag} has a record crossing the period's edge` };
+    if (!(r.coverage >= SALES_ESTIMATE_MIN_COVERAGE) || r.flags.includes('estimated')) continue;
+    coveredMs += r.endMs - r.startMs;
+    massKg += r.massKg;
+    standardVolumeM3 += r.standardVolumeM3;
+    if (r.uncertaintyPercent === null) {
+      if (r.massKg !== 0) expandedUncertaintyKg = null;
+    } else if (expandedUncertaintyKg !== null)
+      expandedUncertaintyKg += (Math.abs(r.massKg) * r.uncertaintyPercent) / 100;
+  }
+  if (coveredMs < endMs - startMs)
+    return {
+      ok: false,
+      problem: `${member.tag} has complete, not estimated records for ${(coveredMs / 3_600_000).toFixed(2)} of the ${((endMs - startMs) / 3_600_000).toFixed(2)} hours`,
+    };
+  return {
+    ok: true,
+    q: { meterRunId: member.meterRunId, tag: member.tag, massKg, standardVolumeM3, expandedUncertaintyKg },
+  };
+}
+
+/**
+ * The estimate for a well's missing period [startMs, endMs) from its balance group: the sales
+ * meter (the group's one outlet) minus the other wells (the other inlets) minus the allowance.
+ *
+ * The group balances when Σ inlets − sales − allowance = 0 (shared/balance/station-balance.ts).
+ * - Allowance a percent of the inlet: with I = well + Σ others, I − S − (a/100)·I = 0, so
+ *   I = S / (1 − a/100) and well = S / (1 − a/100) − Σ others. The allowance is a share of the
+ *   inlet's gas, so the same share of its mass as of its standard volume: the formula holds for both.
+ * - Allowance a fixed standard volume A for the period (the daily allowance × hours / 24):
+ *   well = S + A − Σ others; in mass, A is taken at the sales meter's mass per standard m³ over the period.
+ * Uncertainty (JCGM 100:2008 GUM §5.1.2, eq. 10, members uncorrelated, absolute): the sales
+ * meter's sensitivity is 1 / (1 − a/100) (percent allowance) or 1 (fixed), each other well's −1,
+ * the allowance exact: U² = (c_S·U_S)² + Σ U_i²; reported as a percent of the estimate's mass.
+ * @returns the estimate, or why none can be made (a member's records incomplete, the result negative)
+ */
+export function estimateFromSalesMeter(input: {
+  startMs: number;
+  endMs: number;
+  sales: EstimateMember;
+  otherWells: readonly EstimateMember[];
+  allowance: { percent: number } | { standardVolumeM3: number };
+}): SalesMeterEstimate {
+  const { startMs, endMs } = input;
+  if (!(endMs > startMs)) return { ok: false, problem: 'the period holds no hour' };
+  const sales = memberQuantity(input.sales, startMs, endMs);
+  if (!sales.ok) return sales;
+  const others: MemberQuantity[] = [];
+  for (const w of input.otherWells) {
+    const q = memberQuantity(w, startMs, endMs);
+    if (!q.ok) return q;
+    others.push(q.q);
+  }
+  const S = sales.q;
+  const otherMassKg = others.reduce((a, w) => a + w.massKg, 0);
+  const otherVolumeM3 = others.reduce((a, w) => a + w.standardVolumeM3, 0);
+  let salesSensitivity: number;
+  let allowance: { massKg: number; standardVolumeM3: number };
+  if ('percent' in input.allowance) {
+    const share = input.allowance.percent / 100;
+    if (!(share >= 0 && share < 1))
+      return { ok: false, problem: `the allowance ${input.allowance.percent} % is not below 100 %` };
+    salesSensitivity = 1 / (1 - share);
+    // allowance = a·I = S/(1 − a) − S
+    allowance = {
+      massKg: S.massKg * (salesSensitivity - 1),
+      standardVolumeM3: S.standardVolumeM3 * (salesSensitivity - 1),
+    };
+  } else {
+    salesSensitivity = 1;
+    const kgPerM3 = S.standardVolumeM3 > 0 ? S.massKg / S.standardVolumeM3 : 0;
+    allowance = {
+      massKg: input.allowance.standardVolumeM3 * kgPerM3,
+      standardVolumeM3: input.allowance.standardVolumeM3,
+    };
+  }
+  const massKg = S.massKg + allowance.massKg - otherMassKg;
+  const standardVolumeM3 = S.standardVolumeM3 + allowance.standardVolumeM3 - otherVolumeM3;
+  if (massKg < 0)
+    return {
+      ok: false,
+      problem: `the other wells (${otherMassKg.toFixed(1)} kg) exceed the sales meter ${S.tag} with the allowance (${(S.massKg + allowance.massKg).toFixed(1)} kg)`,
+    };
+  let expandedUncertaintyKg: number | null = null;
+  if (S.expandedUncertaintyKg !== null && others.every((w) => w.expandedUncertaintyKg !== null)) {
+    const sumSquares =
+      (salesSensitivity * S.expandedUncertaintyKg) ** 2 +
+      others.reduce((a, w) => a + (w.expandedUncertaintyKg ?? 0) ** 2, 0);
+    expandedUncertaintyKg = Math.sqrt(sumSquares);
+  }
+  return {
+    ok: true,
+    massKg,
+    standardVolumeM3,
+    uncertaintyPercent: expandedUncertaintyKg !== null && massKg > 0 ? (expandedUncertaintyKg / massKg) * 100 : null,
+    expandedUncertaintyKg,
+    sales: S,
+    otherWells: others,
+    allowance,
+  };
 }

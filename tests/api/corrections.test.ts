@@ -34,7 +34,13 @@ const approve = (id: string, who = engineer2) =>
 async function totals(meterRunId: string, interval: 'hour' | 'day', from: string, to: string) {
   const res = await get(`/api/meter-runs/${meterRunId}/totals?interval=${interval}&from=${from}&to=${to}`);
   expect(res.status).toBe(200);
-  return res.body as { start: string; massKg: number; standardVolumeM3: number; flags: string[] }[];
+  return res.body as {
+    start: string;
+    massKg: number;
+    standardVolumeM3: number;
+    uncertaintyPercent: number | null;
+    flags: string[];
+  }[];
 }
 
 describe('an approved adjustment', () => {
@@ -188,4 +194,143 @@ describe('an estimate for missing time', () => {
     expect(res.status).toBe(400);
     expect(res.body.error.field).toBe('start');
   });
+});
+
+/** Another meter run at a site (the fixture's element and gas), with DP, P and T transmitters. */
+async function addMeterRun(siteId: string, tag: string) {
+  const as = { Authorization: `Bearer ${engineer.token}` };
+  const run = await t
+    .http()
+    .post('/api/meter-runs')
+    .set(as)
+    .send({
+      siteId,
+      tag: `${tag}-${t.unique()}`,
+      name: `Estimate test ${tag}`,
+      element: { kind: 'orifice', taps: 'flange', pipeDiameterM: 0.3, boreDiameterM: 0.1 },
+      fluid: {
+        kind: 'ideal-gas',
+        molarMassKgPerMol: 0.01804,
+        compressibility: 1,
+        isentropicExponent: 1.2,
+        viscosityPaS: 1.12e-5,
+      },
+      holdLimitS: 3600,
+      maxGapS: 300,
+      effectiveFrom: '2020-01-01T00:00:00Z',
+    });
+  expect(run.status).toBe(201);
+  const id = String(run.body.id);
+  const transmitter = async (kind: string, body: Record<string, unknown>) => {
+    const res = await t
+      .http()
+      .post('/api/transmitters')
+      .set(as)
+      .send({ meterRunId: id, tag: `${run.body.tag}-${kind}`, ...body });
+    expect(res.status).toBe(201);
+    return String(res.body.id);
+  };
+  const dp = await transmitter('DP', { measures: 'differential-pressure', unit: 'kPa', lowerRange: 0, upperRange: 50 });
+  const pt = await transmitter('PT', {
+    measures: 'static-pressure',
+    unit: 'MPa',
+    pressureReference: 'absolute',
+    lowerRange: 0,
+    upperRange: 4,
+  });
+  const tt = await transmitter('TT', { measures: 'temperature', unit: 'K', lowerRange: 200, upperRange: 400 });
+  /** `minutes` readings a minute from startMs at a DP of `share` of 50 kPa, P near 2 MPa, T near 300 K. */
+  const writeMinutes = (startMs: number, minutes: number, share: number) =>
+    t.services.writer.write(
+      Array.from({ length: minutes }, (_, i) => {
+        const base = { meterRunId: id, timeZone: 'UTC', timeMs: startMs + i * MIN, quality: 0 };
+        return [
+          { ...base, transmitterId: dp, value: share * 50 + (i % 2) * 0.003 },
+          { ...base, transmitterId: pt, value: 2 + (i % 3) * 1e-4 },
+          { ...base, transmitterId: tt, value: 300 + (i % 2) * 0.01 },
+        ];
+      }).flat(),
+      'csv',
+    );
+  return { id, writeMinutes };
+}
+
+describe('an estimate for a well behind a sales meter', () => {
+  it('is the sales meter over (1 − allowance) minus the other wells, with the members’ uncertainties added in quadrature', async () => {
+    // Well A (the fixture) has readings for 10:00–11:00 only; well B and the sales meter S for 10:00–12:00.
+    const f = await alarmFixture(t, engineer.token);
+    const wellB = await addMeterRun(f.siteId, 'B');
+    const sales = await addMeterRun(f.siteId, 'S');
+    const hour1 = Date.parse('2026-10-12T10:00:00Z');
+    await f.writeMinutes(hour1, repeat(60, 0.3));
+    await wellB.writeMinutes(hour1, 121, 0.4);
+    await sales.writeMinutes(hour1, 121, 0.8);
+    const group = await t
+      .http()
+      .post('/api/balance-groups')
+      .set('Authorization', `Bearer ${engineer.token}`)
+      .send({
+        siteId: f.siteId,
+        name: `Wells to sales ${t.unique()}`,
+        inletMeterRunIds: [f.meterRunId, wellB.id],
+        outletMeterRunIds: [sales.id],
+        allowancePercent: 1,
+        tolerancePercent: 1,
+      });
+    expect(group.status).toBe(201);
+    await t.services.history.settle(120_000);
+
+    const gap = { start: '2026-10-12T11:00:00Z', end: '2026-10-12T12:00:00Z' };
+    const [s] = await totals(sales.id, 'hour', gap.start, gap.end);
+    const [b] = await totals(wellB.id, 'hour', gap.start, gap.end);
+    const [aBefore] = await totals(f.meterRunId, 'hour', gap.start, gap.end);
+    expect(aBefore?.massKg ?? 0).toBeLessThan(s.massKg / 10);
+    const sU = s.uncertaintyPercent ?? Number.NaN;
+    const bU = b.uncertaintyPercent ?? Number.NaN;
+    expect(sU).toBeGreaterThan(0);
+    // By hand: the group balances when A + B − S − 0.01 (A + B) = 0, so A = S / 0.99 − B; its
+    // expanded uncertainty (JCGM 100:2008 §5.1.2 eq. 10, uncorrelated, absolute) is
+    // √((U_S / 0.99)² + U_B²) with U = mass × U% / 100.
+    const wellKg = s.massKg / 0.99 - b.massKg;
+    const wellM3 = s.standardVolumeM3 / 0.99 - b.standardVolumeM3;
+    const uKg = Math.hypot((s.massKg * sU) / 100 / 0.99, (b.massKg * bU) / 100);
+
+    const estimate = await get(
+      `/api/corrections/estimate?meterRunId=${f.meterRunId}&start=${gap.start}&end=${gap.end}`,
+    );
+    expect(estimate.status).toBe(200);
+    expect(estimate.body.method).toBe('sales-minus-other-wells');
+    expect(estimate.body.massKg).toBeCloseTo(wellKg, 6);
+    expect(estimate.body.uncertaintyPercent).toBeCloseTo((uKg / wellKg) * 100, 6);
+    expect(estimate.body.basis).toMatchObject({
+      balanceGroup: { id: String(group.body.id) },
+      salesMeter: { meterRunId: sales.id },
+      otherWells: [{ meterRunId: wellB.id }],
+      hours: ['2026-10-12T11:00:00.000Z'],
+    });
+    expect(estimate.body.basis.standardVolumeM3).toBeCloseTo(wellM3, 6);
+
+    const created = await propose({
+      meterRunId: f.meterRunId,
+      ...gap,
+      kind: 'substitute',
+      origin: 'estimate',
+      reason: 'well A transmitters lost power; estimated from the sales meter',
+    });
+    expect(created.status).toBe(201);
+    expect(created.body).toMatchObject({ origin: 'estimate', estimate: { method: 'sales-minus-other-wells' } });
+    expect((await approve(created.body.id)).status).toBe(200);
+    await t.services.history.settle(120_000);
+    const [filled] = await totals(f.meterRunId, 'hour', gap.start, gap.end);
+    expect(filled.massKg).toBeCloseTo(wellKg, 6);
+    expect(filled.flags).toEqual(expect.arrayContaining(['corrected', 'estimated']));
+
+    // An hour where the other well and the sales meter have no records: neither method can estimate it.
+    const refused = await get(
+      `/api/corrections/estimate?meterRunId=${f.meterRunId}&start=2026-10-12T13:00:00Z&end=2026-10-12T14:00:00Z`,
+    );
+    expect(refused.status).toBe(400);
+    expect(refused.body.error.field).toBe('start');
+    expect(refused.body.error.message).toContain('sales minus the other wells');
+  }, 240_000);
 });

@@ -1,4 +1,5 @@
 import { QueryTypes, type Sequelize, type Transaction } from 'sequelize';
+import type { MemberHourRecord } from '../../../shared/history/corrections';
 
 export type CorrectionStatus = 'proposed' | 'approved' | 'rejected';
 export type ReadingSubstitute = { transmitterId: string; value: number } | { transmitterId: string; hold: true };
@@ -87,6 +88,15 @@ export interface EstimateSourceHour {
   massKg: number;
   coverage: number;
   flags: string[];
+}
+
+/** A balance group in which a meter run is a well: an inlet, with exactly one outlet (the sales meter). */
+export interface WellGroup {
+  id: string;
+  name: string;
+  allowancePercent: number | null;
+  allowanceDailyM3: number | null;
+  members: { meterRunId: string; tag: string; side: 'inlet' | 'outlet' }[];
 }
 
 const selectCorrection = `
@@ -250,6 +260,80 @@ export function correctionsRepository(sequelize: Sequelize) {
         { meterRunId, from: iso(fromMs), to: iso(toMs) },
       );
       return rows.map((r) => ({ startMs: r.start.getTime(), massKg: r.mass_kg, coverage: r.coverage, flags: r.flags }));
+    },
+
+    /**
+     * The balance groups in which the meter run is an inlet and which have exactly one outlet
+     * (a well behind its sales meter), with their members and allowance.
+     */
+    async wellGroups(meterRunId: string): Promise<WellGroup[]> {
+      const groups = await select<{
+        id: string;
+        name: string;
+        allowance_percent: number | null;
+        allowance_daily_m3: number | null;
+      }>(
+        `SELECT g.id::text, g.name, g.allowance_percent, g.allowance_daily_m3
+           FROM balance_groups g
+          WHERE EXISTS (SELECT 1 FROM balance_group_members b
+                         WHERE b.balance_group_id = g.id AND b.meter_run_id = :meterRunId AND b.side = 'inlet')
+            AND (SELECT count(*) FROM balance_group_members b WHERE b.balance_group_id = g.id AND b.side = 'outlet') = 1
+          ORDER BY g.id`,
+        { meterRunId },
+      );
+      if (!groups.length) return [];
+      const members = await select<{
+        balance_group_id: string;
+        meter_run_id: string;
+        tag: string;
+        side: 'inlet' | 'outlet';
+      }>(
+        `SELECT b.balance_group_id::text, b.meter_run_id::text, m.tag, b.side
+           FROM balance_group_members b JOIN meter_runs m ON m.id = b.meter_run_id
+          WHERE b.balance_group_id IN (:ids) ORDER BY m.tag, b.meter_run_id`,
+        { ids: groups.map((g) => g.id) },
+      );
+      return groups.map((g) => ({
+        id: g.id,
+        name: g.name,
+        allowancePercent: g.allowance_percent,
+        allowanceDailyM3: g.allowance_daily_m3,
+        members: members
+          .filter((m) => m.balance_group_id === g.id)
+          .map((m) => ({ meterRunId: m.meter_run_id, tag: m.tag, side: m.side })),
+      }));
+    },
+
+    /** The hourly records of the meter runs whose start is in [fromMs, toMs), with the figures an estimate sums. */
+    async memberRecords(meterRunIds: string[], fromMs: number, toMs: number): Promise<Map<string, MemberHourRecord[]>> {
+      const out = new Map<string, MemberHourRecord[]>(meterRunIds.map((id) => [id, []]));
+      if (!meterRunIds.length) return out;
+      const rows = await select<{
+        meter_run_id: string;
+        start: Date;
+        end: Date;
+        mass_kg: number;
+        standard_volume_m3: number;
+        coverage: number;
+        flags: string[];
+        uncertainty_percent: number | null;
+      }>(
+        `SELECT meter_run_id::text, start, "end", mass_kg, standard_volume_m3, coverage, flags, uncertainty_percent
+           FROM hourly_records
+          WHERE meter_run_id IN (:ids) AND start >= :from AND start < :to ORDER BY meter_run_id, start`,
+        { ids: meterRunIds, from: iso(fromMs), to: iso(toMs) },
+      );
+      for (const r of rows)
+        out.get(r.meter_run_id)?.push({
+          startMs: r.start.getTime(),
+          endMs: r.end.getTime(),
+          massKg: r.mass_kg,
+          standardVolumeM3: r.standard_volume_m3,
+          coverage: r.coverage,
+          flags: r.flags,
+          uncertaintyPercent: r.uncertainty_percent,
+        });
+      return out;
     },
   };
 }

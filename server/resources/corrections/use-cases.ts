@@ -7,7 +7,11 @@ import {
   hourStartOf,
   hourStartsBetween,
 } from '../../../shared/history/contract-day';
-import { estimateFromPreviousDays } from '../../../shared/history/corrections';
+import {
+  estimateFromPreviousDays,
+  estimateFromSalesMeter,
+  type MemberQuantity,
+} from '../../../shared/history/corrections';
 import { recordAuditEvent } from '../../audit';
 import type { SignedInUser } from '../../auth/passport';
 import { badRequest, conflict, forbidden, notFound } from '../../errors';
@@ -67,7 +71,7 @@ async function refuseClosedMonths(pool: Pool, meterRunId: string, startMs: numbe
   }
 }
 
-/** The estimate for missing time: the mean of the same hours over the previous days, with its uncertainty. */
+/** The estimate for missing time (sales minus the other wells, or the previous days' mean), with its uncertainty. */
 export interface CorrectionEstimate extends EstimateRecord {
   meterRunId: string;
   startMs: number;
@@ -75,12 +79,90 @@ export interface CorrectionEstimate extends EstimateRecord {
 }
 
 /**
+ * "Sales minus the other wells" (issue 9 §8) for a well: the first balance group in which the
+ * meter run is an inlet, with exactly one outlet, whose sales meter and other inlets have
+ * complete, not estimated records over the whole period (shared/history/corrections.ts
+ * estimateFromSalesMeter). A fixed daily allowance counts pro rata by time (hours / 24).
+ * @returns the estimate, or why none was made (problem null when the meter run is in no such group)
+ */
+async function salesMeterEstimate(
+  repository: CorrectionsRepository,
+  meterRunId: string,
+  startMs: number,
+  endMs: number,
+  timeZone: string,
+): Promise<{ ok: true; estimate: EstimateRecord } | { ok: false; problem: string | null }> {
+  const groups = await repository.wellGroups(meterRunId);
+  const problems: string[] = [];
+  for (const group of groups) {
+    const sales = group.members.find((m) => m.side === 'outlet');
+    if (!sales) continue;
+    const others = group.members.filter((m) => m.side === 'inlet' && m.meterRunId !== meterRunId);
+    const records = await repository.memberRecords(
+      [sales.meterRunId, ...others.map((m) => m.meterRunId)],
+      startMs,
+      endMs,
+    );
+    const member = (m: { meterRunId: string; tag: string }) => ({ ...m, records: records.get(m.meterRunId) ?? [] });
+    const allowance =
+      group.allowancePercent !== null
+        ? { percent: group.allowancePercent }
+        : { standardVolumeM3: ((group.allowanceDailyM3 ?? 0) * (endMs - startMs)) / dayMs };
+    const made = estimateFromSalesMeter({
+      startMs,
+      endMs,
+      sales: member(sales),
+      otherWells: others.map(member),
+      allowance,
+    });
+    if (!made.ok) {
+      problems.push(`${group.name}: ${made.problem}`);
+      continue;
+    }
+    const quantity = (q: MemberQuantity) => ({
+      meterRunId: q.meterRunId,
+      tag: q.tag,
+      massKg: q.massKg,
+      standardVolumeM3: q.standardVolumeM3,
+      expandedUncertaintyKg: q.expandedUncertaintyKg,
+    });
+    return {
+      ok: true,
+      estimate: {
+        massKg: made.massKg,
+        uncertaintyPercent: made.uncertaintyPercent,
+        method: 'sales-minus-other-wells',
+        basis: {
+          description:
+            'the sales meter (over 1 − the allowance when it is a percent of the inlet) minus the other wells and a fixed allowance, over the same hours; uncertainty the root-sum-square of the members’ expanded uncertainties (JCGM 100:2008 §5.1.2, uncorrelated)',
+          balanceGroup: { id: group.id, name: group.name },
+          salesMeter: quantity(made.sales),
+          otherWells: made.otherWells.map(quantity),
+          allowance: {
+            percent: group.allowancePercent,
+            dailyM3: group.allowanceDailyM3,
+            massKg: made.allowance.massKg,
+            standardVolumeM3: made.allowance.standardVolumeM3,
+          },
+          standardVolumeM3: made.standardVolumeM3,
+          expandedUncertaintyKg: made.expandedUncertaintyKg,
+          start: new Date(startMs).toISOString(),
+          end: new Date(endMs).toISOString(),
+          hours: hourStartsBetween(startMs, endMs, timeZone).map((h) => new Date(h).toISOString()),
+        },
+      },
+    };
+  }
+  return { ok: false, problem: problems.length ? problems.join('; ') : null };
+}
+
+/**
  * An estimate for [startMs, endMs) of a meter run from the same hours of the previous seven days
  * (local time, so a DST day keeps its hours), each hour the mean of the days with a complete,
  * not estimated record. Uncertainty: a 95 % prediction interval per hour, added over the hours
- * (shared/history/corrections.ts). A meter run does not know whether it is a well behind a sales
- * meter (there are no balance groups yet), so "sales minus the other wells" is not offered.
- * @throws not found (meter run); bad request naming start when some hour has too few previous days
+ * (shared/history/corrections.ts). A well (an inlet of a balance group with one outlet) is
+ * estimated from its sales meter instead when the group's records allow it (salesMeterEstimate).
+ * @throws not found (meter run); bad request naming start when neither method can make an estimate
  */
 export async function estimateCorrection(
   repository: CorrectionsRepository,
@@ -90,6 +172,8 @@ export async function estimateCorrection(
   const clock = await repository.meterRunClock(meterRunId);
   if (!clock) throw notFound('Meter run');
   checkPeriod(startMs, endMs, clock, request.nowMs ?? Date.now());
+  const fromSales = await salesMeterEstimate(repository, meterRunId, startMs, endMs, clock.timeZone);
+  if (fromSales.ok) return { meterRunId, startMs, endMs, ...fromSales.estimate };
   const hours = hourStartsBetween(startMs, endMs, clock.timeZone);
   const earliest = DateTime.fromMillis(startMs, { zone: clock.timeZone })
     .minus({ days: ESTIMATE_PREVIOUS_DAYS })
@@ -110,7 +194,12 @@ export async function estimateCorrection(
     return { startMs: h, previousMassesKg };
   });
   const estimate = estimateFromPreviousDays(inputs);
-  if (!estimate.ok) throw badRequest(`start: no estimate can be made: ${estimate.problem}`, 'start', 'no_estimate');
+  if (!estimate.ok) {
+    const why = fromSales.problem
+      ? `${estimate.problem}; sales minus the other wells: ${fromSales.problem}`
+      : estimate.problem;
+    throw badRequest(`start: no estimate can be made: ${why}`, 'start', 'no_estimate');
+  }
   return {
     meterRunId,
     startMs,
