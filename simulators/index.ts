@@ -1,12 +1,16 @@
 /**
  * `npm run simulate` (and `npm start`, which spawns it): back-fills the demo history into
- * PostgreSQL, then publishes live readings over MQTT until SIGTERM/SIGINT.
+ * PostgreSQL, then publishes live readings over MQTT until SIGTERM/SIGINT; meanwhile, once the
+ * history worker has computed the demo month, imports its field totals (server/seed/demo-month-end.ts).
  *
  * Environment: DATABASE_URL (back-fill; without it only live mode runs), TALLYRUN_MQTT_URL
  * (default mqtt://127.0.0.1:1883), TALLYRUN_DEMO_PASSWORD (default 'tallyrun-demo'; the demo
- * devices' MQTT password is derived from it). Flags: --backfill-only, --live-only.
+ * devices' MQTT password is derived from it), TALLYRUN_DATA_DIR (default .tallyrun: where the
+ * imported field-totals file is kept). Flags: --backfill-only, --live-only.
  */
+import path from 'node:path';
 import { Pool } from 'pg';
+import { seedDemoFieldTotalsWhenReady } from '../server/seed/demo-month-end';
 import { backfillDemoHistory } from './backfill/backfill';
 import { storedScenarioTimeline } from './backfill/stored-timeline';
 import { startLivePublisher, type LivePublisher } from './live/live-publisher';
@@ -62,10 +66,31 @@ async function main() {
         );
       }
     }
-    await pool?.end();
-    if (stopping || args.has('--backfill-only')) process.exit(0);
+    if (stopping || args.has('--backfill-only')) {
+      await pool?.end();
+      process.exit(0);
+    }
     live = startLivePublisher({ mqttUrl, demoPassword, timeline, log });
     log(`live: publishing the demo transmitters every 5 s to ${mqttUrl} (demo month ${timeline.demoMonth})`);
+    if (pool && !args.has('--live-only')) {
+      // The field totals reconcile against Tallyrun's daily totals: import them once the history
+      // worker has computed the demo month (in the background, beside the live readings).
+      const dataDir = path.resolve(process.env.TALLYRUN_DATA_DIR || '.tallyrun');
+      void seedDemoFieldTotalsWhenReady({ pool, dataDir, databaseUrl }, timeline.demoMonth, {
+        shouldStop: () => stopping,
+      })
+        .then((r) => {
+          if (r.status === 'imported')
+            log(
+              `month end: imported ${r.days} field totals of the demo month ${timeline.demoMonth} (import ${r.importId})`,
+            );
+          else if (r.status !== 'present') log(`month end: no field totals imported (${r.status})`);
+        })
+        .catch((err: unknown) =>
+          log(`month end: field totals failed: ${err instanceof Error ? err.message : String(err)}`),
+        )
+        .finally(() => void pool.end().catch(() => undefined));
+    } else await pool?.end();
   } catch (err) {
     console.error(`[simulators] ${err instanceof Error ? err.message : String(err)}`);
     await pool?.end().catch(() => undefined);

@@ -10,6 +10,7 @@ import {
 } from '../../shared/schemas/setup';
 import { DEMO_METER_RUNS, DEMO_SITES, DEMO_TRANSMITTERS, scenarioTimeline } from '../../simulators/scenario';
 import { demoScenarioRows, seedDemoScenario } from './demo-scenario';
+import { seedDemoUsers } from './demo-users';
 
 type Ctx = Awaited<ReturnType<typeof testApp>>;
 let ctx: Ctx;
@@ -43,17 +44,31 @@ async function demoCounts() {
       await rows('SELECT count(*)::int n FROM transmitters WHERE tag IN (:transmitterTags)', { transmitterTags })
     )[0].n,
     devices: (await rows('SELECT count(*)::int n FROM devices WHERE username IN (:usernames)', { usernames }))[0].n,
+    balanceGroups: (
+      await rows(
+        "SELECT count(*)::int n FROM balance_groups g JOIN sites s ON s.id = g.site_id WHERE s.code = 'KFG' AND g.name = 'Kestrel Flats'",
+      )
+    )[0].n,
   };
 }
 
 describe('seedDemoScenario', () => {
   let first: Awaited<ReturnType<typeof seedDemoScenario>>;
   beforeAll(async () => {
+    // The balance group is recorded as made by the demo engineer, so the demo users come first (as at start).
+    await seedDemoUsers(ctx.sequelize, demoPassword);
     first = await seedDemoScenario(ctx.sequelize, { demoPassword, nowMs });
   });
 
-  it('holds the two sites, seven meter runs, eight configuration versions, 22 transmitters and two devices of SCENARIO.md', async () => {
-    expect(await demoCounts()).toEqual({ sites: 2, meterRuns: 7, configVersions: 8, transmitters: 22, devices: 2 });
+  it('holds the two sites, seven meter runs, eight configuration versions, 22 transmitters, two devices and the balance group of SCENARIO.md', async () => {
+    expect(await demoCounts()).toEqual({
+      sites: 2,
+      meterRuns: 7,
+      configVersions: 8,
+      transmitters: 22,
+      devices: 2,
+      balanceGroups: 1,
+    });
   });
 
   // Counted over the demo's own rows: other test files write sites and meter runs to the same
@@ -68,6 +83,7 @@ describe('seedDemoScenario', () => {
       configVersions: 0,
       transmitters: 0,
       devices: 0,
+      balanceGroups: 0,
     });
     expect(await demoCounts()).toEqual(before);
   });

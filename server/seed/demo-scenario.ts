@@ -1,7 +1,8 @@
 /**
  * The demo scenario's set-up (SCENARIO.md): the two sites, seven meter runs with their
  * configuration versions (KFG-101's element change on day 20 of the demo month included), their
- * transmitters, and one MQTT device per site for the simulators. The data live in
+ * transmitters, one MQTT device per site for the simulators, and the KFG balance group
+ * (demo-month-end.ts; the field totals follow once the history exists, from the simulators). The data live in
  * simulators/scenario (one source for the seed and the simulators).
  *
  * Idempotent, safe on every start: each thing is inserted only when its natural key (site code,
@@ -23,6 +24,7 @@ import {
   type ScenarioMeterRun,
   type ScenarioTimeline,
 } from '../../simulators/scenario';
+import { seedDemoBalanceGroup } from './demo-month-end';
 
 export interface DemoScenarioSeedResult {
   demoMonth: string;
@@ -31,6 +33,8 @@ export interface DemoScenarioSeedResult {
   configVersions: number;
   transmitters: number;
   devices: number;
+  /** The month-end balance group (server/seed/demo-month-end.ts). */
+  balanceGroups: number;
 }
 
 /** Serialises concurrent seeds (server start and a simulator run at once); arbitrary, fixed. */
@@ -110,6 +114,7 @@ export async function seedDemoScenario(
     configVersions: 0,
     transmitters: 0,
     devices: 0,
+    balanceGroups: 0,
   };
 
   // Hash outside the transaction (bcrypt takes a while) and only when a device is missing.
@@ -210,6 +215,8 @@ export async function seedDemoScenario(
       }
     }
   });
+  // Through the balance-groups use case, in its own transaction, once the meter runs are committed.
+  created.balanceGroups = await seedDemoBalanceGroup(sequelize);
   return created;
 }
 
