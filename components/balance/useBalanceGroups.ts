@@ -1,9 +1,9 @@
 /**
- * Balance groups: GET /api/balance-groups?siteId, GET /api/balance-groups/:id/balance
- * (?interval=day|month&from&to; plain dates on the site's clock) and /:id/allocation?month.
- * Every figure is SI: m³ at base conditions, J.
+ * Balance groups: GET /api/balance-groups?siteId, POST /api/balance-groups, GET
+ * /api/balance-groups/:id/balance (?interval=day|month&from&to; plain dates on the site's clock)
+ * and /:id/allocation?month. Every figure is SI: m³ at base conditions, J.
  */
-import { keepPreviousData, useQuery } from '@tanstack/react-query';
+import { keepPreviousData, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { z } from 'zod';
 
 import { apiRequest } from '@/hooks/api/client';
@@ -101,5 +101,26 @@ export function useAllocation(groupId: string, month: string) {
       apiRequest({ path: `/balance-groups/${groupId}/allocation`, query: { month }, schema: allocationSchema, signal }),
     placeholderData: keepPreviousData,
     retry: false,
+  });
+}
+
+/** The body of POST /api/balance-groups: exactly one of the two allowances. */
+export interface NewBalanceGroup {
+  siteId: string;
+  name: string;
+  inletMeterRunIds: string[];
+  outletMeterRunIds: string[];
+  allowancePercent?: number;
+  allowanceDailyM3?: number;
+  tolerancePercent: number;
+}
+
+/** @returns a mutation that defines a balance group; the site's list (and every balance) is read again */
+export function useCreateBalanceGroup() {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: (group: NewBalanceGroup) =>
+      apiRequest({ method: 'POST', path: '/balance-groups', body: group, schema: balanceGroupSchema }),
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: balanceKeys.all }),
   });
 }

@@ -1,17 +1,24 @@
 /**
  * Monthly volumes (issue 10), the accountant's home: pick a site and a contract month; a card per
  * meter run on a phone, one table on a wider screen; the site's total; the month's close; the
- * exports (CSV, Excel, a printable statement); a drill-down to contract days, then hours.
+ * exports (CSV, Excel, a printable statement); a drill-down to contract days, then hours; the
+ * station balance of the site's groups (the month and its contract days) and the reconciliation
+ * of a chosen meter run against its field totals.
  */
+import { useQueries } from '@tanstack/react-query';
 import { useState } from 'react';
 import { StyleSheet, View } from 'react-native';
+import { z } from 'zod';
 
+import { BalancePanel } from '@/components/balance/BalancePanel';
 import { AllocationPanel } from '@/components/month-end/AllocationPanel';
 import { MeterRunMonthCard } from '@/components/month-end/MeterRunMonthCard';
 import { MonthClosePanel } from '@/components/month-end/MonthClosePanel';
 import { MonthDrillDown } from '@/components/month-end/MonthDrillDown';
 import { MonthlyVolumesTable } from '@/components/month-end/MonthlyVolumesTable';
 import { lastMonth, shiftMonth } from '@/components/month-end/monthFormat';
+import { ReconciliationPanel } from '@/components/reconciliation/ReconciliationPanel';
+import { reconciliationKeys, reconciliationSumSchema } from '@/components/reconciliation/useReconciliations';
 import { AppText } from '@/components/ui/AppText';
 import { Button } from '@/components/ui/Button';
 import { ChoiceGroup } from '@/components/ui/ChoiceGroup';
@@ -22,6 +29,7 @@ import { can } from '@/constants/roles';
 import { space } from '@/constants/theme';
 import { formatNumber } from '@/constants/units-display';
 import { useBreakpoint } from '@/hooks/useBreakpoint';
+import { apiRequest } from '@/hooks/api/client';
 import {
   useExportMonthlyVolumes,
   useMonthlyVolumes,
@@ -39,6 +47,53 @@ function baseConditions(site: MonthlyVolumes['site']): string {
     : `${formatNumber(fromSI(site.basePressurePa, 'kPa'), 6)} kPa abs, ${formatNumber(fromSI(site.baseTemperatureK, 'degC'), 4)} °C`;
 }
 
+/**
+ * The month's reconciliation for a meter run picked here; by default the first with field totals
+ * in the month (each run's month sum is asked for, the same query the panel then reads).
+ */
+function MonthReconciliation({ volumes }: { volumes: MonthlyVolumes }) {
+  const [chosen, setChosen] = useState<string | null>(null);
+  const { start: from, end: to } = volumes;
+  const sums = useQueries({
+    queries: volumes.meterRuns.map((r) => {
+      const request = { meterRunId: r.meterRunId, from, to };
+      return {
+        queryKey: reconciliationKeys.summary(request),
+        queryFn: ({ signal }: { signal: AbortSignal }) =>
+          apiRequest({
+            path: '/reconciliations/summary',
+            query: { ...request },
+            schema: z.array(reconciliationSumSchema),
+            signal,
+          }),
+      };
+    }),
+  });
+  const withFieldTotals = volumes.meterRuns.find((r, i) => sums[i]?.data?.some((s) => s.days > 0));
+  const meterRunId = chosen ?? withFieldTotals?.meterRunId ?? volumes.meterRuns[0]?.meterRunId;
+  if (!meterRunId) return null;
+  return (
+    <View style={styles.section}>
+      <ChoiceGroup
+        label="Meter run to reconcile"
+        options={volumes.meterRuns.map((r) => ({ value: r.meterRunId, label: r.tag }))}
+        value={meterRunId}
+        onChange={setChosen}
+        testIDPrefix="monthly-reconcile-run"
+      />
+      <ReconciliationPanel
+        key={meterRunId}
+        meterRunId={meterRunId}
+        timeZone={volumes.site.timeZone}
+        from={from}
+        to={to}
+        title={`Reconciliation against field totals, ${volumes.meterRuns.find((r) => r.meterRunId === meterRunId)?.tag ?? ''}`}
+        testID="monthly-reconciliation"
+      />
+    </View>
+  );
+}
+
 export function MonthlyVolumesScreen() {
   const user = useSignedInUser();
   const breakpoint = useBreakpoint();
@@ -46,6 +101,8 @@ export function MonthlyVolumesScreen() {
   const [chosenSiteId, setSiteId] = useState<string | undefined>(undefined);
   const [month, setMonth] = useState(() => lastMonth(Date.now()));
   const [drill, setDrill] = useState<string | null>(null);
+  // The daily balance is long: folded on a phone until asked for, open on a wider screen.
+  const [dailyBalanceOpen, setDailyBalanceOpen] = useState<boolean | null>(null);
   const siteId = chosenSiteId ?? sites.data?.[0]?.id;
   const volumes = useMonthlyVolumes(siteId, month);
   const exportFile = useExportMonthlyVolumes();
@@ -53,6 +110,7 @@ export function MonthlyVolumesScreen() {
   const v = volumes.data;
   const drillRun = v?.meterRuns.find((r) => r.meterRunId === drill);
   const mayExport = can(user.role, 'exportVolumes');
+  const showDailyBalance = dailyBalanceOpen ?? breakpoint !== 'phone';
 
   return (
     <Screen
@@ -157,6 +215,41 @@ export function MonthlyVolumesScreen() {
             (root-sum-square). Coverage of the site is its least covered meter run.
           </AppText>
           <AllocationPanel siteId={v.site.id} month={v.month} displayUnits={v.site.displayUnits} />
+          <BalancePanel
+            key={`month-${v.site.id}-${v.month}`}
+            siteId={v.site.id}
+            timeZone={v.site.timeZone}
+            displayUnits={v.site.displayUnits}
+            interval="month"
+            from={v.start}
+            to={v.end}
+            title={`Station balance, ${v.month}`}
+            testID="monthly-balance"
+          />
+          <View style={styles.section}>
+            <View style={styles.buttons}>
+              <Button
+                label={showDailyBalance ? 'Hide the balance per contract day' : 'Show the balance per contract day'}
+                size="compact"
+                onPress={() => setDailyBalanceOpen(!showDailyBalance)}
+                testID="monthly-balance-days-toggle"
+              />
+            </View>
+            {showDailyBalance ? (
+              <BalancePanel
+                key={`days-${v.site.id}-${v.month}`}
+                siteId={v.site.id}
+                timeZone={v.site.timeZone}
+                displayUnits={v.site.displayUnits}
+                interval="day"
+                from={v.start}
+                to={v.end}
+                title="Station balance per contract day"
+                testID="monthly-balance-days"
+              />
+            ) : null}
+          </View>
+          <MonthReconciliation key={`${v.site.id}-${v.month}`} volumes={v} />
           <MonthClosePanel siteId={v.site.id} month={v.month} canClose={can(user.role, 'closePeriod')} />
           <Panel title="Export" testID="monthly-export">
             {mayExport ? (
@@ -199,4 +292,5 @@ const styles = StyleSheet.create({
   monthRow: { flexDirection: 'row', alignItems: 'center', gap: space.md },
   cards: { gap: space.md },
   buttons: { flexDirection: 'row', flexWrap: 'wrap', gap: space.sm },
+  section: { gap: space.sm, alignItems: 'stretch' },
 });

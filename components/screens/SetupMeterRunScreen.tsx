@@ -1,12 +1,15 @@
 /**
  * Set-up, third level: one meter run, its details and line data, its transmitters (add,
  * re-range, calibration due) and its configuration versions (add one for an element swap or a
- * new gas analysis, with its effective time and reason).
+ * new gas analysis, with its effective time and reason), and its reconciliation tolerance.
  */
+import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { useState } from 'react';
 import { StyleSheet, View } from 'react-native';
 
+import { reconciliationKeys, useReconciliationSummary } from '@/components/reconciliation/useReconciliations';
 import { Breadcrumbs } from '@/components/setup/Breadcrumbs';
+import { FieldRow } from '@/components/setup/FieldRow';
 import { ConfigVersionForm } from '@/components/setup/ConfigVersionForm';
 import { ConfigVersionList } from '@/components/setup/ConfigVersionList';
 import { describeElement } from '@/components/setup/elementDraft';
@@ -25,6 +28,10 @@ import { Screen } from '@/components/ui/Screen';
 import { space } from '@/constants/theme';
 import { useConfigVersions, useMeterRun, type ConfigVersion, type MeterRun } from '@/hooks/api/meterRuns';
 import { formatOnSiteClock } from '@/components/setup/zonedTime';
+import { fieldErrorFromServer, numberText, parseNumberText } from '@/components/setup/formFields';
+import { NumberField } from '@/components/setup/NumberField';
+import { apiRequest } from '@/hooks/api/client';
+import { z } from 'zod';
 import { useSites, type Site } from '@/hooks/api/sites';
 import { useTransmitters } from '@/hooks/api/transmitters';
 import { useBreakpoint } from '@/hooks/useBreakpoint';
@@ -76,6 +83,73 @@ function Details({ run, site }: { run: MeterRun; site: Site }) {
           </AppText>
         </View>
       )}
+    </Panel>
+  );
+}
+
+const yearMs = 365 * 24 * 3600 * 1000;
+
+/**
+ * The meter run's reconciliation tolerance (PATCH /api/reconciliations/tolerances/:id). The meter
+ * run's own JSON does not carry it, so the value in force is read from its last year of
+ * reconciliation, where there is one; a meter run starts at 0.5 %.
+ */
+function ReconciliationTolerance({ run }: { run: MeterRun }) {
+  const queryClient = useQueryClient();
+  const [window] = useState(() => ({
+    from: new Date(Date.now() - yearMs).toISOString(),
+    to: new Date(Date.now() + 24 * 3600 * 1000).toISOString(),
+  }));
+  const summary = useReconciliationSummary({ meterRunId: run.id, ...window });
+  const [text, setText] = useState('');
+  const [problem, setProblem] = useState<string | undefined>(undefined);
+  const save = useMutation({
+    mutationFn: (tolerancePercent: number) =>
+      apiRequest({
+        method: 'PATCH',
+        path: `/reconciliations/tolerances/${encodeURIComponent(run.id)}`,
+        body: { tolerancePercent },
+        schema: z.object({ meterRunId: z.string(), tolerancePercent: z.number() }),
+      }),
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: reconciliationKeys.all }),
+  });
+  const inForce = save.data?.tolerancePercent ?? summary.data?.[0]?.tolerancePercent;
+  const submit = () => {
+    const value = parseNumberText(text);
+    if (value === undefined || !Number.isFinite(value) || value <= 0 || value > 100) {
+      setProblem('must be a number above 0 and at most 100');
+      return;
+    }
+    setProblem(undefined);
+    save.mutate(value, { onSuccess: () => setText('') });
+  };
+  const serverProblem = fieldErrorFromServer(save.error)?.tolerancePercent;
+  return (
+    <Panel title="Reconciliation tolerance" testID="run-tolerance">
+      <AppText variant="caption" tone="muted" testID="run-tolerance-current">
+        {inForce !== undefined
+          ? `In force: ±${numberText(inForce)} % of the field total. A day further apart raises a reconciliation alarm.`
+          : 'How far a contract day may differ from the field total, in percent of it, before it raises an alarm. A meter run starts at ±0.5 %.'}
+      </AppText>
+      <FieldRow>
+        <NumberField
+          label="Tolerance (± % of the field total)"
+          value={text}
+          onChangeText={setText}
+          error={problem ?? serverProblem ?? (save.error && !serverProblem ? save.error.message : undefined)}
+          testID="run-tolerance-tolerancePercent"
+        />
+      </FieldRow>
+      <View style={styles.actions}>
+        <Button
+          label="Save tolerance"
+          size="compact"
+          onPress={submit}
+          busy={save.isPending}
+          testID="run-tolerance-submit"
+        />
+      </View>
+      {save.isSuccess ? <Notice testID="run-tolerance-saved">Tolerance saved.</Notice> : null}
     </Panel>
   );
 }
@@ -233,6 +307,7 @@ export function SetupMeterRunScreen({ meterRunId }: { meterRunId: string }) {
         </>
       )}
       <SettingVersionsPanel run={run.data} site={site} />
+      <ReconciliationTolerance run={run.data} />
       <SetupCaution />
     </Screen>
   );
@@ -241,6 +316,7 @@ export function SetupMeterRunScreen({ meterRunId }: { meterRunId: string }) {
 const styles = StyleSheet.create({
   facts: { gap: space.xs },
   subheading: { paddingTop: space.sm },
+  actions: { flexDirection: 'row', flexWrap: 'wrap', gap: space.sm },
   columns: { flexDirection: 'row', alignItems: 'flex-start', gap: space.lg },
   column: { flex: 1, minWidth: 0, gap: space.lg },
 });

@@ -1,11 +1,12 @@
 /**
  * Set-up, second level: one site, its fields, its meter runs (each opening its transmitters and
- * configuration versions) and the form for a new meter run.
+ * configuration versions), the form for a new meter run, and its balance groups with their form.
  */
 import { Link } from 'expo-router';
 import { useState } from 'react';
 import { Pressable, StyleSheet, View } from 'react-native';
 
+import { BalanceGroupForm } from '@/components/setup/BalanceGroupForm';
 import { Breadcrumbs } from '@/components/setup/Breadcrumbs';
 import { describeElement } from '@/components/setup/elementDraft';
 import { describeFluid } from '@/components/setup/fluidDraft';
@@ -120,6 +121,11 @@ export function SetupSiteScreen({ siteId }: { siteId: string }) {
       {runs.data ? (
         <Panel title="Add a meter run" testID="run-create-panel">
           <MeterRunForm site={site} />
+        </Panel>
+      ) : null}
+      {runs.data ? (
+        <Panel title="Balance groups" testID="balance-group-panel">
+          <BalanceGroupForm site={site} meterRuns={runs.data} />
         </Panel>
       ) : null}
       <SetupCaution />
