@@ -58,6 +58,16 @@ describe('balanceView', () => {
     );
   });
 
+  it('says whether any imbalance is larger than its own uncertainty when every period is within tolerance', () => {
+    const within = { ...day, withinTolerance: true, exceedsUncertainty: false };
+    expect(balanceSummary([within], 2)).toBe(
+      'Every period is within the tolerance of ±2.00 % of the inlet. No imbalance is larger than its own uncertainty.',
+    );
+    expect(balanceSummary([within, { ...within, exceedsUncertainty: true }], 2)).toBe(
+      'Every period is within the tolerance of ±2.00 % of the inlet. 1 imbalance is larger than its own uncertainty.',
+    );
+  });
+
   it('shows the allocation with a total row equal to the sales meter', () => {
     // The pro-rata month of the API test: factors 0.6, 0.3, 0.1 of 98 000 m³ and of 3.92 TJ (3 920 GJ);
     // six significant figures of the column's largest value: 98,000.0 m³ and 3,920.00 GJ.

@@ -90,8 +90,15 @@ export function balanceRows(
 export function balanceSummary(periods: readonly BalancePeriod[], tolerancePercent: number): string {
   if (!periods.length) return 'No totals for this window yet.';
   const outside = periods.filter((p) => !p.withinTolerance);
-  if (!outside.length)
-    return `Every period is within the tolerance of ±${formatFigure(tolerancePercent, 2)} % of the inlet.`;
+  if (!outside.length) {
+    // Said even when all is within tolerance: on a phone the per-row column sits off to the side.
+    const beyondU = periods.filter((p) => p.exceedsUncertainty === true).length;
+    const uncertainty =
+      beyondU === 0
+        ? ' No imbalance is larger than its own uncertainty.'
+        : ` ${beyondU} ${beyondU === 1 ? 'imbalance is' : 'imbalances are'} larger than ${beyondU === 1 ? 'its' : 'their'} own uncertainty.`;
+    return `Every period is within the tolerance of ±${formatFigure(tolerancePercent, 2)} % of the inlet.${uncertainty}`;
+  }
   const beyond = outside.filter((p) => p.exceedsUncertainty === true).length;
   const n = outside.length;
   return (

@@ -7,7 +7,7 @@ import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { useState } from 'react';
 import { StyleSheet, View } from 'react-native';
 
-import { reconciliationKeys, useReconciliationSummary } from '@/components/reconciliation/useReconciliations';
+import { reconciliationKeys } from '@/components/reconciliation/useReconciliations';
 import { Breadcrumbs } from '@/components/setup/Breadcrumbs';
 import { FieldRow } from '@/components/setup/FieldRow';
 import { ConfigVersionForm } from '@/components/setup/ConfigVersionForm';
@@ -26,7 +26,7 @@ import { Panel } from '@/components/ui/Panel';
 import { QueryState } from '@/components/ui/QueryState';
 import { Screen } from '@/components/ui/Screen';
 import { space } from '@/constants/theme';
-import { useConfigVersions, useMeterRun, type ConfigVersion, type MeterRun } from '@/hooks/api/meterRuns';
+import { meterRunKeys, useConfigVersions, useMeterRun, type ConfigVersion, type MeterRun } from '@/hooks/api/meterRuns';
 import { formatOnSiteClock } from '@/components/setup/zonedTime';
 import { fieldErrorFromServer, numberText, parseNumberText } from '@/components/setup/formFields';
 import { NumberField } from '@/components/setup/NumberField';
@@ -87,20 +87,9 @@ function Details({ run, site }: { run: MeterRun; site: Site }) {
   );
 }
 
-const yearMs = 365 * 24 * 3600 * 1000;
-
-/**
- * The meter run's reconciliation tolerance (PATCH /api/reconciliations/tolerances/:id). The meter
- * run's own JSON does not carry it, so the value in force is read from its last year of
- * reconciliation, where there is one; a meter run starts at 0.5 %.
- */
+/** The meter run's reconciliation tolerance (PATCH /api/reconciliations/tolerances/:id), as the meter run's JSON carries it. */
 function ReconciliationTolerance({ run }: { run: MeterRun }) {
   const queryClient = useQueryClient();
-  const [window] = useState(() => ({
-    from: new Date(Date.now() - yearMs).toISOString(),
-    to: new Date(Date.now() + 24 * 3600 * 1000).toISOString(),
-  }));
-  const summary = useReconciliationSummary({ meterRunId: run.id, ...window });
   const [text, setText] = useState('');
   const [problem, setProblem] = useState<string | undefined>(undefined);
   const save = useMutation({
@@ -111,9 +100,13 @@ function ReconciliationTolerance({ run }: { run: MeterRun }) {
         body: { tolerancePercent },
         schema: z.object({ meterRunId: z.string(), tolerancePercent: z.number() }),
       }),
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: reconciliationKeys.all }),
+    onSuccess: () =>
+      Promise.all([
+        queryClient.invalidateQueries({ queryKey: reconciliationKeys.all }),
+        queryClient.invalidateQueries({ queryKey: meterRunKeys.all }),
+      ]),
   });
-  const inForce = save.data?.tolerancePercent ?? summary.data?.[0]?.tolerancePercent;
+  const inForce = save.data?.tolerancePercent ?? run.reconciliationTolerancePercent;
   const submit = () => {
     const value = parseNumberText(text);
     if (value === undefined || !Number.isFinite(value) || value <= 0 || value > 100) {

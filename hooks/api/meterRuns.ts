@@ -43,6 +43,8 @@ export const meterRunResponseSchema = z.object({
   stackSwitchDownShare: z.number(),
   /** No-flow cutoff, percent of the active DP transmitter's span (a dated setting; absent from older servers). */
   noFlowCutoffPercentOfSpan: z.number().optional(),
+  /** Reconciliation tolerance against field totals, ± percent of the field total. */
+  reconciliationTolerancePercent: z.number().optional(),
   /** Line data (nominal size, schedule, materials, straight lengths...), all optional. */
   line: z.record(z.string(), z.unknown()).catch({}),
   /** Absent when no configuration version is in effect yet. */

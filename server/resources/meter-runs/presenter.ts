@@ -40,6 +40,7 @@ export const presentMeterRun = (m: MeterRunRecord, current?: ConfigVersionRecord
   stackSwitchDownShare: m.stackSwitchDownShare,
   line: m.line,
   noFlowCutoffPercentOfSpan: percentOf(m.noFlowCutoffShare),
+  reconciliationTolerancePercent: m.reconciliationTolerancePercent,
   ...(current ? { element: current.element, fluid: current.fluid, configVersionId: current.id } : {}),
 });
 

@@ -15,6 +15,8 @@ export interface MeterRunRecord {
   stackSwitchDownShare: number;
   /** No-flow cutoff, share of the active DP transmitter's span (the API shows it in percent). */
   noFlowCutoffShare: number;
+  /** Tolerance of the reconciliation against field totals, percent (migration 0012). */
+  reconciliationTolerancePercent: number;
   line: Record<string, unknown>;
 }
 
@@ -85,7 +87,7 @@ interface ConfigVersionHistoryRow {
   author_name: string | null;
 }
 
-export type NewMeterRun = Omit<MeterRunRecord, 'id' | 'noFlowCutoffShare'>;
+export type NewMeterRun = Omit<MeterRunRecord, 'id' | 'noFlowCutoffShare' | 'reconciliationTolerancePercent'>;
 export type NewConfigVersion = Omit<ConfigVersionRecord, 'id' | 'createdAt'> & { createdBy: string };
 
 const meterRunRecord = (m: MeterRun): MeterRunRecord => ({
@@ -99,12 +101,18 @@ const meterRunRecord = (m: MeterRun): MeterRunRecord => ({
   stackSwitchDownShare: m.stackSwitchDownShare,
   // Not a model attribute (migration 0007 added the column): read through `withCutoff`.
   noFlowCutoffShare: Number(m.get('noFlowCutoffShare') ?? 0.005),
+  reconciliationTolerancePercent: Number(m.get('reconciliationTolerancePercent') ?? 0.5),
   line: m.line,
 });
 
 /** Finds that also read the no-flow cutoff column. */
 const withCutoff: Pick<FindOptions, 'attributes'> = {
-  attributes: { include: [[col('no_flow_cutoff_share'), 'noFlowCutoffShare']] },
+  attributes: {
+    include: [
+      [col('no_flow_cutoff_share'), 'noFlowCutoffShare'],
+      [col('reconciliation_tolerance_percent'), 'reconciliationTolerancePercent'],
+    ],
+  },
 };
 
 const configVersionRecord = (c: ConfigVersion): ConfigVersionRecord => ({
