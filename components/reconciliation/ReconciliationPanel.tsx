@@ -76,7 +76,9 @@ export function ReconciliationPanel({ meterRunId, timeZone, from, to, title, tes
               />
             </View>
           ))}
-          {days.data.length ? <Chart {...percentChart(days.data, timeZone)} testID="reconciliation-chart" /> : null}
+          {days.data.length ? (
+            <Chart {...percentChart(days.data, timeZone, { from, to })} testID="reconciliation-chart" />
+          ) : null}
         </View>
       ) : null}
     </Panel>

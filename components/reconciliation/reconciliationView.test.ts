@@ -90,6 +90,19 @@ describe('percentChart', () => {
     expect(chart.series[0].values[0]).toBeCloseTo(0.50251256, 8);
     expect(chart.lines?.map((l) => l.value)).toEqual([0.5, -0.5]);
   });
+
+  it('spans the chosen window on the site clock, so a single day still has a dated axis', () => {
+    // 2026-11-01 00:00 in Denver is 06:00Z (MDT, UTC−6, until 2026-11-01 08:00Z); 2026-12-01 00:00 is 07:00Z (MST).
+    const chart = percentChart(days.slice(0, 1), 'America/Denver', { from: '2026-11-01', to: '2026-12-01' });
+    expect(chart.x.range).toEqual([
+      Date.parse('2026-11-01T06:00:00Z') / 1000,
+      Date.parse('2026-12-01T07:00:00Z') / 1000,
+    ]);
+    expect(percentChart(days.slice(0, 1), 'UTC').x.range).toEqual([
+      Date.parse(days[0].start) / 1000,
+      Date.parse(days[0].start) / 1000 + 86_400,
+    ]);
+  });
 });
 
 describe('tableDecimals', () => {

@@ -158,13 +158,31 @@ export function reconciliationGroups(
  * The daily chart of percent difference: one stepped line per quantity and unit (percent has no
  * unit, so they share an axis), the tolerance drawn as dashed lines above and below zero.
  */
-export function percentChart(days: readonly ReconciliationDay[], timeZone: string): ChartProps {
+export function percentChart(
+  days: readonly ReconciliationDay[],
+  timeZone: string,
+  window?: { from: string; to: string },
+): ChartProps {
   const starts = [...new Set(days.map((d) => Date.parse(d.start)))].sort((a, b) => a - b);
+  // The chosen window as the x range (plain dates on the site's clock): with a single day the
+  // plot would otherwise have no width and label its axis from 1970.
+  const windowMs = window
+    ? [
+        DateTime.fromISO(window.from, { zone: timeZone }).toMillis(),
+        DateTime.fromISO(window.to, { zone: timeZone }).toMillis(),
+      ]
+    : null;
+  const range: [number, number] | undefined =
+    windowMs && windowMs.every(Number.isFinite) && windowMs[1] > windowMs[0]
+      ? [windowMs[0] / 1000, windowMs[1] / 1000]
+      : starts.length
+        ? [starts[0] / 1000, Math.max(starts[starts.length - 1], starts[0] + 86_400_000) / 1000]
+        : undefined;
   const keys = [...new Set(days.map((d) => `${d.quantity}|${d.unit}`))];
   const tolerance = days.length ? days[days.length - 1].tolerancePercent : null;
   return {
     title: 'Daily difference from the field totals, percent of the field total',
-    x: { values: starts.map((ms) => ms / 1000), kind: 'time', label: 'Contract day', timeZone },
+    x: { values: starts.map((ms) => ms / 1000), kind: 'time', label: 'Contract day', timeZone, range },
     axes: [{ scale: 'pct', label: 'Difference, % of field', side: 'left' }],
     series: keys.map((key, rank) => {
       const [quantity, unit] = key.split('|');
