@@ -320,7 +320,7 @@ export function correctionsRepository(sequelize: Sequelize) {
       }>(
         `SELECT meter_run_id::text, start, "end", mass_kg, standard_volume_m3, coverage, flags, uncertainty_percent
            FROM hourly_records
-          WHERE meter_run_id IN (:ids) AND start >= :from AND start < :to ORDER BY meter_run_id, start`,
+          WHERE meter_run_id IN (:ids) AND start >= :from AND start < :to ORDER BY hourly_records.meter_run_id, start`,
         { ids: meterRunIds, from: iso(fromMs), to: iso(toMs) },
       );
       for (const r of rows)

@@ -56,6 +56,21 @@ const versionsOf = async (meterRunId: string) =>
   (await t.http().get(`/api/meter-runs/${meterRunId}/config-versions`).set('Authorization', `Bearer ${engineer.token}`))
     .body;
 
+describe('PATCH /api/meter-runs/:id', () => {
+  it('keeps the line data and dated settings when a PATCH changes only the name (no create defaults applied)', async () => {
+    const id = await meterRun();
+    const auth = `Bearer ${engineer.token}`;
+    const line = { nominalSize: '4 in', schedule: '80' };
+    expect((await t.http().patch(`/api/meter-runs/${id}`).set('Authorization', auth).send({ line })).status).toBe(200);
+    expect(
+      (await t.http().patch(`/api/meter-runs/${id}`).set('Authorization', auth).send({ maxGapS: 120 })).status,
+    ).toBe(200);
+    const renamed = await t.http().patch(`/api/meter-runs/${id}`).set('Authorization', auth).send({ name: 'Renamed' });
+    expect(renamed.status).toBe(200);
+    expect(renamed.body).toMatchObject({ name: 'Renamed', line, maxGapS: 120 });
+  });
+});
+
 describe('configuration history of a meter run', () => {
   it('lists the first version with who made it, its reason, first: true and no changes', async () => {
     const id = await meterRun();

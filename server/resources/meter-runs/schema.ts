@@ -38,7 +38,8 @@ export const updateMeterRunBody = z
     holdLimitS: z.number().positive().optional(),
     maxGapS: z.number().positive().optional(),
     noFlowCutoffPercentOfSpan: noFlowCutoffPercentOfSpan.optional(),
-    line: meterRunSchema.shape.line.optional(),
+    // Without its default ({}): a PATCH that leaves the line out must not wipe it.
+    line: meterRunSchema.shape.line.unwrap().optional(),
     ...datedChangeFields,
   })
   .strict();

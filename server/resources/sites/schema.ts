@@ -11,5 +11,10 @@ export type SiteInput = z.infer<typeof createSiteBody>;
  * conditions and atmospheric pressure are dated: a change is a version in force from
  * `effectiveFrom` (default now), with a `reason`, and recomputes the site's meter runs from then only.
  */
-export const updateSiteBody = siteSchema.partial().extend(datedChangeFields).strict();
+export const updateSiteBody = siteSchema
+  .partial()
+  // Without its default: a PATCH that leaves the units out must leave them as they are (zod applies
+  // a field's default even inside partial()).
+  .extend({ displayUnits: siteSchema.shape.displayUnits.unwrap().optional(), ...datedChangeFields })
+  .strict();
 export type SiteChanges = z.infer<typeof updateSiteBody>;

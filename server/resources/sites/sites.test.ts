@@ -20,6 +20,19 @@ const site = (over: Record<string, unknown> = {}) => ({
 });
 
 describe('/api/sites', () => {
+  it('keeps the display units when a PATCH leaves them out (the create default is not applied to a change)', async () => {
+    const auth = `Bearer ${engineer.token}`;
+    const created = await t
+      .http()
+      .post('/api/sites')
+      .set('Authorization', auth)
+      .send(site({ displayUnits: 'us' }));
+    expect(created.status).toBe(201);
+    const patched = await t.http().patch(`/api/sites/${created.body.id}`).set('Authorization', auth).send({});
+    expect(patched.status).toBe(200);
+    expect(patched.body.displayUnits).toBe('us');
+  });
+
   it('creates a site and returns it with its id', async () => {
     const body = site();
     const res = await t.http().post('/api/sites').set('Authorization', `Bearer ${engineer.token}`).send(body);
