@@ -2,6 +2,7 @@
  * What a meter run is: its site, primary element, fluid and line, and its transmitters with
  * their ranges, stacked roles and calibration dates. Values in the site's display units.
  */
+import { Link } from 'expo-router';
 import { StyleSheet, View } from 'react-native';
 
 import { AppText } from '@/components/ui/AppText';
@@ -89,7 +90,12 @@ export function MeterRunHeader({ run, site, transmitters, today }: MeterRunHeade
       key: t.id,
       testID: `transmitter-row-${t.tag}`,
       cells: {
-        tag: t.tag,
+        // The tag opens the transmitter's calibration history.
+        tag: (
+          <Link href={`/transmitters/${t.id}`} testID={`transmitter-link-${t.tag}`}>
+            <AppText variant="label">{t.tag}</AppText>
+          </Link>
+        ),
         measures: measuresLabel[t.measures],
         range: `${formatPlain(t.lowerRange)} to ${formatPlain(t.upperRange)} ${unitLabel(t.unit)}${pressureSuffix}`,
         role: t.measures === 'differential-pressure' ? roleLabel[t.stackRole] : '—',

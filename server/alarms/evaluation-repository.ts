@@ -163,12 +163,24 @@ export async function settledHours(
   }));
 }
 
-/** @returns the transmitters with a calibration date, or with a calibration alarm still open */
+/**
+ * The due date of each transmitter's calibration: the next due date of its latest calibration in
+ * force (by calibration date, then the later record; one corrected by a later record is not in
+ * force), or the transmitter's own calibration_due when it has no recorded calibration (issue 11).
+ * @returns the transmitters with a calibration date, or with a calibration alarm still open
+ */
 export async function calibrationTransmitters(db: Db): Promise<CalibrationTransmitter[]> {
   const { rows } = await db.query<CalibrationRow>(
-    `SELECT t.id::text, t.tag, t.meter_run_id::text, to_char(t.calibration_due, 'YYYY-MM-DD') AS due, s.time_zone
+    `SELECT t.id::text, t.tag, t.meter_run_id::text, to_char(coalesce(c.next_due, t.calibration_due), 'YYYY-MM-DD') AS due,
+            s.time_zone
        FROM transmitters t JOIN meter_runs m ON m.id = t.meter_run_id JOIN sites s ON s.id = m.site_id
-      WHERE t.calibration_due IS NOT NULL
+       LEFT JOIN LATERAL (
+         SELECT k.next_due FROM transmitter_calibrations k
+          WHERE k.transmitter_id = t.id
+            AND NOT EXISTS (SELECT 1 FROM transmitter_calibrations x WHERE x.corrects_id = k.id)
+          ORDER BY k.calibrated_on DESC, k.id DESC LIMIT 1
+       ) c ON true
+      WHERE coalesce(c.next_due, t.calibration_due) IS NOT NULL
          OR EXISTS (SELECT 1 FROM alarms a WHERE a.transmitter_id = t.id AND a.condition IN ('calibration-due', 'calibration-overdue') AND a.state <> 'normal')`,
   );
   return rows.map((r) => ({ id: r.id, tag: r.tag, meterRunId: r.meter_run_id, due: r.due, timeZone: r.time_zone }));
