@@ -16,6 +16,7 @@ import { serveWebClient } from './web';
 import { sitesRouter } from './resources/sites/router';
 import { meterRunsRouter } from './resources/meter-runs/router';
 import { meterRunHistoryRouter } from './resources/meter-run-history/router';
+import { elementCareRouter } from './resources/element-care/router';
 import { transmittersRouter } from './resources/transmitters/router';
 import { devicesRouter } from './resources/devices/router';
 import { importsRouter } from './resources/imports/router';
@@ -32,6 +33,8 @@ import { periodsRouter } from './resources/periods/router';
 import { monthlyVolumesRouter } from './resources/monthly-volumes/router';
 import { exportsRouter } from './resources/exports/router';
 import { balanceGroupsRouter } from './resources/balance-groups/router';
+import { calibrationCertificatesRouter, transmitterCalibrationsRouter } from './resources/calibrations/router';
+import { certificatesDirBeside } from './certificates/store';
 import { LiveBoard } from './live-board';
 import type { Services } from './services';
 
@@ -98,6 +101,19 @@ export function createApp(options: AppOptions): Express {
       }),
     ],
     ['/meter-runs', meterRunHistoryRouter(services.pool)],
+    [
+      '/meter-runs',
+      // Element calibrations, gas analyses and inspections (issue 11): their versions recompute as any other.
+      elementCareRouter(sequelize, {
+        configChanged: async (meterRunId, from, configVersionId) => {
+          setupChanged();
+          await services.history.queueHours([meterRunId], from.getTime(), Date.now(), {
+            cause: 'configuration-version',
+            reference: configVersionId ?? null,
+          });
+        },
+      }),
+    ],
     [
       '/transmitters',
       transmittersRouter(sequelize, {
@@ -166,6 +182,23 @@ export function createApp(options: AppOptions): Express {
     ['/exports', exportsRouter(services.pool, sequelize)],
     // Station balances and pro-rata allocation (issue 10 §3, §4): every role reads; engineers define groups.
     ['/balance-groups', balanceGroupsRouter(sequelize)],
+    // Calibrations of transmitters with their certificates (issue 11 §1): every role reads; engineers record.
+    [
+      '/transmitters',
+      transmitterCalibrationsRouter({
+        sequelize,
+        uploadDir: services.uploadDir,
+        certificatesDir: certificatesDirBeside(services.uploadDir),
+      }),
+    ],
+    [
+      '/calibrations',
+      calibrationCertificatesRouter({
+        sequelize,
+        uploadDir: services.uploadDir,
+        certificatesDir: certificatesDirBeside(services.uploadDir),
+      }),
+    ],
   ];
   const api = express.Router();
   for (const [path, router] of publicRoutes) api.use(path, router);

@@ -19,6 +19,7 @@ describe('recordFlag', () => {
         'calculation-error',
         'low-in-range',
         'missing-data',
+        'outside-calibration-range',
         'outside-standard-limits',
         'over-range',
       ].sort(),

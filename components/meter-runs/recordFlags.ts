@@ -31,6 +31,12 @@ const known: Record<string, RecordFlag> = {
     level: 'attention',
     meaning: 'Reynolds number, pressure ratio or geometry outside the standard’s limits.',
   },
+  'outside-calibration-range': {
+    label: 'Outside calibration',
+    shape: '◈',
+    level: 'attention',
+    meaning: 'Reynolds number outside the laboratory calibration’s points: C was held at the nearest end value.',
+  },
   'missing-data': {
     label: 'Missing data',
     shape: '○',

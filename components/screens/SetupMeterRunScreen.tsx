@@ -8,6 +8,11 @@ import { useState } from 'react';
 import { StyleSheet, View } from 'react-native';
 
 import { reconciliationKeys } from '@/components/reconciliation/useReconciliations';
+import {
+  ElementCalibrationsPanel,
+  GasAnalysesPanel,
+  InspectionsPanel,
+} from '@/components/element-care/ElementCarePanels';
 import { Breadcrumbs } from '@/components/setup/Breadcrumbs';
 import { FieldRow } from '@/components/setup/FieldRow';
 import { ConfigVersionForm } from '@/components/setup/ConfigVersionForm';
@@ -300,6 +305,9 @@ export function SetupMeterRunScreen({ meterRunId }: { meterRunId: string }) {
         </>
       )}
       <SettingVersionsPanel run={run.data} site={site} />
+      <GasAnalysesPanel meterRunId={run.data.id} />
+      <ElementCalibrationsPanel meterRunId={run.data.id} />
+      <InspectionsPanel meterRunId={run.data.id} />
       <ReconciliationTolerance run={run.data} />
       <SetupCaution />
     </Screen>

@@ -15,6 +15,8 @@ import * as m0010 from '../migrations/0010-database-roles';
 import * as m0011 from '../migrations/0011-periods';
 import * as m0012 from '../migrations/0012-reconciliation';
 import * as m0013 from '../migrations/0013-balance-groups';
+import * as m0014 from '../migrations/0014-calibrations';
+import * as m0015 from '../migrations/0015-element-care';
 
 /**
  * Migrations are listed here, in order, rather than globbed: the list works the same under
@@ -34,6 +36,8 @@ const migrations = [
   { name: '0011-periods', ...m0011 },
   { name: '0012-reconciliation', ...m0012 },
   { name: '0013-balance-groups', ...m0013 },
+  { name: '0014-calibrations', ...m0014 },
+  { name: '0015-element-care', ...m0015 },
 ];
 
 export function migrator(sequelize: Sequelize) {

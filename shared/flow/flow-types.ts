@@ -40,6 +40,11 @@ export interface ElementSpec {
   elementMaterial?: MaterialName;
   dischargeCoefficient?: number;
   calibration?: CalibrationPoint[];
+  /**
+   * The laboratory's stated expanded uncertainty of C (k = 2), percent, from the calibration
+   * certificate of `calibration`; without it a typical laboratory figure is assumed.
+   */
+  calibrationUncertaintyPercent?: number;
 }
 
 export interface FlowConditions {

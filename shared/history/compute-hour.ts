@@ -223,6 +223,7 @@ export function computeHour(inputs: HourInputs): HourlyRecord {
     if (share < LOW_IN_RANGE_SHARE_OF_SPAN) sums.flags.add('low-in-range');
     if (dpPa > series.upperRangePa) sums.flags.add('over-range');
     if (point.outsideStandardLimits) sums.flags.add('outside-standard-limits');
+    if (point.outsideCalibrationRange) sums.flags.add('outside-calibration-range');
     addFlowingInterval(sums, durationMs, point, dpPa, p.value, temperature.value, dpBandOf(share));
   }
 

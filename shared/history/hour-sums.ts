@@ -34,6 +34,7 @@ export const HOUR_FLAG_ORDER = [
   'low-in-range',
   'over-range',
   'outside-standard-limits',
+  'outside-calibration-range',
   'config-changed',
   'calculation-error',
   'energy-unavailable',

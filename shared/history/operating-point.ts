@@ -22,6 +22,11 @@ export interface OperatingPoint {
   uncertaintyPercent: number;
   /** A warning whose code starts with 'iso5167.' (geometry, Re_D, p2/p1) applies. */
   outsideStandardLimits: boolean;
+  /**
+   * Re_D lies outside the laboratory curve's points (C is held at the end value there): the
+   * calibration does not vouch for this point. false without a curve.
+   */
+  outsideCalibrationRange: boolean;
 }
 
 /** The DP transmitter that supplied the reading. */
@@ -74,6 +79,12 @@ export function evaluateOperatingPoint(
     outsideStandardLimits = pointWarnings.some((w) => w.code.startsWith(ISO_5167_CODE));
   }
 
+  const calibration = element.calibration;
+  const outsideCalibrationRange =
+    calibration !== null &&
+    (flow.reynoldsNumber < calibration.minimumReynoldsNumber ||
+      flow.reynoldsNumber > calibration.maximumReynoldsNumber);
+
   const standardVolumeFlowM3PerS = baseDensity !== null && baseDensity > 0 ? massFlowKgPerS / baseDensity : 0;
   let energyFlowW: number | null = null;
   if (version.energy.kind === 'standard-volume') {
@@ -102,5 +113,6 @@ export function evaluateOperatingPoint(
       spanPa: transmitter.spanPa,
     }),
     outsideStandardLimits,
+    outsideCalibrationRange,
   };
 }

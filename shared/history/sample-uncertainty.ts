@@ -4,8 +4,8 @@
  * accuracy (percent of span, taken as an expanded uncertainty) turned into percent of the
  * reading at the actual DP, and fixed allowances for the diameters and the density model.
  * Not included, because the hour's inputs do not carry them: the static pressure and
- * temperature transmitters' own uncertainties (which add to the density's) and a calibration
- * certificate's stated U(C).
+ * temperature transmitters' own uncertainties (which add to the density's). A laboratory curve
+ * with a certificate's stated U(C) (element.calibrationUncertaintyPercent) replaces the default U(C).
  */
 import type { ElementSpec } from '../flow/flow-types';
 import type { PreparedElement } from '../flow/prepare-element';
@@ -64,6 +64,7 @@ export function sampleUncertaintyPercent(input: SampleUncertaintyInput): number 
     venturiType: spec.venturiType,
     nozzleType: spec.nozzleType,
     calibrated: element.calibration !== null,
+    certificateUncertaintyPercent: element.calibration !== null ? spec.calibrationUncertaintyPercent : undefined,
   });
   const expansibilityPercent = expansibilityUncertaintyPercent(
     element.kind,

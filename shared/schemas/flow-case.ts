@@ -35,6 +35,9 @@ export const elementSpecSchema = z
       elementMaterial: materialName.optional(),
       dischargeCoefficient: positive('dischargeCoefficient').max(1.2, 'dischargeCoefficient must be ≤ 1.2').optional(),
       calibration: z.array(calibrationPointSchema).min(1, 'calibration needs at least one point').optional(),
+      calibrationUncertaintyPercent: positive('calibrationUncertaintyPercent')
+        .max(10, 'calibrationUncertaintyPercent must be ≤ 10 %')
+        .optional(),
     },
     required('element'),
   )
@@ -70,6 +73,13 @@ export const elementSpecSchema = z
         code: 'custom',
         path: ['calibration'],
         message: 'give either a fixed dischargeCoefficient or a calibration curve, not both',
+      });
+    }
+    if (e.calibrationUncertaintyPercent !== undefined && e.calibration === undefined) {
+      ctx.addIssue({
+        code: 'custom',
+        path: ['calibrationUncertaintyPercent'],
+        message: 'calibrationUncertaintyPercent belongs to a calibration curve: give the calibration points too',
       });
     }
     if (e.calibration) {

@@ -47,3 +47,32 @@ describe('expansibilityUncertaintyPercent', () => {
     expect(expansibilityUncertaintyPercent('orifice', 0.5, 25000, 6e6, 1.3, false)).toBe(0);
   });
 });
+
+describe('dischargeCoefficientUncertaintyPercent with a calibration certificate (issue 11 §2)', () => {
+  const base = { beta: 0.5, pipeDiameterM: 0.1, reynoldsNumber: 1e6 };
+  it("gives a calibrated cone the certificate's U(C) (0.8 %) rather than the typical 0.5 %", () => {
+    expect(
+      dischargeCoefficientUncertaintyPercent({
+        ...base,
+        kind: 'cone',
+        calibrated: true,
+        certificateUncertaintyPercent: 0.8,
+      }),
+    ).toBe(0.8);
+    expect(dischargeCoefficientUncertaintyPercent({ ...base, kind: 'cone', calibrated: true })).toBe(0.5);
+  });
+  it("gives any element with a laboratory curve its certificate's U(C), and ignores a certificate without a curve", () => {
+    expect(
+      dischargeCoefficientUncertaintyPercent({
+        ...base,
+        kind: 'orifice',
+        calibrated: true,
+        certificateUncertaintyPercent: 0.3,
+      }),
+    ).toBe(0.3);
+    // ISO 5167-2:2003 §5.3.3.1: 0.5 % for 0.2 ≤ β ≤ 0.6 (D = 100 mm ≥ 71.12 mm, Re_D ≥ 10 000).
+    expect(
+      dischargeCoefficientUncertaintyPercent({ ...base, kind: 'orifice', certificateUncertaintyPercent: 0.3 }),
+    ).toBe(0.5);
+  });
+});

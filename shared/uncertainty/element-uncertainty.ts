@@ -13,6 +13,11 @@ export interface DischargeCoefficientUncertaintyInput {
   nozzleType?: NozzleType;
   /** true when C comes from a laboratory calibration (cone meters). */
   calibrated?: boolean;
+  /**
+   * The calibration certificate's stated U(C)/C, percent (k = 2): when C comes from a laboratory
+   * curve, this is its uncertainty whatever the element kind, rather than the standard's default.
+   */
+  certificateUncertaintyPercent?: number;
 }
 
 /**
@@ -25,11 +30,21 @@ export interface DischargeCoefficientUncertaintyInput {
  *   long-radius nozzle §5.2.6.3 [mem]: 2 %.
  * - Cone, ISO 5167-5:2016: uncalibrated 5 % (TRADE.md §2 [mem]); calibrated 0.5 % [mem], a
  *   typical laboratory figure: use the calibration certificate's value when there is one.
+ * - Any element with a laboratory curve and a certificate: the certificate's stated U(C)/C
+ *   (the curve replaces the standard's equation, so the standard's figure no longer applies;
+ *   ISO 5167-1:2003 §8 combines whatever U(C) the source of C states [mem]).
  * @param input element kind, β, D, Re_D and subtype
  * @returns U(C)/C in percent
  */
 export function dischargeCoefficientUncertaintyPercent(input: DischargeCoefficientUncertaintyInput): number {
   const { kind, beta } = input;
+  if (input.calibrated && input.certificateUncertaintyPercent !== undefined) {
+    if (!(input.certificateUncertaintyPercent > 0))
+      throw new Error(
+        `dischargeCoefficientUncertaintyPercent: element.calibrationUncertaintyPercent must be > 0 (got ${input.certificateUncertaintyPercent})`,
+      );
+    return input.certificateUncertaintyPercent;
+  }
   switch (kind) {
     case 'orifice': {
       let u = beta < 0.2 ? 0.7 - beta : beta <= 0.6 ? 0.5 : 1.667 * beta - 0.5;
