@@ -17,6 +17,7 @@ import { space } from '@/constants/theme';
 import { useUpdateMeterRun, type MeterRunChange, type MeterRun } from '@/hooks/api/meterRuns';
 import type { Site } from '@/hooks/api/sites';
 import { lineSchema, meterRunSchema } from '@/shared/schemas/setup';
+import { DatedChangeFields } from './DatedChangeFields';
 import { FieldRow } from './FieldRow';
 import { FormErrorSummary } from './FormErrorSummary';
 import { FormSection } from './FormSection';
@@ -154,34 +155,16 @@ export function MeterRunDetailsForm({ meterRun, site, onDone, onCancel }: MeterR
       </FieldRow>
       {limitsChanged ? (
         <>
-          <FieldRow>
-            <View style={styles.field}>
-              <TextField
-                label={`Effective date (${site.timeZone})`}
-                value={effective.date}
-                onChangeText={(date) => setEffective((current) => ({ ...current, date }))}
-                error={shown.effectiveFrom}
-                hint="YYYY-MM-DD on the site’s clock"
-                testID={id('effectiveFrom')}
-              />
-            </View>
-            <View style={styles.field}>
-              <TextField
-                label="Effective time"
-                value={effective.time}
-                onChangeText={(time) => setEffective((current) => ({ ...current, time }))}
-                hint="HH:MM, 24 h"
-                testID={id('effectiveTime')}
-              />
-            </View>
-          </FieldRow>
-          <TextField
-            label="Reason"
-            value={reason}
-            onChangeText={setReason}
-            error={shown.reason}
-            hint="Why the limits change. It goes into the audit trail and the configuration history."
-            testID={id('reason')}
+          <DatedChangeFields
+            effective={effective}
+            onEffectiveChange={setEffective}
+            reason={reason}
+            onReasonChange={setReason}
+            errors={shown}
+            dateLabel={`Effective date (${site.timeZone})`}
+            timeLabel="Effective time"
+            reasonHint="Why the limits change. It goes into the audit trail and the configuration history."
+            testIDPrefix={prefix}
           />
           {backDated ? (
             <StateBadge

@@ -15,6 +15,7 @@ import { TextField } from '@/components/ui/TextField';
 import { space } from '@/constants/theme';
 import { useCreateSite, useUpdateSite, type Site } from '@/hooks/api/sites';
 import { siteSchema } from '@/shared/schemas/setup';
+import { DatedChangeFields } from './DatedChangeFields';
 import { FieldRow } from './FieldRow';
 import { FormErrorSummary } from './FormErrorSummary';
 import {
@@ -284,34 +285,16 @@ export function SiteForm({ site, onDone, onCancel }: SiteFormProps) {
       </FieldRow>
       {datedChanged && site ? (
         <>
-          <FieldRow>
-            <View style={styles.field}>
-              <TextField
-                label={`Effective date (${site.timeZone})`}
-                value={effective.date}
-                onChangeText={(date) => setEffective((current) => ({ ...current, date }))}
-                error={shown.effectiveFrom}
-                hint="YYYY-MM-DD on the site’s clock"
-                testID={id('effectiveFrom')}
-              />
-            </View>
-            <View style={styles.field}>
-              <TextField
-                label="Effective time"
-                value={effective.time}
-                onChangeText={(time) => setEffective((current) => ({ ...current, time }))}
-                hint="HH:MM, 24 h"
-                testID={id('effectiveTime')}
-              />
-            </View>
-          </FieldRow>
-          <TextField
-            label="Reason"
-            value={reason}
-            onChangeText={setReason}
-            error={shown.reason}
-            hint="Why the setting changes. It goes into the audit trail."
-            testID={id('reason')}
+          <DatedChangeFields
+            effective={effective}
+            onEffectiveChange={setEffective}
+            reason={reason}
+            onReasonChange={setReason}
+            errors={shown}
+            dateLabel={`Effective date (${site.timeZone})`}
+            timeLabel="Effective time"
+            reasonHint="Why the setting changes. It goes into the audit trail."
+            testIDPrefix={prefix}
           />
           <Notice title="Dated settings">
             The contract hour, base conditions and atmospheric pressure take effect from the time above: the site’s

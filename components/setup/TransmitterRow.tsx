@@ -13,6 +13,7 @@ import { StateBadge } from '@/components/ui/StateBadge';
 import { TextField } from '@/components/ui/TextField';
 import { colors, radius, space } from '@/constants/theme';
 import { useUpdateTransmitter, type Transmitter } from '@/hooks/api/transmitters';
+import { DatedChangeFields } from './DatedChangeFields';
 import { FieldRow } from './FieldRow';
 import { FormErrorSummary } from './FormErrorSummary';
 import { transmitterSchema } from '@/shared/schemas/setup';
@@ -171,34 +172,16 @@ export function TransmitterRow({ transmitter, timeZone }: { transmitter: Transmi
           </FieldRow>
           {rangeChanged ? (
             <>
-              <FieldRow>
-                <View style={styles.field}>
-                  <TextField
-                    label={`Re-ranged on (${timeZone})`}
-                    value={effective.date}
-                    onChangeText={(date) => setEffective((current) => ({ ...current, date }))}
-                    error={shown.effectiveFrom}
-                    hint="YYYY-MM-DD on the site’s clock"
-                    testID={`${testID}-effectiveFrom`}
-                  />
-                </View>
-                <View style={styles.field}>
-                  <TextField
-                    label="At"
-                    value={effective.time}
-                    onChangeText={(time) => setEffective((current) => ({ ...current, time }))}
-                    hint="HH:MM, 24 h"
-                    testID={`${testID}-effectiveTime`}
-                  />
-                </View>
-              </FieldRow>
-              <TextField
-                label="Reason"
-                value={reason}
-                onChangeText={setReason}
-                error={shown.reason}
-                hint="E.g. “Re-ranged at the calibration visit, certificate 2291”. It goes into the audit trail."
-                testID={`${testID}-reason`}
+              <DatedChangeFields
+                effective={effective}
+                onEffectiveChange={setEffective}
+                reason={reason}
+                onReasonChange={setReason}
+                errors={shown}
+                dateLabel={`Re-ranged on (${timeZone})`}
+                timeLabel="At"
+                reasonHint="E.g. “Re-ranged at the calibration visit, certificate 2291”. It goes into the audit trail."
+                testIDPrefix={testID}
               />
             </>
           ) : null}
