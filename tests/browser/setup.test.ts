@@ -7,7 +7,7 @@
 import type { Page } from 'playwright-core';
 
 import { client, signIn as apiSignIn, unique, until, type Client } from '../support/api';
-import { baseUrl, choose, demoEmail, freshPage, launchBrowser, signIn, type TestBrowser } from './support';
+import { baseUrl, choose, demoEmail, freshPage, launchBrowser, openWith, signIn, type TestBrowser } from './support';
 
 let browser: TestBrowser;
 let api: Client;
@@ -203,8 +203,7 @@ describe('the set-up screens', () => {
 
     await openSetup(page);
     await page.goto(`${baseUrl}/setup?meterRun=${run.body.id}`);
-    await page.getByTestId('version-add').click();
-    await page.getByTestId('version-create').waitFor();
+    await openWith(page.getByTestId('version-add'), page.getByTestId('version-create'));
     await page.getByTestId('version-create-effectiveFrom').fill('2025-06-01');
     await page.getByTestId('version-create-effectiveTime').fill('14:00');
     // The notice may be up already from the date alone: wait for the wording with the time.

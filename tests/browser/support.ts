@@ -146,3 +146,21 @@ export async function choose(option: Locator, timeoutMs = 30_000): Promise<void>
     }
   }
 }
+
+/**
+ * Presses a button that opens something and waits for it, pressing again if a press did not take
+ * (the same cause as in `choose`: content arriving late above the button moves it between press
+ * and release). Only for buttons whose second press is harmless, e.g. one that hides once it opened.
+ */
+export async function openWith(button: Locator, opened: Locator, timeoutMs = 30_000): Promise<void> {
+  const deadline = Date.now() + timeoutMs;
+  for (;;) {
+    if (await button.isVisible()) await button.click();
+    try {
+      await opened.waitFor({ timeout: Math.max(1000, Math.min(3000, deadline - Date.now())) });
+      return;
+    } catch (err) {
+      if (Date.now() >= deadline) throw err;
+    }
+  }
+}
