@@ -17,6 +17,7 @@ import * as m0012 from '../migrations/0012-reconciliation';
 import * as m0013 from '../migrations/0013-balance-groups';
 import * as m0014 from '../migrations/0014-calibrations';
 import * as m0015 from '../migrations/0015-element-care';
+import * as m0016 from '../migrations/0016-care-certificates-and-due';
 
 /**
  * Migrations are listed here, in order, rather than globbed: the list works the same under
@@ -38,6 +39,7 @@ const migrations = [
   { name: '0013-balance-groups', ...m0013 },
   { name: '0014-calibrations', ...m0014 },
   { name: '0015-element-care', ...m0015 },
+  { name: '0016-care-certificates-and-due', ...m0016 },
 ];
 
 export function migrator(sequelize: Sequelize) {
