@@ -155,7 +155,7 @@ export function createApp(options: AppOptions): Express {
     ['/alarm-limits', alarmLimitsRouter(services.pool)], // new limits apply from the next evaluation (within a minute)
     ['/meter-runs', rangeHealthRouter(services.pool)],
     // Reconciliation against field totals (issue 10 §2): every role reads; the tolerance is configuration.
-    ['/reconciliations', reconciliationsRouter(services.pool)],
+    ['/reconciliations', reconciliationsRouter(services.pool, sequelize)],
     // Record versions (issue 9): every version of an hourly record or a total, first against current.
     ['/meter-runs', recordVersionsRouter(services.pool)],
     // Corrections with four eyes (issue 9): an approval recomputes the correction's hours.

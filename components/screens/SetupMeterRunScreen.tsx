@@ -3,18 +3,16 @@
  * re-range, calibration due) and its configuration versions (add one for an element swap or a
  * new gas analysis, with its effective time and reason), and its reconciliation tolerance.
  */
-import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { useState } from 'react';
 import { StyleSheet, View } from 'react-native';
 
-import { reconciliationKeys } from '@/components/reconciliation/useReconciliations';
+import { ToleranceForm } from '@/components/reconciliation/ToleranceForm';
 import {
   ElementCalibrationsPanel,
   GasAnalysesPanel,
   InspectionsPanel,
 } from '@/components/element-care/ElementCarePanels';
 import { Breadcrumbs } from '@/components/setup/Breadcrumbs';
-import { FieldRow } from '@/components/setup/FieldRow';
 import { ConfigVersionForm } from '@/components/setup/ConfigVersionForm';
 import { ConfigVersionList } from '@/components/setup/ConfigVersionList';
 import { describeElement } from '@/components/setup/elementDraft';
@@ -31,12 +29,8 @@ import { Panel } from '@/components/ui/Panel';
 import { QueryState } from '@/components/ui/QueryState';
 import { Screen } from '@/components/ui/Screen';
 import { space } from '@/constants/theme';
-import { meterRunKeys, useConfigVersions, useMeterRun, type ConfigVersion, type MeterRun } from '@/hooks/api/meterRuns';
+import { useConfigVersions, useMeterRun, type ConfigVersion, type MeterRun } from '@/hooks/api/meterRuns';
 import { formatOnSiteClock } from '@/components/setup/zonedTime';
-import { fieldErrorFromServer, numberText, parseNumberText } from '@/components/setup/formFields';
-import { NumberField } from '@/components/setup/NumberField';
-import { apiRequest } from '@/hooks/api/client';
-import { z } from 'zod';
 import { useSites, type Site } from '@/hooks/api/sites';
 import { useTransmitters } from '@/hooks/api/transmitters';
 import { useBreakpoint } from '@/hooks/useBreakpoint';
@@ -88,66 +82,6 @@ function Details({ run, site }: { run: MeterRun; site: Site }) {
           </AppText>
         </View>
       )}
-    </Panel>
-  );
-}
-
-/** The meter run's reconciliation tolerance (PATCH /api/reconciliations/tolerances/:id), as the meter run's JSON carries it. */
-function ReconciliationTolerance({ run }: { run: MeterRun }) {
-  const queryClient = useQueryClient();
-  const [text, setText] = useState('');
-  const [problem, setProblem] = useState<string | undefined>(undefined);
-  const save = useMutation({
-    mutationFn: (tolerancePercent: number) =>
-      apiRequest({
-        method: 'PATCH',
-        path: `/reconciliations/tolerances/${encodeURIComponent(run.id)}`,
-        body: { tolerancePercent },
-        schema: z.object({ meterRunId: z.string(), tolerancePercent: z.number() }),
-      }),
-    onSuccess: () =>
-      Promise.all([
-        queryClient.invalidateQueries({ queryKey: reconciliationKeys.all }),
-        queryClient.invalidateQueries({ queryKey: meterRunKeys.all }),
-      ]),
-  });
-  const inForce = save.data?.tolerancePercent ?? run.reconciliationTolerancePercent;
-  const submit = () => {
-    const value = parseNumberText(text);
-    if (value === undefined || !Number.isFinite(value) || value <= 0 || value > 100) {
-      setProblem('must be a number above 0 and at most 100');
-      return;
-    }
-    setProblem(undefined);
-    save.mutate(value, { onSuccess: () => setText('') });
-  };
-  const serverProblem = fieldErrorFromServer(save.error)?.tolerancePercent;
-  return (
-    <Panel title="Reconciliation tolerance" testID="run-tolerance">
-      <AppText variant="caption" tone="muted" testID="run-tolerance-current">
-        {inForce !== undefined
-          ? `In force: ±${numberText(inForce)} % of the field total. A day further apart raises a reconciliation alarm.`
-          : 'How far a contract day may differ from the field total, in percent of it, before it raises an alarm. A meter run starts at ±0.5 %.'}
-      </AppText>
-      <FieldRow>
-        <NumberField
-          label="Tolerance (± % of the field total)"
-          value={text}
-          onChangeText={setText}
-          error={problem ?? serverProblem ?? (save.error && !serverProblem ? save.error.message : undefined)}
-          testID="run-tolerance-tolerancePercent"
-        />
-      </FieldRow>
-      <View style={styles.actions}>
-        <Button
-          label="Save tolerance"
-          size="compact"
-          onPress={submit}
-          busy={save.isPending}
-          testID="run-tolerance-submit"
-        />
-      </View>
-      {save.isSuccess ? <Notice testID="run-tolerance-saved">Tolerance saved.</Notice> : null}
     </Panel>
   );
 }
@@ -308,7 +242,7 @@ export function SetupMeterRunScreen({ meterRunId }: { meterRunId: string }) {
       <GasAnalysesPanel meterRunId={run.data.id} />
       <ElementCalibrationsPanel meterRunId={run.data.id} />
       <InspectionsPanel meterRunId={run.data.id} />
-      <ReconciliationTolerance run={run.data} />
+      <ToleranceForm run={run.data} site={site} />
       <SetupCaution />
     </Screen>
   );

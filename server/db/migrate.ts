@@ -18,6 +18,7 @@ import * as m0013 from '../migrations/0013-balance-groups';
 import * as m0014 from '../migrations/0014-calibrations';
 import * as m0015 from '../migrations/0015-element-care';
 import * as m0016 from '../migrations/0016-care-certificates-and-due';
+import * as m0019 from '../migrations/0019-reconciliation-tolerance-versions';
 
 /**
  * Migrations are listed here, in order, rather than globbed: the list works the same under
@@ -40,6 +41,7 @@ const migrations = [
   { name: '0014-calibrations', ...m0014 },
   { name: '0015-element-care', ...m0015 },
   { name: '0016-care-certificates-and-due', ...m0016 },
+  { name: '0019-reconciliation-tolerance-versions', ...m0019 },
 ];
 
 export function migrator(sequelize: Sequelize) {

@@ -162,23 +162,61 @@ describe('the alarm reconciliation-out-of-tolerance', () => {
 });
 
 describe('PATCH /api/reconciliations/tolerances/:id', () => {
-  it("sets the meter run's tolerance, audited, and the days are judged against it", async () => {
-    const res = await t
-      .http()
-      .patch(`/api/reconciliations/tolerances/${f.meterRunId}`)
-      .set(auth())
-      .send({ tolerancePercent: 0.6 });
-    expect(res.status).toBe(200);
-    expect(res.body).toEqual({ meterRunId: f.meterRunId, tolerancePercent: 0.6 });
-    const days = (await t.http().get(`/api/reconciliations?${window()}`).set(auth())).body;
-    expect(days.map((d: { withinTolerance: boolean }) => d.withinTolerance)).toEqual([true, true]);
-    const audit = await t.services.pool.query<{ before: unknown; after: unknown }>(
-      `SELECT before, after FROM audit_events WHERE action = 'meter-run.reconciliation-tolerance' AND entity_id = $1`,
+  const patch = (body: Record<string, unknown>) =>
+    t.http().patch(`/api/reconciliations/tolerances/${f.meterRunId}`).set(auth()).send(body);
+  const verdicts = async () =>
+    (await t.http().get(`/api/reconciliations?${window()}`).set(auth())).body.map(
+      (d: { withinTolerance: boolean; tolerancePercent: number }) => [d.withinTolerance, d.tolerancePercent],
+    );
+
+  it('judges the contract days from its effective instant on by a new tolerance and leaves earlier days as judged, audited with the reason', async () => {
+    const wider = await patch({ tolerancePercent: 0.6, effectiveFrom: DAY1, reason: 'field meter re-proved' });
+    expect(wider.status).toBe(200);
+    expect(wider.body).toMatchObject({
+      meterRunId: f.meterRunId,
+      tolerancePercent: 0.6,
+      effectiveFrom: '2026-09-01T06:00:00.000Z',
+    });
+    expect(await verdicts()).toEqual([
+      [true, 0.6],
+      [true, 0.6],
+    ]);
+    // By hand: 2 Sep differs by −0.199 %, outside ±0.1 %; 1 Sep starts before the change and keeps ±0.6 %.
+    const narrower = await patch({ tolerancePercent: 0.1, effectiveFrom: DAY2, reason: 'contract amendment' });
+    expect(narrower.status).toBe(200);
+    expect(await verdicts()).toEqual([
+      [true, 0.6],
+      [false, 0.1],
+    ]);
+    const audit = await t.services.pool.query<{
+      before: unknown;
+      after: { reconciliationTolerancePercent: number };
+      reason: string;
+    }>(
+      `SELECT before, after, reason FROM audit_events WHERE action = 'meter-run.reconciliation-tolerance' AND entity_id = $1 ORDER BY id`,
       [f.meterRunId],
     );
-    expect(audit.rows).toEqual([
-      { before: { reconciliationTolerancePercent: 0.5 }, after: { reconciliationTolerancePercent: 0.6 } },
+    expect(audit.rows.map((r) => [r.before, r.after.reconciliationTolerancePercent, r.reason])).toEqual([
+      [{ reconciliationTolerancePercent: 0.5 }, 0.6, 'field meter re-proved'],
+      [{ reconciliationTolerancePercent: 0.6 }, 0.1, 'contract amendment'],
     ]);
+    const versions = (await t.http().get(`/api/reconciliations/tolerances/${f.meterRunId}`).set(auth())).body;
+    expect(
+      versions.map((v: { tolerancePercent: number; effectiveFrom: string }) => [v.tolerancePercent, v.effectiveFrom]),
+    ).toEqual([
+      [0.5, '2000-01-01T00:00:00.000Z'],
+      [0.6, '2026-09-01T06:00:00.000Z'],
+      [0.1, '2026-09-02T06:00:00.000Z'],
+    ]);
+  });
+
+  it('refuses a change without a reason, naming reason, and one before the meter run’s history, naming effectiveFrom', async () => {
+    const noReason = await patch({ tolerancePercent: 0.7 });
+    expect(noReason.status).toBe(400);
+    expect(noReason.body.error.field).toBe('reason');
+    const tooEarly = await patch({ tolerancePercent: 0.7, effectiveFrom: '2019-06-01T00:00:00Z', reason: 'typo' });
+    expect(tooEarly.status).toBe(400);
+    expect(tooEarly.body.error.field).toBe('effectiveFrom');
   });
 
   it('refuses a tolerance that is not above zero, naming tolerancePercent', async () => {
@@ -186,7 +224,7 @@ describe('PATCH /api/reconciliations/tolerances/:id', () => {
       .http()
       .patch(`/api/reconciliations/tolerances/${f.meterRunId}`)
       .set(auth())
-      .send({ tolerancePercent: 0 });
+      .send({ tolerancePercent: 0, reason: 'test' });
     expect(res.status).toBe(400);
     expect(res.body.error.field).toBe('tolerancePercent');
   });

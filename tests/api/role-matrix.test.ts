@@ -116,6 +116,7 @@ const expected: Record<string, Who[] | typeof PUBLIC> = {
   'GET /api/reconciliations': everyone,
   'GET /api/reconciliations/summary': everyone,
   'PATCH /api/reconciliations/tolerances/:id': ['engineer', 'admin'],
+  'GET /api/reconciliations/tolerances/:id': everyone,
 };
 
 /** Routes that stream (server-sent events): checked on a real socket, status only. */

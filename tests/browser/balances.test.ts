@@ -217,7 +217,7 @@ it('shows the balances and the reconciliation beside the month at 1440 × 900', 
   }
 });
 
-it('an engineer on a phone sets a meter run’s reconciliation tolerance in set-up', async () => {
+it('an engineer on a phone sets a meter run’s reconciliation tolerance in set-up from the first of the month, with a reason', async () => {
   const page = await freshPage(browser, 'phone');
   try {
     await signIn(page, demoEmail('engineer'));
@@ -232,8 +232,13 @@ it('an engineer on a phone sets a meter run’s reconciliation tolerance in set-
       .filter({ hasText: 'must be a number above 0' })
       .waitFor();
     await page.getByTestId('run-tolerance-tolerancePercent').fill('2.5');
+    // A new tolerance judges the contract days starting from its time on: back-date it to the month's start.
+    await page.getByTestId('run-tolerance-effectiveFrom').fill(`${MONTH}-01`);
+    await page.getByTestId('run-tolerance-effectiveTime').fill('00:00');
+    await page.getByTestId('run-tolerance-reason').fill('balance allowance agreed for the month');
     await page.getByTestId('run-tolerance-submit').click();
     await page.getByTestId('run-tolerance-saved').waitFor();
+    await page.getByTestId('run-tolerance-versions').filter({ hasText: 'balance allowance agreed' }).waitFor();
     await current.filter({ hasText: 'In force: ±2.5 %' }).waitFor();
     await page.getByTestId('run-tolerance').screenshot({ path: `${SHOTS}/setup-tolerance-390.png` });
   } finally {

@@ -1,5 +1,6 @@
 import type { ReconciledDay, ReconciliationSum } from '../../../shared/reconciliation/reconcile-day';
 import type { TimeWindow } from '../../http/params';
+import type { ToleranceVersion } from './repository';
 
 /** One contract day and quantity: instants as ISO 8601, figures in the field total's unit. */
 export function presentReconciliation(day: ReconciledDay) {
@@ -33,5 +34,18 @@ export function presentReconciliationSum(window: TimeWindow, sum: Reconciliation
     differencePercent: sum.differencePercent,
     tolerancePercent: sum.tolerancePercent,
     withinTolerance: sum.withinTolerance,
+  };
+}
+
+/** One dated tolerance version, as `GET/PATCH /api/reconciliations/tolerances/:id` return it. */
+export function presentToleranceVersion(meterRunId: string, v: ToleranceVersion) {
+  return {
+    meterRunId,
+    versionId: v.id,
+    tolerancePercent: v.tolerancePercent,
+    effectiveFrom: new Date(v.effectiveFromMs).toISOString(),
+    reason: v.reason,
+    createdBy: v.createdBy,
+    createdAt: new Date(v.createdAtMs).toISOString(),
   };
 }

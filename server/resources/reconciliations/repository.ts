@@ -1,4 +1,4 @@
-import type { Pool, PoolClient } from 'pg';
+import pg, { type Pool, type PoolClient } from 'pg';
 import type { FieldTotalQuantity } from '../../../shared/reconciliation/reconcile-day';
 
 /** A meter run as reconciliation reads it. */
@@ -21,6 +21,39 @@ export interface FieldTotalDay {
   unit: string | null;
 }
 
+/** One dated version of a meter run's reconciliation tolerance. */
+export interface ToleranceVersion {
+  id: string;
+  effectiveFromMs: number;
+  tolerancePercent: number;
+  reason: string;
+  createdBy: string | null;
+  createdAtMs: number;
+}
+
+interface ToleranceVersionRow {
+  id: string;
+  effective_from: Date;
+  tolerance_percent: number;
+  reason: string;
+  created_by: string | null;
+  created_at: Date;
+}
+
+const toleranceVersion = (r: ToleranceVersionRow): ToleranceVersion => ({
+  id: r.id,
+  effectiveFromMs: r.effective_from.getTime(),
+  tolerancePercent: r.tolerance_percent,
+  reason: r.reason,
+  createdBy: r.created_by,
+  createdAtMs: r.created_at.getTime(),
+});
+
+const toleranceVersionColumns = 'id::text, effective_from, tolerance_percent, reason, created_by::text, created_at';
+
+/** The advisory lock key space of tolerance changes (one key per meter run; the table is append-only, so no row lock). */
+const toleranceLockSpace = 7_200_512;
+
 interface MeterRunRow {
   id: string;
   tag: string;
@@ -41,8 +74,20 @@ export interface ReconciliationRepository {
   meterRun(meterRunId: string): Promise<ReconciliationMeterRun | null>;
   /** Field totals of contract days starting in [fromMs, toMs), oldest first, quantities in a fixed order. */
   fieldTotalDays(meterRunId: string, fromMs: number, toMs: number): Promise<FieldTotalDay[]>;
-  /** Sets the tolerance; returns the one it replaced, or null when the meter run does not exist. */
-  setTolerance(meterRunId: string, tolerancePercent: number): Promise<number | null>;
+  /** When the meter run's history starts (its first configuration version), or null. */
+  historyStart(meterRunId: string): Promise<Date | null>;
+  /** The tolerance's dated versions, oldest first (ties: the later id wins, so it comes later). */
+  toleranceVersions(meterRunId: string): Promise<ToleranceVersion[]>;
+  /**
+   * Appends a dated tolerance version (with a baseline from 2000-01-01 holding the value before,
+   * when the meter run has none yet) and keeps the meter run's "in force now" figure in step, in
+   * one transaction under the meter run's advisory lock.
+   * @returns the version and the tolerance that was in force at its instant, or null when the meter run does not exist
+   */
+  addToleranceVersion(
+    meterRunId: string,
+    version: { effectiveFromMs: number; tolerancePercent: number; reason: string; createdBy: string },
+  ): Promise<{ version: ToleranceVersion; before: number } | null>;
   /** Meter runs that have field totals (the alarm judges only these). */
   meterRunsWithFieldTotals(): Promise<string[]>;
   /** The end of the last day judged for the alarm, or null. */
@@ -94,15 +139,77 @@ export function reconciliationRepository(pool: Pool | PoolClient): Reconciliatio
       }));
     },
 
-    async setTolerance(meterRunId, tolerancePercent) {
-      const { rows } = await pool.query<{ before: number }>(
-        `UPDATE meter_runs m SET reconciliation_tolerance_percent = $2
-           FROM (SELECT id, reconciliation_tolerance_percent AS before FROM meter_runs WHERE id = $1) old
-          WHERE m.id = old.id
-          RETURNING old.before`,
-        [meterRunId, tolerancePercent],
+    async historyStart(meterRunId) {
+      const { rows } = await pool.query<{ start: Date | null }>(
+        'SELECT min(effective_from) AS start FROM config_versions WHERE meter_run_id = $1',
+        [meterRunId],
       );
-      return rows[0]?.before ?? null;
+      return rows[0]?.start ?? null;
+    },
+
+    async toleranceVersions(meterRunId) {
+      const { rows } = await pool.query<ToleranceVersionRow>(
+        `SELECT ${toleranceVersionColumns} FROM reconciliation_tolerance_versions
+          WHERE meter_run_id = $1 ORDER BY effective_from, id`,
+        [meterRunId],
+      );
+      return rows.map(toleranceVersion);
+    },
+
+    async addToleranceVersion(meterRunId, version) {
+      // Its own transaction: only a pool can lend a connection for it (the alarm's client never writes tolerances).
+      if (!(pool instanceof pg.Pool)) throw new Error('addToleranceVersion needs a pool, not a client');
+      const client: PoolClient = await pool.connect();
+      try {
+        await client.query('BEGIN');
+        await client.query('SELECT pg_advisory_xact_lock($1, $2::bigint::int)', [toleranceLockSpace, meterRunId]);
+        const run = await client.query<{ now_percent: number }>(
+          'SELECT reconciliation_tolerance_percent AS now_percent FROM meter_runs WHERE id = $1',
+          [meterRunId],
+        );
+        if (!run.rows[0]) {
+          await client.query('ROLLBACK');
+          return null;
+        }
+        // A meter run created after tolerances were dated has no baseline yet: its tolerance so far
+        // was the one on the meter run, in force from the start of history.
+        await client.query(
+          `INSERT INTO reconciliation_tolerance_versions (meter_run_id, effective_from, tolerance_percent, reason)
+           SELECT $1, '2000-01-01T00:00:00Z', $2, 'the tolerance in force before the first dated change'
+            WHERE NOT EXISTS (SELECT 1 FROM reconciliation_tolerance_versions WHERE meter_run_id = $1)`,
+          [meterRunId, run.rows[0].now_percent],
+        );
+        const before = await client.query<{ tolerance_percent: number }>(
+          `SELECT tolerance_percent FROM reconciliation_tolerance_versions
+            WHERE meter_run_id = $1 AND effective_from <= to_timestamp($2 / 1000.0)
+            ORDER BY effective_from DESC, id DESC LIMIT 1`,
+          [meterRunId, version.effectiveFromMs],
+        );
+        const inserted = await client.query<ToleranceVersionRow>(
+          `INSERT INTO reconciliation_tolerance_versions (meter_run_id, effective_from, tolerance_percent, reason, created_by)
+           VALUES ($1, to_timestamp($2 / 1000.0), $3, $4, $5)
+           RETURNING ${toleranceVersionColumns}`,
+          [meterRunId, version.effectiveFromMs, version.tolerancePercent, version.reason, version.createdBy],
+        );
+        await client.query(
+          `UPDATE meter_runs SET reconciliation_tolerance_percent = coalesce((
+             SELECT tolerance_percent FROM reconciliation_tolerance_versions
+              WHERE meter_run_id = $1 AND effective_from <= now()
+              ORDER BY effective_from DESC, id DESC LIMIT 1), reconciliation_tolerance_percent)
+            WHERE id = $1`,
+          [meterRunId],
+        );
+        await client.query('COMMIT');
+        return {
+          version: toleranceVersion(inserted.rows[0]),
+          before: before.rows[0]?.tolerance_percent ?? run.rows[0].now_percent,
+        };
+      } catch (err) {
+        await client.query('ROLLBACK').catch(() => undefined);
+        throw err;
+      } finally {
+        client.release();
+      }
     },
 
     async meterRunsWithFieldTotals() {
