@@ -1,17 +1,20 @@
 /**
  * The care of a meter run's primary element (issue 11 §2, §3) on its set-up screen: gas
  * analyses, laboratory calibrations of the element and inspections, each listed newest first
- * with a small form to record one. Each may become a configuration version (shown in the
- * configuration history), so a recorded one refreshes the meter run's queries.
+ * with its certificate (a download) and next due date, and a small form to record one: its date
+ * and time on the site's clock, the certificate file and the next due date. Each may become a
+ * configuration version (shown in the configuration history), so a recorded one refreshes the
+ * meter run's queries.
  */
-import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { useState } from 'react';
 import { StyleSheet, View } from 'react-native';
 import { z } from 'zod';
 
+import { DatedChangeFields, type EffectiveOnSiteClock } from '@/components/setup/DatedChangeFields';
 import { FieldRow } from '@/components/setup/FieldRow';
 import { fieldErrorFromServer, parseNumberText } from '@/components/setup/formFields';
 import { NumberField } from '@/components/setup/NumberField';
+import { formatOnSiteClock, siteClockNow, zonedIso } from '@/components/setup/zonedTime';
 import { AppText } from '@/components/ui/AppText';
 import { Button } from '@/components/ui/Button';
 import { ChoiceGroup } from '@/components/ui/ChoiceGroup';
@@ -19,38 +22,131 @@ import { Notice } from '@/components/ui/Notice';
 import { Panel } from '@/components/ui/Panel';
 import { TextField } from '@/components/ui/TextField';
 import { space } from '@/constants/theme';
-import { apiRequest } from '@/hooks/api/client';
-import { meterRunKeys } from '@/hooks/api/meterRuns';
+import { CareCertificatePicker } from './CareCertificatePicker';
+import {
+  careRecordSchema,
+  useCareRecords,
+  useDownloadCareCertificate,
+  useMeterRunZone,
+  type CareCertificateFile,
+  type ChosenCertificate,
+} from './careApi';
 import { parseComponentsText } from './componentsText';
 
-const recorded = z.object({ id: z.string(), configVersionId: z.string().nullable() }).passthrough();
-const analysis = recorded.extend({ sampledAt: z.string(), laboratory: z.string(), certificate: z.string().nullable() });
-const calibration = recorded.extend({
+const analysis = careRecordSchema.extend({ sampledAt: z.string(), laboratory: z.string() });
+const calibration = careRecordSchema.extend({
   calibratedAt: z.string(),
   laboratory: z.string(),
-  certificate: z.string().nullable(),
   uncertaintyPercent: z.number(),
   points: z.array(z.object({ reynoldsNumber: z.number(), dischargeCoefficient: z.number() })),
 });
-const inspection = recorded.extend({ inspectedAt: z.string(), kind: z.string(), condition: z.string() });
+const inspection = careRecordSchema.extend({ inspectedAt: z.string(), kind: z.string(), condition: z.string() });
 
-const instantHint = 'ISO 8601 with Z or an offset, e.g. 2026-11-20T08:00:00Z';
+/** The fields every record shares: when (site clock), why, the certificate and the next due date. */
+function useCommonFields(zone: string) {
+  const [when, setWhen] = useState<EffectiveOnSiteClock | null>(null);
+  const [reason, setReason] = useState('');
+  const [certificate, setCertificate] = useState('');
+  const [file, setFile] = useState<ChosenCertificate | null>(null);
+  const [nextDue, setNextDue] = useState('');
+  // The form starts at now on the site's clock, once the zone is known.
+  const effective = when ?? siteClockNow(zone, Date.now());
+  return {
+    effective,
+    setEffective: (update: (current: EffectiveOnSiteClock) => EffectiveOnSiteClock) => setWhen(update(effective)),
+    reason,
+    setReason,
+    certificate,
+    setCertificate,
+    file,
+    setFile,
+    nextDue,
+    setNextDue,
+    /** The shared part of the body, with the record's date under `dateField`. */
+    body: (dateField: string) => ({
+      [dateField]: zonedIso(effective.date, effective.time, zone),
+      certificate: optional(certificate),
+      nextDue: optional(nextDue),
+      reason: optional(reason),
+    }),
+  };
+}
+type CommonFields = ReturnType<typeof useCommonFields>;
 
-/** A meter run's records of one kind, and recording one (which refreshes the meter run's queries). */
-function useRecords<S extends z.ZodType>(meterRunId: string, path: string, schema: S) {
-  const queryClient = useQueryClient();
-  const key = [...meterRunKeys.all, path, meterRunId] as const;
-  const list = useQuery({
-    queryKey: key,
-    queryFn: ({ signal }) =>
-      apiRequest({ path: `/meter-runs/${encodeURIComponent(meterRunId)}/${path}`, schema: z.array(schema), signal }),
-  });
-  const record = useMutation({
-    mutationFn: (body: unknown) =>
-      apiRequest({ method: 'POST', path: `/meter-runs/${encodeURIComponent(meterRunId)}/${path}`, body, schema }),
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: meterRunKeys.all }),
-  });
-  return { list, record };
+/** Date and time, reason, certificate number, certificate file and next due date of a record form. */
+function CommonFieldsView(props: {
+  common: CommonFields;
+  dateField: string;
+  dateLabel: string;
+  timeLabel: string;
+  error: unknown;
+  fields: readonly string[];
+  testIDPrefix: string;
+}) {
+  const { common, error, fields, testIDPrefix } = props;
+  return (
+    <>
+      <DatedChangeFields
+        effective={common.effective}
+        onEffectiveChange={common.setEffective}
+        reason={common.reason}
+        onReasonChange={common.setReason}
+        errors={{
+          effectiveFrom: problemOf(error, props.dateField, fields),
+          reason: problemOf(error, 'reason', fields),
+        }}
+        dateLabel={props.dateLabel}
+        timeLabel={props.timeLabel}
+        reasonHint="Optional: why, for the configuration history"
+        testIDPrefix={testIDPrefix}
+      />
+      <FieldRow>
+        <TextField
+          label="Certificate number (optional)"
+          value={common.certificate}
+          onChangeText={common.setCertificate}
+          error={problemOf(error, 'certificate', fields)}
+          testID={`${testIDPrefix}-certificate`}
+        />
+        <TextField
+          label="Next due (optional)"
+          value={common.nextDue}
+          onChangeText={common.setNextDue}
+          hint="YYYY-MM-DD on the site’s clock"
+          error={problemOf(error, 'nextDue', fields)}
+          testID={`${testIDPrefix}-nextDue`}
+        />
+      </FieldRow>
+      <CareCertificatePicker
+        file={common.file}
+        onChange={common.setFile}
+        testIDPrefix={`${testIDPrefix}-certificate`}
+      />
+    </>
+  );
+}
+
+/** One record in a history: its line, its next due date and its certificate as a download. */
+function RecordLine(props: { text: string; nextDue: string | null; file: CareCertificateFile | null; testID: string }) {
+  const download = useDownloadCareCertificate();
+  return (
+    <View style={styles.record} testID={props.testID}>
+      <AppText>{props.text}</AppText>
+      {props.nextDue ? <AppText tone="muted">{`Next due ${props.nextDue}`}</AppText> : null}
+      {props.file ? (
+        <View style={styles.actions}>
+          <Button
+            label={`Certificate: ${props.file.name}`}
+            size="compact"
+            onPress={() => download.mutate(props.file!)}
+            busy={download.isPending}
+            testID={`${props.testID}-certificate`}
+          />
+        </View>
+      ) : null}
+      {download.error ? <AppText tone="alarm">▲ {download.error.message}</AppText> : null}
+    </View>
+  );
 }
 
 /** The server's word on a field, else its message when it named no field of this form. */
@@ -65,20 +161,25 @@ function problemOf(error: unknown, field: string, fields: readonly string[]): st
   return prefixed?.[1];
 }
 
-const optional = (text: string) => (text.trim() === '' ? undefined : text.trim());
+function optional(text: string) {
+  return text.trim() === '' ? undefined : text.trim();
+}
 
 function versionNote(configVersionId: string | null) {
   return configVersionId ? ' · became a configuration version' : '';
 }
 
+const certificateNumber = (r: { certificate: string | null }) =>
+  r.certificate ? ` · certificate ${r.certificate}` : '';
+
 export function GasAnalysesPanel({ meterRunId }: { meterRunId: string }) {
-  const { list, record } = useRecords(meterRunId, 'gas-analyses', analysis);
-  const [sampledAt, setSampledAt] = useState('');
+  const zone = useMeterRunZone(meterRunId);
+  const { list, record } = useCareRecords(meterRunId, 'gas-analyses', 'analysis', analysis);
+  const common = useCommonFields(zone);
   const [laboratory, setLaboratory] = useState('');
-  const [certificate, setCertificate] = useState('');
   const [componentsText, setComponentsText] = useState('');
   const [problem, setProblem] = useState<string | undefined>(undefined);
-  const fields = ['sampledAt', 'laboratory', 'certificate', 'components'] as const;
+  const fields = ['sampledAt', 'laboratory', 'certificate', 'components', 'nextDue', 'reason'] as const;
   const submit = () => {
     const parsed = parseComponentsText(componentsText);
     if ('problem' in parsed) {
@@ -86,7 +187,7 @@ export function GasAnalysesPanel({ meterRunId }: { meterRunId: string }) {
       return;
     }
     setProblem(undefined);
-    record.mutate({ sampledAt: sampledAt.trim(), laboratory, certificate: optional(certificate), ...parsed });
+    record.mutate({ body: { ...common.body('sampledAt'), laboratory, ...parsed }, certificate: common.file });
   };
   return (
     <Panel title="Gas analyses" testID="gas-analyses">
@@ -94,34 +195,31 @@ export function GasAnalysesPanel({ meterRunId }: { meterRunId: string }) {
         Each analysis replaces the gas composition from its sample time and recomputes the hours after it.
       </AppText>
       {(list.data ?? []).map((a) => (
-        <AppText key={a.id} testID={`gas-analysis-${a.id}`}>
-          {`${a.sampledAt} · ${a.laboratory}${a.certificate ? ` · certificate ${a.certificate}` : ''}${versionNote(a.configVersionId)}`}
-        </AppText>
+        <RecordLine
+          key={a.id}
+          testID={`gas-analysis-${a.id}`}
+          text={`${formatOnSiteClock(a.sampledAt, zone)} · ${a.laboratory}${certificateNumber(a)}${versionNote(a.configVersionId)}`}
+          nextDue={a.nextDue}
+          file={a.certificateFile}
+        />
       ))}
       {list.data?.length === 0 ? <AppText tone="muted">No gas analysis recorded.</AppText> : null}
-      <FieldRow>
-        <TextField
-          label="Sampled at"
-          value={sampledAt}
-          onChangeText={setSampledAt}
-          hint={instantHint}
-          error={problemOf(record.error, 'sampledAt', fields)}
-          testID="gas-analysis-sampledAt"
-        />
-        <TextField
-          label="Laboratory"
-          value={laboratory}
-          onChangeText={setLaboratory}
-          error={problemOf(record.error, 'laboratory', fields)}
-          testID="gas-analysis-laboratory"
-        />
-        <TextField
-          label="Certificate (optional)"
-          value={certificate}
-          onChangeText={setCertificate}
-          testID="gas-analysis-certificate"
-        />
-      </FieldRow>
+      <CommonFieldsView
+        common={common}
+        dateField="sampledAt"
+        dateLabel="Sample date"
+        timeLabel="Sample time"
+        error={record.error}
+        fields={fields}
+        testIDPrefix="gas-analysis"
+      />
+      <TextField
+        label="Laboratory"
+        value={laboratory}
+        onChangeText={setLaboratory}
+        error={problemOf(record.error, 'laboratory', fields)}
+        testID="gas-analysis-laboratory"
+      />
       <TextField
         label="Components (one a line: name and mole fraction or mol %)"
         value={componentsText}
@@ -146,20 +244,32 @@ export function GasAnalysesPanel({ meterRunId }: { meterRunId: string }) {
 }
 
 export function ElementCalibrationsPanel({ meterRunId }: { meterRunId: string }) {
-  const { list, record } = useRecords(meterRunId, 'element-calibrations', calibration);
-  const [calibratedAt, setCalibratedAt] = useState('');
+  const zone = useMeterRunZone(meterRunId);
+  const { list, record } = useCareRecords(meterRunId, 'element-calibrations', 'calibration', calibration);
+  const common = useCommonFields(zone);
   const [laboratory, setLaboratory] = useState('');
-  const [certificate, setCertificate] = useState('');
   const [uncertainty, setUncertainty] = useState('');
   const [pointsCsv, setPointsCsv] = useState('reynoldsNumber,dischargeCoefficient\n');
-  const fields = ['calibratedAt', 'laboratory', 'certificate', 'uncertaintyPercent', 'pointsCsv', 'points'] as const;
+  const fields = [
+    'calibratedAt',
+    'laboratory',
+    'certificate',
+    'uncertaintyPercent',
+    'pointsCsv',
+    'points',
+    'nextDue',
+    'reason',
+    'effectiveFrom',
+  ] as const;
   const submit = () =>
     record.mutate({
-      calibratedAt: calibratedAt.trim(),
-      laboratory,
-      certificate: optional(certificate),
-      uncertaintyPercent: parseNumberText(uncertainty) ?? uncertainty,
-      pointsCsv,
+      body: {
+        ...common.body('calibratedAt'),
+        laboratory,
+        uncertaintyPercent: parseNumberText(uncertainty) ?? uncertainty,
+        pointsCsv,
+      },
+      certificate: common.file,
     });
   return (
     <Panel title="Element calibrations" testID="element-calibrations">
@@ -168,32 +278,31 @@ export function ElementCalibrationsPanel({ meterRunId }: { meterRunId: string })
         uncertainty of C replaces the default, and hours outside its Re_D range are flagged.
       </AppText>
       {(list.data ?? []).map((c) => (
-        <AppText key={c.id} testID={`element-calibration-${c.id}`}>
-          {`${c.calibratedAt} · ${c.laboratory} · U(C) ${c.uncertaintyPercent} % · ${c.points.length} points${c.certificate ? ` · certificate ${c.certificate}` : ''}`}
-        </AppText>
+        <RecordLine
+          key={c.id}
+          testID={`element-calibration-${c.id}`}
+          text={`${formatOnSiteClock(c.calibratedAt, zone)} · ${c.laboratory} · U(C) ${c.uncertaintyPercent} % · ${c.points.length} points${certificateNumber(c)}`}
+          nextDue={c.nextDue}
+          file={c.certificateFile}
+        />
       ))}
       {list.data?.length === 0 ? <AppText tone="muted">No element calibration recorded.</AppText> : null}
+      <CommonFieldsView
+        common={common}
+        dateField="calibratedAt"
+        dateLabel="Calibration date"
+        timeLabel="Calibration time"
+        error={record.error}
+        fields={fields}
+        testIDPrefix="element-calibration"
+      />
       <FieldRow>
-        <TextField
-          label="Calibrated at"
-          value={calibratedAt}
-          onChangeText={setCalibratedAt}
-          hint={instantHint}
-          error={problemOf(record.error, 'calibratedAt', fields)}
-          testID="element-calibration-calibratedAt"
-        />
         <TextField
           label="Laboratory"
           value={laboratory}
           onChangeText={setLaboratory}
           error={problemOf(record.error, 'laboratory', fields)}
           testID="element-calibration-laboratory"
-        />
-        <TextField
-          label="Certificate (optional)"
-          value={certificate}
-          onChangeText={setCertificate}
-          testID="element-calibration-certificate"
         />
         <NumberField
           label="Uncertainty of C (%, k = 2)"
@@ -235,31 +344,33 @@ const kinds = [
 type Kind = (typeof kinds)[number]['value'];
 
 export function InspectionsPanel({ meterRunId }: { meterRunId: string }) {
-  const { list, record } = useRecords(meterRunId, 'inspections', inspection);
-  const [inspectedAt, setInspectedAt] = useState('');
+  const zone = useMeterRunZone(meterRunId);
+  const { list, record } = useCareRecords(meterRunId, 'inspections', 'inspection', inspection);
+  const common = useCommonFields(zone);
   const [kind, setKind] = useState<Kind>('orifice-plate');
   const [boreMm, setBoreMm] = useState('');
   const [flatnessMm, setFlatnessMm] = useState('');
   const [condition, setCondition] = useState('');
-  const [certificate, setCertificate] = useState('');
-  const fields = ['inspectedAt', 'kind', 'measured', 'condition', 'certificate'] as const;
+  const fields = ['inspectedAt', 'kind', 'measured', 'condition', 'certificate', 'nextDue', 'reason'] as const;
   const submit = () => {
     const bore = parseNumberText(boreMm);
     const flatness = parseNumberText(flatnessMm);
     const diameter = bore !== undefined ? bore / 1000 : undefined;
     record.mutate({
-      inspectedAt: inspectedAt.trim(),
-      kind,
-      measured: {
-        ...(diameter !== undefined
-          ? kind === 'cone'
-            ? { coneDiameterM: diameter }
-            : { boreDiameterM: diameter }
-          : {}),
-        ...(flatness !== undefined ? { flatnessMm: flatness } : {}),
+      body: {
+        ...common.body('inspectedAt'),
+        kind,
+        measured: {
+          ...(diameter !== undefined
+            ? kind === 'cone'
+              ? { coneDiameterM: diameter }
+              : { boreDiameterM: diameter }
+            : {}),
+          ...(flatness !== undefined ? { flatnessMm: flatness } : {}),
+        },
+        condition,
       },
-      condition,
-      certificate: optional(certificate),
+      certificate: common.file,
     });
   };
   return (
@@ -268,27 +379,36 @@ export function InspectionsPanel({ meterRunId }: { meterRunId: string }) {
         A measured bore (or cone diameter) that differs from the element in force becomes a configuration version from
         the inspection time.
       </AppText>
+      <Notice title="Safety" testID="inspection-caution">
+        Pulling a plate or a cone opens a pressurised line: isolate, depressurise and vent it safely, prove zero
+        pressure and a gas-free line, and work under the site&apos;s permit and lock-out before a flange is broken.
+      </Notice>
       {(list.data ?? []).map((i) => (
-        <AppText key={i.id} testID={`inspection-${i.id}`}>
-          {`${i.inspectedAt} · ${i.kind} · ${i.condition}${versionNote(i.configVersionId)}`}
-        </AppText>
+        <RecordLine
+          key={i.id}
+          testID={`inspection-${i.id}`}
+          text={`${formatOnSiteClock(i.inspectedAt, zone)} · ${i.kind} · ${i.condition}${certificateNumber(i)}${versionNote(i.configVersionId)}`}
+          nextDue={i.nextDue}
+          file={i.certificateFile}
+        />
       ))}
       {list.data?.length === 0 ? <AppText tone="muted">No inspection recorded.</AppText> : null}
       <ChoiceGroup label="Element" options={kinds} value={kind} onChange={setKind} testIDPrefix="inspection-kind" />
+      <CommonFieldsView
+        common={common}
+        dateField="inspectedAt"
+        dateLabel="Inspection date"
+        timeLabel="Inspection time"
+        error={record.error}
+        fields={fields}
+        testIDPrefix="inspection"
+      />
       <FieldRow>
-        <TextField
-          label="Inspected at"
-          value={inspectedAt}
-          onChangeText={setInspectedAt}
-          hint={instantHint}
-          error={problemOf(record.error, 'inspectedAt', fields) ?? problemOf(record.error, 'kind', fields)}
-          testID="inspection-inspectedAt"
-        />
         <NumberField
           label={kind === 'cone' ? 'Measured cone diameter (mm)' : 'Measured bore (mm)'}
           value={boreMm}
           onChangeText={setBoreMm}
-          error={problemOf(record.error, 'measured', fields)}
+          error={problemOf(record.error, 'measured', fields) ?? problemOf(record.error, 'kind', fields)}
           testID="inspection-bore"
         />
         <NumberField
@@ -298,21 +418,13 @@ export function InspectionsPanel({ meterRunId }: { meterRunId: string }) {
           testID="inspection-flatness"
         />
       </FieldRow>
-      <FieldRow>
-        <TextField
-          label="Condition"
-          value={condition}
-          onChangeText={setCondition}
-          error={problemOf(record.error, 'condition', fields)}
-          testID="inspection-condition"
-        />
-        <TextField
-          label="Certificate (optional)"
-          value={certificate}
-          onChangeText={setCertificate}
-          testID="inspection-certificate"
-        />
-      </FieldRow>
+      <TextField
+        label="Condition"
+        value={condition}
+        onChangeText={setCondition}
+        error={problemOf(record.error, 'condition', fields)}
+        testID="inspection-condition"
+      />
       <View style={styles.actions}>
         <Button
           label="Record inspection"
@@ -329,4 +441,5 @@ export function InspectionsPanel({ meterRunId }: { meterRunId: string }) {
 
 const styles = StyleSheet.create({
   actions: { flexDirection: 'row', flexWrap: 'wrap', gap: space.sm },
+  record: { gap: space.xs },
 });

@@ -81,6 +81,39 @@ function resolveInside(certificatesDir: string, relativePath: string): string {
 }
 
 /**
+ * The type of an uploaded file by its content, or a 400 naming `field` when it is not a PDF, PNG
+ * or JPEG. Writes nothing: a use case that makes other records first (a configuration version)
+ * checks the file before them and keeps it (storeCertificate) only after them.
+ */
+export async function checkCertificateUpload(
+  uploaded: { file: string },
+  field = 'certificate',
+): Promise<CertificateType> {
+  const contentType = sniffCertificateType(await readHead(uploaded.file, 8));
+  if (!contentType) throw badRequest(`${field}: must be a PDF, PNG or JPEG file (judged by its content)`, field);
+  return contentType;
+}
+
+/** An upload a use case may check early and keep late (see checkCertificateUpload). */
+export interface CertificateUpload {
+  check(): Promise<CertificateType>;
+  keep(): Promise<StoredCertificate>;
+}
+
+/** The CertificateUpload of a received file, kept under `certificatesDir`; null when none was sent. */
+export function certificateUpload(
+  certificatesDir: string,
+  uploaded: { file: string; originalName: string } | null,
+  field = 'certificate',
+): CertificateUpload | null {
+  if (!uploaded) return null;
+  return {
+    check: () => checkCertificateUpload(uploaded, field),
+    keep: () => storeCertificate(certificatesDir, uploaded, { field }),
+  };
+}
+
+/**
  * Checks an uploaded file by content and moves it into the store, read-only. A file of another
  * type is deleted and refused with a 400 naming `field`: nothing of it is kept.
  * @param certificatesDir `<data dir>/certificates` (see certificatesDirBeside)
@@ -95,8 +128,7 @@ export async function storeCertificate(
   const field = options.field ?? 'certificate';
   try {
     const stat = await fs.promises.stat(uploaded.file);
-    const contentType = sniffCertificateType(await readHead(uploaded.file, 8));
-    if (!contentType) throw badRequest(`${field}: must be a PDF, PNG or JPEG file (judged by its content)`, field);
+    const contentType = await checkCertificateUpload(uploaded, field);
     const sha256 = await sha256Of(uploaded.file);
     const at = options.at ?? new Date();
     const folder = path.basename(path.resolve(certificatesDir));

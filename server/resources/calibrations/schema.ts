@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { badRequest } from '../../errors';
+import { jsonFieldPayload } from '../../certificates/multipart';
 import { idField } from '../../http/params';
 
 const text = (max: number) =>
@@ -50,13 +50,5 @@ export type CalibrationInput = z.infer<typeof calibrationBody>;
  * `calibration` (a form cannot carry nested points otherwise).
  */
 export function calibrationPayload(body: unknown, multipart: boolean): unknown {
-  if (!multipart) return body;
-  const raw = (body as { calibration?: unknown } | undefined)?.calibration;
-  if (typeof raw !== 'string')
-    throw badRequest('calibration: send the calibration as JSON text in the form field "calibration"', 'calibration');
-  try {
-    return JSON.parse(raw) as unknown;
-  } catch {
-    throw badRequest('calibration: is not valid JSON', 'calibration');
-  }
+  return jsonFieldPayload(body, multipart, 'calibration');
 }

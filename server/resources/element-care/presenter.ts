@@ -1,6 +1,18 @@
 import { presentCreatedConfigVersion } from '../meter-runs/presenter';
-import type { ElementCalibrationRecord, GasAnalysisRecord, InspectionRecord } from './repository';
+import type { CertificateFile, ElementCalibrationRecord, GasAnalysisRecord, InspectionRecord } from './repository';
 import type { Recorded } from './use-cases';
+
+/** The certificate file as a link (never its stored path); `collection` is its download route's. */
+const presentFile = (collection: string, id: string, f: CertificateFile | null) =>
+  f
+    ? {
+        name: f.fileName,
+        contentType: f.contentType,
+        sizeBytes: f.sizeBytes,
+        sha256: f.sha256,
+        url: `/api/${collection}/${id}/certificate`,
+      }
+    : null;
 
 const author = (r: { createdBy: { email: string; name: string } | null }) =>
   r.createdBy ? { email: r.createdBy.email, name: r.createdBy.name } : null;
@@ -12,6 +24,8 @@ export const presentCalibration = (c: ElementCalibrationRecord) => ({
   effectiveFrom: c.effectiveFrom.toISOString(),
   laboratory: c.laboratory,
   certificate: c.certificate,
+  certificateFile: presentFile('element-calibrations', c.id, c.certificateFile),
+  nextDue: c.nextDue,
   uncertaintyPercent: c.uncertaintyPercent,
   points: c.points.map((p) => ({ reynoldsNumber: p.reynoldsNumber, dischargeCoefficient: p.dischargeCoefficient })),
   configVersionId: c.configVersionId,
@@ -25,6 +39,8 @@ export const presentGasAnalysis = (a: GasAnalysisRecord) => ({
   sampledAt: a.sampledAt.toISOString(),
   laboratory: a.laboratory,
   certificate: a.certificate,
+  certificateFile: presentFile('gas-analyses', a.id, a.certificateFile),
+  nextDue: a.nextDue,
   components: a.components,
   composition: a.composition,
   sumTolerance: a.sumTolerance,
@@ -41,6 +57,8 @@ export const presentInspection = (i: InspectionRecord) => ({
   measured: i.measured,
   condition: i.condition,
   certificate: i.certificate,
+  certificateFile: presentFile('element-inspections', i.id, i.certificateFile),
+  nextDue: i.nextDue,
   configVersionId: i.configVersionId,
   createdAt: i.createdAt.toISOString(),
   createdBy: author(i),

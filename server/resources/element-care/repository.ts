@@ -1,5 +1,6 @@
 import { QueryTypes, type Sequelize, type Transaction } from 'sequelize';
 import type { CalibrationPoint } from '../../../shared/flow/flow-types';
+import type { CertificateType } from '../../certificates/store';
 
 /** Who recorded an element care record. */
 export interface RecordAuthor {
@@ -7,10 +8,23 @@ export interface RecordAuthor {
   name: string;
 }
 
+/** A record's stored certificate file (never served by its path; see the certificate routes). */
+export interface CertificateFile {
+  path: string;
+  sha256: string;
+  contentType: CertificateType;
+  sizeBytes: number;
+  fileName: string;
+}
+
 interface Recorded {
   id: string;
   meterRunId: string;
+  /** The certificate's number or reference. */
   certificate: string | null;
+  certificateFile: CertificateFile | null;
+  /** The next one due, YYYY-MM-DD in the site's zone. */
+  nextDue: string | null;
   configVersionId: string | null;
   createdAt: Date;
   createdBy: RecordAuthor | null;
@@ -43,6 +57,12 @@ interface RecordedRow {
   id: string;
   meter_run_id: string;
   certificate: string | null;
+  certificate_path: string | null;
+  certificate_sha256: string | null;
+  certificate_type: CertificateType | null;
+  certificate_size_bytes: string | null;
+  certificate_name: string | null;
+  next_due: string | null;
   config_version_id: string | null;
   created_at: Date;
   author_email: string | null;
@@ -73,13 +93,38 @@ const recorded = (r: RecordedRow): Recorded => ({
   id: r.id,
   meterRunId: r.meter_run_id,
   certificate: r.certificate,
+  certificateFile:
+    r.certificate_path && r.certificate_sha256 && r.certificate_type
+      ? {
+          path: r.certificate_path,
+          sha256: r.certificate_sha256,
+          contentType: r.certificate_type,
+          sizeBytes: Number(r.certificate_size_bytes),
+          fileName: r.certificate_name ?? 'certificate',
+        }
+      : null,
+  nextDue: r.next_due,
   configVersionId: r.config_version_id,
   createdAt: r.created_at,
   createdBy: r.author_email !== null ? { email: r.author_email, name: r.author_name ?? '' } : null,
 });
 
-const common = `t.id::text, t.meter_run_id::text, t.certificate, t.config_version_id::text, t.created_at,
+const common = `t.id::text, t.meter_run_id::text, t.certificate, t.certificate_path, t.certificate_sha256,
+                t.certificate_type, t.certificate_size_bytes::text, t.certificate_name,
+                to_char(t.next_due, 'YYYY-MM-DD') AS next_due, t.config_version_id::text, t.created_at,
                 u.email AS author_email, u.name AS author_name`;
+
+/** The certificate and next-due columns of an insert, and their values. */
+const fileColumns = `certificate_path, certificate_sha256, certificate_type, certificate_size_bytes, certificate_name, next_due`;
+const fileValues = `:certificatePath, :certificateSha256, :certificateType, :certificateSizeBytes, :certificateName, :nextDue`;
+const fileReplacements = (r: { certificateFile: CertificateFile | null; nextDue: string | null }) => ({
+  certificatePath: r.certificateFile?.path ?? null,
+  certificateSha256: r.certificateFile?.sha256 ?? null,
+  certificateType: r.certificateFile?.contentType ?? null,
+  certificateSizeBytes: r.certificateFile?.sizeBytes ?? null,
+  certificateName: r.certificateFile?.fileName ?? null,
+  nextDue: r.nextDue,
+});
 
 /** All reads and writes of element calibrations, gas analyses and inspections (append-only tables). */
 export interface ElementCareRepository {
@@ -181,33 +226,38 @@ export function elementCareRepository(sequelize: Sequelize): ElementCareReposito
     insertCalibration(c, transaction) {
       return insertReturningId(
         `INSERT INTO element_calibrations (meter_run_id, calibrated_at, effective_from, laboratory, certificate,
-                uncertainty_percent, points, config_version_id, created_by)
+                uncertainty_percent, points, config_version_id, created_by, ${fileColumns})
          VALUES (:meterRunId, :calibratedAt, :effectiveFrom, :laboratory, :certificate,
-                 :uncertaintyPercent, CAST(:points AS jsonb), :configVersionId, :createdBy)
+                 :uncertaintyPercent, CAST(:points AS jsonb), :configVersionId, :createdBy, ${fileValues})
          RETURNING id::text`,
-        { ...c, points: JSON.stringify(c.points) },
+        { ...c, points: JSON.stringify(c.points), ...fileReplacements(c) },
         transaction,
       );
     },
     insertGasAnalysis(a, transaction) {
       return insertReturningId(
         `INSERT INTO gas_analyses (meter_run_id, sampled_at, laboratory, certificate, components, composition,
-                sum_tolerance, config_version_id, created_by)
+                sum_tolerance, config_version_id, created_by, ${fileColumns})
          VALUES (:meterRunId, :sampledAt, :laboratory, :certificate, CAST(:components AS jsonb), CAST(:composition AS jsonb),
-                 :sumTolerance, :configVersionId, :createdBy)
+                 :sumTolerance, :configVersionId, :createdBy, ${fileValues})
          RETURNING id::text`,
-        { ...a, components: JSON.stringify(a.components), composition: JSON.stringify(a.composition) },
+        {
+          ...a,
+          components: JSON.stringify(a.components),
+          composition: JSON.stringify(a.composition),
+          ...fileReplacements(a),
+        },
         transaction,
       );
     },
     insertInspection(i, transaction) {
       return insertReturningId(
         `INSERT INTO element_inspections (meter_run_id, inspected_at, kind, measured, condition, certificate,
-                config_version_id, created_by)
+                config_version_id, created_by, ${fileColumns})
          VALUES (:meterRunId, :inspectedAt, :kind, CAST(:measured AS jsonb), :condition, :certificate,
-                 :configVersionId, :createdBy)
+                 :configVersionId, :createdBy, ${fileValues})
          RETURNING id::text`,
-        { ...i, measured: JSON.stringify(i.measured) },
+        { ...i, measured: JSON.stringify(i.measured), ...fileReplacements(i) },
         transaction,
       );
     },

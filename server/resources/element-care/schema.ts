@@ -4,8 +4,10 @@ import { calibrationPointSchema, elementSpecSchema } from '../../../shared/schem
 import { DEFAULT_SUM_TOLERANCE } from './gas-composition';
 
 const text = (max = 200) => z.string().trim().min(1, 'is required').max(max);
-/** A certificate's reference (number or name) until certificates are stored as files. */
+/** The certificate's number or reference; the file itself comes as the multipart field `certificate`. */
 const certificate = z.string().trim().min(1).max(200).optional();
+/** When the next calibration, analysis or inspection is due, a date in the site's zone. */
+const nextDue = z.iso.date('must be a date YYYY-MM-DD').optional();
 const reason = z.string().trim().min(1).max(1000).optional();
 
 /** `POST /api/meter-runs/:id/element-calibrations`: a laboratory curve of C against Re_D (issue 11 §2). */
@@ -23,6 +25,7 @@ export const elementCalibrationBody = z
     points: z.array(calibrationPointSchema).min(1, 'needs at least one point').optional(),
     /** The same points as CSV text, header `reynoldsNumber,dischargeCoefficient`. */
     pointsCsv: z.string().max(200_000).optional(),
+    nextDue,
     reason,
   })
   .strict()
@@ -49,6 +52,7 @@ export const gasAnalysisBody = z
       .number({ error: 'must be a number' })
       .refine((v) => Number.isFinite(v) && v >= 0 && v <= 0.05, 'must be between 0 and 0.05')
       .default(DEFAULT_SUM_TOLERANCE),
+    nextDue,
     reason,
   })
   .strict();
@@ -81,7 +85,14 @@ export const inspectionBody = z
     certificate,
     /** An element change found at inspection: the element now installed. */
     element: elementSpecSchema.optional(),
+    nextDue,
     reason,
   })
   .strict();
 export type InspectionInput = z.infer<typeof inspectionBody>;
+
+/**
+ * The multipart form field that carries each record as JSON text beside its `certificate` file
+ * (see jsonFieldPayload).
+ */
+export const payloadFields = { calibration: 'calibration', analysis: 'analysis', inspection: 'inspection' } as const;

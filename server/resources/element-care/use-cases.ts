@@ -1,6 +1,7 @@
 import type { Sequelize } from 'sequelize';
 import { recordAuditEvent } from '../../audit';
 import type { SignedInUser } from '../../auth/passport';
+import type { CertificateUpload, StoredCertificate } from '../../certificates/store';
 import { badRequest, notFound } from '../../errors';
 import { configDifference, type JsonValue } from '../../../shared/config/config-difference';
 import { elementSpecSchema, fluidSpecSchema } from '../../../shared/schemas/flow-case';
@@ -86,6 +87,47 @@ function newVersion(
   });
 }
 
+/**
+ * Refuses a next due date before the record's own date, both as dates in the site's zone.
+ * @throws bad request naming `nextDue`
+ */
+async function checkNextDue({ repository }: MeterRunDeps, meterRunId: string, at: Date, nextDue: string | undefined) {
+  if (nextDue === undefined) return;
+  const meterRun = await repository.findById(meterRunId);
+  const timeZone = (meterRun && (await repository.siteTimeZone(meterRun.siteId))) ?? 'UTC';
+  // en-CA writes a date as YYYY-MM-DD, so the two compare as strings.
+  const day = new Intl.DateTimeFormat('en-CA', { timeZone, year: 'numeric', month: '2-digit', day: '2-digit' }).format(
+    at,
+  );
+  if (nextDue < day)
+    throw badRequest(
+      `nextDue: ${nextDue} is before the record's date ${day} (${timeZone})`,
+      'nextDue',
+      'invalid_field',
+    );
+}
+
+/** A kept certificate as the record stores it. */
+const certificateFile = (c: StoredCertificate | null) =>
+  c
+    ? { path: c.path, sha256: c.sha256, contentType: c.contentType, sizeBytes: c.sizeBytes, fileName: c.originalName }
+    : null;
+
+/**
+ * The checks every record makes before it writes anything: the next due date against the
+ * record's date, then the certificate's type by content (a refused file leaves no version behind).
+ */
+async function checkRecord(
+  deps: ElementCareDeps,
+  meterRunId: string,
+  at: Date,
+  nextDue: string | undefined,
+  certificate: CertificateUpload | null,
+) {
+  await checkNextDue(deps.meterRuns, meterRunId, at, nextDue);
+  if (certificate) await certificate.check();
+}
+
 const storedFluid = (c: ConfigVersionRecord) => checked(fluidSpecSchema, c.fluid, 'fluid');
 
 /**
@@ -97,7 +139,12 @@ const storedFluid = (c: ConfigVersionRecord) => checked(fluidSpecSchema, c.fluid
  */
 export async function recordElementCalibration(
   deps: ElementCareDeps,
-  request: { meterRunId: string; input: ElementCalibrationInput; actor: SignedInUser },
+  request: {
+    meterRunId: string;
+    input: ElementCalibrationInput;
+    certificate: CertificateUpload | null;
+    actor: SignedInUser;
+  },
 ): Promise<Recorded<ElementCalibrationRecord>> {
   const { meterRunId, input, actor } = request;
   const points = [...(input.points ?? parseCalibrationCsv(input.pointsCsv ?? ''))].sort(
@@ -111,6 +158,7 @@ export async function recordElementCalibration(
     effectiveFrom,
     input.effectiveFrom ? 'effectiveFrom' : 'calibratedAt',
   );
+  await checkRecord(deps, meterRunId, calibratedAt, input.nextDue, request.certificate);
   // A fixed C and a curve exclude each other: the curve replaces it.
   const { dischargeCoefficient: _fixed, ...element } = current.element;
   const calibrated = checked(
@@ -127,6 +175,7 @@ export async function recordElementCalibration(
     actor,
   );
   const record = await deps.sequelize.transaction(async (transaction) => {
+    const kept = request.certificate ? await request.certificate.keep() : null;
     const id = await deps.repository.insertCalibration(
       {
         meterRunId,
@@ -134,6 +183,8 @@ export async function recordElementCalibration(
         effectiveFrom,
         laboratory: input.laboratory,
         certificate: input.certificate ?? null,
+        certificateFile: certificateFile(kept),
+        nextDue: input.nextDue ?? null,
         uncertaintyPercent: input.uncertaintyPercent,
         points,
         configVersionId: version.version.id,
@@ -168,7 +219,7 @@ export async function recordElementCalibration(
  */
 export async function recordGasAnalysis(
   deps: ElementCareDeps,
-  request: { meterRunId: string; input: GasAnalysisInput; actor: SignedInUser },
+  request: { meterRunId: string; input: GasAnalysisInput; certificate: CertificateUpload | null; actor: SignedInUser },
 ): Promise<Recorded<GasAnalysisRecord>> {
   const { meterRunId, input, actor } = request;
   const { composition } = analysedComposition(input.components, input.sumTolerance);
@@ -181,6 +232,7 @@ export async function recordGasAnalysis(
       'components',
       'invalid_field',
     );
+  await checkRecord(deps, meterRunId, sampledAt, input.nextDue, request.certificate);
   const version = await newVersion(
     deps,
     meterRunId,
@@ -193,12 +245,15 @@ export async function recordGasAnalysis(
     actor,
   );
   const record = await deps.sequelize.transaction(async (transaction) => {
+    const kept = request.certificate ? await request.certificate.keep() : null;
     const id = await deps.repository.insertGasAnalysis(
       {
         meterRunId,
         sampledAt,
         laboratory: input.laboratory,
         certificate: input.certificate ?? null,
+        certificateFile: certificateFile(kept),
+        nextDue: input.nextDue ?? null,
         components: input.components,
         composition,
         sumTolerance: input.sumTolerance,
@@ -274,12 +329,13 @@ export function elementAfterInspection(current: Element, input: InspectionInput)
  */
 export async function recordInspection(
   deps: ElementCareDeps,
-  request: { meterRunId: string; input: InspectionInput; actor: SignedInUser },
+  request: { meterRunId: string; input: InspectionInput; certificate: CertificateUpload | null; actor: SignedInUser },
 ): Promise<Recorded<InspectionRecord>> {
   const { meterRunId, input, actor } = request;
   const inspectedAt = new Date(input.inspectedAt);
   const current = await configInForce(deps.meterRuns, meterRunId, inspectedAt, 'inspectedAt');
   const changed = elementAfterInspection(checked(elementSpecSchema, current.element, 'element'), input);
+  await checkRecord(deps, meterRunId, inspectedAt, input.nextDue, request.certificate);
   const version = changed
     ? await newVersion(
         deps,
@@ -291,6 +347,7 @@ export async function recordInspection(
       )
     : null;
   const record = await deps.sequelize.transaction(async (transaction) => {
+    const kept = request.certificate ? await request.certificate.keep() : null;
     const id = await deps.repository.insertInspection(
       {
         meterRunId,
@@ -299,6 +356,8 @@ export async function recordInspection(
         measured: input.measured,
         condition: input.condition,
         certificate: input.certificate ?? null,
+        certificateFile: certificateFile(kept),
+        nextDue: input.nextDue ?? null,
         configVersionId: version?.version.id ?? null,
         createdBy: actor.id,
       },
@@ -340,4 +399,21 @@ export async function listGasAnalyses(deps: ElementCareDeps, meterRunId: string)
 export async function listInspections(deps: ElementCareDeps, meterRunId: string) {
   await existing(deps, meterRunId);
   return deps.repository.listInspections(meterRunId);
+}
+
+/** A record's certificate file as stored; 404 naming the record or the certificate when either is missing. */
+export async function certificateOfRecord(
+  repository: ElementCareRepository,
+  kind: 'calibration' | 'analysis' | 'inspection',
+  id: string,
+) {
+  const found =
+    kind === 'calibration'
+      ? await repository.findCalibration(id)
+      : kind === 'analysis'
+        ? await repository.findGasAnalysis(id)
+        : await repository.findInspection(id);
+  const what = { calibration: 'Element calibration', analysis: 'Gas analysis', inspection: 'Inspection' }[kind];
+  if (!found?.certificateFile) throw notFound(found ? 'Certificate' : what);
+  return found.certificateFile;
 }
