@@ -18,6 +18,7 @@ const designMatrix: Record<string, string[]> = {
   setup: ['engineer', 'admin'],
   'range-check': ['engineer', 'admin'],
   'range-health': ['engineer', 'admin'],
+  'care-due': ['engineer', 'admin'],
   // "propose a correction": engineer, admin
   corrections: ['engineer', 'admin'],
   // "audit log": read for engineer, accountant, admin

@@ -14,6 +14,7 @@ export const areaKeys = [
   'setup',
   'range-check',
   'range-health',
+  'care-due',
   'corrections',
   'audit',
   'users',
@@ -113,6 +114,17 @@ const entries: readonly AreaEntry[] = [
     title: 'Range health',
     shortTitle: 'Health',
     href: '/range-health',
+    capability: 'configure',
+    primary: false,
+    group: 'engineering',
+  },
+  // What is due in the care of the meters (calibrations, analyses, inspections): the people who record them.
+  // The list itself (GET /api/sites/:id/care-due) is readable by every role.
+  {
+    key: 'care-due',
+    title: 'Care due',
+    shortTitle: 'Due',
+    href: '/care-due',
     capability: 'configure',
     primary: false,
     group: 'engineering',

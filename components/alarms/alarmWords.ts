@@ -17,6 +17,8 @@ const conditionWords: Record<AlarmCondition, string> = {
   'calibration-overdue': 'Calibration overdue',
   'reconciliation-out-of-tolerance': 'Reconciliation out of tolerance',
   'balance-out-of-tolerance': 'Balance out of tolerance',
+  'care-due': 'Element care due soon',
+  'care-overdue': 'Element care overdue',
 };
 
 /**

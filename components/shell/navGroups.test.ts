@@ -7,7 +7,7 @@ describe('groupAreas', () => {
     expect(groups.map((group) => group.title)).toEqual(['Operations', 'Engineering', 'Administration']);
     expect(groups.map((group) => group.areas.map((area) => area.key))).toEqual([
       ['live', 'meter-runs', 'alarms', 'totals'],
-      ['imports', 'setup', 'range-check', 'range-health', 'corrections'],
+      ['imports', 'setup', 'range-check', 'range-health', 'care-due', 'corrections'],
       ['audit', 'users', 'devices', 'mail'],
     ]);
   });

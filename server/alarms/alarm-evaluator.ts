@@ -18,10 +18,12 @@
  */
 import { EventEmitter } from 'node:events';
 import type { Pool, PoolClient } from 'pg';
-import { DateTime } from 'luxon';
 import { toSI } from '../../shared/units';
 import { walkMeterRunAlarms, type WalkReading, type WalkTransmitter } from '../../shared/alarms/meter-run-alarm-walk';
 import { alarmMessage } from '../../shared/alarms/alarm-message';
+import { judgeDueDate, todayIn } from '../../shared/alarms/due-date';
+import { careDuties, type CareRecordKind } from '../../shared/alarms/care-duties';
+import { careMeterRuns } from '../resources/care-due/repository';
 import type { Quality } from '../../shared/history/types';
 import { loadMeterRunContext, type MeterRunContext } from '../history/load-context';
 import { componentLogger } from '../log';
@@ -115,6 +117,7 @@ export class AlarmEvaluator extends EventEmitter {
       }
     }
     await this.evaluateCalibration(nowMs);
+    await this.evaluateCare(nowMs);
     await this.evaluateReconciliation(nowMs);
     await this.evaluateBalances(nowMs);
   }
@@ -269,17 +272,13 @@ export class AlarmEvaluator extends EventEmitter {
     for (const r of await calibrationTransmitters(this.pool)) {
       let limits = byRun.get(r.meterRunId);
       if (!limits) byRun.set(r.meterRunId, (limits = limitsResolver(await loadStoredLimits(this.pool, r.meterRunId))));
-      const today = DateTime.fromMillis(nowMs, { zone: r.timeZone }).toISODate()!;
       const due = r.due;
       const dueLimits = limits('calibration-due', r.id);
       const overdueLimits = limits('calibration-overdue', r.id);
-      const soonFrom = due
-        ? DateTime.fromISO(due)
-            .minus({ days: dueLimits.dueSoonDays ?? 14 })
-            .toISODate()!
-        : null;
-      const overdue = due !== null && today > due && overdueLimits.enabled;
-      const dueSoon = due !== null && soonFrom !== null && today >= soonFrom && today <= due && dueLimits.enabled;
+      const state =
+        due === null ? null : judgeDueDate(due, todayIn(nowMs, r.timeZone), dueLimits.dueSoonDays ?? 14).state;
+      const overdue = state === 'overdue' && overdueLimits.enabled;
+      const dueSoon = state === 'due-soon' && dueLimits.enabled;
       const detail = { calibrationDue: due };
       for (const [condition, holds, priority] of [
         ['calibration-due', dueSoon, dueLimits.priority],
@@ -303,7 +302,61 @@ export class AlarmEvaluator extends EventEmitter {
     if (touched.length) this.emit('changed', touched);
     if (raised.length) this.emit('raised', raised);
   }
+
+  /**
+   * The element's care records (issue 11 §4), per meter run: care-due while any of the latest
+   * element calibration, gas analysis or inspection is due soon, care-overdue while any is past
+   * its date, by the same rule and window as a transmitter's calibration (shared/alarms/due-date.ts).
+   * The detail names the record kinds and their dates. Judged by the clock.
+   */
+  async evaluateCare(nowMs = this.now()) {
+    const raised: string[] = [];
+    const touched: string[] = [];
+    for (const run of await careMeterRuns(this.pool, null)) {
+      const limits = limitsResolver(await loadStoredLimits(this.pool, run.id));
+      const dueLimits = limits('care-due', null);
+      const overdueLimits = limits('care-overdue', null);
+      const today = todayIn(nowMs, run.timeZone);
+      const judged = careDuties(run).flatMap((d) =>
+        d.dueOn === null
+          ? []
+          : [{ ...d, dueOn: d.dueOn, ...judgeDueDate(d.dueOn, today, dueLimits.dueSoonDays ?? 14) }],
+      );
+      for (const [condition, state, conditionLimits] of [
+        ['care-due', 'due-soon', dueLimits],
+        ['care-overdue', 'overdue', overdueLimits],
+      ] as const) {
+        const records = judged.filter((d) => d.state === state);
+        const detail = {
+          kinds: records.map((d) => d.kind).join(','),
+          records: records.map((d) => `${careWords[d.kind]} due ${d.dueOn}`).join('; '),
+        };
+        const applied = await setClockCondition(
+          this.pool,
+          run.id,
+          null,
+          condition,
+          records.length > 0 && conditionLimits.enabled,
+          conditionLimits.priority,
+          alarmMessage(condition, run.tag, detail),
+          detail,
+          nowMs,
+        );
+        if (applied) touched.push(applied.alarmId);
+        if (applied?.raised) raised.push(applied.alarmId);
+      }
+    }
+    if (touched.length) this.emit('changed', touched);
+    if (raised.length) this.emit('raised', raised);
+  }
 }
+
+/** The record kinds in the alarm's words. */
+const careWords: Record<CareRecordKind, string> = {
+  'element-calibration': 'element calibration',
+  'gas-analysis': 'gas analysis',
+  'element-inspection': 'element inspection',
+};
 
 /** The meter run's transmitters with their ranges in SI (as the readings are converted). */
 function walkTransmitters(ctx: MeterRunContext, tags: Map<string, string>): WalkTransmitter[] {

@@ -257,11 +257,11 @@ export async function unshelveExpired(pool: Pool, nowMs = Date.now()): Promise<s
   return done;
 }
 
-/** Raises or clears a point judged by the clock alone (calibration due dates): no walk state. */
+/** Raises or clears a point judged by the clock alone (due dates; transmitterId null for the meter run): no walk state. */
 export async function setClockCondition(
   db: Db,
   meterRunId: string,
-  transmitterId: string,
+  transmitterId: string | null,
   condition: AlarmCondition,
   holds: boolean,
   priority: AlarmPriority,
@@ -271,7 +271,8 @@ export async function setClockCondition(
 ): Promise<{ alarmId: string; raised: boolean } | null> {
   const open = (
     await db.query(
-      `SELECT condition_active FROM alarms WHERE meter_run_id = $1 AND transmitter_id = $2 AND condition = $3 AND state <> 'normal'`,
+      `SELECT condition_active FROM alarms
+        WHERE meter_run_id = $1 AND transmitter_id IS NOT DISTINCT FROM $2::bigint AND condition = $3 AND state <> 'normal'`,
       [meterRunId, transmitterId, condition],
     )
   ).rows[0];

@@ -25,6 +25,7 @@ import {
   type ScenarioTimeline,
 } from '../../simulators/scenario';
 import { seedDemoBalanceGroup } from './demo-month-end';
+import { seedDemoCare } from './demo-care';
 
 export interface DemoScenarioSeedResult {
   demoMonth: string;
@@ -217,6 +218,8 @@ export async function seedDemoScenario(
   });
   // Through the balance-groups use case, in its own transaction, once the meter runs are committed.
   created.balanceGroups = await seedDemoBalanceGroup(sequelize);
+  // Transmitter calibrations through their use case (one overdue, one due soon: the "Care due" screen's demo).
+  await seedDemoCare(sequelize, { nowMs: options.nowMs });
   return created;
 }
 

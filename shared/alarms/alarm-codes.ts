@@ -14,6 +14,8 @@ export const ALARM_CONDITIONS = [
   'calibration-overdue',
   'reconciliation-out-of-tolerance',
   'balance-out-of-tolerance',
+  'care-due',
+  'care-overdue',
 ] as const;
 export type AlarmCondition = (typeof ALARM_CONDITIONS)[number];
 

@@ -26,7 +26,7 @@ export interface AlarmLimits {
   maxStdDevShareOfSpan?: number;
   /** stale: no reading for longer than this. */
   maxAgeS?: number;
-  /** calibration-due: this many days before the due date. */
+  /** calibration-due, care-due: this many days before the due date. */
   dueSoonDays?: number;
 }
 
@@ -47,6 +47,8 @@ export const ALARM_LIMIT_FIELDS: Readonly<Record<AlarmCondition, readonly AlarmL
   'calibration-overdue': [...common],
   'reconciliation-out-of-tolerance': [...common],
   'balance-out-of-tolerance': [...common],
+  'care-due': [...common, 'dueSoonDays'],
+  'care-overdue': [...common],
 };
 
 /**
@@ -101,6 +103,9 @@ export const DEFAULT_ALARM_LIMITS: Readonly<Record<AlarmCondition, AlarmLimits>>
   'calibration-overdue': { enabled: true, priority: 'medium', onDelayS: 0, offDelayS: 0 },
   'reconciliation-out-of-tolerance': { enabled: true, priority: 'medium', onDelayS: 0, offDelayS: 0 },
   'balance-out-of-tolerance': { enabled: true, priority: 'medium', onDelayS: 0, offDelayS: 0 },
+  // The element's care records (issue 11 §4) are judged as a transmitter's calibration is: same window and priorities.
+  'care-due': { enabled: true, priority: 'low', onDelayS: 0, offDelayS: 0, dueSoonDays: 14 },
+  'care-overdue': { enabled: true, priority: 'medium', onDelayS: 0, offDelayS: 0 },
 };
 
 /** A limit that makes no sense; `field` names it (the API answers 400 with it). */

@@ -40,6 +40,10 @@ export function alarmMessage(condition: AlarmCondition, subject: string, detail:
       return `${subject}: the contract day from ${iso(detail.dayStartMs)} differs from the field total by ${num(detail.differencePercent)} % (${detail.quantity}), outside the tolerance of ${num(detail.tolerancePercent)} %.`;
     case 'balance-out-of-tolerance':
       return `${subject}: the contract day from ${iso(detail.dayStartMs)} is out of balance by ${num(detail.imbalancePercent)} % of the inlet (${num(detail.imbalanceM3, 0)} m³), outside the tolerance of ${num(detail.tolerancePercent)} %${detail.exceedsUncertainty === 'true' ? '; larger than its own uncertainty' : detail.exceedsUncertainty === 'false' ? '; within its own uncertainty' : ''}.`;
+    case 'care-due':
+      return `${subject}: element care due soon: ${detail.records}.`;
+    case 'care-overdue':
+      return `${subject}: element care overdue: ${detail.records}.`;
     default:
       return `${subject}: ${condition}.`;
   }
