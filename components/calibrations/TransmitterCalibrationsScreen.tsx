@@ -2,13 +2,16 @@
  * A transmitter's calibration history (every role): its calibrations newest first, each with
  * its points as found and as left (error in % of span, pass or fail), laboratory, due date and
  * certificate, an as-found error chart across the history, and (engineer, admin) the form to
- * record one. Phone first: one column of cards.
+ * record one. A failed as-found offers "Propose a correction": the server's suggestion prefills
+ * the ordinary corrections form, and the engineer submits it as a proposal another person approves.
+ * Phone first: one column of cards.
  */
 import { useState } from 'react';
 import { StyleSheet, View } from 'react-native';
 import { DateTime } from 'luxon';
 
 import { Chart } from '@/components/charts/Chart';
+import { CorrectionProposeForm } from '@/components/corrections/CorrectionProposeForm';
 import { calibrationState } from '@/components/meter-runs/calibrationState';
 import { AppText } from '@/components/ui/AppText';
 import { Button } from '@/components/ui/Button';
@@ -19,12 +22,16 @@ import { Screen } from '@/components/ui/Screen';
 import { can } from '@/constants/roles';
 import { space } from '@/constants/theme';
 import { formatPlain, unitLabel } from '@/constants/units-display';
+import { useMeterRuns } from '@/hooks/api/meterRuns';
+import { useSites } from '@/hooks/api/sites';
 import { useSignedInUser } from '@/hooks/session/SessionProvider';
 import {
   useCalibrations,
+  useCorrectionProposal,
   useDownloadCertificate,
   useTransmitter,
   type Calibration,
+  type CalibrationCorrectionProposal,
   type CalibrationPoint,
 } from './api';
 import { asFoundPlot } from './asFoundPlot';
@@ -44,7 +51,70 @@ function Points({ title, points, unit }: { title: string; points: CalibrationPoi
   );
 }
 
-function CalibrationCard({ calibration }: { calibration: Calibration }) {
+/** The date and whole hour of an instant on the site's clock, as the corrections form takes them. */
+function onSiteClock(iso: string, zone: string) {
+  const moment = DateTime.fromISO(iso, { zone });
+  return { date: moment.toFormat('yyyy-LL-dd'), time: moment.toFormat('HH:00') };
+}
+
+/** "Propose a correction" for a failed as-found: fetches the suggestion, then the prefilled form. */
+function ProposeCorrection({ calibration }: { calibration: Calibration }) {
+  const suggest = useCorrectionProposal();
+  const meterRuns = useMeterRuns();
+  const sites = useSites();
+  const [proposal, setProposal] = useState<CalibrationCorrectionProposal | null>(null);
+  const [proposed, setProposed] = useState(false);
+  if (proposed)
+    return (
+      <Notice testID={`calibration-correction-proposed-${calibration.id}`}>
+        Correction proposed: it waits for another engineer or an administrator to approve it.
+      </Notice>
+    );
+  if (proposal && meterRuns.data && sites.data) {
+    const start = onSiteClock(proposal.start, proposal.timeZone);
+    const end = onSiteClock(proposal.end, proposal.timeZone);
+    return (
+      <View style={styles.points} testID={`calibration-correction-${calibration.id}`}>
+        <AppText tone="muted">{proposal.basis}</AppText>
+        {proposal.shortened ? (
+          <AppText tone="muted">
+            The period since the last good calibration is longer than a correction may cover: this covers its last days;
+            propose the earlier periods separately.
+          </AppText>
+        ) : null}
+        <CorrectionProposeForm
+          meterRuns={meterRuns.data}
+          sites={sites.data}
+          initial={{
+            meterRunId: proposal.meterRunId,
+            startDate: start.date,
+            startTime: start.time,
+            endDate: end.date,
+            endTime: end.time,
+            mode: 'factor',
+            factor: String(proposal.factor),
+            reason: proposal.reason,
+          }}
+          onDone={() => setProposed(true)}
+        />
+      </View>
+    );
+  }
+  return (
+    <View style={styles.row}>
+      <Button
+        label="Propose a correction"
+        size="compact"
+        onPress={() => suggest.mutate(calibration.id, { onSuccess: setProposal })}
+        busy={suggest.isPending}
+        testID={`calibration-propose-correction-${calibration.id}`}
+      />
+      {suggest.error ? <AppText tone="alarm">▲ {suggest.error.message}</AppText> : null}
+    </View>
+  );
+}
+
+function CalibrationCard({ calibration, canPropose }: { calibration: Calibration; canPropose: boolean }) {
   const download = useDownloadCertificate();
   const c = calibration;
   const accreditation = [c.accreditation.standard, c.accreditation.number].filter(Boolean).join(' · ');
@@ -78,6 +148,7 @@ function CalibrationCard({ calibration }: { calibration: Calibration }) {
       ) : (
         <AppText tone="muted">No certificate attached.</AppText>
       )}
+      {canPropose && !c.asFoundPass ? <ProposeCorrection calibration={c} /> : null}
     </View>
   );
 }
@@ -157,7 +228,7 @@ export function TransmitterCalibrationsScreen({ transmitterId }: { transmitterId
           <Panel title="History" testID="calibration-history">
             {list.length === 0 ? <AppText tone="muted">No calibration recorded yet.</AppText> : null}
             {list.map((c) => (
-              <CalibrationCard key={c.id} calibration={c} />
+              <CalibrationCard key={c.id} calibration={c} canPropose={can(user.role, 'proposeCorrection')} />
             ))}
           </Panel>
         </>

@@ -3,7 +3,7 @@
  * GET /api/calibrations/:id/certificate. Recording one with a certificate is multipart, which the
  * JSON client does not send, so it is posted here with the session's token.
  */
-import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+import { useMutation, useQueries, useQuery, useQueryClient } from '@tanstack/react-query';
 import { z } from 'zod';
 
 import { config } from '@/constants/config';
@@ -160,4 +160,55 @@ export function useDownloadCertificate() {
         { token, onUnauthorized: () => signOut('expired') },
       ),
   });
+}
+
+const proposalSchema = z.object({
+  calibrationId: id,
+  meterRunId: id,
+  timeZone: z.string(),
+  start: z.string(),
+  end: z.string(),
+  shortened: z.boolean(),
+  kind: z.literal('adjust'),
+  factor: z.number(),
+  basis: z.string(),
+  reason: z.string(),
+});
+export type CalibrationCorrectionProposal = z.infer<typeof proposalSchema>;
+
+/** @returns a mutation that asks for the correction a failed as-found suggests (nothing is created) */
+export function useCorrectionProposal() {
+  return useMutation({
+    mutationFn: (calibrationId: string) =>
+      apiRequest({
+        path: `/calibrations/${encodeURIComponent(calibrationId)}/correction-proposal`,
+        schema: proposalSchema,
+      }),
+  });
+}
+
+/**
+ * @returns per transmitter id, its latest calibration in force (newest date first, not corrected),
+ * or null when none is recorded; undefined while it loads. Shares the history's cache.
+ */
+export function useLatestCalibrations(
+  transmitterIds: readonly string[],
+): Record<string, Calibration | null | undefined> {
+  const results = useQueries({
+    queries: transmitterIds.map((transmitterId) => ({
+      queryKey: calibrationKeys.list(transmitterId),
+      queryFn: ({ signal }: { signal: AbortSignal }) =>
+        apiRequest({
+          path: `/transmitters/${encodeURIComponent(transmitterId)}/calibrations`,
+          schema: z.array(calibrationSchema),
+          signal,
+        }),
+    })),
+  });
+  return Object.fromEntries(
+    transmitterIds.map((transmitterId, i) => {
+      const data = results[i]?.data;
+      return [transmitterId, data ? (data.find((c) => c.current) ?? null) : undefined];
+    }),
+  );
 }

@@ -19,12 +19,21 @@ import type { Site } from '@/hooks/api/sites';
 import { useTransmitters } from '@/hooks/api/transmitters';
 import { useEstimate, useProposeCorrection, type CorrectionEstimate } from './api';
 import { estimateMethodText } from './estimateMethod';
-import { emptyDraft, periodOf, proposalFromDraft, type CorrectionMode, type DraftErrors } from './proposalDraft';
+import {
+  emptyDraft,
+  periodOf,
+  proposalFromDraft,
+  type CorrectionMode,
+  type DraftErrors,
+  type ProposalDraft,
+} from './proposalDraft';
 
 interface Props {
   meterRuns: MeterRun[];
   sites: Site[];
   onDone: () => void;
+  /** A prefilled draft (e.g. a failed calibration's suggestion); the engineer may change any of it. */
+  initial?: Partial<ProposalDraft>;
 }
 
 const modes: { value: CorrectionMode; label: string }[] = [
@@ -33,8 +42,8 @@ const modes: { value: CorrectionMode; label: string }[] = [
   { value: 'factor', label: 'Adjust by a factor' },
 ];
 
-export function CorrectionProposeForm({ meterRuns, sites, onDone }: Props) {
-  const [draft, setDraft] = useState(() => ({ ...emptyDraft, meterRunId: meterRuns[0]?.id ?? '' }));
+export function CorrectionProposeForm({ meterRuns, sites, onDone, initial }: Props) {
+  const [draft, setDraft] = useState(() => ({ ...emptyDraft, meterRunId: meterRuns[0]?.id ?? '', ...initial }));
   const [errors, setErrors] = useState<DraftErrors>({});
   const [estimate, setEstimate] = useState<CorrectionEstimate | null>(null);
   const propose = useProposeCorrection();

@@ -5,6 +5,7 @@
 import { Link } from 'expo-router';
 import { StyleSheet, View } from 'react-native';
 
+import { useLatestCalibrations } from '@/components/calibrations/api';
 import { AppText } from '@/components/ui/AppText';
 import { DataTable, type DataColumn } from '@/components/ui/DataTable';
 import { Panel } from '@/components/ui/Panel';
@@ -82,8 +83,11 @@ export function MeterRunHeader({ run, site, transmitters, today }: MeterRunHeade
     ([, value]) => value !== undefined && value !== null && value !== '',
   );
 
+  // The latest calibration in force sets the due date; the transmitter's own date only when none is recorded.
+  const latest = useLatestCalibrations(transmitters.map((t) => t.id));
   const rows = transmitters.map((t) => {
-    const calibration = calibrationState(t.calibrationDue, today);
+    const last = latest[t.id];
+    const calibration = calibrationState(last?.nextDue ?? t.calibrationDue, today);
     const pressureSuffix =
       t.measures === 'static-pressure' ? (t.pressureReference === 'gauge' ? ' gauge' : ' abs') : '';
     return {
@@ -101,12 +105,21 @@ export function MeterRunHeader({ run, site, transmitters, today }: MeterRunHeade
         role: t.measures === 'differential-pressure' ? roleLabel[t.stackRole] : '—',
         accuracy: `±${formatPlain(t.accuracyPercentOfSpan)}`,
         calibration: (
-          <AppText
-            variant={calibration.abnormal ? 'bodyStrong' : 'body'}
-            style={calibration.abnormal ? styles.abnormal : null}
-          >
-            {calibration.text}
-          </AppText>
+          <View>
+            <AppText
+              variant={calibration.abnormal ? 'bodyStrong' : 'body'}
+              style={calibration.abnormal ? styles.abnormal : null}
+            >
+              {calibration.text}
+            </AppText>
+            {last ? (
+              <Link href={`/transmitters/${t.id}`} testID={`transmitter-last-calibration-${t.tag}`}>
+                <AppText variant="caption" tone={last.asFoundPass ? 'muted' : 'alarm'}>
+                  {`calibrated ${last.calibratedOn} · as found ${last.asFoundPass ? 'pass' : '▲ fail'}`}
+                </AppText>
+              </Link>
+            ) : null}
+          </View>
         ),
       },
     };

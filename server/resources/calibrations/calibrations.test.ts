@@ -16,7 +16,12 @@ let t: Awaited<ReturnType<typeof testApp>>;
 let engineer: string;
 let operator: string;
 let f: Awaited<ReturnType<typeof alarmFixture>>;
-const certificatesDir = path.join(os.tmpdir(), 'tallyrun-jest', 'certificates');
+const certificatesDir = path.join(
+  os.tmpdir(),
+  'tallyrun-jest',
+  `worker-${process.env.JEST_WORKER_ID ?? process.pid}`,
+  'certificates',
+);
 // A minimal PDF (ISO 32000: the file starts with "%PDF-") and a PNG signature (ISO/IEC 15948 §5.2).
 const pdf = Buffer.from(`%PDF-1.4\n% calibration certificate ${crypto.randomUUID()}\n%%EOF\n`);
 const png = Buffer.concat([Buffer.from([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]), crypto.randomBytes(32)]);
@@ -270,6 +275,117 @@ describe('calibrations are append-only; a correction is a new record', () => {
       .set('Authorization', `Bearer ${engineer}`)
       .send(body({ correctsId: late.body.id }));
     expect(again.status).toBe(409);
+  }, 60_000);
+});
+
+describe('points are judged against the range in force on the calibration date', () => {
+  it('judges a calibration dated before a re-range by the old range, and one on the re-range day by the new', async () => {
+    // Site on America/Edmonton (UTC−6 in summer); the DP transmitter goes from 0–50 to 0–100 kPa at 10:00 local on 1 August.
+    const g = await alarmFixture(t, engineer, { timeZone: 'America/Edmonton' });
+    const rerange = await t
+      .http()
+      .patch(`/api/transmitters/${g.dp.id}`)
+      .set('Authorization', `Bearer ${engineer}`)
+      .send({ upperRange: 100, effectiveFrom: '2026-08-01T10:00:00-06:00', reason: 'wider range for winter flow' });
+    expect(rerange.status).toBe(200);
+    const postTo = (b: Record<string, unknown>) =>
+      t.http().post(`/api/transmitters/${g.dp.id}/calibrations`).set('Authorization', `Bearer ${engineer}`).send(b);
+    // 31 July: the old range 0–50 kPa. (25.06 − 25)/50 × 100 = 0.12 % of span.
+    const before = await postTo(body({ calibratedOn: '2026-07-31', nextDue: '2027-07-31' }));
+    expect(before.status).toBe(201);
+    expect(before.body).toMatchObject({ lowerRange: 0, upperRange: 50 });
+    expect(before.body.asFound[1].errorPercentOfSpan).toBeCloseTo(0.12, 9);
+    // A point at 60 kPa lies inside today's range but outside the one in force on 31 July.
+    const outside = await postTo(
+      body({
+        calibratedOn: '2026-07-31',
+        asFound: [
+          { appliedValue: 0, indicatedValue: 0 },
+          { appliedValue: 60, indicatedValue: 60 },
+        ],
+      }),
+    );
+    expect(outside.status).toBe(400);
+    expect(outside.body.error.field).toBe('asFound.1.appliedValue');
+    expect(outside.body.error.message).toMatch(/0–50 kPa in force on 2026-07-31/);
+    // 1 August: the range in force at the end of that day is the new one. (25.06 − 25)/100 × 100 = 0.06 %.
+    const on = await postTo(body({ calibratedOn: '2026-08-01', nextDue: '2027-08-01' }));
+    expect(on.status).toBe(201);
+    expect(on.body).toMatchObject({ lowerRange: 0, upperRange: 100 });
+    expect(on.body.asFound[1].errorPercentOfSpan).toBeCloseTo(0.06, 9);
+  }, 60_000);
+});
+
+describe('GET /api/calibrations/:id/correction-proposal', () => {
+  it('suggests a flow factor 1/√(1+e) over the period since the last good calibration, and creates nothing', async () => {
+    const g = await alarmFixture(t, engineer);
+    const postTo = (b: Record<string, unknown>) =>
+      t.http().post(`/api/transmitters/${g.dp.id}/calibrations`).set('Authorization', `Bearer ${engineer}`).send(b);
+    const passing = [
+      { appliedValue: 0, indicatedValue: 0 },
+      { appliedValue: 25, indicatedValue: 25.01 },
+      { appliedValue: 50, indicatedValue: 50 },
+    ];
+    const good = await postTo(body({ calibratedOn: '2026-03-01', nextDue: '2026-05-01', asFound: passing }));
+    expect(good.status).toBe(201);
+    expect(good.body.asFoundPass).toBe(true);
+    const failed = await postTo(body({ calibratedOn: '2026-05-01', nextDue: '2027-05-01' }));
+    expect(failed.status).toBe(201);
+    expect(failed.body.asFoundPass).toBe(false);
+    const proposals = await t.services.pool.query('SELECT count(*) AS n FROM corrections');
+    const res = await t
+      .http()
+      .get(`/api/calibrations/${failed.body.id}/correction-proposal`)
+      .set('Authorization', `Bearer ${engineer}`);
+    expect(res.status).toBe(200);
+    // By hand: the as-found points away from zero read 25.06 for 25 (e = 0.06/25 = 0.0024) and 49.97 for 50
+    // (e = −0.03/50 = −0.0006); mean e = 0.0009. Flow ∝ √Δp (ISO 5167-1:2022 eq. 1), so the flow read
+    // √1.0009 too high and the factor is 1/√1.0009 = 0.999550 30 (√1.0009 = 1.000 449 90).
+    expect(res.body.factor).toBeCloseTo(0.9995503, 7);
+    expect(res.body.meanErrorFractionOfReading).toBeCloseTo(0.0009, 12);
+    expect(res.body).toMatchObject({
+      calibrationId: failed.body.id,
+      transmitterId: g.dp.id,
+      meterRunId: g.meterRunId,
+      kind: 'adjust',
+      since: { kind: 'calibration', calibrationId: good.body.id, calibratedOn: '2026-03-01' },
+      // From the end of the good calibration's day to the start of the failed one's, on the site's clock (UTC).
+      start: '2026-03-02T00:00:00.000Z',
+      end: '2026-05-01T00:00:00.000Z',
+      shortened: false,
+    });
+    expect(res.body.points.map((p: { appliedValue: number }) => p.appliedValue)).toEqual([25, 50]);
+    expect(res.body.basis).toMatch(/^Approximation/);
+    expect(res.body.basis).toMatch(/1\/√\(1\+e\)/);
+    expect(res.body.reason).toMatch(/failed its as-found calibration on 2026-05-01/);
+    expect((await t.services.pool.query('SELECT count(*) AS n FROM corrections')).rows).toEqual(proposals.rows);
+
+    // Submitted as it stands, it is an ordinary proposal, pending another person's approval.
+    const proposed = await t.http().post('/api/corrections').set('Authorization', `Bearer ${engineer}`).send({
+      meterRunId: res.body.meterRunId,
+      start: res.body.start,
+      end: res.body.end,
+      kind: res.body.kind,
+      factor: res.body.factor,
+      reason: res.body.reason,
+    });
+    expect(proposed.status).toBe(201);
+    expect(proposed.body.status).toBe('proposed');
+  }, 60_000);
+
+  it('is a conflict for a calibration that passed as found, and not found for no calibration', async () => {
+    const g = await alarmFixture(t, engineer);
+    const passed = await t
+      .http()
+      .post(`/api/transmitters/${g.dp.id}/calibrations`)
+      .set('Authorization', `Bearer ${engineer}`)
+      .send(body({ tolerancePercentOfSpan: 0.5 }));
+    expect(passed.body.asFoundPass).toBe(true);
+    const get = (id: string, token = engineer) =>
+      t.http().get(`/api/calibrations/${id}/correction-proposal`).set('Authorization', `Bearer ${token}`);
+    expect((await get(passed.body.id)).status).toBe(409);
+    expect((await get('999999999')).status).toBe(404);
+    expect((await get(passed.body.id, operator)).status).toBe(403);
   }, 60_000);
 });
 

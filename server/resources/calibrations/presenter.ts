@@ -1,4 +1,5 @@
 import type { CalibrationRecord } from './repository';
+import type { CorrectionProposal } from './use-cases';
 
 /** A calibration as JSON: ids as strings, dates YYYY-MM-DD, the certificate as a link (never its stored path). */
 export function presentCalibration(c: CalibrationRecord) {
@@ -34,5 +35,26 @@ export function presentCalibration(c: CalibrationRecord) {
     current: c.correctedById === null,
     createdBy: c.createdBy,
     createdAt: new Date(c.createdAtMs).toISOString(),
+  };
+}
+
+/** A correction proposal as JSON: instants ISO, the period's bounds as the corrections form takes them. */
+export function presentCorrectionProposal(p: CorrectionProposal) {
+  return {
+    calibrationId: p.calibrationId,
+    transmitterId: p.transmitterId,
+    transmitterTag: p.transmitterTag,
+    meterRunId: p.meterRunId,
+    timeZone: p.timeZone,
+    since: p.since,
+    start: new Date(p.startMs).toISOString(),
+    end: new Date(p.endMs).toISOString(),
+    shortened: p.shortened,
+    kind: p.kind,
+    factor: p.factor,
+    meanErrorFractionOfReading: p.meanErrorFractionOfReading,
+    points: p.points,
+    basis: p.basis,
+    reason: p.reason,
   };
 }

@@ -46,6 +46,28 @@ export interface CalibrationRecord {
   createdAtMs: number;
 }
 
+/** A transmitter's range and accuracy as a dated setting in force at one instant. */
+export interface RangeInForce {
+  lowerRange: number;
+  upperRange: number;
+  accuracyPercentOfSpan: number;
+}
+
+/** What a correction proposal needs to know of a transmitter, its meter run and site. */
+export interface ProposalContext {
+  transmitterId: string;
+  tag: string;
+  meterRunId: string;
+  measures: 'differential-pressure' | 'static-pressure' | 'temperature';
+  gauge: boolean;
+  atmosphericPressurePa: number;
+  timeZone: string;
+  /** The transmitter's first reading, or null when it has none. */
+  firstReadingMs: number | null;
+  /** The meter run's first configuration version, or null when it has none. */
+  firstConfigurationMs: number | null;
+}
+
 export type NewCalibration = Omit<CalibrationRecord, 'id' | 'meterRunId' | 'correctedById' | 'createdAtMs'>;
 
 interface CalibrationRow {
@@ -130,6 +152,15 @@ export interface CalibrationRepository {
   /** One writer of a transmitter's calibrations at a time, until the transaction ends (the table is append-only: no row lock). */
   lockTransmitter(transmitterId: string, transaction: Transaction): Promise<void>;
   insert(calibration: NewCalibration, transaction: Transaction): Promise<CalibrationRecord>;
+  /**
+   * The range in force at the end of `day` on the site's clock (the last version whose effective
+   * time is before the next local midnight); the earliest version when the day precedes them all;
+   * null when the transmitter has no dated range.
+   */
+  rangeAtEndOfDay(transmitterId: string, day: string): Promise<RangeInForce | null>;
+  proposalContext(transmitterId: string): Promise<ProposalContext | null>;
+  /** The latest calibration in force (not corrected) of the transmitter before `day` whose as-left passed. */
+  lastGoodBefore(transmitterId: string, day: string): Promise<CalibrationRecord | null>;
 }
 
 export function calibrationRepository(sequelize: Sequelize): CalibrationRepository {
@@ -209,6 +240,77 @@ export function calibrationRepository(sequelize: Sequelize): CalibrationReposito
         transaction,
       );
       return (await findById(row.id, transaction))!;
+    },
+
+    async rangeAtEndOfDay(transmitterId, day) {
+      const [row] = await select<{ lower_range: number; upper_range: number; accuracy_percent_of_span: number }>(
+        `SELECT v.lower_range, v.upper_range, v.accuracy_percent_of_span
+           FROM transmitter_range_versions v
+           JOIN transmitters t ON t.id = v.transmitter_id
+           JOIN meter_runs m ON m.id = t.meter_run_id
+           JOIN sites s ON s.id = m.site_id
+          WHERE v.transmitter_id = :transmitterId
+          ORDER BY (v.effective_from < ((:day::date + 1)::timestamp AT TIME ZONE s.time_zone)) DESC,
+                   CASE WHEN v.effective_from < ((:day::date + 1)::timestamp AT TIME ZONE s.time_zone)
+                        THEN -extract(epoch FROM v.effective_from) ELSE extract(epoch FROM v.effective_from) END,
+                   v.id DESC
+          LIMIT 1`,
+        { transmitterId, day },
+      );
+      return row
+        ? {
+            lowerRange: row.lower_range,
+            upperRange: row.upper_range,
+            accuracyPercentOfSpan: row.accuracy_percent_of_span,
+          }
+        : null;
+    },
+
+    async proposalContext(transmitterId) {
+      const [row] = await select<{
+        id: string;
+        tag: string;
+        meter_run_id: string;
+        measures: ProposalContext['measures'];
+        pressure_reference: string;
+        atmospheric_pressure_pa: number;
+        time_zone: string;
+        first_reading: Date | null;
+        first_configuration: Date | null;
+      }>(
+        `SELECT t.id::text, t.tag, t.meter_run_id::text, t.measures::text AS measures, t.pressure_reference,
+                s.atmospheric_pressure_pa, s.time_zone,
+                (SELECT min(r.time) FROM readings r WHERE r.transmitter_id = t.id) AS first_reading,
+                (SELECT min(c.effective_from) FROM config_versions c WHERE c.meter_run_id = t.meter_run_id)
+                  AS first_configuration
+           FROM transmitters t JOIN meter_runs m ON m.id = t.meter_run_id JOIN sites s ON s.id = m.site_id
+          WHERE t.id = :transmitterId`,
+        { transmitterId },
+      );
+      return row
+        ? {
+            transmitterId: row.id,
+            tag: row.tag,
+            meterRunId: row.meter_run_id,
+            measures: row.measures,
+            gauge: row.pressure_reference === 'gauge',
+            atmosphericPressurePa: row.atmospheric_pressure_pa,
+            timeZone: row.time_zone,
+            firstReadingMs: row.first_reading ? row.first_reading.getTime() : null,
+            firstConfigurationMs: row.first_configuration ? row.first_configuration.getTime() : null,
+          }
+        : null;
+    },
+
+    async lastGoodBefore(transmitterId, day) {
+      const [row] = await select<CalibrationRow>(
+        `${selectCalibrations}
+          WHERE c.transmitter_id = :transmitterId AND c.calibrated_on < :day::date AND c.as_left_pass
+            AND NOT EXISTS (SELECT 1 FROM transmitter_calibrations x WHERE x.corrects_id = c.id)
+          ORDER BY c.calibrated_on DESC, c.id DESC LIMIT 1`,
+        { transmitterId, day },
+      );
+      return row ? calibrationRecord(row) : null;
     },
   };
 }

@@ -8,8 +8,8 @@ import { parseId } from '../../http/params';
 import { certificateReceiver, sendCertificate, storeCertificate } from '../../certificates/store';
 import { calibrationBody, calibrationPayload } from './schema';
 import { calibrationRepository } from './repository';
-import { certificateOfCalibration, listCalibrations, recordCalibration } from './use-cases';
-import { presentCalibration } from './presenter';
+import { certificateOfCalibration, correctionProposal, listCalibrations, recordCalibration } from './use-cases';
+import { presentCalibration, presentCorrectionProposal } from './presenter';
 
 export interface CalibrationRouterOptions {
   sequelize: Sequelize;
@@ -59,6 +59,8 @@ export function transmitterCalibrationsRouter(options: CalibrationRouterOptions)
 /**
  * `GET /api/calibrations/:id/certificate`: the certificate as uploaded, for every signed-in role
  * that sees the meter run (every role sees every meter run); never to a signed-out request.
+ * `GET /api/calibrations/:id/correction-proposal` (engineer, admin): the correction a failed
+ * as-found suggests.
  * Mounted at `/calibrations`.
  */
 export function calibrationCertificatesRouter(options: CalibrationRouterOptions) {
@@ -74,6 +76,12 @@ export function calibrationCertificatesRouter(options: CalibrationRouterOptions)
       originalName: certificate.fileName,
     });
     if (!sent) throw notFound('Certificate file');
+  });
+
+  // A suggestion only: the engineer submits it as a normal correction proposal (four eyes).
+  router.get('/:id/correction-proposal', requireCapability('configure'), async (req, res) => {
+    const proposal = await correctionProposal(repository, parseId(req.params.id, 'Calibration'));
+    res.json(presentCorrectionProposal(proposal));
   });
 
   return router;
