@@ -31,7 +31,9 @@ export async function testApp(options: { loginLimit?: number } = {}) {
     const services = createServices({
       databaseUrl: url,
       sequelize: connection,
-      dataDir: path.join(os.tmpdir(), 'tallyrun-jest'),
+      // One data folder per jest worker: files of parallel test files (certificates, originals)
+      // never mix, so a test may count what its own requests stored.
+      dataDir: path.join(os.tmpdir(), 'tallyrun-jest', `worker-${process.env.JEST_WORKER_ID ?? process.pid}`),
     });
     shared = { sequelize: connection, services, users: 0 };
   }

@@ -162,6 +162,8 @@ describe('the originals of imports', () => {
   it('keeps both originals when the same file is imported twice', async () => {
     const csv = Buffer.from(`time,tag,value\n2025-03-01T00:03:00Z,${f.dp.tag},12.5\n`);
     const first = await upload(csv, 'twice.csv');
+    // The second import finds the first one's reading only once the first has committed.
+    await finished(first);
     const second = await upload(csv, 'twice.csv');
     expect(second).not.toBe(first);
     expect((await finished(second)).duplicates).toBe(1);
