@@ -11,6 +11,7 @@ import { LiveEvents } from './live';
 import { AlarmEvaluator } from './alarms/alarm-evaluator';
 import { cachedHourStartOf } from './ingest/hour-start-cache';
 import type { Sequelize } from 'sequelize';
+import { logConnectionError } from './db/availability';
 
 /**
  * The long-lived parts of the server that routes, the broker and jobs share: one pg pool for
@@ -18,7 +19,15 @@ import type { Sequelize } from 'sequelize';
  * the history worker and the live event fan-out.
  */
 export function createServices(options: { databaseUrl: string; sequelize: Sequelize; dataDir: string }) {
-  const pool = new Pool({ connectionString: options.databaseUrl, max: 10 });
+  // A connection that fails to open within 5 s is an error (a 503 for a request), not a hang; an idle
+  // connection the database ends (a restart) is logged and replaced, never an unheard 'error' event.
+  const pool = new Pool({
+    connectionString: options.databaseUrl,
+    max: 10,
+    connectionTimeoutMillis: 5000,
+    keepAlive: true,
+  });
+  pool.on('error', logConnectionError('services pool'));
   const catalog = new Catalog(options.sequelize);
   const writer = new ReadingWriter(pool, cachedHourStartOf());
   const committer = new GroupCommitter(writer);

@@ -46,6 +46,10 @@ export class HistoryWorker {
   private timer: ReturnType<typeof setInterval> | null = null;
   private idleResolvers: (() => void)[] = [];
   private onChange: ((meterRunIds: string[]) => void) | undefined;
+  /** Claims that could not be handed back (the database went away): handed back first in the next round. */
+  private unreleased: { meterRunId: string; hours: number[] }[] = [];
+  /** Whether the last timed round failed, so an outage is logged once rather than every second. */
+  private failing = false;
 
   constructor(
     private readonly pool: Pool,
@@ -57,7 +61,22 @@ export class HistoryWorker {
     this.onChange = onChange;
     // A claim left by a process that died is released.
     void releaseAllClaims(this.pool).catch(() => undefined);
-    const timer = setInterval(() => void this.drain(), 1000);
+    // A round that fails (the database is unreachable) is logged and the timer goes on: the queue
+    // is in the database, so the worker resumes by itself when the database is back.
+    const timer = setInterval(
+      () =>
+        void this.drain().then(
+          () => {
+            if (this.failing) log.warn('the history worker is running again');
+            this.failing = false;
+          },
+          (err: unknown) => {
+            if (!this.failing) log.error({ err }, 'a history round failed; it is tried again every second');
+            this.failing = true;
+          },
+        ),
+      1000,
+    );
     this.timer = timer;
     (timer as unknown as { unref?: () => void }).unref?.();
   }
@@ -87,6 +106,11 @@ export class HistoryWorker {
     this.running = true;
     const touched = new Set<string>();
     try {
+      while (this.unreleased.length) {
+        const left = this.unreleased[0];
+        await postponeHours(this.pool, left.meterRunId, left.hours);
+        this.unreleased.shift();
+      }
       for (;;) {
         const claimed = await claimHours(this.pool, this.timing, hoursPerRound);
         if (!claimed) break;
@@ -100,11 +124,13 @@ export class HistoryWorker {
             'recomputing hours failed; they stay queued and are tried again in 30 s',
           );
           // Leave the rows queued, but not in a tight loop: push them back a little.
-          await postponeHours(this.pool, claimed.meterRunId, claimed.hours);
+          await this.handBack(claimed.meterRunId, claimed.hours, () =>
+            postponeHours(this.pool, claimed.meterRunId, claimed.hours),
+          );
           break;
         }
         // Hours that got new readings while being computed wait for another round (a live hour: ten seconds).
-        await releaseClaims(this.pool, claimed.meterRunId);
+        await this.handBack(claimed.meterRunId, claimed.hours, () => releaseClaims(this.pool, claimed.meterRunId));
       }
     } finally {
       this.running = false;
@@ -112,6 +138,16 @@ export class HistoryWorker {
       this.idleResolvers = [];
       waiting.forEach((r) => r());
       if (touched.size) this.onChange?.([...touched]);
+    }
+  }
+
+  /** Hands claimed hours back; when that fails they are kept and handed back at the start of the next round. */
+  private async handBack(meterRunId: string, hours: number[], release: () => Promise<void>) {
+    try {
+      await release();
+    } catch (err) {
+      this.unreleased.push({ meterRunId, hours });
+      throw err;
     }
   }
 
