@@ -1,21 +1,25 @@
 /**
  * One field device in the admin's list: its site and MQTT user name, how many readings it has
- * had accepted and rejected, the last rejection's reason, when it was last seen; disable
- * (asked once more) or enable it.
+ * had accepted and rejected, the last rejection's reason, when it was last seen; why its readings
+ * were refused (on request); disable (asked once more) or enable it.
  */
 import { useState } from 'react';
 import { StyleSheet, View } from 'react-native';
 
 import { formatTimestamp } from '@/components/format/formatTimestamp';
 import { AppText } from '@/components/ui/AppText';
+import { Button } from '@/components/ui/Button';
 import { DisableEnableActions } from '@/components/ui/DisableEnableActions';
 import { StateBadge } from '@/components/ui/StateBadge';
 import { colors, radius, space } from '@/constants/theme';
 import { useSetDeviceDisabled, type Device } from '@/hooks/api/devices';
 
+import { DeviceRejectionsPanel } from './DeviceRejectionsPanel';
+
 export function DevicesRow({ device }: { device: Device }) {
   const update = useSetDeviceDisabled();
   const [confirming, setConfirming] = useState(false);
+  const [showRefusals, setShowRefusals] = useState(false);
   const testID = `device-row-${device.username}`;
 
   return (
@@ -43,6 +47,18 @@ export function DevicesRow({ device }: { device: Device }) {
       {device.lastRejection ? (
         <StateBadge priority="low" variant="inline" label={`Last rejection: ${device.lastRejection}`} />
       ) : null}
+      {device.rejectedCount > 0 ? (
+        <View style={styles.refusals}>
+          <Button
+            label={showRefusals ? 'Hide refusals' : 'Why refused'}
+            size="compact"
+            variant="quiet"
+            onPress={() => setShowRefusals((shown) => !shown)}
+            testID={`${testID}-refusals-toggle`}
+          />
+        </View>
+      ) : null}
+      {showRefusals ? <DeviceRejectionsPanel deviceId={device.id} testID={`${testID}-refusals`} /> : null}
 
       {update.error ? (
         <AppText variant="caption" tone="alarm" role="alert">
@@ -80,4 +96,5 @@ const styles = StyleSheet.create({
   summary: { flexDirection: 'row', flexWrap: 'wrap', gap: space.md, justifyContent: 'space-between' },
   who: { flexGrow: 1, flexShrink: 1, minWidth: 180 },
   facts: { alignItems: 'flex-start', minWidth: 160 },
+  refusals: { flexDirection: 'row' },
 });

@@ -1,5 +1,6 @@
 /**
- * Device credentials for MQTT (admin): GET, POST /api/devices; PATCH /api/devices/:id.
+ * Device credentials for MQTT (admin): GET, POST /api/devices; PATCH /api/devices/:id;
+ * GET /api/devices/:id/rejections (why its readings were refused).
  * The password comes back once, in the answer to POST; the server keeps only its hash.
  */
 import { useMutation, useQuery, useQueryClient, type QueryClient } from '@tanstack/react-query';
@@ -27,9 +28,26 @@ export type Device = z.infer<typeof deviceSchema>;
 const createdDeviceSchema = deviceSchema.extend({ password: z.string().min(1) });
 export type CreatedDevice = z.infer<typeof createdDeviceSchema>;
 
+export const deviceRejectionsSchema = z.object({
+  deviceId: id,
+  logSize: z.number(),
+  countsByReason: z.array(z.object({ kind: z.string(), count: z.number(), since: z.string() })),
+  latest: z.array(
+    z.object({
+      at: z.string(),
+      topic: z.string(),
+      kind: z.string(),
+      reason: z.string(),
+      readingIndex: z.number().nullable(),
+    }),
+  ),
+});
+export type DeviceRejections = z.infer<typeof deviceRejectionsSchema>;
+
 export const deviceKeys = {
   all: ['devices'] as const,
   list: () => [...deviceKeys.all, 'list'] as const,
+  rejections: (deviceId: string) => [...deviceKeys.all, 'rejections', deviceId] as const,
 };
 
 /** @returns every device, oldest first */
@@ -37,6 +55,20 @@ export function useDevices() {
   return useQuery({
     queryKey: deviceKeys.list(),
     queryFn: ({ signal }) => apiRequest({ path: '/devices', schema: z.array(deviceSchema), signal }),
+  });
+}
+
+/** @returns a device's refusal log (counts by reason, latest first), fetched only while `enabled` */
+export function useDeviceRejections(deviceId: string, enabled: boolean) {
+  return useQuery({
+    queryKey: deviceKeys.rejections(deviceId),
+    enabled,
+    queryFn: ({ signal }) =>
+      apiRequest({
+        path: `/devices/${encodeURIComponent(deviceId)}/rejections`,
+        schema: deviceRejectionsSchema,
+        signal,
+      }),
   });
 }
 

@@ -15,6 +15,33 @@ export type PublishHandler = (
   payload: Buffer,
 ) => Promise<unknown>;
 
+/** Where refused publishes are re-addressed: a `$` topic, which no wildcard matches, never delivered. */
+const refusedTopic = '$tallyrun/refused';
+
+type SignedIn = { id: string; siteCode: string; username: string };
+const deviceOf = (client: object): SignedIn | null => (client as { device?: SignedIn }).device ?? null;
+
+/** Whether a topic lies under `tallyrun/<site code>/`. */
+export function withinSite(siteCode: string, topic: string): boolean {
+  return topic.startsWith(`tallyrun/${siteCode}/`) && topic.length > `tallyrun/${siteCode}/`.length;
+}
+
+/**
+ * A subscription filter narrowed to one site: the filter itself when every topic it matches is
+ * the site's, `tallyrun/<site>/…` when it is a wildcard over sites that includes this one, or
+ * null when it reaches nothing of the site (refused).
+ */
+export function narrowToSite(siteCode: string, filter: string): string | null {
+  const levels = filter.split('/');
+  if (levels[0] === '#') return `tallyrun/${siteCode}/#`;
+  if (levels[0] !== 'tallyrun' && levels[0] !== '+') return null;
+  if (levels.length < 2) return null;
+  if (levels[1] === '#') return `tallyrun/${siteCode}/#`;
+  if (levels[1] !== siteCode && levels[1] !== '+') return null;
+  if (levels.length < 3) return null;
+  return ['tallyrun', siteCode, ...levels.slice(2)].join('/');
+}
+
 export interface EmbeddedBroker {
   port: number;
   isUp(): boolean;
@@ -28,7 +55,8 @@ export interface EmbeddedBroker {
 /**
  * The embedded MQTT broker (aedes, MQTT 3.1.1) on loopback. Devices sign in with the
  * credentials an administrator issued; anything else is refused with "bad user name or
- * password" before it can publish.
+ * password" before it can publish. Each device stays inside its own site's topics (issue 12 §2):
+ * publish, subscribe, last will and client id are all judged by the device's site.
  */
 export async function startEmbeddedBroker(options: {
   host: string;
@@ -40,40 +68,85 @@ export async function startEmbeddedBroker(options: {
   const { Aedes } = await import('aedes');
   const aedes = await Aedes.createBroker({ id: 'tallyrun' });
 
+  // Client ids are bound to the device that uses them (issue 12 §2): a client id belongs to the
+  // first device that connects with it, for as long as the broker runs (its sessions live in the
+  // broker's memory just as long). Another device presenting it is refused with "identifier
+  // rejected" (return code 2) instead of taking over, so it can neither disconnect the owner nor
+  // pick up its session. A clean session that ends gives its id back 10 s later, when no connection
+  // holds it (persistent sessions keep theirs: the map grows by one entry per such client id).
+  const clientIdOwners = new Map<string, string>();
+  const liveClients = () => (aedes as unknown as { clients: Record<string, object> }).clients;
+  aedes.on('clientDisconnect', (client) => {
+    if (!client.clean) return;
+    // Later, and only if no connection holds the id by then: a device that reconnects with its
+    // own id closes its old connection first, and the id must not be free in between.
+    const id = client.id;
+    setTimeout(() => {
+      if (!liveClients()[id]) clientIdOwners.delete(id);
+    }, 10_000).unref();
+  });
+
   aedes.authenticate = (client, username, password, done) => {
-    const fail = () => {
-      const err = Object.assign(new Error('Bad user name or password'), { returnCode: 4 as const });
+    const refuse = (returnCode: 2 | 4 | 5, message: string) => {
+      const err = Object.assign(new Error(message), { returnCode });
       done(err, false);
     };
+    const fail = () => refuse(4, 'Bad user name or password');
     if (!username || !password) return fail();
     options
       .authenticate(username, password.toString('utf8'))
       .then((device) => {
         if (!device) return fail();
+        const holder = liveClients()[client.id];
+        const owner = clientIdOwners.get(client.id) ?? (holder ? deviceOf(holder)?.username : undefined);
+        if (owner !== undefined && owner !== username) return refuse(2, 'client id belongs to another device');
+        // A last will is a publish made later on the device's behalf: it must stay inside the
+        // device's own site like any other, and is never retained.
+        const will = (client as unknown as { _will?: { topic: string; retain?: boolean } | null })._will;
+        if (will && !withinSite(device.siteCode, will.topic)) return refuse(5, 'will topic outside the device site');
+        if (will) will.retain = false;
+        clientIdOwners.set(client.id, username);
         (client as unknown as { device: unknown }).device = { ...device, username };
         done(null, true);
       })
-      .catch(() => fail());
+      // The check could not be made (the database is unreachable): "server unavailable" (3), not
+      // "bad user name or password", so the device keeps its credentials and tries again.
+      .catch(() => done(Object.assign(new Error('Server unavailable'), { returnCode: 3 as const }), false));
   };
 
   // Storing happens before aedes acknowledges: its PUBACK for QoS 1 goes out only after this
   // callback, so an acknowledged reading is a committed reading. A database failure is passed
   // back as an error, which drops the connection unacknowledged and the device sends it again.
+  //
+  // A publish outside the device's own site (issue 12 §2) is refused by being dropped, not by an
+  // error: MQTT 3.1.1 has no negative PUBACK, and an error makes aedes close the connection, so a
+  // QoS 1 device would resend the same message after every reconnect and never get past it. The
+  // message is counted as a rejection for the device (the ingest path records why), acknowledged,
+  // and re-addressed to a topic nobody can subscribe to and that authorizeForward never delivers.
+  // Retained messages are not kept: the retain flag is cleared on every publish.
   aedes.authorizePublish = (client, packet, callback) => {
-    const device = client
-      ? ((client as unknown as { device?: { id: string; siteCode: string } }).device ?? null)
-      : null;
+    packet.retain = false;
+    const device = client ? deviceOf(client) : null;
     if (!device) return callback(null); // the server's own publishes (live views)
+    const inside = withinSite(device.siteCode, packet.topic);
     options.onPublish(device, packet.topic, packet.payload as Buffer).then(
-      () => callback(null),
+      () => {
+        if (!inside) packet.topic = refusedTopic;
+        callback(null);
+      },
       (err: Error) => callback(err),
     );
   };
-  // Devices publish; they do not read other sites' data.
+  aedes.authorizeForward = (_client, packet) => (packet.topic.startsWith(refusedTopic) ? null : packet);
+
+  // Devices read only their own site: a subscription outside it is refused (SUBACK 0x80), and a
+  // wildcard that would reach other sites (`#`, `+/…`, `tallyrun/#`, `tallyrun/+/…`) is narrowed
+  // to the device's own site when it covers it, refused otherwise.
   aedes.authorizeSubscribe = (client, subscription, callback) => {
-    const device = (client as unknown as { device?: { siteCode: string } }).device;
-    if (device && subscription.topic.startsWith(`tallyrun/${device.siteCode}/`)) return callback(null, subscription);
-    callback(new Error('subscriptions are not allowed'), null);
+    const device = client ? deviceOf(client) : null;
+    if (!device) return callback(new Error('subscriptions are not allowed'), null);
+    const topic = narrowToSite(device.siteCode, subscription.topic);
+    callback(null, topic ? { ...subscription, topic } : null);
   };
 
   const server = net.createServer(aedes.handle);

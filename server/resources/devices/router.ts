@@ -5,8 +5,8 @@ import { parseId } from '../../http/params';
 import { validate } from '../../http/validate';
 import { createDeviceBody, updateDeviceBody } from './schema';
 import { devicesRepository } from './repository';
-import { createDevice, listDevices, setDeviceDisabled } from './use-cases';
-import { presentDevice } from './presenter';
+import { createDevice, deviceRejections, listDevices, setDeviceDisabled } from './use-cases';
+import { presentDevice, presentRejections } from './presenter';
 
 /** Device credentials (admin): the password is shown once, at creation, and stored only as a hash. */
 export function devicesRouter(sequelize: Sequelize, hooks: { credentialsChanged(username: string): void }) {
@@ -23,6 +23,12 @@ export function devicesRouter(sequelize: Sequelize, hooks: { credentialsChanged(
     const input = validate(createDeviceBody, req.body);
     const { device, siteCode, password } = await createDevice(repository, input, req.user!);
     res.status(201).json({ ...presentDevice(device, siteCode), password });
+  });
+
+  // Why the device's readings were refused (issue 12 §12): counts by kind, the latest refusals.
+  router.get('/:id/rejections', async (req, res) => {
+    const id = parseId(req.params.id, 'Device');
+    res.json(presentRejections(id, await deviceRejections(repository, id)));
   });
 
   router.patch('/:id', async (req, res) => {

@@ -12,6 +12,15 @@ export function listDevices(repository: DevicesRepository) {
 }
 
 /**
+ * Why a device's readings were refused: the latest refusals and the counts by kind.
+ * @throws not found when there is no such device
+ */
+export async function deviceRejections(repository: DevicesRepository, id: string) {
+  if (!(await repository.exists(id))) throw notFound('Device');
+  return repository.rejections(id);
+}
+
+/**
  * Issues MQTT credentials for a field device of a site: a username from the site's code and a
  * random password, stored only as a hash. Audited (the audit keeps the device as the API shows it).
  * @returns the device, its site's code and the password, which is shown this once
