@@ -39,6 +39,8 @@ export interface UserChange {
   name?: string;
   role?: Role;
   disabled?: boolean;
+  /** A new password; the server refuses one its policy does not allow (400 naming password) and signs the user out. */
+  password?: string;
 }
 
 /** Replaces one user in the cached list, so the screen shows the change without a refetch. */

@@ -22,8 +22,9 @@ declare global {
 export type SignedInUser = Express.User;
 
 /**
- * Bearer-token authentication. The user is re-read on every request so a disabled account or a
- * changed role takes effect at once, not when the token expires.
+ * Bearer-token authentication. The user is re-read on every request (one primary-key lookup, no
+ * cache) so a disabled account takes effect at once, and a token whose version is older than the
+ * user's (bumped on a password change, role change or disable) is refused with 401 token_revoked.
  */
 export function createAuthenticator(secret: string): RequestHandler {
   // A Passport instance per app (not the module's singleton), so two apps in one process keep their own secrets.
@@ -31,10 +32,16 @@ export function createAuthenticator(secret: string): RequestHandler {
   instance.use(
     new JwtStrategy(
       { jwtFromRequest: ExtractJwt.fromAuthHeaderAsBearerToken(), secretOrKey: secret, algorithms: ['HS256'] },
-      async (claims: { sub: string }, done: (err: unknown, user?: SignedInUser | false) => void) => {
+      async (
+        claims: { sub: string; ver?: unknown },
+        done: (err: unknown, user?: SignedInUser | false, info?: { revoked: true }) => void,
+      ) => {
         try {
           const user = await User.findByPk(claims.sub);
-          if (!user || user.disabled) return done(null, false);
+          if (!user) return done(null, false);
+          // Tokens from before token versions carry none: they are version 0, as every user starts.
+          const version = typeof claims.ver === 'number' ? claims.ver : 0;
+          if (user.disabled || version !== user.tokenVersion) return done(null, false, { revoked: true });
           done(null, { id: String(user.id), email: user.email, name: user.name, role: user.role });
         } catch (err) {
           done(err);
@@ -46,10 +53,17 @@ export function createAuthenticator(secret: string): RequestHandler {
     instance.authenticate('jwt', { session: false }, (err: unknown, user: SignedInUser | false, info: unknown) => {
       if (err) return next(err);
       if (!user) {
-        const expired = (info as { name?: string } | undefined)?.name === 'TokenExpiredError';
-        return next(
-          expired ? unauthorized('Your session has expired; sign in again.', 'token_expired') : unauthorized(),
-        );
+        const reason = info as { name?: string; revoked?: boolean } | undefined;
+        if (reason?.name === 'TokenExpiredError')
+          return next(unauthorized('Your session has expired; sign in again.', 'token_expired'));
+        if (reason?.revoked)
+          return next(
+            unauthorized(
+              'This session has ended because the account changed (password, role or disabled); sign in again.',
+              'token_revoked',
+            ),
+          );
+        return next(unauthorized());
       }
       req.user = user;
       next();

@@ -8,6 +8,8 @@ export class User extends Model {
   declare role: Role;
   declare passwordHash: string;
   declare disabled: boolean;
+  /** Added to on a password change, role change or disable; tokens carrying an older one are refused. */
+  declare tokenVersion: number;
   declare createdAt: Date;
   declare updatedAt: Date;
 
@@ -20,6 +22,7 @@ export class User extends Model {
         role: { type: DataTypes.ENUM('operator', 'engineer', 'accountant', 'admin'), allowNull: false },
         passwordHash: { type: DataTypes.TEXT, allowNull: false },
         disabled: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },
+        tokenVersion: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
       },
       { sequelize, tableName: 'users', underscored: true },
     );

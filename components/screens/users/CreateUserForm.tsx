@@ -12,7 +12,8 @@ import { roleLabel, roles, roleSummary, type Role } from '@/constants/roles';
 import { space } from '@/constants/theme';
 import { ApiError } from '@/hooks/api/client';
 import { useCreateUser, type NewUser } from '@/hooks/api/users';
-import { localProblems, minPasswordLength } from './newUserProblems';
+import { passwordRule } from '@/shared/auth/password-rule';
+import { localProblems } from './newUserProblems';
 
 type Field = keyof NewUser;
 const fields: readonly Field[] = ['name', 'email', 'role', 'password'];
@@ -104,7 +105,7 @@ export function CreateUserForm() {
         value={draft.password}
         onChangeText={edit('password')}
         error={shown.password}
-        hint={`At least ${minPasswordLength} characters. Give it to them by a separate channel.`}
+        hint={`${passwordRule} Give it to them by a separate channel.`}
         secureTextEntry
         autoComplete="new-password"
         onSubmitEditing={submit}

@@ -1,6 +1,7 @@
 /**
- * One user in the admin's list, with the changes an admin makes: role, and disable or enable
- * (disabling asks once more). An admin cannot change their own account here, so the last admin
+ * One user in the admin's list, with the changes an admin makes: role, a new password (the rule is
+ * shown, and the server's reason when it refuses one), and disable or enable (disabling asks once more).
+ * A new password, a new role or disabling signs the user out everywhere. An admin cannot change their own account here, so the last admin
  * cannot lock everyone out by accident.
  */
 import { useState } from 'react';
@@ -11,9 +12,11 @@ import { AppText } from '@/components/ui/AppText';
 import { Button } from '@/components/ui/Button';
 import { ChoiceGroup } from '@/components/ui/ChoiceGroup';
 import { DisableEnableActions } from '@/components/ui/DisableEnableActions';
+import { TextField } from '@/components/ui/TextField';
 import { roleLabel, roles, type Role } from '@/constants/roles';
 import { colors, radius, space } from '@/constants/theme';
 import { useUpdateUser, type User, type UserChange } from '@/hooks/api/users';
+import { passwordLength, passwordMinLength, passwordRule } from '@/shared/auth/password-rule';
 
 const roleOptions = roles.map((role) => ({ value: role, label: roleLabel[role] }));
 
@@ -24,8 +27,9 @@ interface UserRowProps {
 
 export function UserRow({ user, isSelf }: UserRowProps) {
   const update = useUpdateUser();
-  const [mode, setMode] = useState<'view' | 'role' | 'confirm-disable'>('view');
+  const [mode, setMode] = useState<'view' | 'role' | 'password' | 'confirm-disable'>('view');
   const [role, setRole] = useState<Role>(user.role);
+  const [password, setPassword] = useState('');
 
   const apply = (change: UserChange) => update.mutate({ id: user.id, change }, { onSuccess: () => setMode('view') });
 
@@ -47,13 +51,42 @@ export function UserRow({ user, isSelf }: UserRowProps) {
         </View>
       </View>
 
-      {update.error ? (
+      {update.error && mode !== 'password' ? (
         <AppText variant="caption" tone="alarm" role="alert">
           {`▲ ${update.error.message}`}
         </AppText>
       ) : null}
 
-      {isSelf ? null : mode === 'role' ? (
+      {isSelf ? null : mode === 'password' ? (
+        <View style={styles.editor}>
+          <TextField
+            label={`New password for ${user.name}`}
+            testID={`user-password-${user.email}`}
+            value={password}
+            onChangeText={(value) => {
+              setPassword(value);
+              if (update.error) update.reset();
+            }}
+            // The server prefixes its reason with the field's name, which the label already shows.
+            error={update.error ? update.error.message.replace('password: ', '') : undefined}
+            hint={`${passwordRule} Saving signs ${user.name} out everywhere.`}
+            secureTextEntry
+            autoComplete="new-password"
+          />
+          <View style={styles.actions}>
+            <Button
+              label="Save password"
+              size="compact"
+              variant="primary"
+              busy={update.isPending}
+              disabled={passwordLength(password) < passwordMinLength}
+              onPress={() => apply({ password })}
+              testID={`user-password-save-${user.email}`}
+            />
+            <Button label="Cancel" size="compact" variant="quiet" onPress={() => setMode('view')} />
+          </View>
+        </View>
+      ) : mode === 'role' ? (
         <View style={styles.editor}>
           <ChoiceGroup
             label={`Role for ${user.name}`}
@@ -98,6 +131,16 @@ export function UserRow({ user, isSelf }: UserRowProps) {
               setMode('role');
             }}
             testID={`user-change-role-${user.email}`}
+          />
+          <Button
+            label="Set password"
+            size="compact"
+            onPress={() => {
+              setPassword('');
+              update.reset();
+              setMode('password');
+            }}
+            testID={`user-set-password-${user.email}`}
           />
         </DisableEnableActions>
       )}

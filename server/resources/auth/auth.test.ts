@@ -38,12 +38,44 @@ describe('POST /api/auth/login', () => {
     expectErrorShape(res.body, 'invalid_credentials');
   });
 
-  it('refuses a disabled user with 401 account_disabled', async () => {
+  it('answers a disabled account with the right password exactly as a wrong password, auditing the true reason', async () => {
     const u = await t.signedIn('accountant');
     await t.sequelize.query('UPDATE users SET disabled = true WHERE id = :id', { replacements: { id: u.id } });
-    const res = await t.http().post('/api/auth/login').send({ email: u.email, password: u.password });
-    expect(res.status).toBe(401);
-    expectErrorShape(res.body, 'account_disabled');
+    const disabled = await t.http().post('/api/auth/login').send({ email: u.email, password: u.password });
+    const wrong = await t.http().post('/api/auth/login').send({ email: u.email, password: 'not-the-password' });
+    const unknown = await t
+      .http()
+      .post('/api/auth/login')
+      .send({ email: `nobody-${t.unique()}@test.tallyrun`, password: u.password });
+    expect([disabled.status, wrong.status, unknown.status]).toEqual([401, 401, 401]);
+    expectErrorShape(disabled.body, 'invalid_credentials');
+    expect(disabled.body).toEqual(wrong.body);
+    expect(unknown.body).toEqual(wrong.body);
+    const [rows] = await t.sequelize.query(
+      "SELECT after->>'why' AS why FROM audit_events WHERE entity_type = 'sign-in' AND after->>'email' = :email ORDER BY chain_seq",
+      { replacements: { email: u.email } },
+    );
+    expect(rows).toEqual([{ why: 'account-disabled' }, { why: 'wrong-password' }]);
+  });
+
+  it('spends a bcrypt comparison on an unknown email, as on a real account', async () => {
+    // Not a timing assertion on the answer's exactness: only that an unknown email is not answered
+    // in a fraction of the time a real account takes (before: 3–8 ms against 62–76 ms).
+    const u = await t.signedIn('operator');
+    const timed = async (email: string) => {
+      const started = process.hrtime.bigint();
+      const res = await t.http().post('/api/auth/login').send({ email, password: 'not-the-password' });
+      expect(res.status).toBe(401);
+      return Number(process.hrtime.bigint() - started) / 1e6;
+    };
+    const known: number[] = [];
+    const unknown: number[] = [];
+    for (let i = 0; i < 5; i++) {
+      known.push(await timed(u.email));
+      unknown.push(await timed(`nobody-${t.unique()}@test.tallyrun`));
+    }
+    const median = (values: number[]) => [...values].sort((a, b) => a - b)[Math.floor(values.length / 2)];
+    expect(median(unknown)).toBeGreaterThan(median(known) * 0.5);
   });
 
   it('names the missing field of an incomplete body with 400', async () => {
@@ -57,6 +89,53 @@ describe('POST /api/auth/login', () => {
     expect(res.status).toBe(400);
     expectErrorShape(res.body, 'invalid_json');
     expect(res.body.error.field).toBe('body');
+  });
+
+  it('counts an email with spaces around it or other letter case against the same account limit', async () => {
+    const limited = await testApp({ loginLimit: 3 });
+    try {
+      const email = `target-${limited.unique()}@test.tallyrun`;
+      const variants = [email, `  ${email}`, `${email.toUpperCase()} `, ` Target${email.slice(6)}`];
+      const statuses: number[] = [];
+      for (const variant of variants)
+        statuses.push(
+          (await limited.http().post('/api/auth/login').send({ email: variant, password: 'guess-guess' })).status,
+        );
+      expect(statuses).toEqual([401, 401, 401, 429]);
+    } finally {
+      await limited.close();
+    }
+  });
+
+  it('signs a user in with spaces around the email, as the same account', async () => {
+    const u = await t.signedIn('operator');
+    const res = await t
+      .http()
+      .post('/api/auth/login')
+      .send({ email: ` ${u.email.toUpperCase()} `, password: u.password });
+    expect(res.status).toBe(200);
+    expect(res.body.user.id).toBe(u.id);
+  });
+
+  it('does not let a rotated X-Forwarded-For reset the limit when no proxy is trusted', async () => {
+    const limited = await testApp({ loginLimit: 2 });
+    try {
+      const email = `rotated-${limited.unique()}@test.tallyrun`;
+      const statuses: number[] = [];
+      for (let i = 1; i <= 4; i++)
+        statuses.push(
+          (
+            await limited
+              .http()
+              .post('/api/auth/login')
+              .set('X-Forwarded-For', `203.0.113.${i}`)
+              .send({ email, password: 'guess-guess' })
+          ).status,
+        );
+      expect(statuses).toEqual([401, 401, 429, 429]);
+    } finally {
+      await limited.close();
+    }
   });
 
   it('rate-limits repeated sign-in attempts for one account with 429', async () => {
@@ -118,6 +197,48 @@ describe('bearer tokens', () => {
     const res = await t.http().get('/api/no-such-thing').set('Authorization', `Bearer ${u.token}`);
     expect(res.status).toBe(404);
     expectErrorShape(res.body, 'not_found');
+  });
+});
+
+describe('token versions', () => {
+  const as = (token: string) => ({ Authorization: `Bearer ${token}` });
+  const me = (token: string) => t.http().get('/api/auth/me').set(as(token));
+  const signIn = async (email: string, password: string) => {
+    const res = await t.http().post('/api/auth/login').send({ email, password });
+    expect(res.status).toBe(200);
+    return res.body.token as string;
+  };
+
+  it.each([
+    ['a password change', { password: 'a-new-long-passphrase' }],
+    ['a role change', { role: 'engineer' }],
+    ['disabling the account', { disabled: true }],
+  ])('stops a token issued before %s with 401 token_revoked; a fresh sign-in works', async (_what, change) => {
+    const admin = await t.signedIn('admin');
+    const u = await t.signedIn('operator');
+    const before = await signIn(u.email, u.password);
+    expect((await me(before)).status).toBe(200);
+    const patched = await t.http().patch(`/api/users/${u.id}`).set(as(admin.token)).send(change);
+    expect(patched.status).toBe(200);
+    for (const token of [before, u.token]) {
+      const res = await me(token);
+      expect(res.status).toBe(401);
+      expectErrorShape(res.body, 'token_revoked');
+      expect(res.body.error.message).toMatch(/sign in again/);
+    }
+    if ('disabled' in change) {
+      await t.http().patch(`/api/users/${u.id}`).set(as(admin.token)).send({ disabled: false });
+      expect((await me(before)).status).toBe(401); // re-enabling does not bring old tokens back
+    }
+    const fresh = await signIn(u.email, 'password' in change ? change.password : u.password);
+    expect((await me(fresh)).status).toBe(200);
+  });
+
+  it('keeps tokens working across a change of name only', async () => {
+    const admin = await t.signedIn('admin');
+    const u = await t.signedIn('operator');
+    await t.http().patch(`/api/users/${u.id}`).set(as(admin.token)).send({ name: 'Renamed', role: 'operator' });
+    expect((await me(u.token)).status).toBe(200);
   });
 });
 

@@ -1,5 +1,6 @@
 import { rateLimit, ipKeyGenerator } from 'express-rate-limit';
 import { tooManyRequests } from '../../errors';
+import { accountKey } from '../../auth/email';
 
 /**
  * Limits failed sign-in attempts per address and account: slows guessing without letting one
@@ -14,7 +15,9 @@ export function loginLimiter(limit: number) {
     legacyHeaders: false,
     // Only failed attempts count: a control room signing in all day is never locked out.
     skipSuccessfulRequests: true,
-    keyGenerator: (req) => `${ipKeyGenerator(req.ip ?? '')}|${String(req.body?.email ?? '').toLowerCase()}`,
+    // The account as sign-in finds it (trimmed, lower-cased), so spacing or letter case is not a fresh
+    // allowance; req.ip honours X-Forwarded-For only when TALLYRUN_TRUST_PROXY names the proxy.
+    keyGenerator: (req) => `${ipKeyGenerator(req.ip ?? '')}|${accountKey(req.body?.email)}`,
     handler: (_req, res) => {
       const err = tooManyRequests('Too many sign-in attempts; wait a few minutes and try again.');
       res.status(err.status).json(err.toJSON());

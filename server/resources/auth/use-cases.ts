@@ -1,5 +1,5 @@
 import { unauthorized } from '../../errors';
-import { checkPassword } from '../../auth/passwords';
+import { checkAgainstDummyHash, checkPassword } from '../../auth/passwords';
 import { issueToken } from '../../auth/tokens';
 import type { UsersRepository } from '../users/repository';
 import type { recordAuditEvent } from '../../audit';
@@ -8,10 +8,12 @@ import type { recordAuditEvent } from '../../audit';
 export type SignInAudit = (event: Parameters<typeof recordAuditEvent>[0]) => Promise<void>;
 
 /**
- * Signs a user in by email (any letter case) and password. Every attempt goes to the audit
- * trail: a sign-in under the user, a refusal with the email as typed and why (never the password).
- * @returns a bearer token and the user
- * @throws 401 invalid_credentials for an unknown email or a wrong password alike; 401 account_disabled
+ * Signs a user in by email (spaces around it and letter case ignored) and password. Every attempt
+ * goes to the audit trail: a sign-in under the user, a refusal with the email as typed and the true
+ * reason (never the password).
+ * @returns a bearer token (carrying the user's token version) and the user
+ * @throws 401 invalid_credentials, the same answer for an unknown email, a wrong password and a
+ *   disabled account, so sign-in does not tell who has an account
  */
 export async function signIn(
   users: Pick<UsersRepository, 'findByEmail'>,
@@ -20,8 +22,11 @@ export async function signIn(
   audit: SignInAudit,
 ) {
   const user = await users.findByEmail(credentials.email);
-  // One message for unknown user and wrong password, so sign-in does not reveal who has an account.
-  const valid = user ? await checkPassword(credentials.password, user.passwordHash) : false;
+  // An unknown email still costs one bcrypt comparison (against a dummy hash of the same cost), so
+  // the time taken does not reveal whether the account exists either.
+  const valid = user
+    ? await checkPassword(credentials.password, user.passwordHash)
+    : await checkAgainstDummyHash(credentials.password);
   const refused = async (why: 'unknown-email' | 'wrong-password' | 'account-disabled') =>
     audit({
       actor: null,
@@ -30,13 +35,11 @@ export async function signIn(
       entityId: user?.id,
       after: { email: credentials.email, why },
     });
-  if (!user || !valid) {
-    await refused(user ? 'wrong-password' : 'unknown-email');
+  if (!user || !valid || user.disabled) {
+    await refused(!user ? 'unknown-email' : !valid ? 'wrong-password' : 'account-disabled');
+    // One code and message for all three: a disabled account with the right password must not
+    // confirm that the password was right.
     throw unauthorized('Email or password is not right.', 'invalid_credentials');
-  }
-  if (user.disabled) {
-    await refused('account-disabled');
-    throw unauthorized('This account is disabled; ask an administrator.', 'account_disabled');
   }
   await audit({
     actor: { id: user.id, email: user.email, role: user.role, name: user.name },
@@ -44,5 +47,10 @@ export async function signIn(
     entityType: 'sign-in',
     entityId: user.id,
   });
-  return { token: issueToken({ id: user.id, role: user.role }, token.jwtSecret, token.tokenHours), user };
+  const issued = issueToken(
+    { id: user.id, role: user.role, tokenVersion: user.tokenVersion },
+    token.jwtSecret,
+    token.tokenHours,
+  );
+  return { token: issued, user };
 }

@@ -1,6 +1,7 @@
 import { Op, UniqueConstraintError, col, fn, where, type Sequelize, type Transaction } from 'sequelize';
 import { User } from '../../models';
 import type { Role } from '../../../shared/auth/roles';
+import { normaliseEmail } from '../../auth/email';
 
 /** A user as the rest of the server sees one: no password hash. */
 export interface UserRecord {
@@ -12,9 +13,10 @@ export interface UserRecord {
   createdAt: Date;
 }
 
-/** A user with the hash sign-in checks a password against. */
+/** A user with the hash sign-in checks a password against, and the token version a new token carries. */
 export interface UserCredentials extends UserRecord {
   passwordHash: string;
+  tokenVersion: number;
 }
 
 export interface UserChanges {
@@ -22,6 +24,8 @@ export interface UserChanges {
   role?: Role;
   disabled?: boolean;
   passwordHash?: string;
+  /** Whether to add one to the user's token version (so every token issued before is refused), judged on the user before. */
+  revokeTokens?: (before: UserRecord) => boolean;
 }
 
 export interface UsersRepository {
@@ -39,8 +43,10 @@ export interface UsersRepository {
     changes: UserChanges,
     transaction: Transaction,
   ): Promise<{ before: UserRecord; after: UserRecord } | null>;
-  /** Looks a user up by email in any letter case. */
+  /** Looks a user up by email in any letter case, with spaces around it ignored. */
   findByEmail(email: string): Promise<UserCredentials | null>;
+  /** Looks a user up by id. */
+  findById(id: string): Promise<UserRecord | null>;
 }
 
 const toRecord = (u: User): UserRecord => ({
@@ -71,14 +77,21 @@ export function usersRepository(sequelize: Sequelize): UsersRepository {
       const found = await User.findByPk(id, { transaction, lock: transaction.LOCK.UPDATE });
       if (!found) return null;
       const before = toRecord(found);
-      for (const [key, value] of Object.entries(changes)) if (value !== undefined) found.set(key, value);
+      const { revokeTokens, ...fields } = changes;
+      for (const [key, value] of Object.entries(fields)) if (value !== undefined) found.set(key, value);
+      if (revokeTokens?.(before)) found.set('tokenVersion', found.tokenVersion + 1);
       await found.save({ transaction });
       return { before, after: toRecord(found) };
     },
 
     async findByEmail(email) {
-      const user = await User.findOne({ where: where(fn('lower', col('email')), { [Op.eq]: email.toLowerCase() }) });
-      return user ? { ...toRecord(user), passwordHash: user.passwordHash } : null;
+      const user = await User.findOne({ where: where(fn('lower', col('email')), { [Op.eq]: normaliseEmail(email) }) });
+      return user ? { ...toRecord(user), passwordHash: user.passwordHash, tokenVersion: user.tokenVersion } : null;
+    },
+
+    async findById(id) {
+      const user = await User.findByPk(id);
+      return user ? toRecord(user) : null;
     },
   };
 }

@@ -92,6 +92,71 @@ describe('/api/users (admin)', () => {
     expect(res.body.error.field).toBe(field);
   });
 
+  it.each([
+    ['password', /at least 12 characters/],
+    ['aaaaaaaaaaaa', /repeated/],
+    ['            ', /only spaces/],
+    ['123456789012', /sequence/],
+    ['Password 2026!', /common password/],
+    ['tallyrun-demo', /product name/],
+    ['x'.repeat(129), /at most 128 characters/],
+  ])('refuses a new user whose password is %j with 400 naming password and why', async (password, reason) => {
+    const body = { email: `weak-${t.unique()}@test.tallyrun`, name: 'Weak', role: 'operator', password };
+    const res = await t.http().post('/api/users').set(as(admin.token)).send(body);
+    expect(res.status).toBe(400);
+    expect(res.body.error.field).toBe('password');
+    expect(res.body.error.message).toMatch(reason);
+  });
+
+  it("counts a password's length in characters, not bytes, and allows spaces", async () => {
+    const email = `unicode-${t.unique()}@test.tallyrun`;
+    const short = 'ñandú 🌵 ñu'; // 10 characters, 16 bytes
+    const ok = 'ñandú 🌵 ñu y yo'; // 15 characters
+    const body = { email, name: 'Unicode', role: 'operator' };
+    expect(
+      (
+        await t
+          .http()
+          .post('/api/users')
+          .set(as(admin.token))
+          .send({ ...body, password: short })
+      ).status,
+    ).toBe(400);
+    expect(
+      (
+        await t
+          .http()
+          .post('/api/users')
+          .set(as(admin.token))
+          .send({ ...body, password: ok })
+      ).status,
+    ).toBe(201);
+  });
+
+  it('refuses a password change to the email name with a little added, naming password', async () => {
+    const u = await t.signedIn('operator');
+    const name = u.email.split('@')[0];
+    const res = await t
+      .http()
+      .patch(`/api/users/${u.id}`)
+      .set(as(admin.token))
+      .send({ password: `${name}2026!` });
+    expect(res.status).toBe(400);
+    expect(res.body.error.field).toBe('password');
+    expect(res.body.error.message).toMatch(/email name/);
+  });
+
+  it('stores a new email trimmed and lower-cased, the form sign-in finds', async () => {
+    const email = `Mixed-${t.unique()}@Test.Tallyrun`;
+    const res = await t
+      .http()
+      .post('/api/users')
+      .set(as(admin.token))
+      .send({ email: `  ${email} `, name: 'Mixed', role: 'operator', password: 'a-long-password' });
+    expect(res.status).toBe(201);
+    expect(res.body.email).toBe(email.toLowerCase());
+  });
+
   it('refuses an unknown field in a change with 400', async () => {
     const u = await t.signedIn('operator');
     const res = await t
