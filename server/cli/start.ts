@@ -9,7 +9,7 @@ import path from 'node:path';
 import { ensureCluster, type Cluster } from './postgres';
 import { prepareDatabase } from '../db/prepare';
 import { exportWebClient } from './web-export';
-import { readEnv } from '../env';
+import { demoSeeded, readEnv } from '../env';
 import { startServer, type RunningServer } from '../index';
 import { demoUsers } from '../seed/demo-users';
 import { componentLogger } from '../log';
@@ -56,6 +56,8 @@ async function main() {
   process.on('SIGTERM', () => void shutdown(0));
 
   try {
+    // A production start that would seed demo sign-ins is refused before a cluster is made (issue 12 §5).
+    demoSeeded(process.env);
     // DATABASE_URL, when set, is a superuser's connection to the database to use: it makes the
     // roles and migrates as the owner, and the server connects as the app role (server/db/roles.ts).
     let adminUrl = process.env.DATABASE_URL;

@@ -9,6 +9,11 @@ import { badRequest, notFound } from '../errors';
 
 const dayMs = 86_400_000;
 const digits = /^\d+$/;
+/** The largest PostgreSQL bigint: a longer run of digits names no record, and must not reach SQL as one. */
+const maxBigint = 9_223_372_036_854_775_807n;
+
+/** Digits that fit a bigint; an id beyond it would make PostgreSQL fail the whole query ("out of range"). */
+const isBigintId = (text: string) => digits.test(text) && BigInt(text) <= maxBigint;
 
 /**
  * A record id from a path (`/:id`). Ids are PostgreSQL bigints, carried as decimal strings so
@@ -18,16 +23,23 @@ const digits = /^\d+$/;
  */
 export function parseId(value: unknown, what: string): string {
   const text = String(value ?? '');
-  if (!digits.test(text)) throw notFound(what);
+  if (!isBigintId(text)) throw notFound(what);
   return text;
 }
 
-/** A zod field for an id given in a query or body ("must be a meter run id"); numbers are accepted too. */
+/**
+ * A zod field for an id given in a query or body ("must be a meter run id"); numbers are accepted too,
+ * up to Number.MAX_SAFE_INTEGER (a larger number has already lost digits when JSON was parsed).
+ */
 export const idField = (what: string) =>
   z
-    .union([z.number().int().positive(), z.string().regex(digits, `must be a ${what} id`)], {
-      error: `must be a ${what} id`,
-    })
+    .union(
+      [
+        z.number().int().positive().max(Number.MAX_SAFE_INTEGER),
+        z.string().regex(digits, `must be a ${what} id`).refine(isBigintId, `must be a ${what} id`),
+      ],
+      { error: `must be a ${what} id` },
+    )
     .transform(String);
 
 /** A zod field for an instant: ISO 8601 with an offset or Z, never a local time without a zone. */

@@ -19,7 +19,7 @@ beforeAll(async () => {
   engineer = await t.signedIn('engineer');
   admin = await t.signedIn('admin');
   smtp = await startSmtpStandIn({ host: '127.0.0.1', port: 0 });
-  mailer = createMailer({ host: '127.0.0.1', port: smtp.port });
+  mailer = createMailer({ host: '127.0.0.1', port: smtp.port, access: smtp.access });
 });
 afterAll(async () => {
   mailer.close();

@@ -71,9 +71,27 @@ export const lineSchema = z
   })
   .strict();
 
+/** The largest PostgreSQL bigint: a longer id names no record and must not reach SQL, where it fails the query. */
+const maxBigint = 9_223_372_036_854_775_807n;
+
+/** A record id in a body: a positive integer (exact as a JSON number) or a decimal string that fits a bigint. */
+const recordId = (what: string) =>
+  z
+    .union(
+      [
+        z.number().int().positive().max(Number.MAX_SAFE_INTEGER),
+        z
+          .string()
+          .regex(/^\d+$/)
+          .refine((v) => BigInt(v) <= maxBigint),
+      ],
+      { error: `must be a ${what} id` },
+    )
+    .transform(String);
+
 export const meterRunSchema = z
   .object({
-    siteId: z.union([z.number().int().positive(), z.string().regex(/^\d+$/)]).transform(String),
+    siteId: recordId('site'),
     tag: z
       .string()
       .trim()
@@ -111,7 +129,7 @@ export const configVersionSchema = z.object({
 
 export const transmitterSchema = z
   .object({
-    meterRunId: z.union([z.number().int().positive(), z.string().regex(/^\d+$/)]).transform(String),
+    meterRunId: recordId('meter run'),
     tag: z
       .string()
       .trim()
@@ -154,7 +172,7 @@ export const transmitterSchema = z
 
 export const deviceSchema = z.object({
   name: text(),
-  siteId: z.union([z.number().int().positive(), z.string().regex(/^\d+$/)]).transform(String),
+  siteId: recordId('site'),
 });
 
 export type SiteInput = z.infer<typeof siteSchema>;
