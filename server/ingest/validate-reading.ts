@@ -46,6 +46,8 @@ export function validateReading(
   } else {
     return 'time: is missing';
   }
+  // Beyond ±8.64e15 ms a Date cannot hold the instant (toISOString would throw): refuse it with a reason.
+  if (Number.isNaN(new Date(timeMs).getTime())) return `time: ${String(raw.time)} is beyond the dates a clock can hold`;
   if (timeMs > nowMs + futureToleranceMs) return `time: ${new Date(timeMs).toISOString()} is in the future`;
   if (timeMs < Date.UTC(1990, 0, 1)) return `time: ${new Date(timeMs).toISOString()} is before 1990`;
 
