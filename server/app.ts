@@ -5,6 +5,7 @@ import { pinoHttp } from 'pino-http';
 import { componentLogger } from './log';
 import type { Sequelize } from 'sequelize';
 import { AppError } from './errors';
+import { databaseUnavailable, isDatabaseUnreachable } from './db/availability';
 import { createAuthenticator } from './auth/passport';
 import { authRouter } from './resources/auth/router';
 import { usersRouter } from './resources/users/router';
@@ -16,7 +17,7 @@ import { serveWebClient } from './web';
 import { sitesRouter } from './resources/sites/router';
 import { meterRunsRouter } from './resources/meter-runs/router';
 import { meterRunHistoryRouter } from './resources/meter-run-history/router';
-import { elementCareRouter } from './resources/element-care/router';
+import { elementCareCertificateRouter, elementCareRouter } from './resources/element-care/router';
 import { transmittersRouter } from './resources/transmitters/router';
 import { devicesRouter } from './resources/devices/router';
 import { importsRouter } from './resources/imports/router';
@@ -26,6 +27,7 @@ import { liveRouter } from './resources/live/router';
 import { alarmsRouter } from './resources/alarms/router';
 import { alarmLimitsRouter } from './resources/alarm-limits/router';
 import { rangeHealthRouter } from './resources/range-health/router';
+import { careDueRouter } from './resources/care-due/router';
 import { reconciliationsRouter } from './resources/reconciliations/router';
 import { recordVersionsRouter } from './resources/record-versions/router';
 import { correctionsRouter } from './resources/corrections/router';
@@ -43,6 +45,8 @@ export interface AppOptions {
   jwtSecret: string;
   tokenHours: number;
   loginLimit: number;
+  /** Express's `trust proxy` from TALLYRUN_TRUST_PROXY; absent or false trusts no X-Forwarded-For. */
+  trustProxy?: boolean | number | string;
   health: () => Promise<Health>;
   services: Services;
   webDir?: string;
@@ -52,10 +56,15 @@ export interface AppOptions {
 /** Builds the Express app; it does not listen (tests hand it to supertest). */
 export function createApp(options: AppOptions): Express {
   const app = express();
-  app.set('trust proxy', 'loopback');
+  app.set('trust proxy', options.trustProxy ?? false);
   app.disable('x-powered-by');
-  // The exported client is a static bundle with inline bootstrapping; keep the other helmet headers.
+  // The content security policy is set by serveWebClient, which hashes the export's inline blocks.
   app.use(helmet({ contentSecurityPolicy: false }));
+  // API answers (the sign-in token above all) are never kept by a browser or a proxy (issue 12 §10).
+  app.use('/api', (_req, res, next) => {
+    res.setHeader('Cache-Control', 'no-store');
+    next();
+  });
   app.use(requestLog);
   app.use(express.json({ limit: '1mb' }));
 
@@ -104,14 +113,37 @@ export function createApp(options: AppOptions): Express {
     [
       '/meter-runs',
       // Element calibrations, gas analyses and inspections (issue 11): their versions recompute as any other.
-      elementCareRouter(sequelize, {
-        configChanged: async (meterRunId, from, configVersionId) => {
-          setupChanged();
-          await services.history.queueHours([meterRunId], from.getTime(), Date.now(), {
-            cause: 'configuration-version',
-            reference: configVersionId ?? null,
-          });
+      elementCareRouter(
+        sequelize,
+        {
+          configChanged: async (meterRunId, from, configVersionId) => {
+            setupChanged();
+            await services.history.queueHours([meterRunId], from.getTime(), Date.now(), {
+              cause: 'configuration-version',
+              reference: configVersionId ?? null,
+            });
+          },
         },
+        { uploadDir: services.uploadDir, certificatesDir: certificatesDirBeside(services.uploadDir) },
+      ),
+    ],
+    // Their certificates, downloaded by every signed-in role.
+    [
+      '/element-calibrations',
+      elementCareCertificateRouter(sequelize, 'calibration', {
+        certificatesDir: certificatesDirBeside(services.uploadDir),
+      }),
+    ],
+    [
+      '/gas-analyses',
+      elementCareCertificateRouter(sequelize, 'analysis', {
+        certificatesDir: certificatesDirBeside(services.uploadDir),
+      }),
+    ],
+    [
+      '/element-inspections',
+      elementCareCertificateRouter(sequelize, 'inspection', {
+        certificatesDir: certificatesDirBeside(services.uploadDir),
       }),
     ],
     [
@@ -154,6 +186,8 @@ export function createApp(options: AppOptions): Express {
     ['/alarms', alarmsRouter(services.pool)],
     ['/alarm-limits', alarmLimitsRouter(services.pool)], // new limits apply from the next evaluation (within a minute)
     ['/meter-runs', rangeHealthRouter(services.pool)],
+    // What is due in the care of a site's meters (issue 11 §4): every role reads.
+    ['/sites', careDueRouter(services.pool)],
     // Reconciliation against field totals (issue 10 §2): every role reads; the tolerance is configuration.
     ['/reconciliations', reconciliationsRouter(services.pool, sequelize)],
     // Record versions (issue 9): every version of an hourly record or a total, first against current.
@@ -247,6 +281,11 @@ const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
         .json(new AppError(400, 'invalid_json', 'The request body is not valid JSON.', 'body').toJSON());
     if (type === 'entity.too.large')
       return res.status(413).json(new AppError(413, 'too_large', 'The request body is too large.', 'body').toJSON());
+  }
+  // The database went away under the request (a restart, an outage): 503 saying so, not a 500.
+  if (isDatabaseUnreachable(err)) {
+    req.log.warn({ err: { message: (err as Error).message }, url: req.originalUrl }, 'database unreachable');
+    return res.status(503).json(databaseUnavailable().toJSON());
   }
   req.log.error({ err, method: req.method, url: req.originalUrl }, 'request failed');
   res

@@ -1,10 +1,21 @@
+import { isIP } from 'node:net';
 import { z } from 'zod';
+import { demoStartDecision, type PasswordCheck } from './seed/production-demo';
+import { checkPasswordPolicy } from './auth/password-policy';
 
 /**
  * The one place that reads process.env. Fails fast with a readable list of what is wrong.
  */
 const port = (fallback: number) => z.coerce.number().int().min(0).max(65535).default(fallback);
 const flag = (fallback: 'on' | 'off') => z.enum(['on', 'off']).default(fallback);
+/** One entry of TALLYRUN_TRUST_PROXY: a name Express knows, an IP address, or an address/prefix subnet. */
+const isProxyEntry = (entry: string) => {
+  if (['loopback', 'linklocal', 'uniquelocal'].includes(entry)) return true;
+  const [address, prefix, ...extra] = entry.split('/');
+  const version = isIP(address);
+  if (!version || extra.length) return false;
+  return prefix === undefined || (/^\d+$/.test(prefix) && Number(prefix) <= (version === 4 ? 32 : 128));
+};
 
 const schema = z.object({
   NODE_ENV: z.string().default('development'),
@@ -31,6 +42,27 @@ const schema = z.object({
   TALLYRUN_JWT_SECRET: z.string().min(16).optional(),
   TALLYRUN_TOKEN_HOURS: z.coerce.number().positive().default(12),
   TALLYRUN_LOGIN_LIMIT: z.coerce.number().int().positive().default(10),
+  /**
+   * Which proxies' X-Forwarded-For to believe (Express's `trust proxy`): unset trusts none, so a client
+   * cannot pick its own address for the sign-in limit; a hop count (`1`), or addresses, subnets and
+   * the names loopback, linklocal, uniquelocal separated by commas (`loopback, 10.0.0.0/8`).
+   */
+  TALLYRUN_TRUST_PROXY: z
+    .string()
+    .optional()
+    .transform((value, ctx) => {
+      const text = value?.trim() ?? '';
+      if (text === '') return false;
+      if (/^\d+$/.test(text)) return Number(text);
+      const entries = text.split(',').map((entry) => entry.trim());
+      const bad = entries.find((entry) => !isProxyEntry(entry));
+      if (bad === undefined) return entries.join(',');
+      ctx.addIssue({
+        code: 'custom',
+        message: `"${bad}" is not a hop count, an IP address or subnet, or loopback, linklocal, uniquelocal`,
+      });
+      return z.NEVER;
+    }),
   TALLYRUN_WEB_DIR: z.string().default('dist'),
 });
 
@@ -42,5 +74,21 @@ export function readEnv(source: NodeJS.ProcessEnv = process.env): Env {
     const lines = parsed.error.issues.map((i) => `  ${i.path.join('.')}: ${i.message}`);
     throw new Error(`Tallyrun configuration is invalid:\n${lines.join('\n')}`);
   }
-  return parsed.data;
+  return { ...parsed.data, TALLYRUN_DEMO: demoSeeded(source) ? 'on' : 'off' };
 }
+
+/**
+ * Whether demo data is seeded; throws the start-up error naming the setting when production would
+ * seed it without being asked, or with the shipped password (server/seed/production-demo.ts).
+ */
+export function demoSeeded(source: Record<string, string | undefined> = process.env): boolean {
+  const demo = demoStartDecision(source, passwordPolicy);
+  if (!demo.ok) throw new Error(`Tallyrun configuration is invalid:\n  ${demo.field}: ${demo.message}`);
+  return demo.seed;
+}
+
+/** The password policy (server/auth/password-policy.ts) the demo password must pass in production. */
+const passwordPolicy: PasswordCheck = (password, context) => {
+  const reason = checkPasswordPolicy(password, context);
+  return reason === null ? { ok: true } : { ok: false, reason };
+};

@@ -18,6 +18,7 @@ import { makePartitionsAhead, startAlarmSchedule, startSchedule } from './jobs/s
 import { createMailer } from './mail/send';
 import { AlarmNotifier } from './mail/notifier';
 import { componentLogger } from './log';
+import { DatabaseMonitor } from './db/availability';
 
 const serverLog = componentLogger('server');
 
@@ -55,6 +56,10 @@ export async function startServer(env: Env = readEnv()): Promise<RunningServer> 
     `UPDATE imports SET status = 'failed', finished_at = now(), errors = errors || '[{"line": 0, "message": "the server stopped during this import; re-import the file (rows already stored count as duplicates)"}]'::jsonb WHERE status = 'running'`,
   );
   await makePartitionsAhead(services.pool);
+  // The database may restart under a running server: watched here for /api/health; every pool and
+  // worker logs and retries instead of ending the process (DEVELOPERS.md, "When the database goes away").
+  const databaseMonitor = new DatabaseMonitor(env.DATABASE_URL);
+  databaseMonitor.start();
   services.history.start((ids) => {
     services.live.historyChanged(ids);
     // Alarms: judge the new readings of the meter runs just recomputed (issue 5).
@@ -81,7 +86,7 @@ export async function startServer(env: Env = readEnv()): Promise<RunningServer> 
   const smtp = await startSmtpStandIn({ host: env.HOST, port: env.SMTP_PORT });
   // Alarm mail through the stand-in (issue 5): new alarms soon after they are raised, digests and
   // clock-judged conditions (stale, calibration, shelving over) on the minute.
-  const mailer = createMailer({ host: env.HOST, port: smtp.port });
+  const mailer = createMailer({ host: env.HOST, port: smtp.port, access: smtp.access });
   const notifier = new AlarmNotifier(services.pool, mailer);
   services.alarms.on('raised', () => notifier.requestRun());
   const alarmSchedule = startAlarmSchedule({ alarms: services.alarms, notifier });
@@ -91,13 +96,11 @@ export async function startServer(env: Env = readEnv()): Promise<RunningServer> 
     jwtSecret: jwtSecret(env),
     tokenHours: env.TALLYRUN_TOKEN_HOURS,
     loginLimit: env.TALLYRUN_LOGIN_LIMIT,
+    trustProxy: env.TALLYRUN_TRUST_PROXY,
     webDir: env.TALLYRUN_WEB_DIR,
     services,
     health: async () => ({
-      database: await sequelize
-        .query('SELECT 1')
-        .then(() => 'up' as const)
-        .catch(() => 'down' as const),
+      database: databaseMonitor.database,
       broker: broker.isUp() ? 'up' : 'down',
     }),
   });
@@ -123,6 +126,7 @@ export async function startServer(env: Env = readEnv()): Promise<RunningServer> 
       mailer.close();
       await smtp.close();
       await services.close();
+      await databaseMonitor.stop();
       await sequelize.close();
     },
   };

@@ -18,6 +18,8 @@ import * as m0013 from '../migrations/0013-balance-groups';
 import * as m0014 from '../migrations/0014-calibrations';
 import * as m0015 from '../migrations/0015-element-care';
 import * as m0016 from '../migrations/0016-care-certificates-and-due';
+import * as m0017 from '../migrations/0017-device-rejections';
+import * as m0018 from '../migrations/0018-token-version';
 import * as m0019 from '../migrations/0019-reconciliation-tolerance-versions';
 
 /**
@@ -41,6 +43,8 @@ const migrations = [
   { name: '0014-calibrations', ...m0014 },
   { name: '0015-element-care', ...m0015 },
   { name: '0016-care-certificates-and-due', ...m0016 },
+  { name: '0017-device-rejections', ...m0017 },
+  { name: '0018-token-version', ...m0018 },
   { name: '0019-reconciliation-tolerance-versions', ...m0019 },
 ];
 

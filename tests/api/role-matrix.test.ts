@@ -28,6 +28,8 @@ const expected: Record<string, Who[] | typeof PUBLIC> = {
   // live view, trends, totals: every role reads set-up, readings, history and the live board
   'GET /api/sites': everyone,
   'GET /api/sites/:id': everyone,
+  // what is due in the care of a site's meters (issue 11 §4): every role reads
+  'GET /api/sites/:id/care-due': everyone,
   'GET /api/meter-runs': everyone,
   'GET /api/meter-runs/:id': everyone,
   'GET /api/meter-runs/:id/config-versions': everyone,
@@ -59,6 +61,12 @@ const expected: Record<string, Who[] | typeof PUBLIC> = {
   'GET /api/transmitters/:id/calibrations': everyone,
   'POST /api/transmitters/:id/calibrations': ['engineer', 'admin'],
   'GET /api/calibrations/:id/certificate': everyone,
+  // a failed as-found's correction proposal (issue 11 §4): engineer and admin, who propose corrections
+  'GET /api/calibrations/:id/correction-proposal': ['engineer', 'admin'],
+  // element care certificates (issue 11 §2, §3): every role downloads
+  'GET /api/element-calibrations/:id/certificate': everyone,
+  'GET /api/gas-analyses/:id/certificate': everyone,
+  'GET /api/element-inspections/:id/certificate': everyone,
   // import readings and field totals: engineer and admin
   'GET /api/imports': ['engineer', 'admin'],
   'GET /api/imports/:id': ['engineer', 'admin'],
@@ -68,6 +76,7 @@ const expected: Record<string, Who[] | typeof PUBLIC> = {
   'GET /api/devices': ['admin'],
   'POST /api/devices': ['admin'],
   'PATCH /api/devices/:id': ['admin'],
+  'GET /api/devices/:id/rejections': ['admin'],
   // alarms (issue 5): every role reads; acknowledge and shelve: operator, engineer, admin;
   // out of service is maintenance of the alarm system, like configuration: engineer, admin
   'GET /api/alarms': everyone,
