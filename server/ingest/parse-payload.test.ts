@@ -65,6 +65,14 @@ describe('parsePayload', () => {
     ]);
   });
 
+  it('refuses a stray number, text, null or array among the readings alone and keeps the good readings beside it', () => {
+    const good = { t: now - 1000, v: 12.5, q: 'good' };
+    const outcome = ingestOutcome(JSON.stringify([good, 5, 'twelve', null, [1, 2], { ...good, v: 13 }]));
+    expect(outcome.refused).toBeNull();
+    expect(outcome.kept.map((k) => k.value)).toEqual([12.5, 13]);
+    expect(outcome.reasons).toEqual(Array(4).fill('reading: must be an object { "t", "v", "q" }'));
+  });
+
   it('answers any bytes with readings or a reason, and the readings each with a reading or a reason, never a throw', () => {
     fc.assert(
       fc.property(
@@ -81,7 +89,7 @@ describe('parsePayload', () => {
         (payload) => {
           const outcome = ingestOutcome(payload);
           if (outcome.refused !== null) expect(outcome.refused).toMatch(/^payload: /);
-          for (const reason of outcome.reasons) expect(reason).toMatch(/^(time|value|quality|unit)\b/);
+          for (const reason of outcome.reasons) expect(reason).toMatch(/^(time|value|quality|unit|reading)\b/);
         },
       ),
       { numRuns: 500 },

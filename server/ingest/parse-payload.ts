@@ -4,6 +4,8 @@ export interface RawReading {
   value: unknown;
   quality?: unknown;
   unit?: unknown;
+  /** Why this item cannot be a reading at all (not an object): refused alone, its neighbours kept. */
+  problem?: string;
 }
 
 /**
@@ -22,8 +24,11 @@ export function parsePayload(payload: Buffer | string): RawReading[] | string {
   if (items.length > 10_000) return 'payload: more than 10000 readings in one message';
   const out: RawReading[] = [];
   for (const item of items) {
-    if (!item || typeof item !== 'object' || Array.isArray(item))
-      return 'payload: each reading must be an object { "t", "v", "q" }';
+    // A stray number or string beside good readings costs only itself (bad data never takes good data with it).
+    if (!item || typeof item !== 'object' || Array.isArray(item)) {
+      out.push({ time: undefined, value: undefined, problem: 'reading: must be an object { "t", "v", "q" }' });
+      continue;
+    }
     const o = item as Record<string, unknown>;
     out.push({ time: o.t, value: o.v, quality: o.q, unit: o.u });
   }

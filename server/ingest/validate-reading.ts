@@ -29,10 +29,11 @@ const isoWithOffset = /^\d{4}-\d{2}-\d{2}T\d{2}:\d{2}(:\d{2}(\.\d{1,9})?)?(Z|[+-
  * impossible values (negative absolute pressure, temperature below absolute zero).
  */
 export function validateReading(
-  raw: { time: unknown; value: unknown; quality?: unknown; unit?: unknown },
+  raw: { time: unknown; value: unknown; quality?: unknown; unit?: unknown; problem?: string },
   transmitter: CatalogTransmitter,
   nowMs: number,
 ): ValidReading | string {
+  if (raw.problem) return raw.problem;
   let timeMs: number;
   if (typeof raw.time === 'number') {
     if (!Number.isFinite(raw.time) || !Number.isInteger(raw.time))
