@@ -23,7 +23,7 @@ export function liveRouter(board: LiveBoard, events: LiveEvents) {
   router.get('/stream', async (req, res) => {
     res.writeHead(200, {
       'Content-Type': 'text/event-stream',
-      'Cache-Control': 'no-cache, no-transform',
+      'Cache-Control': 'no-store, no-transform',
       Connection: 'keep-alive',
       'X-Accel-Buffering': 'no',
     });
