@@ -108,7 +108,12 @@ export async function killPart(h: Harness, options: { readings: number }): Promi
       },
     );
     const outcome = await first;
-    if (outcome !== 'closed') failures.push('the publisher finished before the server was killed');
+    if (!killedMs)
+      throw new Error(
+        outcome === 'closed'
+          ? `the connection closed before the kill (server: ${server.exited() ?? 'running'})`
+          : 'the publisher finished before the server was killed',
+      );
     const rateBefore = (ackedAtKill * perMessage) / ((killedMs - startedMs) / 1000);
     say(`${ackedAtKill * perMessage} readings acknowledged at ${rateBefore.toFixed(0)} readings/s; server killed (-9)`);
     publisher.end(true);
