@@ -325,8 +325,9 @@ export async function importReadingsCsv(
     const stored = storedThroughLine
       ? `the good lines up to line ${storedThroughLine} are stored (${p.rowsImported} new readings, ${p.duplicates} duplicates) and nothing after`
       : 'nothing of this file was stored';
-    // A header fault is filed under the header's line; anything else under the line it stopped before.
-    reject(p, columns ? line + 1 : Math.max(line, 1), stopReason(err, stored));
+    // A header fault is filed under the header's line; anything else under the first line whose
+    // readings are not stored (where a re-import has work to do), never past the file's end.
+    reject(p, columns ? Math.max(storedThroughLine, 1) + 1 : Math.max(line, 1), stopReason(err, stored));
     await saveFinal(deps.pool, importId, p, 'failed');
   }
 }
