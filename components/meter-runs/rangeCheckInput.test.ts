@@ -179,6 +179,23 @@ describe('runRangeCheck on the fluid', () => {
     });
   });
 
+  it('reads gas components in every spelling the fluids module accepts and gives the same range as kebab-case names', () => {
+    const kebab = runOf(si({ composition: 'methane 0.95\ncarbon-dioxide 0.02\nnitrogen 0.03' }));
+    for (const text of [
+      'Methane 0.95\ncarbon dioxide 0.02\nN2 0.03',
+      'methane 0.95\nCO2 0.02\nnitrogen 0.03',
+      'methane 0.95\nCarbon Dioxide 0.02\nnitrogen 0.03',
+    ]) {
+      const run = runOf(si({ composition: text }));
+      expect(run.input.fluid).toEqual(kebab.input.fluid);
+    }
+  });
+
+  it('refuses one component given twice under two spellings', () => {
+    const { problems } = runRangeCheck(si({ composition: 'methane 0.96\nCO2 0.02\ncarbon dioxide 0.02' }));
+    expect(problems.composition).toMatch(/carbon-dioxide is given twice/);
+  });
+
   it('names the composition when the engine does not know a component', () => {
     const { problems } = runRangeCheck(si({ composition: 'methane 0.5\nunobtainium 0.5' }));
     expect(Object.keys(problems)).toEqual(['composition']);

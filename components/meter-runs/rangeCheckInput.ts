@@ -103,7 +103,7 @@ function numberOf(text: string): number | undefined {
   return Number(trimmed);
 }
 
-/** "methane 0.965222" per line (also "methane: 0.965222" or "methane=0.965222"). */
+/** "methane 0.965222" per line (also "methane: 0.965222", "CO2=0.02" or "Carbon Dioxide 0.02"). */
 function parseComposition(text: string): Record<string, number> | string {
   const composition: Record<string, number> = {};
   for (const line of text
@@ -112,12 +112,10 @@ function parseComposition(text: string): Record<string, number> | string {
     .filter(Boolean)) {
     const match = /^([A-Za-z0-9 _-]+?)\s*[:=\s]\s*([0-9.eE+-]+)$/.exec(line);
     if (!match) return `Write one component per line, e.g. "methane 0.965222" (not "${line}").`;
-    composition[
-      match[1]
-        .trim()
-        .toLowerCase()
-        .replace(/[\s_]+/g, '-')
-    ] = Number(match[2]);
+    // Names go to the flow case's schema as typed: it reads every spelling the fluids module accepts.
+    const name = match[1].trim();
+    if (name in composition) return `${name} is given twice.`;
+    composition[name] = Number(match[2]);
   }
   return composition;
 }

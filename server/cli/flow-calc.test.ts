@@ -34,6 +34,33 @@ const o2Case = {
 };
 
 describe('flow-calc CLI', () => {
+  it('gives the same result for carbon dioxide written "carbon dioxide", "CO2" or "Carbon Dioxide" as for "carbon-dioxide", echoing the canonical names', () => {
+    const gasCase = (carbonDioxide: string) =>
+      JSON.stringify({
+        element: { kind: 'orifice', taps: 'flange', pipeDiameterM: 0.2, boreDiameterM: 0.1 },
+        fluid: { kind: 'natural-gas', composition: { methane: 0.95, [carbonDioxide]: 0.02, nitrogen: 0.03 } },
+        conditions: { differentialPressurePa: 25000, staticPressurePa: 5e6, temperatureK: 290 },
+      });
+    const kebab = run(gasCase('carbon-dioxide'));
+    expect(kebab.status).toBe(0);
+    expect(kebab.json.composition).toEqual({ methane: 0.95, 'carbon-dioxide': 0.02, nitrogen: 0.03 });
+    for (const spelling of ['carbon dioxide', 'CO2', 'Carbon Dioxide'])
+      expect(run(gasCase(spelling)).json).toEqual(kebab.json);
+  });
+
+  it('refuses an unknown component naming fluid.composition.<name>, with close matches, and exits 2', () => {
+    const r = run(
+      JSON.stringify({
+        element: { kind: 'orifice', taps: 'flange', pipeDiameterM: 0.2, boreDiameterM: 0.1 },
+        fluid: { kind: 'natural-gas', composition: { methane: 0.98, nitrogn: 0.02 } },
+        conditions: { differentialPressurePa: 25000, staticPressurePa: 5e6, temperatureK: 290 },
+      }),
+    );
+    expect(r.status).toBe(2);
+    expect(r.json.error.field).toBe('fluid.composition.nitrogn');
+    expect(r.json.error.message).toMatch(/did you mean nitrogen/);
+  });
+
   it('prints the O2 result (qm = 15555.29024 kg/h, C = 0.599031, ε = 0.9958616; TRADE.md §3 O2, pvtlib) pretty with 2 spaces and exits 0', () => {
     const r = run(JSON.stringify(o2Case));
     expect(r.status).toBe(0);
@@ -76,14 +103,15 @@ describe('flow-calc CLI', () => {
     expect(r.json.error.field).toBe('fluid.composition');
   });
 
-  it('answers an engine error (an unknown gas component) with an error body and exit code 2', () => {
+  it('answers an unknown gas component with an error body naming fluid.composition.<name> and exit code 2', () => {
     const r = run(
       JSON.stringify({ ...o2Case, fluid: { kind: 'natural-gas', composition: { methane: 0.9, unobtainium: 0.1 } } }),
     );
     expect(r.status).toBe(2);
     expect(r.json.error.code).toBe('invalid_case');
     expect(r.json.error.message).toMatch(/unobtainium/);
-    expect(r.json.error.field).toBe('fluid.composition');
+    // Issue 13 item 1: the boundary names the component (it used to be found by the engine, as fluid.composition).
+    expect(r.json.error.field).toBe('fluid.composition.unobtainium');
   });
 });
 

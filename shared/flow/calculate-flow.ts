@@ -6,7 +6,10 @@ import { flowCaseErrorFromEngine, parseFlowCase, type InvalidCaseError } from '.
 import type { FlowCase, FlowResult } from './flow-types';
 import { solveFlowCase } from './solve-flow-case';
 
-export type FlowCalculation = { ok: true; result: FlowResult } | { ok: false; error: InvalidCaseError };
+/** The result, with a natural gas's composition echoed under the canonical component names it was solved with. */
+export type FlowCalculationResult = FlowResult & { composition?: Record<string, number> };
+
+export type FlowCalculation = { ok: true; result: FlowCalculationResult } | { ok: false; error: InvalidCaseError };
 
 const NUMERIC_FIELDS = [
   'beta',
@@ -39,7 +42,8 @@ export function calculateFlow(value: unknown): FlowCalculation {
         },
       };
     }
-    return { ok: true, result };
+    const fluid = parsed.value.fluid;
+    return { ok: true, result: fluid.kind === 'natural-gas' ? { ...result, composition: fluid.composition } : result };
   } catch (error) {
     return { ok: false, error: flowCaseErrorFromEngine(error) };
   }

@@ -24,9 +24,10 @@ export {
   detailPropertiesPT,
   detailPropertiesTD,
   canonicalComponentName,
+  lookUpComponentName,
   DETAIL_COMPONENTS,
 } from './aga8';
-export type { DetailMixture, DetailProperties, DetailComponent } from './aga8';
+export type { DetailMixture, DetailProperties, DetailComponent, ComponentLookup } from './aga8';
 export { iso6976Properties } from './heating-value';
 export type { Iso6976Properties } from './heating-value';
 export type { DetailComposition } from './aga8/detail-composition';

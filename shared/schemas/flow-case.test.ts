@@ -93,14 +93,77 @@ describe('flowCaseSchema', () => {
     ).toBe('element.calibration');
   });
 
-  it('requires a composition for natural gas and kebab-case names', () => {
+  it('requires a composition for natural gas whose fractions add up to 1', () => {
     expect(fieldOf({ ...good, fluid: { kind: 'natural-gas' } })).toBe('fluid.composition');
-    expect(fieldOf({ ...good, fluid: { kind: 'natural-gas', composition: { Methane: 1 } } })).toMatch(
-      /^fluid\.composition/,
-    );
     expect(fieldOf({ ...good, fluid: { kind: 'natural-gas', composition: { methane: 0.5 } } })).toBe(
       'fluid.composition',
     );
+  });
+
+  it('accepts every spelling the fluids module accepts and gives the canonical names (carbon dioxide, CO2, Carbon Dioxide)', () => {
+    const gas = (carbonDioxide: string) => ({
+      ...good,
+      fluid: { kind: 'natural-gas', composition: { Methane: 0.9, [carbonDioxide]: 0.05, 'i-butane': 0.05 } },
+    });
+    for (const spelling of ['carbon-dioxide', 'carbon dioxide', 'CO2', 'Carbon Dioxide', 'carbon_dioxide']) {
+      const r = parseFlowCase(gas(spelling));
+      expect(r.ok && r.value.fluid.kind === 'natural-gas' && r.value.fluid.composition).toEqual({
+        methane: 0.9,
+        'carbon-dioxide': 0.05,
+        isobutane: 0.05,
+      });
+    }
+  });
+
+  it('refuses an unknown component at fluid.composition.<name>, listing close matches', () => {
+    const r = parseFlowCase({
+      ...good,
+      fluid: { kind: 'natural-gas', composition: { methane: 0.9, 'carbon dioxid': 0.1 } },
+    });
+    expect(r.ok).toBe(false);
+    if (r.ok) return;
+    expect(r.error.field).toBe('fluid.composition.carbon dioxid');
+    expect(r.error.message).toMatch(/unknown component "carbon dioxid" \(did you mean carbon-dioxide/);
+  });
+
+  it('refuses one component given twice under two spellings, naming the second', () => {
+    expect(
+      fieldOf({
+        ...good,
+        fluid: { kind: 'natural-gas', composition: { methane: 0.9, CO2: 0.05, 'Carbon Dioxide': 0.05 } },
+      }),
+    ).toBe('fluid.composition.Carbon Dioxide');
+  });
+
+  it('takes a fixed C from a calibration only with its certificate U(C), and a laboratory only with a calibration', () => {
+    const cone = { kind: 'cone', pipeDiameterM: 0.2, coneDiameterM: 0.14, dischargeCoefficient: 0.81 };
+    expect(
+      parseFlowCase({
+        ...good,
+        element: {
+          ...cone,
+          dischargeCoefficientCalibrated: true,
+          calibrationUncertaintyPercent: 0.5,
+          calibrationLaboratory: 'Flow laboratory, certificate 2026-118',
+        },
+      }).ok,
+    ).toBe(true);
+    expect(fieldOf({ ...good, element: { ...cone, dischargeCoefficientCalibrated: true } })).toBe(
+      'element.calibrationUncertaintyPercent',
+    );
+    expect(fieldOf({ ...good, element: { ...cone, calibrationUncertaintyPercent: 0.5 } })).toBe(
+      'element.calibrationUncertaintyPercent',
+    );
+    expect(fieldOf({ ...good, element: { ...cone, calibrationLaboratory: 'Lab' } })).toBe(
+      'element.calibrationLaboratory',
+    );
+    const { dischargeCoefficient: _c, ...noC } = cone;
+    expect(
+      fieldOf({
+        ...good,
+        element: { ...noC, dischargeCoefficientCalibrated: true, calibrationUncertaintyPercent: 0.5 },
+      }),
+    ).toBe('element.dischargeCoefficient');
   });
 
   it('requires the molar mass of an ideal gas and the density line of a liquid', () => {

@@ -5,6 +5,8 @@
  * { code: 'invalid_case', message, field }.
  */
 import { z } from 'zod';
+import { canonicalComponentName, lookUpComponentName } from '../fluids/aga8/detail-composition';
+import { DETAIL_COMPONENTS } from '../fluids/aga8/detail-constants';
 
 const positive = (what: string) => z.number({ error: `${what} must be a number` }).positive(`${what} must be > 0`);
 const required = (what: string) => ({
@@ -37,6 +39,17 @@ export const elementSpecSchema = z
       calibration: z.array(calibrationPointSchema).min(1, 'calibration needs at least one point').optional(),
       calibrationUncertaintyPercent: positive('calibrationUncertaintyPercent')
         .max(10, 'calibrationUncertaintyPercent must be ≤ 10 %')
+        .optional(),
+      /** A fixed dischargeCoefficient measured by a calibration (its U(C) is calibrationUncertaintyPercent, k = 2). */
+      dischargeCoefficientCalibrated: z
+        .boolean({ error: 'dischargeCoefficientCalibrated must be true or false' })
+        .optional(),
+      /** Who calibrated the element, and the certificate (reference text). */
+      calibrationLaboratory: z
+        .string({ error: 'calibrationLaboratory must be text' })
+        .trim()
+        .min(1, 'calibrationLaboratory must not be empty')
+        .max(200, 'calibrationLaboratory must be at most 200 characters')
         .optional(),
     },
     required('element'),
@@ -75,11 +88,35 @@ export const elementSpecSchema = z
         message: 'give either a fixed dischargeCoefficient or a calibration curve, not both',
       });
     }
-    if (e.calibrationUncertaintyPercent !== undefined && e.calibration === undefined) {
+    if (e.dischargeCoefficientCalibrated === true) {
+      need('dischargeCoefficient', 'when dischargeCoefficientCalibrated is true (the calibrated fixed C)');
+      need(
+        'calibrationUncertaintyPercent',
+        "when the fixed C comes from a calibration (the certificate's U(C), k = 2, %)",
+      );
+    }
+    if (
+      e.calibrationLaboratory !== undefined &&
+      e.calibration === undefined &&
+      e.dischargeCoefficientCalibrated !== true
+    ) {
+      ctx.addIssue({
+        code: 'custom',
+        path: ['calibrationLaboratory'],
+        message:
+          'calibrationLaboratory belongs to a calibration: give calibration points or a calibrated fixed dischargeCoefficient',
+      });
+    }
+    if (
+      e.calibrationUncertaintyPercent !== undefined &&
+      e.calibration === undefined &&
+      e.dischargeCoefficientCalibrated !== true
+    ) {
       ctx.addIssue({
         code: 'custom',
         path: ['calibrationUncertaintyPercent'],
-        message: 'calibrationUncertaintyPercent belongs to a calibration curve: give the calibration points too',
+        message:
+          'calibrationUncertaintyPercent belongs to a calibration curve: give the calibration points too (or set dischargeCoefficientCalibrated for a calibrated fixed C)',
       });
     }
     if (e.calibration) {
@@ -101,10 +138,45 @@ const overrides = {
   viscosityPaS: positive('viscosityPaS').max(10, 'viscosityPaS must be in Pa·s (≤ 10)').optional(),
 };
 
-/** Component names are kebab-case (methane, carbon-dioxide, n-butane, ...); the fluids module checks they are known. */
-const componentName = z
-  .string()
-  .regex(/^[a-z0-9]+(-[a-z0-9]+)*$/, 'component names are kebab-case, e.g. carbon-dioxide');
+/**
+ * Mole fractions keyed by component name in any spelling the fluids module accepts ("carbon-dioxide",
+ * "Carbon Dioxide", "CO2", "i-butane"; one lookup, lookUpComponentName, for every boundary), turned
+ * into the canonical kebab-case names. An unknown name is an issue at `composition.<name>` listing
+ * close matches; one component given under two spellings is an issue at the second spelling.
+ */
+const compositionRecord = z
+  .record(z.string(), z.number().min(0, 'mole fractions must be ≥ 0').max(1, 'mole fractions must be ≤ 1'), {
+    error: (iss) =>
+      iss.input === undefined ? 'composition (mole fractions by component) is required for natural gas' : undefined,
+  })
+  .superRefine((c, ctx) => {
+    const firstSpelling = new Map<string, string>();
+    for (const key of Object.keys(c)) {
+      const found = lookUpComponentName(key);
+      if (!found.known) {
+        const close = found.closeMatches.length ? `did you mean ${found.closeMatches.join(', ')}? ` : '';
+        ctx.addIssue({
+          code: 'custom',
+          path: [key],
+          message: `unknown component "${key}" (${close}known: ${DETAIL_COMPONENTS.join(', ')})`,
+        });
+        continue;
+      }
+      const earlier = firstSpelling.get(found.canonical);
+      if (earlier !== undefined)
+        ctx.addIssue({
+          code: 'custom',
+          path: [key],
+          message: `${found.canonical} is given twice ("${earlier}" and "${key}")`,
+        });
+      else firstSpelling.set(found.canonical, key);
+    }
+  })
+  .transform((c) => {
+    const canonical: Record<string, number> = {};
+    for (const [key, fraction] of Object.entries(c)) canonical[canonicalComponentName(key)] = fraction;
+    return canonical;
+  });
 
 export const fluidSpecSchema = z.discriminatedUnion(
   'kind',
@@ -112,13 +184,7 @@ export const fluidSpecSchema = z.discriminatedUnion(
     z.object({ kind: z.enum(['water', 'steam']), ...overrides }),
     z.object({
       kind: z.literal('natural-gas'),
-      composition: z
-        .record(componentName, z.number().min(0, 'mole fractions must be ≥ 0').max(1, 'mole fractions must be ≤ 1'), {
-          error: (iss) =>
-            iss.input === undefined
-              ? 'composition (mole fractions by component) is required for natural gas'
-              : undefined,
-        })
+      composition: compositionRecord
         .refine((c) => Object.keys(c).length > 0, 'composition needs at least one component')
         .refine(
           (c) => Math.abs(Object.values(c).reduce((s, x) => s + x, 0) - 1) <= 0.01,

@@ -1,5 +1,5 @@
 import { badRequest } from '../../errors';
-import { canonicalComponentName, DETAIL_COMPONENTS } from '../../../shared/fluids';
+import { DETAIL_COMPONENTS, lookUpComponentName } from '../../../shared/fluids';
 
 /** Default tolerance of a composition's sum, as a fraction of 1 (issue 11 §3). */
 export const DEFAULT_SUM_TOLERANCE = 0.0001;
@@ -23,12 +23,12 @@ export interface AnalysedComposition {
  */
 export function analysedComposition(components: Record<string, number>, sumTolerance: number): AnalysedComposition {
   const byName = new Map<string, { key: string; value: number }>();
-  const known = new Set<string>(DETAIL_COMPONENTS);
   for (const [key, value] of Object.entries(components)) {
-    const name = canonicalComponentName(key);
-    if (!known.has(name))
+    const found = lookUpComponentName(key);
+    const name = found.canonical;
+    if (!found.known)
       throw badRequest(
-        `components.${key}: unknown component (known: ${DETAIL_COMPONENTS.join(', ')})`,
+        `components.${key}: unknown component (${found.closeMatches.length ? `did you mean ${found.closeMatches.join(', ')}? ` : ''}known: ${DETAIL_COMPONENTS.join(', ')})`,
         `components.${key}`,
         'invalid_field',
       );

@@ -87,6 +87,30 @@ describe('/api/meter-runs and /api/transmitters', () => {
     expect(versions.body).toHaveLength(1);
   });
 
+  it('stores a composition typed in the usual spellings (Methane, CO2, carbon dioxide) under the canonical names', async () => {
+    const res = await t
+      .http()
+      .post('/api/meter-runs')
+      .set('Authorization', `Bearer ${engineer.token}`)
+      .send(run({ fluid: { kind: 'natural-gas', composition: { Methane: 0.95, Ethane: 0.03, N2: 0.02 } } }));
+    expect(res.status).toBe(201);
+    const versions = await t
+      .http()
+      .get(`/api/meter-runs/${res.body.id}/config-versions`)
+      .set('Authorization', `Bearer ${engineer.token}`);
+    expect(versions.body[0].fluid.composition).toEqual({ methane: 0.95, ethane: 0.03, nitrogen: 0.02 });
+  });
+
+  it('refuses a composition naming the same component twice under two spellings, naming the field', async () => {
+    const res = await t
+      .http()
+      .post('/api/meter-runs')
+      .set('Authorization', `Bearer ${engineer.token}`)
+      .send(run({ fluid: { kind: 'natural-gas', composition: { methane: 0.96, CO2: 0.02, 'carbon dioxide': 0.02 } } }));
+    expect(res.status).toBe(400);
+    expect(res.body.error.field).toBe('fluid.composition.carbon dioxide');
+  });
+
   it.each([
     [{ siteId: '999999' }, 'siteId'],
     [{ element: { kind: 'orifice', pipeDiameterM: 0.1, boreDiameterM: 0.05 } }, 'element.taps'],

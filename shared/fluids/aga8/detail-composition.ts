@@ -51,6 +51,48 @@ export function canonicalComponentName(name: string): string {
   return ALIASES[s] ?? s;
 }
 
+/** The result of looking a component name up: its canonical name, or the closest known names. */
+export type ComponentLookup =
+  { known: true; canonical: string } | { known: false; canonical: string; closeMatches: string[] };
+
+/** Edit distance (insertions, deletions, substitutions) between two short names. */
+function editDistance(a: string, b: string): number {
+  let previous = Array.from({ length: b.length + 1 }, (_, j) => j);
+  for (let i = 1; i <= a.length; i++) {
+    const row = [i];
+    for (let j = 1; j <= b.length; j++)
+      row[j] = Math.min(previous[j] + 1, row[j - 1] + 1, previous[j - 1] + (a[i - 1] === b[j - 1] ? 0 : 1));
+    previous = row;
+  }
+  return previous[b.length];
+}
+
+/**
+ * Looks a component name up in the spellings this module accepts (see `canonicalComponentName`):
+ * every boundary where a composition is typed uses this, so they all accept the same names.
+ * An unknown name comes back with up to three close known names (canonical names and accepted
+ * spellings within an edit distance of a third of the name's length, at least 2), nearest first.
+ *
+ * @param name component name as given
+ * @returns { known: true, canonical } or { known: false, canonical, closeMatches }
+ */
+export function lookUpComponentName(name: string): ComponentLookup {
+  const canonical = canonicalComponentName(name);
+  if (INDEX.has(canonical)) return { known: true, canonical };
+  const limit = Math.max(2, Math.floor(canonical.length / 3));
+  const candidates = [...DETAIL_COMPONENTS, ...Object.keys(ALIASES)]
+    .map((candidate) => ({ candidate, distance: editDistance(canonical, candidate) }))
+    .filter((c) => c.distance <= limit)
+    .sort((a, b) => a.distance - b.distance || a.candidate.localeCompare(b.candidate));
+  const closeMatches: string[] = [];
+  for (const c of candidates) {
+    const shown = INDEX.has(c.candidate) ? c.candidate : `${c.candidate} (${ALIASES[c.candidate]})`;
+    if (!closeMatches.includes(shown)) closeMatches.push(shown);
+    if (closeMatches.length === 3) break;
+  }
+  return { known: false, canonical, closeMatches };
+}
+
 /** Sum deviation beyond which normalisation is reported (brief: 1e-4). */
 export const COMPOSITION_SUM_TOLERANCE = 1e-4;
 
