@@ -155,6 +155,70 @@ describe('walkMeterRunAlarms: stacked pair', () => {
   });
 });
 
+describe('walkMeterRunAlarms: saturated is not frozen (NAMUR NE 43 levels)', () => {
+  // NE 43 [mem]: measurement up to 20.5 mA, failure at 21.0 mA; on 4–20 mA = 0–span, 20.5 mA is
+  // span × (1 + 0.5/16) = 103.125 % of span, 21 mA is 106.25 %. A 0–25 inH2O transmitter saturates at
+  // 25 × 1.03125 = 25.78125 inH2O (the demo's 25.7813), worked by hand, not by the code.
+  const lo: WalkTransmitter = { ...dp, id: 'lo', tag: 'FT-DPL', stackRole: 'low', upperRangeSI: 6_227.1 };
+  const hi: WalkTransmitter = { ...dp, id: 'hi', tag: 'FT-DPH', stackRole: 'high', upperRangeSI: 62_271 };
+  const hour = (loValue: (i: number) => number, hiValue: (i: number) => number): WalkReading[] =>
+    Array.from({ length: 61 }, (_, i) => [
+      { transmitterId: 'lo', timeMs: T0 + i * MIN, value: loValue(i), quality: 'good' as const },
+      { transmitterId: 'hi', timeMs: T0 + i * MIN, value: hiValue(i), quality: 'good' as const },
+    ]).flat();
+
+  it('raises no alarm for a stacked pair held at high flow for an hour with the low-range transmitter flat at 103.1 % of span', () => {
+    // High-range one in use at 60 % of its span with a little noise; low-range one flat at its saturation limit.
+    const saturated = 6_227.1 * 1.03125;
+    const { signals } = walk(
+      hour(
+        () => saturated,
+        (i) => 0.6 * 62_271 + (i % 3) * 20,
+      ),
+      { transmitters: [lo, hi] },
+    );
+    expect(signals).toEqual([]);
+  });
+
+  it('clears a frozen alarm standing on the low-range transmitter once it reads at its saturation limit', () => {
+    const inSpanFlat = 0.5 * 6_227.1;
+    const saturated = 6_227.1 * 1.03125;
+    const readings = hour(
+      (i) => (i < 40 ? inSpanFlat : saturated),
+      (i) => 0.3 * 62_271 + (i % 3) * 20,
+    );
+    // Flat at mid-span from 00:00: frozen once a whole 30-min window is covered (00:31); saturated from
+    // 00:40, which clears it at once (frozen has no off-delay by default, alarm-limits.ts).
+    const frozen = of(walk(readings, { transmitters: [lo, hi] }).signals, 'frozen');
+    expect(frozen.map((s) => [s.kind, s.transmitterId, new Date(s.timeMs).toISOString()])).toEqual([
+      ['raise', 'lo', '2026-10-01T00:31:00.000Z'],
+      ['clear', 'lo', '2026-10-01T00:40:00.000Z'],
+    ]);
+  });
+
+  it('still raises frozen for a transmitter flat at mid-span', () => {
+    const frozen = of(
+      walk(minutes(repeat(40, 0.5)).map((r) => ({ ...r, value: r.transmitterId === 'dp' ? 25_000 : r.value }))).signals,
+      'frozen',
+    );
+    expect(frozen.map((s) => [s.kind, s.transmitterId])).toEqual([['raise', 'dp']]);
+  });
+
+  it('finds the transmitter in use over range, not frozen, when it is flat at its saturation limit', () => {
+    const { signals } = walk(
+      minutes(repeat(40, 1.03125)).map((r) => ({ ...r, value: r.transmitterId === 'dp' ? 51_562.5 : r.value })),
+    );
+    expect(of(signals, 'frozen')).toEqual([]);
+    expect(of(signals, 'dp-over-range').map((s) => [s.kind, s.transmitterId])).toEqual([['raise', 'dp']]);
+  });
+
+  it('raises bad quality for a reading at a failure level (beyond 21 mA = 106.25 % of span)', () => {
+    const { signals } = walk(minutes(repeat(10, 1.07)));
+    expect(of(signals, 'bad-quality').map((s) => [s.kind, s.transmitterId])).toEqual([['raise', 'dp']]);
+    expect(of(signals, 'frozen')).toEqual([]);
+  });
+});
+
 describe('walkMeterRunAlarms: frozen, stale, bad quality', () => {
   it('finds a transmitter frozen once a full 30-min window shows the same value: at 00:41 for a value stuck from 00:10', () => {
     const readings = minutes(repeat(60, 0.4)).map((r) => {

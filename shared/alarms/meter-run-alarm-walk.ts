@@ -11,7 +11,10 @@
  *   transmitter that is not in use is not low or over range; no usable DP = no judgement;
  * - stack-disagreement: |low − high| in the overlap (both usable, the low one inside its range),
  *   as a share of the low-range span; outside the overlap there is no judgement;
- * - frozen: σ of the readings over the window (plus the one in force at its start);
+ * - frozen: σ of the readings over the window (plus the one in force at its start), while the
+ *   reading is inside the NAMUR NE 43 saturation limits (signal-levels.ts): a flat output at a
+ *   saturation limit is over or under range, not frozen;
+ * - bad-quality: also a reading at an NE 43 failure level (beyond 21 mA or below 3.6 mA);
  * - stale: a gap between readings longer than the limit (raised at last + limit, cleared by the
  *   next reading), and by the clock after the last reading;
  * - bad-quality: the reading in force is bad;
@@ -27,6 +30,7 @@ import { alarmMessage, type AlarmDetail } from './alarm-message';
 import { advanceDelayTracker, initialDelayTracker, observeCondition, type DelayTrackerState } from './delay-tracker';
 import { aboveWithDeadband, belowWithDeadband } from './level-with-deadband';
 import { isFrozenSignal } from './frozen-signal';
+import { signalLevel, type SignalLevel } from './signal-levels';
 
 export interface WalkTransmitter {
   id: string;
@@ -246,13 +250,19 @@ export function walkMeterRunAlarms(input: AlarmWalkInput): { signals: AlarmSigna
         observe('stale', tr.id, true, last + maxAgeMs, { lastReadingMs: last, maxAgeS: maxAgeMs / 1000 });
       observe('stale', tr.id, false, t);
       st.lastReadingMs[tr.id] = t;
-      observe('bad-quality', tr.id, r.quality === 'bad', t, {});
-      judgeFrozen(tr, t);
+      // NE 43: an output at or beyond a failure threshold is the transmitter signalling a fault.
+      const level = signalLevel(r.value, tr.lowerRangeSI, tr.upperRangeSI);
+      observe('bad-quality', tr.id, r.quality === 'bad' || level.startsWith('failure'), t, {});
+      judgeFrozen(tr, t, level);
     }
     if (dpAtT && selector) judgeDp(t);
   }
 
-  function judgeFrozen(tr: WalkTransmitter, t: number) {
+  function judgeFrozen(tr: WalkTransmitter, t: number, level: SignalLevel) {
+    // A flat output at a saturation (or failure) limit is the process outside the range, not a
+    // frozen signal: the DP in use is over range (dp-over-range), the out-of-use member of a
+    // stacked pair is simply not in use, and a failure level is bad quality.
+    if (level !== 'in-span') return observe('frozen', tr.id, false, t);
     const limits = limitsOf('frozen', tr.id);
     const windowMs = (limits.windowS ?? 1800) * 1000;
     const checked = st.frozenCheckedMs[tr.id] ?? -Infinity;
