@@ -58,6 +58,11 @@ const materialOptions: { value: MaterialName | ''; label: string }[] = [
   { value: 'uns-n10276', label: 'UNS N10276 (Ni-Mo-Cr)' },
 ];
 
+const coefficientSourceOptions: { value: ElementDraft['fixedCoefficientSource']; label: string }[] = [
+  { value: 'none', label: 'Not calibrated' },
+  { value: 'calibration', label: 'From a calibration' },
+];
+
 /** Labels of the element's field paths, for the form's summary of problems. */
 export const elementFieldLabels: Record<string, string> = {
   'element.kind': 'Element kind',
@@ -69,6 +74,9 @@ export const elementFieldLabels: Record<string, string> = {
   'element.coneDiameterM': 'Cone diameter',
   'element.dischargeCoefficient': 'Fixed discharge coefficient',
   'element.calibration': 'Calibration curve',
+  'element.dischargeCoefficientCalibrated': 'Source of the fixed C',
+  'element.calibrationUncertaintyPercent': 'Calibration uncertainty of C',
+  'element.calibrationLaboratory': 'Calibrated by',
   'element.referenceTemperatureK': 'Reference temperature',
 };
 
@@ -255,6 +263,39 @@ export function ElementFields({ draft, onChange, errors, testPrefix }: ElementFi
           />
         </View>
       </FieldRow>
+      <FieldRow>
+        <View style={styles.choice}>
+          <ChoiceGroup
+            label="Source of the fixed C"
+            options={coefficientSourceOptions}
+            value={draft.fixedCoefficientSource}
+            onChange={set('fixedCoefficientSource')}
+            testIDPrefix={id('dischargeCoefficientCalibrated')}
+          />
+        </View>
+        <NumberField
+          label="Calibration uncertainty of C, % (k = 2)"
+          value={draft.calibrationUncertaintyPercent}
+          onChangeText={set('calibrationUncertaintyPercent')}
+          error={error('calibrationUncertaintyPercent')}
+          hint="The certificate’s expanded uncertainty of C: needed for a calibrated fixed C, optional for a curve."
+          testID={id('calibrationUncertaintyPercent')}
+        />
+        <View style={styles.calibration}>
+          <TextField
+            label="Calibrated by (optional)"
+            value={draft.calibrationLaboratory}
+            onChangeText={set('calibrationLaboratory')}
+            error={error('calibrationLaboratory')}
+            hint="Laboratory and certificate reference."
+            testID={id('calibrationLaboratory')}
+            autoCorrect={false}
+          />
+        </View>
+      </FieldRow>
+      <AppText variant="caption" tone="muted">
+        A fixed C not from a calibration is given the uncertainty of the element’s part of ISO 5167 (5 % for a cone).
+      </AppText>
     </View>
   );
 }

@@ -3,6 +3,7 @@
  * T/K = t/°C + 273.15.
  */
 import type { ElementSpec } from '@/shared/flow/flow-types';
+import { elementSpecSchema } from '@/shared/schemas/flow-case';
 import {
   describeElement,
   draftFromElement,
@@ -90,6 +91,45 @@ describe('elementFromDraft', () => {
       elementMaterial: 'stainless-316',
     });
     expect(full.referenceTemperatureK).toBeCloseTo(293.15, 10);
+  });
+});
+
+describe('elementFromDraft and draftFromElement: a fixed C from a calibration', () => {
+  it('marks a typed fixed C as calibrated with its certificate U(C) and laboratory, and reads them back', () => {
+    const spec = elementFromDraft({
+      ...emptyElementDraft,
+      kind: 'cone',
+      pipeDiameter: '257.5',
+      coneDiameter: '184',
+      dischargeCoefficient: '0.81',
+      fixedCoefficientSource: 'calibration',
+      calibrationUncertaintyPercent: '0.5',
+      calibrationLaboratory: ' Flow laboratory, certificate 2026-118 ',
+    });
+    expect(spec).toMatchObject({
+      dischargeCoefficient: 0.81,
+      dischargeCoefficientCalibrated: true,
+      calibrationUncertaintyPercent: 0.5,
+      calibrationLaboratory: 'Flow laboratory, certificate 2026-118',
+    });
+    expect(elementSpecSchema.safeParse(spec).success).toBe(true);
+    expect(draftFromElement(spec as ElementSpec, 'mm')).toMatchObject({
+      fixedCoefficientSource: 'calibration',
+      calibrationUncertaintyPercent: '0.5',
+      calibrationLaboratory: 'Flow laboratory, certificate 2026-118',
+    });
+  });
+
+  it('leaves a fixed C not from a calibration unmarked', () => {
+    const spec = elementFromDraft({
+      ...emptyElementDraft,
+      kind: 'cone',
+      pipeDiameter: '257.5',
+      coneDiameter: '184',
+      dischargeCoefficient: '0.81',
+    });
+    expect(spec.dischargeCoefficientCalibrated).toBeUndefined();
+    expect(spec.calibrationUncertaintyPercent).toBeUndefined();
   });
 });
 

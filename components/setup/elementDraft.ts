@@ -27,6 +27,12 @@ export interface ElementDraft {
   dischargeCoefficient: string;
   /** Optional calibration curve, one "Re_D, C" pair per line. */
   calibration: string;
+  /** Whether a fixed C comes from a calibration ('calibration') or not ('none': the standard's default U(C)). */
+  fixedCoefficientSource: 'none' | 'calibration';
+  /** The calibration's stated expanded uncertainty of C (k = 2), percent; empty when not calibrated. */
+  calibrationUncertaintyPercent: string;
+  /** The calibrating laboratory and certificate (reference text). */
+  calibrationLaboratory: string;
   pipeMaterial: MaterialName | '';
   elementMaterial: MaterialName | '';
   /** Temperature the diameters were measured at, °C; empty for 20 °C. */
@@ -44,6 +50,9 @@ export const emptyElementDraft: ElementDraft = {
   coneDiameter: '',
   dischargeCoefficient: '',
   calibration: '',
+  fixedCoefficientSource: 'none',
+  calibrationUncertaintyPercent: '',
+  calibrationLaboratory: '',
   pipeMaterial: '',
   elementMaterial: '',
   referenceTemperatureC: '',
@@ -87,6 +96,11 @@ export function elementFromDraft(draft: ElementDraft): Partial<ElementSpec> {
   if (fixedC !== undefined) spec.dischargeCoefficient = fixedC;
   const calibration = parseCalibration(draft.calibration);
   if (calibration) spec.calibration = calibration;
+  if (draft.fixedCoefficientSource === 'calibration' && draft.dischargeCoefficient.trim() !== '')
+    spec.dischargeCoefficientCalibrated = true;
+  const certificatePercent = parseNumberText(draft.calibrationUncertaintyPercent);
+  if (certificatePercent !== undefined) spec.calibrationUncertaintyPercent = certificatePercent;
+  if (draft.calibrationLaboratory.trim() !== '') spec.calibrationLaboratory = draft.calibrationLaboratory.trim();
   if (draft.pipeMaterial) spec.pipeMaterial = draft.pipeMaterial;
   if (draft.elementMaterial) spec.elementMaterial = draft.elementMaterial;
   const referenceK = optionalToSI(parseNumberText(draft.referenceTemperatureC), 'degC');
@@ -116,6 +130,9 @@ export function draftFromElement(element: ElementSpec, lengthUnit: LengthUnit): 
     calibration: (element.calibration ?? [])
       .map((point) => `${point.reynoldsNumber}, ${point.dischargeCoefficient}`)
       .join('\n'),
+    fixedCoefficientSource: element.dischargeCoefficientCalibrated ? 'calibration' : 'none',
+    calibrationUncertaintyPercent: numberText(element.calibrationUncertaintyPercent),
+    calibrationLaboratory: element.calibrationLaboratory ?? '',
     pipeMaterial: element.pipeMaterial ?? '',
     elementMaterial: element.elementMaterial ?? '',
     referenceTemperatureC:

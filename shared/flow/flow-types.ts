@@ -45,6 +45,10 @@ export interface ElementSpec {
    * certificate of `calibration`; without it a typical laboratory figure is assumed.
    */
   calibrationUncertaintyPercent?: number;
+  /** true when the fixed `dischargeCoefficient` comes from a calibration (U(C) = calibrationUncertaintyPercent). */
+  dischargeCoefficientCalibrated?: boolean;
+  /** The calibrating laboratory and certificate (reference text). */
+  calibrationLaboratory?: string;
 }
 
 export interface FlowConditions {

@@ -105,3 +105,25 @@ describe('rangeCheckCurve', () => {
     expect(points[10].flowUncertaintyPercent[0]).toBeNull();
   });
 });
+
+describe('rangeCheckWithFluid: a cone with a fixed C from a calibration', () => {
+  // Liquid, so U(ε) = 0; only U(C) differs between the two runs. ISO 5167-1:2003 §8 [mem] combines
+  // the terms in quadrature with sensitivity 1 for C, so U_uncal² − U_cal² = 5² − 0.5² = 24.75
+  // (5 %: ISO 5167-5:2016 uncalibrated cone, TRADE.md §6 [mem]; 0.5 %: the certificate figure configured).
+  const cone: RangeCheckInput = {
+    ...venturiRun,
+    element: { kind: 'cone', pipeDiameterM: 0.2, coneDiameterM: 0.14, dischargeCoefficient: 0.81 },
+  };
+
+  it('takes the certificate U(C) of 0.5 % instead of the uncalibrated 5 %', () => {
+    const uncalibrated = rangeCheckWithFluid(cone, liquid).flows[1].transmitters[0].flowUncertaintyPercent;
+    const calibrated = rangeCheckWithFluid(
+      {
+        ...cone,
+        element: { ...cone.element, dischargeCoefficientCalibrated: true, calibrationUncertaintyPercent: 0.5 },
+      },
+      liquid,
+    ).flows[1].transmitters[0].flowUncertaintyPercent;
+    expect(uncalibrated ** 2 - calibrated ** 2).toBeCloseTo(24.75, 9);
+  });
+});

@@ -104,7 +104,13 @@ function otherUncertaintyPercent(ctx: Context, dp: number, reynoldsNumber: numbe
     reynoldsNumber,
     venturiType: input.element.venturiType,
     nozzleType: input.element.nozzleType,
-    calibrated: input.element.calibration !== undefined,
+    // The same rule as the hourly budget (shared/history/sample-uncertainty.ts): a curve or a fixed C
+    // from a calibration takes the certificate's U(C) when it is given.
+    calibrated: input.element.calibration !== undefined || input.element.dischargeCoefficientCalibrated === true,
+    certificateUncertaintyPercent:
+      input.element.calibration !== undefined || input.element.dischargeCoefficientCalibrated === true
+        ? input.element.calibrationUncertaintyPercent
+        : undefined,
   });
   const uEps = expansibilityUncertaintyPercent(
     element.kind,
