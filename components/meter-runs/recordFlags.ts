@@ -73,6 +73,13 @@ const known: Record<string, RecordFlag> = {
     level: 'note',
     meaning: 'No heating value for this fluid, so no energy figure.',
   },
+  'energy-data-unconfirmed': {
+    label: 'Energy data unconfirmed',
+    shape: '?',
+    level: 'note',
+    meaning:
+      'The gas holds components whose ISO 6976 data no published worked example has confirmed yet, so the energy figure rests on unchecked table values.',
+  },
 };
 
 /**

@@ -163,6 +163,8 @@ export function computeHour(inputs: HourInputs): HourlyRecord {
     if (version) {
       sums.versionIds.add(version.id);
       lastVersionId = version.id;
+      if (version.energy.kind === 'standard-volume' && version.energy.unconfirmedComponents.length > 0)
+        sums.flags.add('energy-data-unconfirmed');
       if (version.energy.kind === 'none') {
         sums.energyAvailable = false;
         if (version.fluid.kind === 'natural-gas' || version.fluid.kind === 'steam')
@@ -209,6 +211,9 @@ export function computeHour(inputs: HourInputs): HourlyRecord {
         point = evaluateOperatingPoint(version, dpPa, p.value, temperature.value, {
           accuracyPercentOfSpan: series.accuracyPercentOfSpan,
           spanPa,
+          accuracyKind: series.accuracyKind,
+          staticPressureTransmitter: inputs.staticPressureTransmitter,
+          temperatureTransmitter: inputs.temperatureTransmitter,
         });
       } catch {
         point = null;

@@ -16,7 +16,9 @@
  * - water, liquid, ideal gas: no energy (null).
  */
 import { region1State } from '../fluids/if97';
+import { canonicalComponentName } from '../fluids/aga8/detail-composition';
 import { iso6976Properties } from '../fluids/heating-value';
+import { ISO6976_UNCONFIRMED_COMPONENTS } from '../fluids/heating-value/iso6976-data';
 import type { FluidSpec } from '../fluids';
 
 /** Triple point of water, IAPWS R7-97(2012) §2 / IAPWS-95: 273.16 K and 611.657 Pa [std]. */
@@ -24,7 +26,15 @@ const TRIPLE_POINT_TEMPERATURE_K = 273.16;
 const TRIPLE_POINT_PRESSURE_PA = 611.657;
 
 export type EnergyBasis =
-  | { kind: 'standard-volume'; superiorJPerM3: number }
+  | {
+      kind: 'standard-volume';
+      superiorJPerM3: number;
+      /**
+       * Components present whose ISO 6976 data no worked example has confirmed yet
+       * (ISO6976_UNCONFIRMED_COMPONENTS): energy computed with them is flagged on the hour.
+       */
+      unconfirmedComponents: string[];
+    }
   | { kind: 'steam-enthalpy'; referenceEnthalpyJPerKg: number }
   | { kind: 'none'; reason: string };
 
@@ -41,7 +51,11 @@ export function energyBasisOf(fluid: FluidSpec, base: { pressurePa: number; temp
         meteringTemperatureK: base.temperatureK,
         meteringPressurePa: base.pressurePa,
       });
-      return { kind: 'standard-volume', superiorJPerM3: cv.superiorVolumetricJPerM3 };
+      const unconfirmedComponents = Object.entries(fluid.composition)
+        .filter(([, x]) => x > 0)
+        .map(([name]) => canonicalComponentName(name))
+        .filter((name) => ISO6976_UNCONFIRMED_COMPONENTS.includes(name));
+      return { kind: 'standard-volume', superiorJPerM3: cv.superiorVolumetricJPerM3, unconfirmedComponents };
     } catch (error) {
       return { kind: 'none', reason: (error as Error).message };
     }

@@ -21,7 +21,11 @@
  * - uncertainty: flow-weighted (mass-weighted) mean of the samples' expanded uncertainties, on
  *   the assumption that they are systematic and fully correlated within the hour (C, ε,
  *   diameters and the transmitter's calibration do not average out over an hour); null
- *   without flow.
+ *   without flow;
+ * - uncertainty budget: per term of the samples' budgets (ISO 5167-1:2003 §8), its flow-weighted
+ *   mean percent and the sources met during the hour (joined when they differ, e.g. when part of
+ *   the hour lay outside a calibration). The terms are systematic like the total, so each is
+ *   weighted the same way; the record's uncertaintyPercent stays the mean of the samples' totals.
  */
 import type { OperatingPoint } from './operating-point';
 import type { DpBandName, HourlyRecord } from './types';
@@ -38,6 +42,7 @@ export const HOUR_FLAG_ORDER = [
   'config-changed',
   'calculation-error',
   'energy-unavailable',
+  'energy-data-unconfirmed',
 ] as const;
 export type HourFlag = (typeof HOUR_FLAG_ORDER)[number];
 
@@ -53,6 +58,8 @@ export interface HourSums {
   temperatureKMs: number;
   flowExtensionMs: number;
   massTimesUncertaintyMs: number;
+  /** Per budget term: Σ mass × percent, and the sources met, in order. */
+  budget: Map<string, { massTimesPercentMs: number; sources: string[] }>;
   bands: Record<DpBandName, { ms: number; massKgMs: number }>;
   activeTransmitterMs: Record<string, number>;
   flags: Set<HourFlag>;
@@ -75,6 +82,7 @@ export function emptyHourSums(): HourSums {
     temperatureKMs: 0,
     flowExtensionMs: 0,
     massTimesUncertaintyMs: 0,
+    budget: new Map(),
     bands: { '0-10': band(), '10-25': band(), '25-50': band(), '50-100': band(), over: band() },
     activeTransmitterMs: {},
     flags: new Set(),
@@ -125,6 +133,12 @@ export function addFlowingInterval(
   sums.temperatureKMs += temperatureK * durationMs;
   sums.flowExtensionMs += point.flowExtension * durationMs;
   sums.massTimesUncertaintyMs += massKgMs * point.uncertaintyPercent;
+  for (const c of point.uncertaintyContributions ?? []) {
+    let term = sums.budget.get(c.name);
+    if (term === undefined) sums.budget.set(c.name, (term = { massTimesPercentMs: 0, sources: [] }));
+    term.massTimesPercentMs += massKgMs * c.percent;
+    if (!term.sources.includes(c.source)) term.sources.push(c.source);
+  }
   sums.bands[band].ms += durationMs;
   sums.bands[band].massKgMs += massKgMs;
 }
@@ -171,6 +185,14 @@ export function hourlyRecordFromSums(
     coverage,
     flags: HOUR_FLAG_ORDER.filter((f) => flags.has(f)),
     uncertaintyPercent: sums.massKgMs > 0 ? sums.massTimesUncertaintyMs / sums.massKgMs : null,
+    uncertaintyBudget:
+      sums.massKgMs > 0
+        ? [...sums.budget].map(([name, term]) => ({
+            name,
+            percent: term.massTimesPercentMs / sums.massKgMs,
+            source: term.sources.join(' | '),
+          }))
+        : [],
     configVersionId,
     dpBands,
     activeTransmitterTimeS,

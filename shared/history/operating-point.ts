@@ -8,7 +8,8 @@ import { operatingPointWarnings } from '../flow/element-limits';
 import { evaluateFlow } from '../flow/evaluate-flow';
 import { waterStatePT } from '../fluids';
 import type { PreparedConfigVersion } from './prepared-config-version';
-import { sampleUncertaintyPercent } from './sample-uncertainty';
+import type { AccuracyKind, UncertaintyContribution } from '../uncertainty';
+import { sampleUncertaintyBreakdown, type PointTransmitter } from './sample-uncertainty';
 
 export interface OperatingPoint {
   massFlowKgPerS: number;
@@ -20,6 +21,8 @@ export interface OperatingPoint {
   flowExtension: number;
   /** Expanded (k = 2) uncertainty of the mass rate, percent. */
   uncertaintyPercent: number;
+  /** Its budget: each term's share (sensitivity × input, percent) and where the input comes from. */
+  uncertaintyContributions: UncertaintyContribution[];
   /** A warning whose code starts with 'iso5167.' (geometry, Re_D, p2/p1) applies. */
   outsideStandardLimits: boolean;
   /**
@@ -33,6 +36,10 @@ export interface OperatingPoint {
 export interface ActiveTransmitter {
   accuracyPercentOfSpan: number;
   spanPa: number;
+  accuracyKind?: AccuracyKind;
+  /** The P and T transmitters, when the hour's inputs carry them. */
+  staticPressureTransmitter?: PointTransmitter;
+  temperatureTransmitter?: PointTransmitter;
 }
 
 const ISO_5167_CODE = 'iso5167.';
@@ -100,19 +107,29 @@ export function evaluateOperatingPoint(
     standardVolumeFlowM3PerS,
     energyFlowW,
     flowExtension: Math.sqrt(differentialPressurePa * fluid.densityKgPerM3),
-    uncertaintyPercent: sampleUncertaintyPercent({
-      element,
-      spec: version.element,
-      fluidKind: version.fluid.kind,
-      reynoldsNumber: flow.reynoldsNumber,
-      differentialPressurePa,
-      staticPressurePa,
-      isentropicExponent: fluid.isentropicExponent,
-      compressible: fluid.compressible,
-      accuracyPercentOfSpan: transmitter.accuracyPercentOfSpan,
-      spanPa: transmitter.spanPa,
-    }),
+    ...budgetFields(
+      sampleUncertaintyBreakdown({
+        element,
+        spec: version.element,
+        fluidKind: version.fluid.kind,
+        reynoldsNumber: flow.reynoldsNumber,
+        differentialPressurePa,
+        staticPressurePa,
+        isentropicExponent: fluid.isentropicExponent,
+        compressible: fluid.compressible,
+        accuracyPercentOfSpan: transmitter.accuracyPercentOfSpan,
+        spanPa: transmitter.spanPa,
+        accuracyKind: transmitter.accuracyKind,
+        staticPressureTransmitter: transmitter.staticPressureTransmitter,
+        temperatureTransmitter: transmitter.temperatureTransmitter,
+        temperatureK,
+      }),
+    ),
     outsideStandardLimits,
     outsideCalibrationRange,
   };
+}
+
+function budgetFields(budget: ReturnType<typeof sampleUncertaintyBreakdown>) {
+  return { uncertaintyPercent: budget.expandedPercent, uncertaintyContributions: budget.contributions };
 }

@@ -83,3 +83,34 @@ describe('flowRateUncertainty (ISO 5167-1:2003 §8, TRADE.md §6)', () => {
     ).toThrow(/dischargeCoefficientPercent/);
   });
 });
+
+describe('static pressure and temperature terms through the density', () => {
+  it('adds ½ × |∂lnρ/∂ln x| × U(x): 0.2 % on p and 0.2309 % on T of a gas give 0.1 % and 0.11547 % (ISO 5167-1:2003 §8)', () => {
+    // Hand arithmetic: p: 0.1 % of a 10 MPa span at 5 MPa → 0.2 % of reading; T: a ± 0.3 % of a
+    // 200 K span rectangular limit → U = 2 × 0.3/√3 = 0.34641 % of span → × 200/300 K = 0.230940 %.
+    const base = {
+      kind: 'orifice' as const,
+      beta: 0.5,
+      dischargeCoefficientPercent: 0.5,
+      expansibilityPercent: 0,
+      pipeDiameterPercent: 0,
+      elementDiameterPercent: 0,
+      differentialPressurePercent: 0,
+      densityPercent: 0,
+    };
+    const r = flowRateUncertainty({
+      ...base,
+      staticPressurePercent: 0.2,
+      temperaturePercent: ((2 * 0.3) / Math.sqrt(3)) * (200 / 300),
+      densityPressureSensitivity: 1,
+      densityTemperatureSensitivity: -1,
+    });
+    const byName = Object.fromEntries(r.contributions.map((c) => [c.name, c]));
+    expect(byName.staticPressure.percent).toBeCloseTo(0.1, 12);
+    expect(byName.temperature.percent).toBeCloseTo(0.11547005, 8);
+    expect(r.expandedPercent).toBeCloseTo(Math.sqrt(0.25 + 0.01 + 0.11547005 ** 2), 8);
+    expect(byName.staticPressure.source).toMatch(/ISO 5167-1/);
+    expect(flowRateUncertainty(base).contributions.map((c) => c.name)).not.toContain('staticPressure');
+    expect(r.contributions.every((c) => c.source.length > 0)).toBe(true);
+  });
+});

@@ -1,6 +1,8 @@
 /**
  * Expanded uncertainty of a flow rate from a DP meter, ISO 5167-1:2003 §8 / GUM (TRADE.md §6):
- * (U_qm/qm)² = (U_C/C)² + (U_ε/ε)² + (s_D U_D/D)² + (s_d U_d/d)² + ¼(U_Δp/Δp)² + ¼(U_ρ/ρ)²,
+ * (U_qm/qm)² = (U_C/C)² + (U_ε/ε)² + (s_D U_D/D)² + (s_d U_d/d)² + ¼(U_Δp/Δp)² + ¼(U_ρ/ρ)²
+ *   [+ ¼(∂lnρ/∂lnp · U_p/p)² + ¼(∂lnρ/∂lnT · U_T/T)² when the P and T transmitters are given: they
+ *   reach qm through ρ, so ½ is ISO 5167-1:2003 §8's sensitivity of qm to ρ [mem]],
  * with every input a relative expanded uncertainty (k = 2) so the result is one too; the
  * inputs are taken as uncorrelated. For orifices, nozzles and venturis s_D = 2β⁴/(1 − β⁴) and
  * s_d = 2/(1 − β⁴); a cone meter's area is π/4 (D² − dc²), so its sensitivities differ
@@ -18,8 +20,38 @@ export interface FlowRateUncertaintyInput {
   /** Bore d (or cone diameter dc for a cone meter). */
   elementDiameterPercent: number;
   differentialPressurePercent: number;
+  /** U(ρ)/ρ of the equation of state (or density line) alone, percent. */
   densityPercent: number;
+  /**
+   * The static pressure and temperature transmitters' relative expanded uncertainties, percent of
+   * the reading (absolute pressure, kelvin), and the sensitivities of ln ρ to ln p and ln T. They
+   * reach qm through the density with ISO 5167-1:2003 §8's sensitivity ½ [mem]. Left out (no
+   * contribution listed) when not given, as before.
+   */
+  staticPressurePercent?: number;
+  temperaturePercent?: number;
+  densityPressureSensitivity?: number;
+  densityTemperatureSensitivity?: number;
+  /** Where each input comes from, by contribution name (overrides DEFAULT_UNCERTAINTY_SOURCES). */
+  sources?: Partial<Record<string, string>>;
 }
+
+/**
+ * Where each term's input comes from when the caller says nothing more precise. [mem] marks a
+ * clause quoted from memory, not checked against the printed standard in this repository.
+ */
+export const DEFAULT_UNCERTAINTY_SOURCES: Readonly<Record<string, string>> = Object.freeze({
+  dischargeCoefficient: "ISO 5167-1:2003 §8; U(C) from the element's part of ISO 5167",
+  expansibility: "ISO 5167-1:2003 §8; U(ε) from the element's part of ISO 5167",
+  pipeDiameter: 'allowance for a measured pipe bore, ISO 5167-1:2003 §8 practice [mem]',
+  elementDiameter: 'allowance for a measured bore or cone diameter, ISO 5167-1:2003 §8 practice [mem]',
+  differentialPressure: 'DP transmitter accuracy as % of reading (percent of span × span / reading)',
+  density: 'equation of state or density line alone, allowance by fluid kind',
+  staticPressure:
+    'static pressure transmitter accuracy as % of reading, through ρ (ISO 5167-1:2003 §8, sensitivity ½ × ∂lnρ/∂lnp)',
+  temperature:
+    'temperature transmitter accuracy as % of the kelvin reading, through ρ (ISO 5167-1:2003 §8, sensitivity ½ × |∂lnρ/∂lnT|)',
+});
 
 export interface UncertaintyContribution {
   name: string;
@@ -27,6 +59,8 @@ export interface UncertaintyContribution {
   sensitivity: number;
   /** sensitivity × input, percent */
   percent: number;
+  /** Where the input comes from (clause of ISO 5167 or the GUM, a certificate, an allowance). */
+  source: string;
 }
 
 export interface FlowRateUncertainty {
@@ -74,18 +108,29 @@ export function flowRateUncertainty(input: FlowRateUncertaintyInput): FlowRateUn
       throw new Error(`flowRateUncertainty: ${key} must be a finite percentage ≥ 0 (got ${input[key]})`);
   }
   const s = diameterSensitivities(input.kind, input.beta);
+  const term = (name: string, sensitivity: number, inputPercent: number): UncertaintyContribution => ({
+    name,
+    sensitivity,
+    percent: sensitivity * inputPercent,
+    source: input.sources?.[name] ?? DEFAULT_UNCERTAINTY_SOURCES[name],
+  });
   const contributions: UncertaintyContribution[] = [
-    { name: 'dischargeCoefficient', sensitivity: 1, percent: input.dischargeCoefficientPercent },
-    { name: 'expansibility', sensitivity: 1, percent: input.expansibilityPercent },
-    { name: 'pipeDiameter', sensitivity: Math.abs(s.pipe), percent: Math.abs(s.pipe) * input.pipeDiameterPercent },
-    {
-      name: 'elementDiameter',
-      sensitivity: Math.abs(s.element),
-      percent: Math.abs(s.element) * input.elementDiameterPercent,
-    },
-    { name: 'differentialPressure', sensitivity: 0.5, percent: 0.5 * input.differentialPressurePercent },
-    { name: 'density', sensitivity: 0.5, percent: 0.5 * input.densityPercent },
+    term('dischargeCoefficient', 1, input.dischargeCoefficientPercent),
+    term('expansibility', 1, input.expansibilityPercent),
+    term('pipeDiameter', Math.abs(s.pipe), input.pipeDiameterPercent),
+    term('elementDiameter', Math.abs(s.element), input.elementDiameterPercent),
+    term('differentialPressure', 0.5, input.differentialPressurePercent),
+    term('density', 0.5, input.densityPercent),
   ];
+  for (const [name, percent, densitySensitivity] of [
+    ['staticPressure', input.staticPressurePercent, input.densityPressureSensitivity ?? 1],
+    ['temperature', input.temperaturePercent, input.densityTemperatureSensitivity ?? 1],
+  ] as const) {
+    if (percent === undefined) continue;
+    if (!(percent >= 0 && Number.isFinite(percent)))
+      throw new Error(`flowRateUncertainty: ${name}Percent must be a finite percentage ≥ 0 (got ${percent})`);
+    contributions.push(term(name, 0.5 * Math.abs(densitySensitivity), percent));
+  }
   const expandedPercent = Math.sqrt(contributions.reduce((sum, c) => sum + c.percent * c.percent, 0));
   return { expandedPercent, standardPercent: expandedPercent / 2, coverageFactor: 2, contributions };
 }

@@ -43,3 +43,28 @@ export function totalUncertainty(samples: readonly SampleUncertainty[]): TotalUn
   const randomPercent = Math.sqrt(randomSquares) / total;
   return { total, expandedPercent: Math.hypot(systematicPercent, randomPercent), systematicPercent, randomPercent };
 }
+
+/**
+ * Widens a total's expanded uncertainty for time without a measurement and for quantity resting on
+ * estimated (substituted) readings. Rule chosen here: the quantity of the unmeasured time is known
+ * only to within ± what the measured mean rate would give over it, a = Q (1 − c)/c for a coverage c,
+ * and an estimated share s of the quantity only to within ± itself, a = s Q. Each is a rectangular
+ * ± a (GUM, JCGM 100:2008 §4.3.7: u = a/√3), expanded with k = 2 (GUM §6.2), and adds in quadrature
+ * to the measured U (independent sources, GUM §5.1.2). Why: no reading says anything about that
+ * time or those estimates, and the mean-rate bound is the one an auditor would use in place of it.
+ * @param expandedPercent U of the measured part, percent (k = 2)
+ * @param coverage share of the elapsed time with a known rate, 0 < c ≤ 1
+ * @param estimatedShare share of the quantity that rests on estimated readings, 0 ≤ s ≤ 1
+ * @returns the widened U, percent (unchanged for c = 1 and s = 0; the input for c ≤ 0, where there is no quantity)
+ */
+export function widenForUnmeasuredTime(expandedPercent: number, coverage: number, estimatedShare = 0): number {
+  if (!(expandedPercent >= 0))
+    throw new Error(`widenForUnmeasuredTime: expandedPercent must be ≥ 0 (got ${expandedPercent})`);
+  if (!(coverage <= 1 + 1e-12)) throw new Error(`widenForUnmeasuredTime: coverage must be ≤ 1 (got ${coverage})`);
+  if (!(estimatedShare >= 0 && estimatedShare <= 1 + 1e-12))
+    throw new Error(`widenForUnmeasuredTime: estimatedShare must be in [0, 1] (got ${estimatedShare})`);
+  if (!(coverage > 0)) return expandedPercent;
+  const missing = (200 * Math.max(0, 1 - coverage)) / (coverage * Math.sqrt(3));
+  const estimated = (200 * estimatedShare) / Math.sqrt(3);
+  return Math.sqrt(expandedPercent ** 2 + missing ** 2 + estimated ** 2);
+}

@@ -12,7 +12,31 @@
  * tables (found by code search) and agree with my recollection where I had one [mem]
  * (e.g. H2 285.83, CO 282.98, H2S 562.01, n-butane 2877.40 kJ/mol at 25 °C, the standard
  * enthalpies of combustion); they are NOT confirmed by a worked example — see the report.
+ * Water and the 15.55 °C columns of methane, ethane, nitrogen and carbon dioxide are confirmed by
+ * Annex D example 2 (D.3.3–D.3.7, heating-value tests). STILL UNCONFIRMED by any worked example:
+ * isobutane, n-butane, isopentane, n-pentane, n-hexane … n-decane, hydrogen, oxygen, carbon
+ * monoxide, hydrogen sulfide, helium, argon (Annex D example 3 has the butanes, pentanes and
+ * hexane but also neopentane, which this DETAIL-ordered table lacks, so it cannot be run here).
  */
+
+/** Components whose ISO 6976 data no worked example has confirmed (see above). */
+export const ISO6976_UNCONFIRMED_COMPONENTS: readonly string[] = Object.freeze([
+  'isobutane',
+  'n-butane',
+  'isopentane',
+  'n-pentane',
+  'n-hexane',
+  'n-heptane',
+  'n-octane',
+  'n-nonane',
+  'n-decane',
+  'hydrogen',
+  'oxygen',
+  'carbon-monoxide',
+  'hydrogen-sulfide',
+  'helium',
+  'argon',
+]);
 
 /** Molar gas constant of ISO 6976:2016 Table A.1 (CODATA 2010), J/(mol K). */
 export const ISO6976_GAS_CONSTANT = 8.3144621;
