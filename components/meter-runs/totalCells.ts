@@ -9,6 +9,7 @@ import { fromSI } from '@/shared/units';
 const statusWords: Record<string, string> = {
   provisional: 'provisional',
   complete: 'complete',
+  missing: 'missing',
   closed: 'closed',
 };
 

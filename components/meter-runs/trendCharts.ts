@@ -150,7 +150,16 @@ export function trendCharts(trend: Trend, context: TrendContext): TrendChartSet 
     title: 'Flow',
     x: { values: steps.x, kind: 'time', label: 'Time', timeZone: context.timeZone, range: windowOf(trend) },
     axes: [{ scale: 'q', label: rateUnit.label, side: 'left', range: [0, null] }],
-    series: [{ label: `Hourly flow, ${rateUnit.label}`, values: steps.values, scale: 'q', rank: 0, stepped: true }],
+    series: [
+      {
+        // The hour still in progress is a rate over its elapsed seconds, said in the legend.
+        label: `Hourly flow, ${rateUnit.label}${trend.flow.some((hour) => hour.partial) ? ' (last hour in progress: rate so far)' : ''}`,
+        values: steps.values,
+        scale: 'q',
+        rank: 0,
+        stepped: true,
+      },
+    ],
     syncKey: `meter-run-${context.run.id}`,
     emptyText: 'No hourly records in this window yet.',
   };

@@ -25,7 +25,7 @@ const figures = {
   flags: z.array(z.string()),
   /** Expanded uncertainty (k = 2) of the volume at base conditions, percent. */
   uncertaintyPercent: z.number().nullable(),
-  status: z.enum(['provisional', 'complete', 'closed']),
+  status: z.enum(['provisional', 'complete', 'missing', 'closed']),
   correctionsInForce: z.number(),
   previousMonth: comparedMonthSchema,
   yearEarlier: comparedMonthSchema,
@@ -47,7 +47,7 @@ export const monthlyVolumesSchema = z.object({
   month: z.string(),
   start: z.string(),
   end: z.string(),
-  status: z.enum(['provisional', 'complete', 'closed']),
+  status: z.enum(['provisional', 'complete', 'missing', 'closed']),
   meterRuns: z.array(
     z.object({ meterRunId: z.string(), tag: z.string(), name: z.string(), version: z.number().nullable(), ...figures }),
   ),

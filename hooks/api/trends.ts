@@ -40,6 +40,8 @@ export const trendSchema = z.object({
       massFlowKgPerS: z.number(),
       standardVolumeFlowM3PerS: z.number(),
       coverage: z.number(),
+      /** The hour still in progress: its rate is over the seconds elapsed so far. */
+      partial: z.boolean().optional(),
     }),
   ),
 });

@@ -4,6 +4,7 @@ import { hourStartsBetween } from '../../shared/history/contract-day';
 import { contractCalendar, type ContractCalendar } from '../../shared/history/contract-calendar';
 import { inEffectAt, versionInstantsWithin, type Dated } from '../../shared/history/dated';
 import { rollUpRecords } from '../../shared/history/roll-up';
+import type { PointTransmitter } from '../../shared/history/sample-uncertainty';
 import type { HourlyRecord } from '../../shared/history/types';
 import { toSI } from '../../shared/units';
 import { componentLogger } from '../log';
@@ -178,11 +179,14 @@ export class HistoryWorker {
     ];
     const computed: ComputedHour[] = [];
     const held: number[] = [];
+    const historyStartMs = historyStartOf(ctx);
     // One question for the whole span first: most rounds touch no closed month.
     const spanTouchesClosed = await periodIsClosed(this.pool, meterRunId, spanStart, spanEnd);
     for (const startMs of hours) {
       const endMs = nextHourStart(startMs, ctx.timeZone);
       if (startMs > nowMs) continue;
+      // Before the meter run's first configuration version there is nothing to record.
+      if (endMs <= historyStartMs) continue;
       // A closed month keeps its figures; the hour waits in held_hours until the month is reopened.
       if (spanTouchesClosed && (await periodIsClosed(this.pool, meterRunId, startMs, endMs))) {
         held.push(startMs);
@@ -268,7 +272,7 @@ export class HistoryWorker {
   ) {
     if (await periodIsClosed(this.pool, ctx.meterRunId, bounds.startMs, bounds.endMs)) return;
     const records = await hourlyRecordsIn(this.pool, ctx.meterRunId, bounds.startMs, bounds.endMs);
-    const total = rollUpRecords(records, bounds, { nowMs });
+    const total = rollUpRecords(records, bounds, { nowMs, historyStartMs: historyStartOf(ctx) });
     await savePeriodTotal(this.pool, period, ctx.meterRunId, key, total, reason);
   }
 
@@ -308,6 +312,11 @@ function nextHourStart(startMs: number, timeZone: string): number {
   return next ?? startMs + hourMs;
 }
 
+/** When the meter run's history starts: its first configuration version takes effect (no version: never). */
+function historyStartOf(ctx: MeterRunContext): number {
+  return ctx.configVersions.length ? Math.min(...ctx.configVersions.map((v) => v.effectiveFromMs)) : Infinity;
+}
+
 /** The site's contract days, with its contract hour as dated (shared/history/contract-calendar.ts). */
 function calendarOf(ctx: MeterRunContext): ContractCalendar {
   return contractCalendar(
@@ -315,6 +324,26 @@ function calendarOf(ctx: MeterRunContext): ContractCalendar {
     ctx.siteVersions.map((v) => ({ effectiveFromMs: v.effectiveFromMs, contractHour: v.contractHour })),
     ctx.contractHour,
   );
+}
+
+/**
+ * The static pressure or temperature transmitter's accuracy in force at a time, its span in SI
+ * (Pa, or K: the difference of two converted range values is a span in kelvin for °C and °F too),
+ * for the hour's uncertainty budget (ISO 5167-1:2003 §8, through the density). The datasheet figure
+ * is stored without its kind, so it is taken as an expanded (k = 2) uncertainty, and the budget's
+ * source says so. Undefined when the meter run has no such transmitter.
+ */
+function pointTransmitterAt(
+  ctx: MeterRunContext,
+  measures: 'static-pressure' | 'temperature',
+  atMs: number,
+): PointTransmitter | undefined {
+  const transmitter = ctx.transmitters.find((t) => t.measures === measures);
+  if (!transmitter) return undefined;
+  const range = inEffectAt(transmitter.ranges, atMs);
+  const span = toSI(range.upperRange, transmitter.unit) - toSI(range.lowerRange, transmitter.unit);
+  if (!(span > 0)) return undefined;
+  return { accuracyPercentOfSpan: range.accuracyPercentOfSpan, span, accuracyKind: 'expanded-k2' };
 }
 
 /**
@@ -351,6 +380,8 @@ function computePart(
     dp,
     staticPressure: window(readings.staticPressure, startMs, endMs),
     temperature: window(readings.temperature, startMs, endMs),
+    staticPressureTransmitter: pointTransmitterAt(ctx, 'static-pressure', startMs),
+    temperatureTransmitter: pointTransmitterAt(ctx, 'temperature', startMs),
     configVersions: ctx.configVersions,
     base: { pressurePa: site.basePressurePa, temperatureK: site.baseTemperatureK },
     holdLimitS: settings.holdLimitS,

@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { DateTime } from 'luxon';
 import { badRequest, notFound } from '../errors';
+import { contractDayBounds } from '../../shared/history/contract-day';
 
 /**
  * The one parser for what routes read from a URL: record ids and time windows. Every route uses
@@ -60,14 +61,20 @@ export interface TimeWindow {
  * Turns validated `from`/`to` strings into a window, refusing an empty or reversed window and
  * one longer than `maxDays`, naming `to` as the field at fault.
  * @param timeZone the zone a plain date is read in (a site's zone); without it only instants are valid
+ * @param contractHour with timeZone: a plain date names the contract day (or month) that starts on
+ *   it, so it is read as that date at the contract hour ("from=2026-11-01" by day begins with the
+ *   contract day starting on 1 November, not with the one of 31 October that midnight falls in);
+ *   without it, a plain date is the local midnight starting it
  */
 export function parseTimeWindow(
   query: { from: string; to: string },
-  options: { maxDays: number; timeZone?: string; what?: string },
+  options: { maxDays: number; timeZone?: string; contractHour?: number; what?: string },
 ): TimeWindow {
   const instant = (value: string) =>
     value.length === 10 && options.timeZone
-      ? DateTime.fromISO(value, { zone: options.timeZone }).toMillis()
+      ? options.contractHour !== undefined
+        ? contractDayBounds(value, options.timeZone, options.contractHour).startMs
+        : DateTime.fromISO(value, { zone: options.timeZone }).toMillis()
       : Date.parse(value);
   const fromMs = instant(query.from);
   const toMs = instant(query.to);

@@ -14,6 +14,17 @@ export interface CatalogTransmitter {
   lowerRange: number;
   upperRange: number;
   atmosphericPressurePa: number;
+  /**
+   * When the meter run's history starts (its first configuration version takes effect), epoch ms:
+   * a reading before it belongs to no record and is refused. Absent: no such limit is known.
+   */
+  historyStartMs?: number;
+  /**
+   * How long one reading may stand for, s: the longest hold limit or gap limit any of the meter
+   * run's dated settings gives (the history worker looks back as far). A reading also feeds the
+   * first seconds of the hours after its own up to this long, so those hours are queued with it.
+   */
+  reachS?: number;
 }
 
 /**
@@ -37,13 +48,20 @@ export class Catalog {
       `
       SELECT t.id::text, t.tag, t.meter_run_id::text AS "meterRunId", s.id::text AS "siteId", s.code AS "siteCode",
              s.time_zone AS "timeZone", t.measures, t.unit, t.pressure_reference AS "pressureReference",
-             t.lower_range AS "lowerRange", t.upper_range AS "upperRange", s.atmospheric_pressure_pa AS "atmosphericPressurePa"
+             t.lower_range AS "lowerRange", t.upper_range AS "upperRange", s.atmospheric_pressure_pa AS "atmosphericPressurePa",
+             (SELECT (extract(epoch FROM min(c.effective_from)) * 1000)::float8 FROM config_versions c
+               WHERE c.meter_run_id = m.id) AS "historyStartMs",
+             (SELECT max(greatest(v.hold_limit_s, v.max_gap_s)) FROM meter_run_setting_versions v
+               WHERE v.meter_run_id = m.id) AS "reachS"
         FROM transmitters t JOIN meter_runs m ON m.id = t.meter_run_id JOIN sites s ON s.id = m.site_id`,
       { type: QueryTypes.SELECT },
     );
     const byTopic = new Map<string, CatalogTransmitter>();
     const byTag = new Map<string, CatalogTransmitter>();
     for (const row of rows) {
+      // No version yet (none is ever missing once a meter run exists, but a NULL must not become 0 or NaN).
+      if (row.historyStartMs === null) delete row.historyStartMs;
+      if (row.reachS === null) delete row.reachS;
       byTopic.set(`${row.siteCode}/${row.tag}`, row);
       byTag.set(row.tag, row);
     }

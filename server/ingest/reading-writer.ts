@@ -80,8 +80,15 @@ export class ReadingWriter {
       values[i] = r.value;
       qualities[i] = r.quality;
       if (r.deviceId !== undefined) (devices ??= new Array<string | null>(n).fill(null))[i] = r.deviceId;
-      const hour = this.hourStartOf(r.timeMs, r.timeZone);
-      stale.set(`${r.meterRunId}|${hour}`, [r.meterRunId, hour / 1000]);
+      // A reading may stand for the next seconds up to the hold (or gap) limit, so it may feed the first
+      // seconds of the next hour(s): every hour it reaches is queued, not only its own (a late reading
+      // changes them all). An hour not yet begun is left out: its own readings will queue it.
+      const lastFedMs = Math.max(r.timeMs, Math.min(Date.now(), r.timeMs + Math.max(0, (r.reachS ?? 0) * 1000 - 1)));
+      for (let hour = this.hourStartOf(r.timeMs, r.timeZone); hour <= lastFedMs;) {
+        stale.set(`${r.meterRunId}|${hour}`, [r.meterRunId, hour / 1000]);
+        const next = this.hourStartOf(hour + 3_600_000, r.timeZone);
+        hour = next > hour ? next : hour + 3_600_000;
+      }
     }
     // Always lock stale-hour rows in one order, so two concurrent batches cannot deadlock.
     const staleRows = [...stale.values()].sort((a, b) => Number(a[0]) - Number(b[0]) || a[1] - b[1]);

@@ -58,4 +58,20 @@ describe('validateReading', () => {
     expect(validateReading({ time: now, value: -460 }, tt, now)).toMatch(/absolute zero/);
     expect(validateReading({ time: now, value: -40 }, tt, now)).toMatchObject({ value: -40 });
   });
+
+  it('refuses a reading from before the meter run history starts, naming the start', () => {
+    const started = { ...base, historyStartMs: Date.parse('2026-11-01T07:00:00Z') };
+    expect(validateReading({ time: '2026-11-01T06:59:59Z', value: 1 }, started, now)).toBe(
+      'time: 2026-11-01T06:59:59.000Z is before the history of the meter run of PT-1 starts (2026-11-01T07:00:00.000Z)',
+    );
+    expect(validateReading({ time: '2026-11-01T07:00:00Z', value: 1 }, started, now)).toMatchObject({
+      timeMs: Date.parse('2026-11-01T07:00:00Z'),
+    });
+  });
+
+  it('carries how long the reading may stand for with it, so the hours it feeds can be queued', () => {
+    expect(validateReading({ time: now - 1000, value: 1 }, { ...base, reachS: 90 }, now)).toMatchObject({
+      reachS: 90,
+    });
+  });
 });

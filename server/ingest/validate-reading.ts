@@ -15,6 +15,8 @@ export interface ValidReading {
   quality: number;
   /** The device that published it over MQTT (its provenance); left out for imports and unknown publishers. */
   deviceId?: string;
+  /** How long the reading may stand for (the meter run's longest hold or gap limit), s: the hours it feeds are queued. */
+  reachS?: number;
 }
 
 /** How far ahead of the server's clock a timestamp may be (device clocks drift a little). */
@@ -26,7 +28,8 @@ const isoWithOffset = /^\d{4}-\d{2}-\d{2}T\d{2}:\d{2}(:\d{2}(\.\d{1,9})?)?(Z|[+-
  * Checks one reading against its transmitter. Returns the reading, or the reason it is refused
  * (a sentence naming the field): timestamps without an offset, far-future times, values that are
  * not finite numbers, unknown qualities, units other than the transmitter's, and physically
- * impossible values (negative absolute pressure, temperature below absolute zero).
+ * impossible values (negative absolute pressure, temperature below absolute zero), and times before
+ * the meter run's history starts (its first configuration version), naming that start.
  */
 export function validateReading(
   raw: { time: unknown; value: unknown; quality?: unknown; unit?: unknown; problem?: string },
@@ -51,6 +54,9 @@ export function validateReading(
   if (Number.isNaN(new Date(timeMs).getTime())) return `time: ${String(raw.time)} is beyond the dates a clock can hold`;
   if (timeMs > nowMs + futureToleranceMs) return `time: ${new Date(timeMs).toISOString()} is in the future`;
   if (timeMs < Date.UTC(1990, 0, 1)) return `time: ${new Date(timeMs).toISOString()} is before 1990`;
+  // Before the meter run's first configuration there is no record for the reading to go into.
+  if (transmitter.historyStartMs !== undefined && timeMs < transmitter.historyStartMs)
+    return `time: ${new Date(timeMs).toISOString()} is before the history of the meter run of ${transmitter.tag} starts (${new Date(transmitter.historyStartMs).toISOString()})`;
 
   let value: number;
   if (typeof raw.value === 'number') value = raw.value;
@@ -95,5 +101,6 @@ export function validateReading(
     timeMs,
     value,
     quality,
+    ...(transmitter.reachS !== undefined ? { reachS: transmitter.reachS } : {}),
   };
 }

@@ -157,4 +157,56 @@ describe('rollUpRecords', () => {
     const records = allHours().map((r, k) => (k === 5 ? { ...r, endMs: r.startMs + 20 * 60_000 } : r));
     expect(rollUpRecords(records, longDay, { nowMs: longDay.endMs }).status).toBe('provisional');
   });
+
+  it('calls a day that has ended with every hour recorded but nothing measured (coverage 0) missing, not complete', () => {
+    const t = rollUpRecords(
+      allHours(() => ({ coverage: 0, flowTimeS: 0, massKg: 0, volumeM3: 0, standardVolumeM3: 0, energyJ: null })),
+      longDay,
+      { nowMs: longDay.endMs },
+    );
+    expect(t.coverage).toBe(0);
+    expect(t.flags).toContain('missing-data');
+    expect(t.status).toBe('missing');
+  });
+
+  it('calls a day that has ended without a single record missing, and a closed one closed', () => {
+    expect(rollUpRecords([], longDay, { nowMs: longDay.endMs }).status).toBe('missing');
+    expect(rollUpRecords([], longDay, { nowMs: longDay.endMs, closed: true }).status).toBe('closed');
+  });
+
+  it('leaves out the hours before the history starts: a meter run starting 10 h into the 25-hour day, recorded since, is complete with coverage 1', () => {
+    // By hand: hours 10..24 are the 15 hours of history, each recorded at coverage 1, so the
+    // elapsed time is 15 h, the covered time 15 h: coverage 15/15 = 1, and 15 × 1000.25 kg.
+    const records = allHours().filter((_, k) => k >= 10);
+    const t = rollUpRecords(records, longDay, { nowMs: longDay.endMs, historyStartMs: longDay.startMs + 10 * H });
+    expect(t.coverage).toBe(1);
+    expect(t.massKg).toBeCloseTo(15 * 1000.25, 9);
+    expect(t.flags).toEqual([]);
+    expect(t.status).toBe('complete');
+  });
+
+  it('still counts an unrecorded hour after the history starts: 14 of 15 hours gives coverage 14/15 and stays provisional', () => {
+    const records = allHours().filter((_, k) => k >= 10 && k !== 12);
+    const t = rollUpRecords(records, longDay, { nowMs: longDay.endMs, historyStartMs: longDay.startMs + 10 * H });
+    expect(t.coverage).toBeCloseTo(14 / 15, 12);
+    expect(t.status).toBe('provisional');
+  });
+});
+
+describe('rollUpRecords widens the uncertainty of a total for missing and estimated time', () => {
+  it('widens 0.8 % to √(0.64 + 28.867513²) = 28.878596 % when 5 of 25 hours have no record (coverage 0.8)', () => {
+    // Rule of widenForUnmeasuredTime: a = Q (1 − c)/c, U = 2a/√3 (GUM §4.3.7): 200 × 0.2/(0.8 × √3) = 28.867513, by hand.
+    const t = rollUpRecords(allHours().slice(0, 20), longDay, { nowMs: longDay.endMs });
+    expect(t.coverage).toBeCloseTo(0.8, 12);
+    expect(t.uncertaintyPercent).toBeCloseTo(28.878596, 5);
+  });
+  it('widens 0.8 % to √(0.64 + 23.094011²) = 23.107863 % when 5 of 25 equal hours rest on substituted readings', () => {
+    // s = 5/25 = 0.2 of the mass: 200 × 0.2/√3 = 23.094011, by hand.
+    const t = rollUpRecords(
+      allHours((k) => (k < 5 ? { flags: ['substituted'] } : {})),
+      longDay,
+      { nowMs: longDay.endMs },
+    );
+    expect(t.uncertaintyPercent).toBeCloseTo(23.107863, 5);
+  });
 });

@@ -2,6 +2,7 @@
  * Totals of a period (an hour, a contract day, a contract month) from its hourly records, as
  * GET /api/meter-runs/:id/totals returns them (DESIGN.md, "Interfaces").
  */
+import { widenForUnmeasuredTime } from '../uncertainty/total-uncertainty';
 import type { PeriodBounds, PeriodTotal, RollUpRecord, TotalStatus } from './types';
 
 const MS_PER_HOUR = 3_600_000;
@@ -11,6 +12,11 @@ export interface RollUpOptions {
   nowMs: number;
   /** The period lies in a closed month (locked against change). */
   closed?: boolean;
+  /**
+   * When the meter run's history starts, epoch ms: time before it is no part of the period (its
+   * first contract day may start before the meter run existed), so it is neither missing nor covered.
+   */
+  historyStartMs?: number;
 }
 
 /**
@@ -27,9 +33,14 @@ export interface RollUpOptions {
  *   hourly uncertainties are dominated by systematic effects (C, ε, diameters, transmitter
  *   calibration) that are fully correlated from hour to hour, so they add linearly rather than
  *   in quadrature (the conservative choice; random noise averages out well within an hour).
+ *   Then widened for time without a measurement (coverage < 1) and for the mass of records
+ *   flagged 'substituted', by the rectangular rule of widenForUnmeasuredTime (GUM §4.3.7).
  *   Null when there is no mass.
- * - Status: 'closed' when options.closed; else 'complete' once now ≥ end and every hour of the
- *   period has a record; else 'provisional'.
+ * - Status: 'closed' when options.closed; else, once now ≥ end, 'missing' when nothing at all was
+ *   recorded (coverage 0: a period without data is not complete), 'complete' when every hour of
+ *   the period has a record; else 'provisional'.
+ * - Time before options.historyStartMs (the meter run did not exist yet) counts neither as elapsed
+ *   nor as needing a record.
  * Hours are the period's start + k h for k < hours (a contract day starts at a local hour, and
  * every hour of a whole-hour or :30/:45 zone is 3600 s long). An hour may be stored as several
  * records, split where a dated setting took effect (API MPMS 21.1: a new record when a constant
@@ -72,6 +83,8 @@ export function rollUpRecords(
   let massTimesUncertainty = 0;
   let massWithUncertainty = 0;
   let uncertaintyMissing = false;
+  // Mass of records resting on substituted readings (the whole record counts: it does not say how much).
+  let substitutedMassKg = 0;
   const flags: string[] = [];
   for (const r of byStart.values()) {
     flowTimeS += r.flowTimeS;
@@ -85,6 +98,7 @@ export function rollUpRecords(
       flowingWithoutEnergy = true;
     }
     if (r.massKg > 0) {
+      if (r.flags.includes('substituted')) substitutedMassKg += r.massKg;
       if (r.uncertaintyPercent === null) uncertaintyMissing = true;
       else {
         massTimesUncertainty += r.massKg * r.uncertaintyPercent;
@@ -97,6 +111,7 @@ export function rollUpRecords(
   // Coverage over the elapsed part of the period: each record (a whole hour or a part of one)
   // weighs its elapsed part; the elapsed part of the period is counted hour by hour.
   const elapsedEndMs = Math.min(nowMs, endMs);
+  const historyStartMs = options.historyStartMs ?? -Infinity;
   const hourCount = Math.ceil(hours - 1e-9);
   let coveredMs = 0;
   const recordedMs = new Float64Array(hourCount);
@@ -109,8 +124,9 @@ export function rollUpRecords(
   let elapsedMs = 0;
   let everyHourHasRecord = true;
   for (let k = 0; k < hourCount; k++) {
-    const hourStart = startMs + k * MS_PER_HOUR;
-    const hourEnd = Math.min(hourStart + MS_PER_HOUR, endMs);
+    const hourEnd = Math.min(startMs + (k + 1) * MS_PER_HOUR, endMs);
+    const hourStart = Math.max(startMs + k * MS_PER_HOUR, historyStartMs);
+    if (hourStart >= hourEnd) continue;
     if (recordedMs[k] < hourEnd - hourStart) everyHourHasRecord = false;
     if (hourStart >= elapsedEndMs) continue;
     elapsedMs += Math.min(elapsedEndMs, hourEnd) - hourStart;
@@ -122,6 +138,7 @@ export function rollUpRecords(
 
   let status: TotalStatus = 'provisional';
   if (options.closed) status = 'closed';
+  else if (nowMs >= endMs && coverage === 0) status = 'missing';
   else if (nowMs >= endMs && everyHourHasRecord) status = 'complete';
 
   return {
@@ -135,7 +152,10 @@ export function rollUpRecords(
     energyJ: energyCount > 0 ? energyJ : null,
     coverage,
     flags,
-    uncertaintyPercent: massWithUncertainty > 0 ? massTimesUncertainty / massWithUncertainty : null,
+    uncertaintyPercent:
+      massWithUncertainty > 0
+        ? widenForUnmeasuredTime(massTimesUncertainty / massWithUncertainty, coverage, substitutedMassKg / massKg)
+        : null,
     status,
   };
 }

@@ -6,6 +6,8 @@
  */
 import type { ElementSpec } from '../flow/flow-types';
 import type { FluidSpec } from '../fluids';
+import type { AccuracyKind } from '../uncertainty';
+import type { PointTransmitter } from './sample-uncertainty';
 
 export type Quality = 'good' | 'uncertain' | 'bad' | 'substituted';
 
@@ -22,8 +24,10 @@ export interface DpSeries {
   stackRole: 'single' | 'low' | 'high';
   lowerRangePa: number;
   upperRangePa: number;
-  /** Stated accuracy, percent of span, taken as an expanded (k = 2) uncertainty. */
+  /** Stated accuracy, percent of span; accuracyKind says what kind of figure it is. */
   accuracyPercentOfSpan: number;
+  /** 'expanded-k2' (the default when not given) or 'rectangular-limit' (converted by √3, GUM §4.3.7). */
+  accuracyKind?: AccuracyKind;
   samples: Sample[];
 }
 
@@ -46,6 +50,12 @@ export interface HourInputs {
   staticPressure: Sample[];
   /** K, sorted; includes the latest sample before startMs if any. */
   temperature: Sample[];
+  /**
+   * The static pressure (span in Pa) and temperature (span in K) transmitters' stated accuracies,
+   * when known: they enter each sample's uncertainty through the density (ISO 5167-1:2003 §8).
+   */
+  staticPressureTransmitter?: PointTransmitter;
+  temperatureTransmitter?: PointTransmitter;
   /** Sorted by effectiveFromMs; the one in effect at a time applies from that time on. */
   configVersions: ConfigVersionInput[];
   base: { pressurePa: number; temperatureK: number };
@@ -94,6 +104,12 @@ export interface HourlyRecord {
   coverage: number;
   flags: string[];
   uncertaintyPercent: number | null;
+  /**
+   * The hour's uncertainty budget (ISO 5167-1:2003 §8): per term, its flow-weighted share of
+   * U(qm)/qm in percent (sensitivity × input, k = 2) and where the input comes from. Empty without
+   * flow. computeHour always sets it; not stored yet (optional so stored records still type-check).
+   */
+  uncertaintyBudget?: { name: string; percent: number; source: string }[];
   configVersionId: string | null;
   /** Flowing time and mass per band of the DP as a share of the ACTIVE transmitter's span (the band times sum to flowTimeS). */
   dpBands: Record<DpBandName, { timeS: number; massKg: number }>;
@@ -117,7 +133,8 @@ export type RollUpRecord = Pick<
   | 'uncertaintyPercent'
 >;
 
-export type TotalStatus = 'provisional' | 'complete' | 'closed';
+/** 'missing': the period has ended and nothing at all was recorded in it (coverage 0) — not complete. */
+export type TotalStatus = 'provisional' | 'complete' | 'missing' | 'closed';
 
 /** One entry of GET /api/meter-runs/:id/totals (DESIGN.md, "Interfaces"). */
 export interface PeriodTotal {

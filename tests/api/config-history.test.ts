@@ -56,8 +56,10 @@ describe('a configuration version back-dated into the middle of an hour', () => 
       reason: 'Plate found swapped at 03:30 (found late)',
     });
     expect(version.status).toBe(201);
-    // 03:00, 04:00 and 05:00 are computed and change; the hour containing 03:30 starts at 03:00.
-    expect(version.body.recompute).toEqual({ from: new Date(h0 + 3 * hourMs).toISOString(), hours: 3 });
+    // 03:00, 04:00, 05:00 and 06:00 are computed and change; the hour containing 03:30 starts at
+    // 03:00. The 06:00 hour has a record since a reading queues every hour it feeds (issue 13, item 7):
+    // the 05:50 DP sample stands for the largest gap, 900 s, until 06:05.
+    expect(version.body.recompute).toEqual({ from: new Date(h0 + 3 * hourMs).toISOString(), hours: 4 });
     expect(version.body.changes).toEqual([{ path: 'element.boreDiameterM', before: 0.1, after: 0.12 }]);
 
     await settled(api, f.meterRun.id);

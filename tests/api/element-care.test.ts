@@ -91,7 +91,9 @@ describe('a gas analysis dated last week', () => {
       expect.objectContaining({ sampledAt, laboratory: 'Test gas laboratory', composition, components: sample }),
     );
     expect(res.body.configVersion.effectiveFrom).toBe(sampledAt);
-    expect(res.body.configVersion.recompute).toEqual({ from: sampledAt, hours: 4 });
+    // h0+2 … h0+5 hold readings, and the last one (h0+5:50) still feeds the first seconds of h0+6
+    // under the hold limit, so that hour is a record too: five hours from the sample on.
+    expect(res.body.configVersion.recompute).toEqual({ from: sampledAt, hours: 5 });
     expect(res.body.configVersion.fluid).toEqual({ kind: 'natural-gas', composition });
     expect(res.body.configVersion.element).toEqual(f.element);
 
@@ -152,7 +154,8 @@ describe('a laboratory calibration of the primary element', () => {
       pointsCsv: 'reynoldsNumber,dischargeCoefficient\n1e3,0.601\n2e4,0.603\n',
     });
     expect(res.status).toBe(201);
-    expect(res.body.configVersion.recompute).toEqual({ from: calibratedAt, hours: 3 });
+    // h0+3 … h0+5, and h0+6 fed by the last reading under the hold limit.
+    expect(res.body.configVersion.recompute).toEqual({ from: calibratedAt, hours: 4 });
     expect(res.body.configVersion.element).toEqual({
       ...f.element,
       calibration: [

@@ -222,14 +222,15 @@ describe('bad CSV input', () => {
 });
 
 describe('totals windows', () => {
-  it('takes plain dates as the start of that date in the site zone', async () => {
+  it('takes a plain date as the contract day that starts on it in the site zone', async () => {
     const f = await createMeterRun(api, { timeZone: 'America/Denver', contractHour: 9 });
-    // 2026-11-01 to 2026-11-04 local: the contract days that start on 1, 2 and 3 November at 09:00
-    // (the one that started on 31 October at 09:00 MDT also overlaps the window's first hours).
+    // 2026-11-01 to 2026-11-04: the contract days that start on 1, 2 and 3 November at 09:00 MST
+    // (UTC−7, after the fall-back at 02:00 on 1 November): 16:00Z each. The day that started on
+    // 31 October is not asked for; a plain date used to be read as local midnight, which fell in
+    // it and listed it too (issue 13, item 7).
     const res = await api.get(`/api/meter-runs/${f.meterRun.id}/totals?interval=day&from=2026-11-01&to=2026-11-04`);
     expect(res.status).toBe(200);
     expect(res.body.map((d: { start: string }) => d.start)).toEqual([
-      '2026-10-31T15:00:00.000Z',
       '2026-11-01T16:00:00.000Z',
       '2026-11-02T16:00:00.000Z',
       '2026-11-03T16:00:00.000Z',

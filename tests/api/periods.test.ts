@@ -66,13 +66,15 @@ describe('closing and reopening a contract month', () => {
     expect(open.start).toBe('2026-08-01T00:00:00.000Z');
     expect(open.end).toBe('2026-09-01T00:00:00.000Z');
     expect(open.pending).toEqual({ hours: [], imports: [] });
-    // 31 days of hours, 6 recorded.
+    // 31 days of hours, 7 recorded: 00:00–06:00 and the 06:00 hour, which the last DP sample (05:50)
+    // still feeds for the largest gap, 900 s, until 06:05. A reading queues every hour it feeds
+    // (issue 13, item 7); before, only its own hour was queued and the 06:00 hour stayed unrecorded.
     expect(open.incomplete.final).toBe(false);
     expect(open.incomplete.hours).toEqual([
       {
         meterRunId: f.meterRun.id,
         tag: f.meterRun.tag,
-        missingHours: 31 * 24 - 6,
+        missingHours: 31 * 24 - 7,
         provisionalRecords: 0,
         queuedHours: 0,
       },
@@ -81,7 +83,7 @@ describe('closing and reopening a contract month', () => {
     const refused = await accountant.post(`/api/periods/${month}/close`, { siteId: f.site.id });
     expect(refused.status).toBe(409);
     expect(refused.body.error).toMatchObject({ code: 'period_incomplete', field: 'confirm' });
-    expect(refused.body.error.message).toContain(`${f.meterRun.tag}: 738 hours missing`);
+    expect(refused.body.error.message).toContain(`${f.meterRun.tag}: 737 hours missing`);
     expect((await period()).status).toBe('open');
   });
 
@@ -102,7 +104,8 @@ describe('closing and reopening a contract month', () => {
 
   it('closes with confirm: the totals read closed, keep their figures and version, and a second close is 409', async () => {
     const before = { day: await totals('day'), month: await totals('month') };
-    expect(relative(before.day.massKg, rate * 3600 * 6)).toBeLessThan(1e-9);
+    // 00:00–06:00 in full and 300 s of the 06:00 hour (the 05:50 sample stands until 06:05).
+    expect(relative(before.day.massKg, rate * (3600 * 6 + 300))).toBeLessThan(1e-9);
 
     const closed = await accountant.post(`/api/periods/${month}/close`, {
       siteId: f.site.id,
@@ -139,7 +142,8 @@ describe('closing and reopening a contract month', () => {
         `/api/meter-runs/${f.meterRun.id}/hourly-records?from=${new Date(day).toISOString()}&to=${new Date(day + 24 * hourMs).toISOString()}`,
       )
     ).body as unknown[];
-    expect(hours).toHaveLength(6);
+    // The seven records computed before the close (00:00–06:00, and 06:00 fed until 06:05), unchanged.
+    expect(hours).toHaveLength(7);
 
     const p = await period();
     expect(p.status).toBe('closed');

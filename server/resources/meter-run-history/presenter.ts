@@ -70,5 +70,6 @@ export const presentTrend = (window: { from: string; to: string }, trend: Trend)
     massFlowKgPerS: f.massFlowKgPerS,
     standardVolumeFlowM3PerS: f.standardVolumeFlowM3PerS,
     coverage: f.coverage,
+    partial: f.partial,
   })),
 });

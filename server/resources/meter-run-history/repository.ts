@@ -6,6 +6,8 @@ import type { TotalsInterval } from './schema';
 export interface SiteCalendar {
   timeZone: string;
   contractHour: number;
+  /** When the meter run's history starts (its first configuration version), epoch ms; null without one. */
+  historyStartMs: number | null;
 }
 
 /** The figures of an hour, contract day or contract month (SI units, epoch milliseconds). */
@@ -188,11 +190,20 @@ export interface MeterRunHistoryRepository {
 export function meterRunHistoryRepository(pool: Pool): MeterRunHistoryRepository {
   return {
     async siteCalendar(meterRunId) {
-      const { rows } = await pool.query<{ time_zone: string; contract_hour: number }>(
-        'SELECT s.time_zone, s.contract_hour FROM meter_runs m JOIN sites s ON s.id = m.site_id WHERE m.id = $1',
+      const { rows } = await pool.query<{ time_zone: string; contract_hour: number; history_start: Date | null }>(
+        `SELECT s.time_zone, s.contract_hour,
+                (SELECT min(c.effective_from) FROM config_versions c WHERE c.meter_run_id = m.id) AS history_start
+           FROM meter_runs m JOIN sites s ON s.id = m.site_id WHERE m.id = $1`,
         [meterRunId],
       );
-      return rows[0] ? { timeZone: rows[0].time_zone, contractHour: rows[0].contract_hour } : null;
+      const row = rows[0];
+      return row
+        ? {
+            timeZone: row.time_zone,
+            contractHour: row.contract_hour,
+            historyStartMs: row.history_start ? row.history_start.getTime() : null,
+          }
+        : null;
     },
 
     async totals(meterRunId, interval, fromMs, toMs) {

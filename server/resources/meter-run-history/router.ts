@@ -25,11 +25,12 @@ export function meterRunHistoryRouter(pool: Pool) {
   router.get('/:id/totals', requireCapability('view'), async (req, res) => {
     const meterRunId = parseId(req.params.id, 'Meter run');
     const query = validate(totalsQuery, req.query, 'query');
-    // A plain date is the start of that date in the site's zone, so the site is read first.
+    // A plain date names the contract day (month) starting on it in the site's zone: the site is read first.
     const calendar = await meterRunCalendar(repository, meterRunId);
     const window = parseTimeWindow(query, {
       maxDays: TOTALS_MAX_DAYS[query.interval],
       timeZone: calendar.timeZone,
+      contractHour: calendar.contractHour,
       what: `${query.interval}ly totals`,
     });
     const totals = await totalsForWindow(repository, { meterRunId, interval: query.interval, calendar, ...window });

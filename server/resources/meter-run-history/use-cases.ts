@@ -20,9 +20,12 @@ const HOURLY_RECORDS_LIMIT = 2000;
 /** Bounds the fill of empty periods: 4000 contract days is more than the longest window allows. */
 const MAX_FILLED_PERIODS = 4000;
 
-/** A period that has ended is complete; one still running is provisional. */
-const statusAt = (status: TotalStatus | null, endMs: number, nowMs: number): TotalStatus =>
-  status ?? (endMs <= nowMs ? 'complete' : 'provisional');
+/**
+ * A stored status stands; otherwise a period still running is provisional, and one that has ended
+ * is complete, or missing when nothing at all was recorded in it (coverage 0).
+ */
+const statusAt = (status: TotalStatus | null, endMs: number, nowMs: number, coverage: number): TotalStatus =>
+  status ?? (endMs > nowMs ? 'provisional' : coverage > 0 ? 'complete' : 'missing');
 
 /**
  * The site calendar of a meter run, which also proves the meter run exists.
@@ -36,8 +39,9 @@ export async function meterRunCalendar(repository: MeterRunHistoryRepository, me
 
 /**
  * Totals of a meter run per hour, contract day or contract month over a window. Every contract
- * day (month) in the window appears, with zero and coverage 0 where nothing was recorded; hours
- * appear only where a record exists.
+ * day (month) in the window from the one in which the meter run's history starts appears, with
+ * zero and coverage 0 (status missing) where nothing was recorded; periods that ended before the
+ * history starts are no records and are not listed; hours appear only where a record exists.
  */
 export async function totalsForWindow(
   repository: MeterRunHistoryRepository,
@@ -47,7 +51,7 @@ export async function totalsForWindow(
   const { meterRunId, interval, calendar, fromMs, toMs } = request;
   const found = (await repository.totals(meterRunId, interval, fromMs, toMs)).map((t) => ({
     ...t,
-    status: statusAt(t.status, t.endMs, nowMs),
+    status: statusAt(t.status, t.endMs, nowMs, t.coverage),
   }));
   if (interval === 'hour') return found;
   // Stored rows carry their own bounds, so the calendar (luxon) is consulted only for the
@@ -60,7 +64,9 @@ export async function totalsForWindow(
       : contractMonthBounds(name.slice(0, 7), timeZone, contractHour);
   };
   const out: HistoryTotal[] = [];
-  let cursor = bounds(fromMs).startMs;
+  // Nothing is filled before the contract day (month) in which the meter run's history starts.
+  // (A meter run without any version has no history: nothing is filled.)
+  let cursor = calendar.historyStartMs === null ? toMs : bounds(Math.max(fromMs, calendar.historyStartMs)).startMs;
   const fillUntil = (limitMs: number) => {
     for (let guard = 0; cursor < limitMs && guard < MAX_FILLED_PERIODS; guard++) {
       const b = bounds(cursor);
@@ -71,7 +77,7 @@ export async function totalsForWindow(
   for (const total of found) {
     fillUntil(total.startMs);
     out.push(total);
-    cursor = total.endMs;
+    cursor = Math.max(cursor, total.endMs);
   }
   fillUntil(toMs);
   return out;
@@ -91,7 +97,7 @@ function emptyTotal(startMs: number, endMs: number, hours: number, nowMs: number
     coverage: 0,
     flags: ['missing-data'],
     uncertaintyPercent: null,
-    status: statusAt(null, endMs, nowMs),
+    status: statusAt(null, endMs, nowMs, 0),
     version: null,
     firstMassKg: null,
     firstStandardVolumeM3: null,
@@ -114,7 +120,7 @@ export async function hourlyRecordsForWindow(
     request.toMs,
     HOURLY_RECORDS_LIMIT,
   );
-  return records.map((r) => ({ ...r, status: statusAt(r.status, r.endMs, nowMs) }));
+  return records.map((r) => ({ ...r, status: statusAt(r.status, r.endMs, nowMs, r.coverage) }));
 }
 
 /**
@@ -138,18 +144,27 @@ export interface TrendPoint {
 export interface Trend {
   buckets: number;
   series: (TrendTransmitter & { points: TrendPoint[] })[];
-  flow: { startMs: number; massFlowKgPerS: number; standardVolumeFlowM3PerS: number; coverage: number }[];
+  /** Per hour; `partial` marks the hour still in progress, whose rate is over the seconds elapsed so far. */
+  flow: {
+    startMs: number;
+    massFlowKgPerS: number;
+    standardVolumeFlowM3PerS: number;
+    coverage: number;
+    partial: boolean;
+  }[];
 }
 
 /**
  * Downsampled trends: per transmitter, min / max / mean of each of `buckets` equal time slices,
  * computed in the database so a month at 1 Hz stays a few hundred points; flow per hour from
- * the hourly records (the record's quantity over its length).
+ * the hourly records (the record's quantity over its length, or over the seconds elapsed so far
+ * for the hour still in progress, marked partial).
  * @throws not found when the meter run does not exist
  */
 export async function trendForWindow(
   repository: MeterRunHistoryRepository,
   request: TimeWindow & { meterRunId: string; buckets: number },
+  nowMs = Date.now(),
 ): Promise<Trend> {
   const { meterRunId, fromMs, toMs, buckets } = request;
   await meterRunCalendar(repository, meterRunId);
@@ -169,12 +184,16 @@ export async function trendForWindow(
     });
   }
   const flow = (await repository.hourlyFlows(meterRunId, fromMs, toMs)).map((h) => {
-    const seconds = (h.endMs - h.startMs) / 1000;
+    // The hour still in progress holds only the seconds elapsed so far: dividing by the whole hour
+    // would show a plunge in flow that is not there.
+    const partial = h.endMs > nowMs && nowMs > h.startMs;
+    const seconds = ((partial ? nowMs : h.endMs) - h.startMs) / 1000;
     return {
       startMs: h.startMs,
       massFlowKgPerS: h.massKg / seconds,
       standardVolumeFlowM3PerS: h.standardVolumeM3 / seconds,
       coverage: h.coverage,
+      partial,
     };
   });
   return { buckets, series, flow };

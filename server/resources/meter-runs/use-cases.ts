@@ -15,9 +15,6 @@ import type {
 import type { CreateConfigVersionInput, CreateMeterRunInput, MeterRunChanges } from './schema';
 import { presentConfigVersion, presentMeterRun } from './presenter';
 
-/** Before this, a meter run created without an effective date has no history to compute. */
-const beginningOfHistory = new Date('2000-01-01T00:00:00Z');
-
 /**
  * How far ahead a version may be dated: enough for a change planned for tomorrow's contract
  * hour, not so far that a mistyped year lies in wait unnoticed.
@@ -88,8 +85,8 @@ export async function createMeterRun(
   input: CreateMeterRunInput,
   actor: SignedInUser,
 ): Promise<MeterRunWithConfig> {
-  if (!(await repository.siteExists(input.siteId)))
-    throw badRequest(`siteId: no site ${input.siteId}`, 'siteId', 'invalid_field');
+  const timeZone = await repository.siteTimeZone(input.siteId);
+  if (timeZone === null) throw badRequest(`siteId: no site ${input.siteId}`, 'siteId', 'invalid_field');
   return refusingDuplicates(
     () =>
       sequelize.transaction(async (transaction) => {
@@ -106,7 +103,12 @@ export async function createMeterRun(
           },
           transaction,
         );
-        const effectiveFrom = input.effectiveFrom ? new Date(input.effectiveFrom) : beginningOfHistory;
+        // Without an effective date, history starts when the meter run is created: at the start of
+        // the site's hour it is created in (an hour either is in a meter run's history or is not).
+        // Nothing before it is a record, so no empty days are listed from before it existed.
+        const effectiveFrom = input.effectiveFrom
+          ? new Date(input.effectiveFrom)
+          : new Date(hourStartOf(Date.now(), timeZone));
         const config = await repository.createConfigVersion(
           {
             meterRunId: meterRun.id,

@@ -163,12 +163,15 @@ function siteTotals(runs: MeterRunMonth[], previous: string, yearEarlier: string
     yearEarlier,
   );
   const statuses = runs.map((r) => r.status);
+  // A site's month is missing only when every meter run's is (nothing recorded anywhere).
   const status: TotalStatus =
     statuses.length && statuses.every((s) => s === 'closed')
       ? 'closed'
       : statuses.some((s) => s === 'provisional') || !statuses.length
         ? 'provisional'
-        : 'complete';
+        : statuses.every((s) => s === 'missing')
+          ? 'missing'
+          : 'complete';
   return {
     massKg: sum((r) => r.massKg),
     volumeM3: sum((r) => r.volumeM3),
