@@ -17,8 +17,10 @@ import { prepareElement } from '@/shared/flow/prepare-element';
 import type {
   ElementKind,
   ElementSpec,
+  ExpansionReference,
   MaterialName,
   NozzleType,
+  OrificeMethod,
   OrificeTaps,
   VenturiType,
 } from '@/shared/flow/flow-types';
@@ -39,6 +41,14 @@ const tapsOptions: { value: OrificeTaps; label: string }[] = [
   { value: 'flange', label: 'Flange taps' },
   { value: 'corner', label: 'Corner taps' },
   { value: 'D-D/2', label: 'D and D/2 taps' },
+];
+const methodOptions: { value: OrificeMethod; label: string }[] = [
+  { value: 'iso-5167-2', label: 'ISO 5167-2:2003' },
+  { value: 'api-14.3', label: 'API MPMS 14.3 / AGA 3 (flange taps)' },
+];
+const expansionReferenceOptions: { value: ExpansionReference; label: string }[] = [
+  { value: 'upstream', label: 'Upstream tap (Y1)' },
+  { value: 'downstream', label: 'Downstream tap (Y2)' },
 ];
 const venturiOptions: { value: VenturiType; label: string }[] = [
   { value: 'as-cast', label: 'As-cast' },
@@ -67,6 +77,8 @@ const coefficientSourceOptions: { value: ElementDraft['fixedCoefficientSource'];
 export const elementFieldLabels: Record<string, string> = {
   'element.kind': 'Element kind',
   'element.taps': 'Orifice taps',
+  'element.method': 'Orifice method',
+  'element.expansionReference': 'Static tap of the expansion factor',
   'element.venturiType': 'Venturi type',
   'element.nozzleType': 'Nozzle type',
   'element.pipeDiameterM': 'Pipe inside diameter',
@@ -139,6 +151,30 @@ export function ElementFields({ draft, onChange, errors, testPrefix }: ElementFi
           onChange={set('taps')}
           testIDPrefix={id('taps')}
         />
+      ) : null}
+      {draft.kind === 'orifice' ? (
+        <ChoiceGroup
+          label="Method"
+          options={methodOptions}
+          value={draft.method}
+          onChange={set('method')}
+          testIDPrefix={id('method')}
+        />
+      ) : null}
+      {draft.kind === 'orifice' && draft.method === 'api-14.3' ? (
+        <ChoiceGroup
+          label="Static pressure measured at (as installed)"
+          options={expansionReferenceOptions}
+          value={draft.expansionReference}
+          onChange={set('expansionReference')}
+          testIDPrefix={id('expansionReference')}
+        />
+      ) : null}
+      {draft.kind === 'orifice' && draft.method === 'api-14.3' ? (
+        <AppText variant="caption" tone="muted">
+          The tap the static-pressure transmitter is connected to: its reading is taken as the pressure at that tap.
+          Moving a transmitter to the other tap is field work on a line under pressure (see the safety note).
+        </AppText>
       ) : null}
       {draft.kind === 'venturi' ? (
         <ChoiceGroup

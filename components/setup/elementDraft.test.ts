@@ -185,3 +185,41 @@ describe('describeElement', () => {
     expect(describeElement(undefined, 'mm')).toBe('no element');
   });
 });
+
+describe('the orifice method choice', () => {
+  it('leaves ISO 5167-2 implicit, so an existing orifice reads back unchanged', () => {
+    const spec = elementFromDraft({ ...emptyElementDraft, pipeDiameter: '100', boreDiameter: '50' });
+    expect(spec).not.toHaveProperty('method');
+    expect(spec).not.toHaveProperty('expansionReference');
+    const draft = draftFromElement({ kind: 'orifice', taps: 'flange', pipeDiameterM: 0.1, boreDiameterM: 0.05 }, 'mm');
+    expect(draft.method).toBe('iso-5167-2');
+    expect(draft.expansionReference).toBe('upstream');
+  });
+
+  it('carries API 14.3 and the downstream tap there and back, and names the method in lists', () => {
+    const spec = elementFromDraft({
+      ...emptyElementDraft,
+      pipeDiameter: '100',
+      boreDiameter: '50',
+      method: 'api-14.3',
+      expansionReference: 'downstream',
+    });
+    expect(spec.method).toBe('api-14.3');
+    expect(spec.expansionReference).toBe('downstream');
+    const draft = draftFromElement(spec as ElementSpec, 'mm');
+    expect(draft.method).toBe('api-14.3');
+    expect(draft.expansionReference).toBe('downstream');
+    expect(describeElement(spec as ElementSpec, 'mm')).toBe('orifice, flange taps, API 14.3, D 100 mm, d 50 mm');
+  });
+
+  it('gives a venturi no method even when the draft still holds API 14.3', () => {
+    const venturi = elementFromDraft({
+      ...emptyElementDraft,
+      kind: 'venturi',
+      method: 'api-14.3',
+      pipeDiameter: '100',
+    });
+    expect(venturi).not.toHaveProperty('method');
+    expect(venturi).not.toHaveProperty('expansionReference');
+  });
+});

@@ -6,8 +6,10 @@
 import type {
   ElementKind,
   ElementSpec,
+  ExpansionReference,
   MaterialName,
   NozzleType,
+  OrificeMethod,
   OrificeTaps,
   VenturiType,
 } from '@/shared/flow/flow-types';
@@ -17,6 +19,10 @@ import { fromSI, lengthFromMetres, lengthToMetres, optionalToSI, type LengthUnit
 export interface ElementDraft {
   kind: ElementKind;
   taps: OrificeTaps;
+  /** Orifice only: ISO 5167-2 (the default, left out of the spec) or API MPMS 14.3 (flange taps). */
+  method: OrificeMethod;
+  /** API 14.3 only: the static tap the expansion factor is referred to, as installed. */
+  expansionReference: ExpansionReference;
   venturiType: VenturiType;
   nozzleType: NozzleType;
   lengthUnit: LengthUnit;
@@ -42,6 +48,8 @@ export interface ElementDraft {
 export const emptyElementDraft: ElementDraft = {
   kind: 'orifice',
   taps: 'flange',
+  method: 'iso-5167-2',
+  expansionReference: 'upstream',
   venturiType: 'machined',
   nozzleType: 'isa-1932',
   lengthUnit: 'mm',
@@ -88,6 +96,11 @@ export function elementFromDraft(draft: ElementDraft): Partial<ElementSpec> {
   const length = (text: string) => lengthToMetres(parseNumberText(text), draft.lengthUnit);
   const spec: Partial<ElementSpec> = { kind: draft.kind, pipeDiameterM: length(draft.pipeDiameter) };
   if (draft.kind === 'orifice') spec.taps = draft.taps;
+  // ISO 5167-2 stays implicit so configurations saved before the choice existed read the same.
+  if (draft.kind === 'orifice' && draft.method === 'api-14.3') {
+    spec.method = 'api-14.3';
+    spec.expansionReference = draft.expansionReference;
+  }
   if (draft.kind === 'venturi') spec.venturiType = draft.venturiType;
   if (draft.kind === 'nozzle') spec.nozzleType = draft.nozzleType;
   if (draft.kind === 'cone') spec.coneDiameterM = length(draft.coneDiameter);
@@ -120,6 +133,8 @@ export function draftFromElement(element: ElementSpec, lengthUnit: LengthUnit): 
     ...emptyElementDraft,
     kind: element.kind,
     taps: element.taps ?? emptyElementDraft.taps,
+    method: element.method ?? emptyElementDraft.method,
+    expansionReference: element.expansionReference ?? emptyElementDraft.expansionReference,
     venturiType: element.venturiType ?? emptyElementDraft.venturiType,
     nozzleType: element.nozzleType ?? emptyElementDraft.nozzleType,
     lengthUnit,
@@ -147,7 +162,8 @@ export function describeElement(element: ElementSpec | undefined, lengthUnit: Le
     metres === undefined
       ? '?'
       : `${numberText(Number(lengthFromMetres(metres, lengthUnit).toPrecision(5)))} ${lengthUnit}`;
-  const subtype = element.taps ? `${element.taps} taps` : (element.venturiType ?? element.nozzleType);
+  const taps = element.taps ? `${element.taps} taps${element.method === 'api-14.3' ? ', API 14.3' : ''}` : undefined;
+  const subtype = taps ?? element.venturiType ?? element.nozzleType;
   const inner =
     element.kind === 'cone' ? `cone ${length(element.coneDiameterM)}` : `d ${length(element.boreDiameterM)}`;
   return [element.kind, subtype, `D ${length(element.pipeDiameterM)}`, inner].filter(Boolean).join(', ');

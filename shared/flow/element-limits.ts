@@ -25,6 +25,17 @@ export const MINIMUM_PRESSURE_RATIO = 0.75;
 export function elementLimits(element: ElementSpec): ElementLimits {
   switch (element.kind) {
     case 'orifice':
+      if (element.method === 'api-14.3') {
+        // API MPMS 14.3 / AGA 3 Part 1 limits, from memory (D ≥ 2 in, d ≥ 0.45 in, 0.1 ≤ β ≤ 0.75,
+        // Re_D ≥ 4000; no upper D): confirm against the standard's text.
+        return {
+          clause: 'API MPMS 14.3 / AGA Report No. 3 Part 1 (orifice, flange taps)',
+          pipeDiameterM: [2 * 0.0254, Infinity],
+          beta: [0.1, 0.75],
+          minimumBoreDiameterM: 0.45 * 0.0254,
+          reynoldsRange: () => [4000, Infinity],
+        };
+      }
       // ISO 5167-2:2003 §5.3.1 (TRADE.md §2).
       if (element.taps === 'flange') {
         return {

@@ -2,6 +2,7 @@
  * The historian's fast path: a prepared element plus a known fluid state gives C, ε, Re_D and
  * qm. No allocation beyond the result object, no warnings (see operatingPointWarnings).
  */
+import { apiExpansionFactorDownstream, apiExpansionFactorUpstream } from './api-14-3-orifice';
 import { coneExpansibility, isentropicExpansibility, orificeExpansibility } from './expansibility';
 import type { PreparedElement } from './prepare-element';
 import { solveReynoldsNumber } from './reynolds-iteration';
@@ -40,6 +41,21 @@ export function elementExpansibility(
   switch (element.expansibilityModel) {
     case 'orifice':
       return orificeExpansibility(element.beta, differentialPressurePa, staticPressurePa, fluid.isentropicExponent);
+    case 'api-14.3-upstream':
+      return apiExpansionFactorUpstream(
+        element.beta,
+        differentialPressurePa,
+        staticPressurePa,
+        fluid.isentropicExponent,
+      );
+    case 'api-14.3-downstream':
+      // staticPressurePa is the downstream tap's; Z_f2/Z_f1 is taken as 1 (the fluid state is known only there).
+      return apiExpansionFactorDownstream(
+        element.beta,
+        differentialPressurePa,
+        staticPressurePa,
+        fluid.isentropicExponent,
+      );
     case 'cone':
       return coneExpansibility(element.beta, differentialPressurePa, staticPressurePa, fluid.isentropicExponent);
     default:

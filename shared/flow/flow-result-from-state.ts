@@ -44,7 +44,13 @@ export function flowResultFromState(flowCase: FlowCase, state: FlowFluidState): 
   const element = prepareElement(flowCase.element, temperatureK);
   const flow = evaluateFlow(element, differentialPressurePa, staticPressurePa, state);
   const warnings: FlowWarning[] = [...state.warnings, ...element.warnings];
-  const pressureRatio = state.compressible ? (staticPressurePa - differentialPressurePa) / staticPressurePa : null;
+  // An API 14.3 run referred downstream measures p2 (as installed): p1 = p2 + Δp (AGA 3 Part 4 §4.3.2.6).
+  const downstreamTap = element.expansibilityModel === 'api-14.3-downstream';
+  const pressureRatio = !state.compressible
+    ? null
+    : downstreamTap
+      ? staticPressurePa / (staticPressurePa + differentialPressurePa)
+      : (staticPressurePa - differentialPressurePa) / staticPressurePa;
   warnings.push(
     ...operatingPointWarnings(element.limits, element.beta, element.pipeDiameterM, flow.reynoldsNumber, pressureRatio),
   );

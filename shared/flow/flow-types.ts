@@ -14,6 +14,10 @@ export type ElementKind = 'orifice' | 'venturi' | 'nozzle' | 'cone';
 export type OrificeTaps = 'flange' | 'corner' | 'D-D/2';
 export type VenturiType = 'as-cast' | 'machined' | 'rough-welded';
 export type NozzleType = 'isa-1932' | 'long-radius';
+/** The orifice method: ISO 5167-2:2003, or API MPMS 14.3 / AGA Report No. 3 Part 1 (flange taps only). */
+export type OrificeMethod = 'iso-5167-2' | 'api-14.3';
+/** The static tap an API 14.3 expansion factor is referred to, as installed (Y1 upstream, Y2 downstream). */
+export type ExpansionReference = 'upstream' | 'downstream';
 
 /** One point of a cone meter's laboratory calibration: C measured at a pipe Reynolds number. */
 export interface CalibrationPoint {
@@ -28,6 +32,13 @@ export type MaterialName = 'stainless-304' | 'stainless-316' | 'carbon-steel' | 
 export interface ElementSpec {
   kind: ElementKind;
   taps?: OrificeTaps;
+  /** Orifice only; default iso-5167-2. */
+  method?: OrificeMethod;
+  /**
+   * API 14.3 only; default upstream. With downstream, conditions.staticPressurePa is the absolute pressure
+   * at the downstream tap (as installed), the fluid state is taken there and Y2 is used.
+   */
+  expansionReference?: ExpansionReference;
   venturiType?: VenturiType;
   nozzleType?: NozzleType;
   pipeDiameterM: number;
@@ -53,7 +64,7 @@ export interface ElementSpec {
 
 export interface FlowConditions {
   differentialPressurePa: number;
-  /** Absolute, at the upstream tap. */
+  /** Absolute, at the upstream tap (at the downstream tap for an API 14.3 orifice referred downstream). */
   staticPressurePa: number;
   temperatureK: number;
 }

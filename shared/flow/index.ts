@@ -9,6 +9,12 @@ export { prepareElement, type PreparedElement } from './prepare-element';
 export { evaluateFlow, elementExpansibility, type FlowEvaluation, type FlowFluidProperties } from './evaluate-flow';
 export { differentialPressureForMassFlow } from './differential-pressure-for-flow';
 export { orificeDischargeCoefficient, prepareOrificeDischargeCoefficient } from './orifice-discharge-coefficient';
+export {
+  apiOrificeDischargeCoefficient,
+  prepareApiOrificeDischargeCoefficient,
+  apiExpansionFactorUpstream,
+  apiExpansionFactorDownstream,
+} from './api-14-3-orifice';
 export { nozzleDischargeCoefficient } from './nozzle-discharge-coefficient';
 export { venturiDischargeCoefficient, VENTURI_DISCHARGE_COEFFICIENT } from './venturi-discharge-coefficient';
 export { prepareCalibration, UNCALIBRATED_CONE_DISCHARGE_COEFFICIENT } from './cone-discharge-coefficient';

@@ -10,12 +10,13 @@ import {
 import { elementLimits, formatNumber, geometryWarnings, type ElementLimits } from './element-limits';
 import type { ElementKind, ElementSpec, FlowWarning } from './flow-types';
 import { prepareNozzleDischargeCoefficient } from './nozzle-discharge-coefficient';
+import { prepareApiOrificeDischargeCoefficient } from './api-14-3-orifice';
 import { prepareOrificeDischargeCoefficient } from './orifice-discharge-coefficient';
 import { DEFAULT_REFERENCE_TEMPERATURE_K, diameterAtTemperatureM, expansionPerK } from './thermal-expansion';
 import { venturiDischargeCoefficient } from './venturi-discharge-coefficient';
 
 /** Which expansibility equation an element uses. */
-export type ExpansibilityModel = 'orifice' | 'isentropic' | 'cone';
+export type ExpansibilityModel = 'orifice' | 'isentropic' | 'cone' | 'api-14.3-upstream' | 'api-14.3-downstream';
 
 /** A temperature difference from the reference above which uncorrected diameters get a warning. */
 const UNCORRECTED_TEMPERATURE_SPAN_K = 10;
@@ -118,6 +119,12 @@ export function prepareElement(element: ElementSpec, temperatureK: number): Prep
     calibration = prepareCalibration(element.calibration);
     dischargeCoefficientAt = calibration.dischargeCoefficientAt;
     startDischargeCoefficient = calibration.typicalDischargeCoefficient;
+  } else if (element.kind === 'orifice' && element.method === 'api-14.3') {
+    // API MPMS 14.3 Part 1 gives its equation for flange taps only.
+    if (element.taps !== 'flange') {
+      throw new Error(`prepareElement: element.taps must be flange for method api-14.3 (got ${String(element.taps)})`);
+    }
+    dischargeCoefficientAt = prepareApiOrificeDischargeCoefficient(beta, pipeDiameterM);
   } else if (element.kind === 'orifice') {
     dischargeCoefficientAt = prepareOrificeDischargeCoefficient(beta, pipeDiameterM, element.taps ?? missing('taps'));
   } else if (element.kind === 'nozzle') {
@@ -144,11 +151,18 @@ export function prepareElement(element: ElementSpec, temperatureK: number): Prep
     dischargeCoefficientAt,
     startDischargeCoefficient,
     calibration,
-    expansibilityModel: element.kind === 'orifice' ? 'orifice' : element.kind === 'cone' ? 'cone' : 'isentropic',
+    expansibilityModel: expansibilityModelOf(element),
     limits,
     flowAreaM2: ((Math.PI / 4) * boreDiameterM * boreDiameterM) / Math.sqrt(1 - beta4),
     warnings,
   };
+}
+
+function expansibilityModelOf(element: ElementSpec): ExpansibilityModel {
+  if (element.kind === 'orifice' && element.method === 'api-14.3') {
+    return element.expansionReference === 'downstream' ? 'api-14.3-downstream' : 'api-14.3-upstream';
+  }
+  return element.kind === 'orifice' ? 'orifice' : element.kind === 'cone' ? 'cone' : 'isentropic';
 }
 
 function missing(field: string): never {

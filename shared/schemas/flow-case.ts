@@ -25,6 +25,12 @@ export const elementSpecSchema = z
     {
       kind: z.enum(['orifice', 'venturi', 'nozzle', 'cone']),
       taps: z.enum(['flange', 'corner', 'D-D/2']).optional(),
+      /** Orifice only: ISO 5167-2:2003 (default) or API MPMS 14.3 / AGA Report No. 3 Part 1. */
+      method: z.enum(['iso-5167-2', 'api-14.3'], { error: 'method must be iso-5167-2 or api-14.3' }).optional(),
+      /** API 14.3 only: the static tap the expansion factor is referred to, as installed (default upstream). */
+      expansionReference: z
+        .enum(['upstream', 'downstream'], { error: 'expansionReference must be upstream or downstream' })
+        .optional(),
       venturiType: z.enum(['as-cast', 'machined', 'rough-welded']).optional(),
       nozzleType: z.enum(['isa-1932', 'long-radius']).optional(),
       pipeDiameterM: positive('pipeDiameterM').max(10, 'pipeDiameterM must be in metres (≤ 10 m)'),
@@ -60,6 +66,23 @@ export const elementSpecSchema = z
         ctx.addIssue({ code: 'custom', path: [field], message: `${field} is required ${why}` });
     };
     if (e.kind === 'orifice') need('taps', 'for an orifice (flange, corner or D-D/2)');
+    if (e.method !== undefined && e.kind !== 'orifice') {
+      ctx.addIssue({ code: 'custom', path: ['method'], message: 'method belongs to an orifice element' });
+    }
+    if (e.method === 'api-14.3' && e.taps !== undefined && e.taps !== 'flange') {
+      ctx.addIssue({
+        code: 'custom',
+        path: ['taps'],
+        message: `taps must be flange for method api-14.3 (API MPMS 14.3 Part 1 covers flange taps only; got ${e.taps})`,
+      });
+    }
+    if (e.expansionReference !== undefined && e.method !== 'api-14.3') {
+      ctx.addIssue({
+        code: 'custom',
+        path: ['expansionReference'],
+        message: 'expansionReference belongs to an orifice with method api-14.3',
+      });
+    }
     if (e.kind === 'venturi') need('venturiType', 'for a venturi (as-cast, machined or rough-welded)');
     if (e.kind === 'nozzle') need('nozzleType', 'for a nozzle (isa-1932 or long-radius)');
     if (e.kind === 'cone') {

@@ -90,6 +90,9 @@ describe('the set-up screens', () => {
     await page.getByTestId('run-create-name').fill('Pad 1 wellhead');
     await choose(page.getByTestId('run-create-element-kind-orifice'));
     await choose(page.getByTestId('run-create-element-taps-flange'));
+    // The US method for a flange-tapped plate, with the static transmitter on the downstream tap.
+    await choose(page.getByTestId('run-create-element-method-api-14.3'));
+    await choose(page.getByTestId('run-create-element-expansionReference-downstream'));
     await choose(page.getByTestId('run-create-element-lengthUnit-in'));
     await page.getByTestId('run-create-element-pipeDiameterM').fill('4.026');
     // A bore wider than the pipe: the shared element schema names the bore.
@@ -125,6 +128,8 @@ describe('the set-up screens', () => {
     expect(run!.element.pipeDiameterM).toBeCloseTo(0.1022604, 9);
     expect(run!.element.boreDiameterM).toBeCloseTo(0.0511302, 9);
     expect(run!.element.taps).toBe('flange');
+    expect(run!.element.method).toBe('api-14.3');
+    expect(run!.element.expansionReference).toBe('downstream');
     expect(run!.fluid.composition.methane).toBeCloseTo(0.96, 12);
 
     // The transmitter, on the meter run's own page: an upper range below the lower is refused first.
