@@ -3,7 +3,8 @@
  * flow time, quantities, flow-dependent averages, coverage, flags, uncertainty and status, and
  * the integral value and integral multiplier value from which a third party recomputes the mass
  * (mass = IMV × IV × flow time, API MPMS 21.1). An hour in which a dated setting took effect is
- * two records (or more), each shown with its start and end.
+ * two records (or more), each shown with its start and end. An hour's U opens its uncertainty
+ * budget: each term with its share and source (issue 13).
  */
 import { useState } from 'react';
 import { StyleSheet, View } from 'react-native';
@@ -28,6 +29,7 @@ import { FlagList } from './FlagList';
 import { RecordVersionsView, VersionMarker, versionColumn } from './RecordVersionsView';
 import { formatSiteTime } from './siteTime';
 import { totalCells } from './totalCells';
+import { UncertaintyBudgetView } from './UncertaintyBudgetView';
 
 interface HourlyRecordsPanelProps {
   meterRunId: string;
@@ -44,6 +46,8 @@ export function HourlyRecordsPanel({ meterRunId, site }: HourlyRecordsPanelProps
   );
   const today = contractDayOf(Date.now(), site.timeZone, site.contractHour);
   const [openedHour, setOpenedHour] = useState<string | null>(null);
+  const [budgetHour, setBudgetHour] = useState<string | null>(null);
+  const budgetRecord = budgetHour ? records.data?.find((r) => r.start === budgetHour) : undefined;
   const set = unitsFor(site.displayUnits);
 
   const columns: DataColumn[] = [
@@ -65,36 +69,51 @@ export function HourlyRecordsPanel({ meterRunId, site }: HourlyRecordsPanelProps
     versionColumn,
   ];
 
-  const rows = (records.data ?? []).map((record, index) => ({
-    key: record.start,
-    testID: `hourly-row-${index}`,
-    cells: {
-      start: wholeHour(record)
-        ? formatSiteTime(record.start, site.timeZone, 'HH:mm')
-        : `${formatSiteTime(record.start, site.timeZone, 'HH:mm')}–${formatSiteTime(record.end, site.timeZone, 'HH:mm')}`,
-      flowTime: formatNumber(record.flowTimeS / 60, 3),
-      ...totalCells(record, set),
-      dp: record.averageDpPa === null ? '—' : formatNumber(differentialPressureForDisplay(record.averageDpPa, set)),
-      pressure:
-        record.averagePressurePa === null
-          ? '—'
-          : formatNumber(staticPressureForDisplay(record.averagePressurePa, set, site.atmosphericPressurePa)),
-      temperature:
-        record.averageTemperatureK === null
-          ? '—'
-          : formatNumber(temperatureForDisplay(record.averageTemperatureK, set), 3),
-      integral: formatNumber(record.integralValue, 6),
-      multiplier: formatNumber(record.integralMultiplierValue, 6),
-      flags: <FlagList flags={record.flags} />,
-      versions: (
-        <VersionMarker
-          version={record.version}
-          onOpen={() => setOpenedHour(record.start)}
-          testID={`hourly-versions-${index}`}
-        />
-      ),
-    },
-  }));
+  const rows = (records.data ?? []).map((record, index) => {
+    const cells = totalCells(record, set);
+    return {
+      key: record.start,
+      testID: `hourly-row-${index}`,
+      cells: {
+        start: wholeHour(record)
+          ? formatSiteTime(record.start, site.timeZone, 'HH:mm')
+          : `${formatSiteTime(record.start, site.timeZone, 'HH:mm')}–${formatSiteTime(record.end, site.timeZone, 'HH:mm')}`,
+        flowTime: formatNumber(record.flowTimeS / 60, 3),
+        ...cells,
+        uncertainty: record.uncertaintyBudget?.length ? (
+          <Button
+            label={`${cells.uncertainty} ▸`}
+            size="compact"
+            variant="quiet"
+            accessibilityLabel="Uncertainty budget of this record"
+            onPress={() => setBudgetHour(record.start)}
+            testID={`hourly-budget-${index}`}
+          />
+        ) : (
+          cells.uncertainty
+        ),
+        dp: record.averageDpPa === null ? '—' : formatNumber(differentialPressureForDisplay(record.averageDpPa, set)),
+        pressure:
+          record.averagePressurePa === null
+            ? '—'
+            : formatNumber(staticPressureForDisplay(record.averagePressurePa, set, site.atmosphericPressurePa)),
+        temperature:
+          record.averageTemperatureK === null
+            ? '—'
+            : formatNumber(temperatureForDisplay(record.averageTemperatureK, set), 3),
+        integral: formatNumber(record.integralValue, 6),
+        multiplier: formatNumber(record.integralMultiplierValue, 6),
+        flags: <FlagList flags={record.flags} />,
+        versions: (
+          <VersionMarker
+            version={record.version}
+            onOpen={() => setOpenedHour(record.start)}
+            testID={`hourly-versions-${index}`}
+          />
+        ),
+      },
+    };
+  });
 
   return (
     <Panel title="Hourly records" testID="hourly-records">
@@ -131,6 +150,13 @@ export function HourlyRecordsPanel({ meterRunId, site }: HourlyRecordsPanelProps
           testID="hourly-table"
         />
       ) : null}
+      {budgetRecord ? (
+        <UncertaintyBudgetView
+          title={`record from ${formatSiteTime(budgetRecord.start, site.timeZone, 'HH:mm')}`}
+          budget={budgetRecord.uncertaintyBudget}
+          onClose={() => setBudgetHour(null)}
+        />
+      ) : null}
       {openedHour ? (
         <RecordVersionsView
           meterRunId={meterRunId}
@@ -141,8 +167,8 @@ export function HourlyRecordsPanel({ meterRunId, site }: HourlyRecordsPanelProps
       ) : null}
       <AppText variant="caption" tone="muted">
         Averages are flow-dependent: taken over the flowing time, with no-flow time left out. U: expanded uncertainty (k
-        = 2) of the hour's quantity. Provisional: the hour is not over yet; closed: its month is locked. Times on the
-        site's clock.
+        = 2) of the hour's quantity; open it for its budget. Provisional: the hour is not over yet; closed: its month is
+        locked. Times on the site's clock.
       </AppText>
     </Panel>
   );

@@ -43,6 +43,12 @@ const stackOptions = [
   { value: 'high' as const, label: 'High range of a stacked pair' },
 ];
 
+/** How a data sheet states its accuracy (GUM JCGM 100:2008 §6.2 and §4.3.7). */
+const accuracyKindOptions = [
+  { value: 'expanded-k2' as const, label: 'Uncertainty, k = 2' },
+  { value: 'rectangular-limit' as const, label: '± limit' },
+];
+
 const labels: Record<string, string> = {
   meterRunId: 'Meter run',
   tag: 'Tag',
@@ -53,6 +59,7 @@ const labels: Record<string, string> = {
   upperRange: 'Upper range value',
   stackRole: 'Stacked pair',
   accuracyPercentOfSpan: 'Accuracy',
+  accuracyKind: 'Accuracy stated as',
   calibrationDue: 'Calibration due',
 };
 
@@ -97,6 +104,7 @@ export function TransmitterForm({ meterRun, existing, us, onDone }: TransmitterF
       upperRange: parseNumberText(draft.upperRange),
       stackRole: draft.stackRole,
       accuracyPercentOfSpan: parseNumberText(draft.accuracyPercentOfSpan),
+      accuracyKind: draft.accuracyKind,
       calibrationDue: optionalText(draft.calibrationDue),
     };
     const parsed = transmitterSchema.safeParse(body);
@@ -209,6 +217,19 @@ export function TransmitterForm({ meterRun, existing, us, onDone }: TransmitterF
           hint="From the data sheet, for the uncertainty budget."
           testID={id('accuracyPercentOfSpan')}
         />
+        <View style={styles.field}>
+          <ChoiceGroup
+            label="Accuracy stated as"
+            options={accuracyKindOptions}
+            value={draft.accuracyKind}
+            onChange={(value) => edit('accuracyKind', value)}
+            testIDPrefix={id('accuracyKind')}
+          />
+          <AppText variant="caption" tone="muted">
+            A ± limit is taken as rectangular and divided by √3 (GUM §4.3.7); an uncertainty with k = 2 is used as
+            stated.
+          </AppText>
+        </View>
         <View style={styles.field}>
           <TextField
             label="Calibration due"

@@ -14,6 +14,8 @@ export interface TransmitterDraft {
   upperRange: string;
   stackRole: 'single' | 'low' | 'high';
   accuracyPercentOfSpan: string;
+  /** How the data sheet states the accuracy: a k = 2 uncertainty or a ± limit (GUM §4.3.7). */
+  accuracyKind: 'expanded-k2' | 'rectangular-limit';
   calibrationDue: string;
 }
 
@@ -28,6 +30,7 @@ export function emptyDraft(us: boolean): TransmitterDraft {
     upperRange: '',
     stackRole: 'single',
     accuracyPercentOfSpan: '0.075',
+    accuracyKind: 'expanded-k2',
     calibrationDue: '',
   };
 }

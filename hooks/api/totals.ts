@@ -48,6 +48,14 @@ export const hourlyRecordSchema = z.object({
     .catch(null),
   activeTransmitterTimeS: z.record(z.string(), z.number()).nullable().catch(null),
   computedAt: z.string(),
+  /**
+   * Each term of the hour's U(qm)/qm (k = 2, percent) with where its input comes from (issue 13);
+   * null for a record stored before budgets were kept.
+   */
+  uncertaintyBudget: z
+    .array(z.object({ term: z.string(), percent: z.number(), source: z.string() }))
+    .nullable()
+    .optional(),
 });
 export type HourlyRecord = z.infer<typeof hourlyRecordSchema>;
 

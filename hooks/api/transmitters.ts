@@ -33,6 +33,8 @@ export const transmitterResponseSchema = z.object({
   stackRole: z.enum(stackRoles),
   accuracyPercentOfSpan: z.number(),
   calibrationDue: z.string().nullable(),
+  /** What kind of figure the accuracy is (issue 13): a k = 2 uncertainty or a ± limit (÷ √3, GUM §4.3.7). */
+  accuracyKind: z.enum(['expanded-k2', 'rectangular-limit']).optional(),
 });
 export type Transmitter = z.infer<typeof transmitterResponseSchema>;
 
@@ -71,6 +73,7 @@ export interface TransmitterChange {
   lowerRange?: number;
   upperRange?: number;
   accuracyPercentOfSpan?: number;
+  accuracyKind?: 'expanded-k2' | 'rectangular-limit';
   calibrationDue?: string | null;
   /** When a new range or accuracy takes effect (ISO 8601; default now), and why (issue 9: dated settings). */
   effectiveFrom?: string;

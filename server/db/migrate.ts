@@ -21,6 +21,8 @@ import * as m0016 from '../migrations/0016-care-certificates-and-due';
 import * as m0017 from '../migrations/0017-device-rejections';
 import * as m0018 from '../migrations/0018-token-version';
 import * as m0019 from '../migrations/0019-reconciliation-tolerance-versions';
+import * as m0022 from '../migrations/0022-hourly-uncertainty-budget';
+import * as m0023 from '../migrations/0023-transmitter-accuracy-kind';
 
 /**
  * Migrations are listed here, in order, rather than globbed: the list works the same under
@@ -46,6 +48,8 @@ const migrations = [
   { name: '0017-device-rejections', ...m0017 },
   { name: '0018-token-version', ...m0018 },
   { name: '0019-reconciliation-tolerance-versions', ...m0019 },
+  { name: '0022-hourly-uncertainty-budget', ...m0022 },
+  { name: '0023-transmitter-accuracy-kind', ...m0023 },
 ];
 
 export function migrator(sequelize: Sequelize) {

@@ -158,7 +158,8 @@ export async function previousStackChoice(
 
 /**
  * Stores the records of the given hours in one statement, replacing those of the same hours. The
- * table's trigger (migration 0006) keeps the figures a record replaces as a version when they
+ * table's trigger (migrations 0006, 0022) keeps the figures a record replaces, its uncertainty
+ * budget among them, as a version when they
  * differ and the record was final; a record of a recomputed hour whose start is no longer a
  * part's start (a version instant moved or went) is deleted, and the delete trigger (0007) keeps
  * it as a version first, so no part survives as an orphan and none vanishes without a trace. An
@@ -198,13 +199,13 @@ export async function saveHourlyRecords(
      saved AS (
      INSERT INTO hourly_records (meter_run_id, start, "end", flow_time_s, mass_kg, volume_m3, standard_volume_m3, energy_j,
        average_dp_pa, average_pressure_pa, average_temperature_k, integral_value, integral_multiplier_value, coverage, flags,
-       uncertainty_percent, config_version_id, dp_bands, active_transmitter_time, final_stack_choice, computed_at,
-       recompute_cause, recompute_reference, as_of)
+       uncertainty_percent, uncertainty_budget, config_version_id, dp_bands, active_transmitter_time, final_stack_choice,
+       computed_at, recompute_cause, recompute_reference, as_of)
      SELECT $1, i.start, to_timestamp((r->>'endMs')::float8 / 1000),
             (r->>'flowTimeS')::float8, (r->>'massKg')::float8, (r->>'volumeM3')::float8, (r->>'standardVolumeM3')::float8,
             (r->>'energyJ')::float8, (r->>'averageDpPa')::float8, (r->>'averagePressurePa')::float8, (r->>'averageTemperatureK')::float8,
             (r->>'integralValue')::float8, (r->>'integralMultiplierValue')::float8, (r->>'coverage')::float8,
-            ARRAY(SELECT jsonb_array_elements_text(r->'flags')), (r->>'uncertaintyPercent')::float8,
+            ARRAY(SELECT jsonb_array_elements_text(r->'flags')), (r->>'uncertaintyPercent')::float8, r->'uncertaintyBudget',
             (r->>'configVersionId')::bigint, r->'dpBands', r->'activeTransmitterTimeS', r->>'finalStackChoice', now(),
             r->>'recomputeCause', r->>'recomputeReference',
             least(to_timestamp((r->>'endMs')::float8 / 1000), to_timestamp($3::float8 / 1000))
@@ -215,8 +216,8 @@ export async function saveHourlyRecords(
        average_pressure_pa = EXCLUDED.average_pressure_pa, average_temperature_k = EXCLUDED.average_temperature_k,
        integral_value = EXCLUDED.integral_value, integral_multiplier_value = EXCLUDED.integral_multiplier_value,
        coverage = EXCLUDED.coverage, flags = EXCLUDED.flags,
-       uncertainty_percent = EXCLUDED.uncertainty_percent, config_version_id = EXCLUDED.config_version_id,
-       dp_bands = EXCLUDED.dp_bands, active_transmitter_time = EXCLUDED.active_transmitter_time,
+       uncertainty_percent = EXCLUDED.uncertainty_percent, uncertainty_budget = EXCLUDED.uncertainty_budget,
+       config_version_id = EXCLUDED.config_version_id, dp_bands = EXCLUDED.dp_bands, active_transmitter_time = EXCLUDED.active_transmitter_time,
        final_stack_choice = EXCLUDED.final_stack_choice, computed_at = now(), recompute_cause = EXCLUDED.recompute_cause,
        recompute_reference = EXCLUDED.recompute_reference, as_of = EXCLUDED.as_of
      RETURNING start, version, cause, cause_reference)

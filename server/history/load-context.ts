@@ -2,6 +2,7 @@ import type { Pool } from 'pg';
 import { toSI } from '../../shared/units';
 import type { ConfigVersionInput, DpSeries, Quality, Sample } from '../../shared/history/types';
 import { inEffectAt } from '../../shared/history/dated';
+import type { AccuracyKind } from '../../shared/uncertainty';
 
 const qualityName: Quality[] = ['good', 'uncertain', 'bad', 'substituted'];
 
@@ -30,6 +31,8 @@ export interface TransmitterRange {
   lowerRange: number;
   upperRange: number;
   accuracyPercentOfSpan: number;
+  /** What kind of figure the accuracy is (migration 0023; GUM §4.3.7 converts a ± limit by √3). */
+  accuracyKind: AccuracyKind;
 }
 
 /**
@@ -98,6 +101,7 @@ interface TransmitterRow {
   upper_range: number;
   stack_role: ContextTransmitter['stackRole'];
   accuracy_percent_of_span: number;
+  accuracy_kind: AccuracyKind;
 }
 
 interface SettingVersionRow {
@@ -123,6 +127,7 @@ interface RangeVersionRow {
   lower_range: number;
   upper_range: number;
   accuracy_percent_of_span: number;
+  accuracy_kind: AccuracyKind;
 }
 
 /** A stored reading: value in the transmitter's unit, quality as its code (0 good … 3 substituted). */
@@ -152,7 +157,8 @@ export async function loadMeterRunContext(pool: Pool, meterRunId: string): Promi
     [meterRunId],
   );
   const transmitters = await pool.query<TransmitterRow>(
-    `SELECT id::text, measures, unit, pressure_reference, lower_range, upper_range, stack_role, accuracy_percent_of_span
+    `SELECT id::text, measures, unit, pressure_reference, lower_range, upper_range, stack_role, accuracy_percent_of_span,
+            accuracy_kind
        FROM transmitters WHERE meter_run_id = $1 ORDER BY transmitters.id`,
     [meterRunId],
   );
@@ -167,7 +173,8 @@ export async function loadMeterRunContext(pool: Pool, meterRunId: string): Promi
     [r.site_id],
   );
   const ranges = await pool.query<RangeVersionRow>(
-    `SELECT v.transmitter_id::text, v.effective_from, v.lower_range, v.upper_range, v.accuracy_percent_of_span
+    `SELECT v.transmitter_id::text, v.effective_from, v.lower_range, v.upper_range, v.accuracy_percent_of_span,
+            v.accuracy_kind
        FROM transmitter_range_versions v JOIN transmitters t ON t.id = v.transmitter_id
       WHERE t.meter_run_id = $1 ORDER BY v.effective_from, v.id`,
     [meterRunId],
@@ -231,6 +238,7 @@ export async function loadMeterRunContext(pool: Pool, meterRunId: string): Promi
           lowerRange: v.lower_range,
           upperRange: v.upper_range,
           accuracyPercentOfSpan: v.accuracy_percent_of_span,
+          accuracyKind: v.accuracy_kind,
         }));
       return {
         id: t.id,
@@ -249,6 +257,7 @@ export async function loadMeterRunContext(pool: Pool, meterRunId: string): Promi
                 lowerRange: t.lower_range,
                 upperRange: t.upper_range,
                 accuracyPercentOfSpan: t.accuracy_percent_of_span,
+                accuracyKind: t.accuracy_kind,
               },
             ],
       };

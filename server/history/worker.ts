@@ -329,9 +329,9 @@ function calendarOf(ctx: MeterRunContext): ContractCalendar {
 /**
  * The static pressure or temperature transmitter's accuracy in force at a time, its span in SI
  * (Pa, or K: the difference of two converted range values is a span in kelvin for °C and °F too),
- * for the hour's uncertainty budget (ISO 5167-1:2003 §8, through the density). The datasheet figure
- * is stored without its kind, so it is taken as an expanded (k = 2) uncertainty, and the budget's
- * source says so. Undefined when the meter run has no such transmitter.
+ * for the hour's uncertainty budget (ISO 5167-1:2003 §8, through the density), with the dated kind
+ * of the datasheet figure (k = 2 uncertainty, or a ± limit converted by √3, GUM §4.3.7; migration
+ * 0023), which the budget's source names. Undefined when the meter run has no such transmitter.
  */
 function pointTransmitterAt(
   ctx: MeterRunContext,
@@ -343,7 +343,7 @@ function pointTransmitterAt(
   const range = inEffectAt(transmitter.ranges, atMs);
   const span = toSI(range.upperRange, transmitter.unit) - toSI(range.lowerRange, transmitter.unit);
   if (!(span > 0)) return undefined;
-  return { accuracyPercentOfSpan: range.accuracyPercentOfSpan, span, accuracyKind: 'expanded-k2' };
+  return { accuracyPercentOfSpan: range.accuracyPercentOfSpan, span, accuracyKind: range.accuracyKind };
 }
 
 /**
@@ -368,6 +368,7 @@ function computePart(
             lowerRangePa: toSI(range.lowerRange, transmitter.unit),
             upperRangePa: toSI(range.upperRange, transmitter.unit),
             accuracyPercentOfSpan: range.accuracyPercentOfSpan,
+            accuracyKind: range.accuracyKind,
           }
         : {}),
       samples: window(series.samples, startMs, endMs),

@@ -11,6 +11,8 @@ export class Transmitter extends Model {
   declare upperRange: number;
   declare stackRole: 'single' | 'low' | 'high';
   declare accuracyPercentOfSpan: number;
+  /** What kind of figure the accuracy is (migration 0023). */
+  declare accuracyKind: 'expanded-k2' | 'rectangular-limit';
   declare calibrationDue: string | null;
 
   static initModel(sequelize: Sequelize) {
@@ -26,6 +28,7 @@ export class Transmitter extends Model {
         upperRange: { type: DataTypes.DOUBLE, allowNull: false },
         stackRole: { type: DataTypes.ENUM('single', 'low', 'high'), allowNull: false, defaultValue: 'single' },
         accuracyPercentOfSpan: { type: DataTypes.DOUBLE, allowNull: false },
+        accuracyKind: { type: DataTypes.TEXT, allowNull: false, defaultValue: 'expanded-k2' },
         calibrationDue: { type: DataTypes.DATEONLY },
       },
       { sequelize, tableName: 'transmitters', underscored: true },

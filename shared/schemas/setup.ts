@@ -127,6 +127,13 @@ export const configVersionSchema = z.object({
   reason: z.string().trim().min(1, 'is required: say why the configuration changed').max(1000),
 });
 
+/**
+ * What kind of figure a datasheet accuracy is: 'expanded-k2', an expanded uncertainty with k = 2
+ * (GUM §6.2), or 'rectangular-limit', a ± limit taken as rectangular, u = a/√3 (GUM §4.3.7).
+ */
+export const accuracyKinds = ['expanded-k2', 'rectangular-limit'] as const;
+export const accuracyKindField = z.enum(accuracyKinds, { error: `must be one of ${accuracyKinds.join(', ')}` });
+
 export const transmitterSchema = z
   .object({
     meterRunId: recordId('meter run'),
@@ -143,6 +150,8 @@ export const transmitterSchema = z
     accuracyPercentOfSpan: finite('accuracyPercentOfSpan')
       .refine((v) => v > 0 && v < 10, 'must be between 0 and 10 % of span')
       .default(0.075),
+    // Optional so that existing callers keep their shape; the database's default is 'expanded-k2'.
+    accuracyKind: accuracyKindField.optional(),
     calibrationDue: z.iso.date('must be a date YYYY-MM-DD').optional(),
   })
   .superRefine((t, ctx) => {

@@ -43,6 +43,8 @@ export const presentHourlyRecord = (r: HistoryHourlyRecord) => ({
   activeTransmitterTimeS: r.activeTransmitterTimeS,
   computedAt: iso(r.computedAtMs),
   ...presentVersion(r),
+  // Added last (issue 13): each term of U(qm)/qm (k = 2, percent) with where its input comes from.
+  uncertaintyBudget: r.uncertaintyBudget?.map((t) => ({ term: t.name, percent: t.percent, source: t.source })) ?? null,
 });
 
 export const presentRecomputeStatus = (q: RecomputeQueue) => ({

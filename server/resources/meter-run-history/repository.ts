@@ -48,6 +48,18 @@ export interface StoredHourlyRecord extends StoredTotal {
   dpBands: Partial<Record<DpBandName, { timeS: number; massKg: number }>>;
   activeTransmitterTimeS: Record<string, number>;
   computedAtMs: number;
+  /**
+   * The hour's uncertainty budget as stored with it (migration 0022): per term of U(qm)/qm, its share
+   * in percent (k = 2) and its source; null for a record stored before budgets were kept.
+   */
+  uncertaintyBudget: StoredBudgetTerm[] | null;
+}
+
+/** One stored term of an hourly record's uncertainty budget (shared/history/types.ts HourlyRecord). */
+export interface StoredBudgetTerm {
+  name: string;
+  percent: number;
+  source: string;
 }
 
 /** A transmitter of the meter run as a trend shows it (range in its own unit). */
@@ -113,6 +125,7 @@ interface HourlyRecordRow extends TotalRow {
   dp_bands: StoredHourlyRecord['dpBands'];
   active_transmitter_time: Record<string, number>;
   computed_at: Date;
+  uncertainty_budget: StoredBudgetTerm[] | null;
 }
 
 interface TrendTransmitterRow {
@@ -220,7 +233,8 @@ export function meterRunHistoryRepository(pool: Pool): MeterRunHistoryRepository
     async hourlyRecords(meterRunId, fromMs, toMs, limit) {
       const { rows } = await pool.query<HourlyRecordRow>(
         `SELECT ${totalsSource.hour.columns}, average_dp_pa, average_pressure_pa, average_temperature_k, integral_value,
-                integral_multiplier_value, config_version_id::text, dp_bands, active_transmitter_time, computed_at, ${versionColumns}
+                integral_multiplier_value, config_version_id::text, dp_bands, active_transmitter_time, computed_at, uncertainty_budget,
+                ${versionColumns}
            FROM ${withFirstVersion('hour', `t.meter_run_id = $1 AND t.start >= to_timestamp($2 / 1000.0) AND t.start < to_timestamp($3 / 1000.0)`)}
           ORDER BY start LIMIT $4`,
         [meterRunId, fromMs, toMs, limit],
@@ -236,6 +250,7 @@ export function meterRunHistoryRepository(pool: Pool): MeterRunHistoryRepository
         dpBands: r.dp_bands,
         activeTransmitterTimeS: r.active_transmitter_time,
         computedAtMs: r.computed_at.getTime(),
+        uncertaintyBudget: r.uncertainty_budget,
       }));
     },
 

@@ -12,4 +12,6 @@ export const presentTransmitter = (t: TransmitterRecord) => ({
   stackRole: t.stackRole,
   accuracyPercentOfSpan: t.accuracyPercentOfSpan,
   calibrationDue: t.calibrationDue,
+  // Added last (issue 13): whether the accuracy is a k = 2 uncertainty or a ± limit (GUM §4.3.7).
+  accuracyKind: t.accuracyKind,
 });

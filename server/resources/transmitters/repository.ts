@@ -1,5 +1,6 @@
 import { QueryTypes, type Sequelize, type Transaction } from 'sequelize';
 import { MeterRun, Transmitter } from '../../models';
+import type { AccuracyKind } from '../../../shared/uncertainty';
 import type { TransmitterChanges, TransmitterInput } from './schema';
 
 /** A transmitter as stored, as a plain object (ids as decimal strings, range in its own unit). */
@@ -15,6 +16,8 @@ export interface TransmitterRecord {
   stackRole: 'single' | 'low' | 'high';
   accuracyPercentOfSpan: number;
   calibrationDue: string | null;
+  /** What kind of figure the accuracy is: a k = 2 uncertainty or a ± limit (GUM §4.3.7). */
+  accuracyKind: AccuracyKind;
 }
 
 const transmitterRecord = (t: Transmitter): TransmitterRecord => ({
@@ -29,6 +32,7 @@ const transmitterRecord = (t: Transmitter): TransmitterRecord => ({
   stackRole: t.stackRole,
   accuracyPercentOfSpan: t.accuracyPercentOfSpan,
   calibrationDue: t.calibrationDue,
+  accuracyKind: t.accuracyKind,
 });
 
 /** All reads and writes of transmitters. */
@@ -76,6 +80,7 @@ export interface NewRangeVersion {
   lowerRange: number;
   upperRange: number;
   accuracyPercentOfSpan: number;
+  accuracyKind: AccuracyKind;
   effectiveFrom: Date;
   reason: string;
   createdBy: string;
@@ -119,8 +124,9 @@ export function transmitterRepository(sequelize: Sequelize): TransmitterReposito
     async addRangeVersion(transmitterId, v, transaction) {
       const [row] = await sequelize.query<{ id: string }>(
         `INSERT INTO transmitter_range_versions (transmitter_id, effective_from, lower_range, upper_range,
-           accuracy_percent_of_span, created_by, reason)
-         VALUES (:transmitterId, :effectiveFrom, :lowerRange, :upperRange, :accuracyPercentOfSpan, :createdBy, :reason)
+           accuracy_percent_of_span, accuracy_kind, created_by, reason)
+         VALUES (:transmitterId, :effectiveFrom, :lowerRange, :upperRange, :accuracyPercentOfSpan, :accuracyKind,
+                 :createdBy, :reason)
          RETURNING id::text`,
         {
           type: QueryTypes.SELECT,
@@ -130,7 +136,7 @@ export function transmitterRepository(sequelize: Sequelize): TransmitterReposito
       );
       await sequelize.query(
         `UPDATE transmitters t SET lower_range = v.lower_range, upper_range = v.upper_range,
-                accuracy_percent_of_span = v.accuracy_percent_of_span, updated_at = now()
+                accuracy_percent_of_span = v.accuracy_percent_of_span, accuracy_kind = v.accuracy_kind, updated_at = now()
            FROM (SELECT * FROM transmitter_range_versions WHERE transmitter_id = :transmitterId
                   ORDER BY effective_from DESC, id DESC LIMIT 1) AS v
           WHERE t.id = :transmitterId`,
@@ -142,10 +148,10 @@ export function transmitterRepository(sequelize: Sequelize): TransmitterReposito
     async ensureRangeBaseline(transmitterId, transaction) {
       await sequelize.query(
         `INSERT INTO transmitter_range_versions (transmitter_id, effective_from, lower_range, upper_range,
-           accuracy_percent_of_span, reason)
+           accuracy_percent_of_span, accuracy_kind, reason)
          SELECT t.id, least(timestamptz '2000-01-01T00:00:00Z', coalesce((SELECT min(c.effective_from)
                   FROM config_versions c WHERE c.meter_run_id = t.meter_run_id), timestamptz '2000-01-01T00:00:00Z')),
-                t.lower_range, t.upper_range, t.accuracy_percent_of_span,
+                t.lower_range, t.upper_range, t.accuracy_percent_of_span, t.accuracy_kind,
                 'the transmitter as it was before its first dated change'
            FROM transmitters t
           WHERE t.id = :transmitterId AND NOT EXISTS (SELECT 1 FROM transmitter_range_versions WHERE transmitter_id = t.id)`,

@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import { idField } from '../../http/params';
-import { transmitterSchema } from '../../../shared/schemas/setup';
+import { accuracyKindField, transmitterSchema } from '../../../shared/schemas/setup';
 import { datedChangeFields } from '../meter-runs/schema';
 
 /** `GET /api/transmitters[?meterRunId]` */
@@ -11,8 +11,8 @@ export const transmitterBody = transmitterSchema;
 export type TransmitterInput = z.infer<typeof transmitterBody>;
 
 /**
- * `PATCH /api/transmitters/:id`: a re-range, a new accuracy or calibration date. The range and
- * accuracy are dated: a change is a version in force from `effectiveFrom` (default now), with a
+ * `PATCH /api/transmitters/:id`: a re-range, a new accuracy (or kind of accuracy figure) or calibration
+ * date. The range and accuracy with its kind are dated: a change is a version in force from `effectiveFrom` (default now), with a
  * `reason`, and recomputes from then only.
  */
 export const updateTransmitterBody = z
@@ -20,6 +20,7 @@ export const updateTransmitterBody = z
     lowerRange: z.number().optional(),
     upperRange: z.number().optional(),
     accuracyPercentOfSpan: z.number().positive().max(10).optional(),
+    accuracyKind: accuracyKindField.optional(),
     calibrationDue: z.iso.date('must be a date YYYY-MM-DD').nullable().optional(),
     ...datedChangeFields,
   })

@@ -76,6 +76,7 @@ export async function createTransmitter(
           lowerRange: transmitter.lowerRange,
           upperRange: transmitter.upperRange,
           accuracyPercentOfSpan: transmitter.accuracyPercentOfSpan,
+          accuracyKind: transmitter.accuracyKind,
           effectiveFrom: await repository.rangeHistoryStart(transmitter.meterRunId, transaction),
           reason: 'first range',
           createdBy: actor.id,
@@ -180,10 +181,12 @@ function rangeOf(before: TransmitterRecord, changes: TransmitterChanges) {
     lowerRange: changes.lowerRange ?? before.lowerRange,
     upperRange: changes.upperRange ?? before.upperRange,
     accuracyPercentOfSpan: changes.accuracyPercentOfSpan ?? before.accuracyPercentOfSpan,
+    accuracyKind: changes.accuracyKind ?? before.accuracyKind,
   };
   const same =
     range.lowerRange === before.lowerRange &&
     range.upperRange === before.upperRange &&
-    range.accuracyPercentOfSpan === before.accuracyPercentOfSpan;
+    range.accuracyPercentOfSpan === before.accuracyPercentOfSpan &&
+    range.accuracyKind === before.accuracyKind;
   return same ? null : range;
 }
