@@ -312,6 +312,13 @@ export function runRangeCheck(values: RangeCheckValues): { problems: Problems; r
     flowRange: { minimumKgPerS: massFlows[0], normalKgPerS: massFlows[1], maximumKgPerS: massFlows[2] },
     transmitters: transmitters.filter((t): t is NonNullable<typeof t> => t !== null),
     uncertaintyLimitPercent: limit,
+    // The hourly records' budget (diameters, density model, U(C) rules), so the U at a flow here is
+    // the U range health and an hourly record give at that flow, with the meter run's P and T
+    // transmitters when the form was prefilled from one.
+    hourlyBudget: {
+      staticPressureTransmitter: values.budgetTransmitters?.staticPressure,
+      temperatureTransmitter: values.budgetTransmitters?.temperature,
+    },
   };
   try {
     const result = rangeCheck(input);

@@ -21,6 +21,7 @@ import type { Transmitter } from '@/hooks/api/transmitters';
 import type { FluidSpec } from '@/shared/fluids';
 import type { ElementSpec, NozzleType, OrificeTaps, VenturiType } from '@/shared/flow';
 import { fromSI, toSI } from '@/shared/units';
+import type { PointTransmitter } from '@/shared/history/sample-uncertainty';
 import type { RecordedOperatingPoint } from './recordedOperatingPoint';
 
 export interface TransmitterValues {
@@ -74,6 +75,11 @@ export interface RangeCheckValues {
   transmitters: TransmitterValues[];
   /** Expanded (k = 2) flow uncertainty the meter run must meet, %. */
   uncertaintyLimit: string;
+  /**
+   * The prefilled meter run's static pressure and temperature transmitters (spans in Pa and K), which
+   * the hourly records' budget takes in through the density; the form does not edit them.
+   */
+  budgetTransmitters?: { staticPressure?: PointTransmitter; temperature?: PointTransmitter };
 }
 
 /**
@@ -270,6 +276,10 @@ export function prefillFromMeterRun(
     const flowUnit = defaultFlowRateUnit(site.displayUnits, fluid.kind);
     if (flowRateUnit(next.flowUnitKey).basis !== flowUnit.basis) next.flowUnitKey = flowUnit.key;
   }
+  next.budgetTransmitters = {
+    staticPressure: budgetTransmitter(transmitters, 'static-pressure'),
+    temperature: budgetTransmitter(transmitters, 'temperature'),
+  };
   const dp = transmitters
     .filter((t) => t.measures === 'differential-pressure')
     .sort((a, b) => (a.stackRole === 'high' ? -1 : b.stackRole === 'high' ? 1 : 0))
@@ -282,6 +292,21 @@ export function prefillFromMeterRun(
     }));
   }
   return next;
+}
+
+/**
+ * A meter run's P or T transmitter as the hourly budget takes it: span in SI (a difference of two
+ * converted range values, so in K for °F too). The transmitter list does not carry the kind of the
+ * datasheet figure, so it is taken as a k = 2 uncertainty, the set-up's default.
+ */
+function budgetTransmitter(
+  transmitters: readonly Transmitter[],
+  measures: 'static-pressure' | 'temperature',
+): PointTransmitter | undefined {
+  const t = transmitters.find((x) => x.measures === measures);
+  if (!t) return undefined;
+  const span = toSI(t.upperRange, t.unit) - toSI(t.lowerRange, t.unit);
+  return span > 0 ? { accuracyPercentOfSpan: t.accuracyPercentOfSpan, span, accuracyKind: 'expanded-k2' } : undefined;
 }
 
 /**

@@ -3,6 +3,7 @@
  * flow range within the limit, and what low-range span would), then the figures at the
  * minimum, normal and maximum flow, each transmitter's coverage, and the plot.
  */
+import { rangeHealthTextInSiteUnits } from '@/components/meter-runs/rangeHealthText';
 import { useMemo } from 'react';
 import { StyleSheet, View } from 'react-native';
 
@@ -187,7 +188,11 @@ export function RangeCheckResults({ run, displayUnits }: RangeCheckResultsProps)
           testID="range-check-flows"
         />
         <AppText variant="caption" tone="muted">
-          {`β ${result.beta.toFixed(4)}, density ${formatNumber(result.densityKgPerM3)} kg/m³ at the operating conditions. ▼ low: below 10 % of span. ◆: above the ±${formatPlain(limit)} % limit. Flow uncertainty is expanded (k = 2): the element's C and ε from ISO 5167 and the DP transmitter's accuracy as a share of the reading; diameters and density are taken as exact here.`}
+          {`β ${result.beta.toFixed(4)}, density ${formatNumber(result.densityKgPerM3)} kg/m³ at the operating conditions. ▼ low: below 10 % of span. ◆: above the ±${formatPlain(limit)} % limit. Flow uncertainty is expanded (k = 2) and worked with the same budget as the hourly records (ISO 5167-1 §8): C and ε, the pipe and element diameters, the density model, the DP transmitter's accuracy as a share of the reading and, for a meter run picked above, its pressure and temperature transmitters.`}
+        </AppText>
+        <AppText variant="caption" tone="muted" testID="range-check-scope">
+          This check looks at the design range typed above; range health looks at the flow the meter run actually saw in
+          a period. At the same flow both give the same uncertainty.
         </AppText>
       </Panel>
       <Panel title="What each transmitter covers">
@@ -207,7 +212,10 @@ export function RangeCheckResults({ run, displayUnits }: RangeCheckResultsProps)
       {result.warnings.length > 0 ? (
         <Panel title="Warnings from the standard's limits" testID="range-check-warnings">
           {result.warnings.map((w, i) => (
-            <AppText key={`${w.code}-${i}`} style={styles.abnormal}>{`◆ ${w.message}`}</AppText>
+            <AppText
+              key={`${w.code}-${i}`}
+              style={styles.abnormal}
+            >{`◆ ${rangeHealthTextInSiteUnits(w.message, set, displayUnits)}`}</AppText>
           ))}
         </Panel>
       ) : null}

@@ -20,6 +20,7 @@ import {
   type DisplayUnits,
 } from '@/constants/units-display';
 import type { RangeHealth } from '@/hooks/api/rangeHealth';
+import { rangeHealthTextInSiteUnits } from '@/components/meter-runs/rangeHealthText';
 
 const headlines: Record<string, string> = {
   none: 'No change needed',
@@ -94,7 +95,9 @@ export function RangeHealthAdvice({ report, set, displayUnits }: RangeHealthAdvi
   return (
     <Panel title="Recommendation" testID="range-health-advice">
       <Notice title={headlines[recommendation.kind] ?? recommendation.kind} testID="range-health-recommendation">
-        <AppText testID="range-health-recommendation-text">{recommendation.text}</AppText>
+        <AppText testID="range-health-recommendation-text">
+          {rangeHealthTextInSiteUnits(recommendation.text, set, displayUnits)}
+        </AppText>
       </Notice>
       {rows.length ? (
         <View
@@ -118,7 +121,10 @@ export function RangeHealthAdvice({ report, set, displayUnits }: RangeHealthAdvi
         <View style={styles.warnings}>
           <AppText variant="label">From the standard’s limits at these flows</AppText>
           {warnings.map((w) => (
-            <AppText key={`${w.code}-${w.message}`} variant="caption">{`• ${w.message}`}</AppText>
+            <AppText
+              key={`${w.code}-${w.message}`}
+              variant="caption"
+            >{`• ${rangeHealthTextInSiteUnits(w.message, set, displayUnits)}`}</AppText>
           ))}
         </View>
       ) : null}

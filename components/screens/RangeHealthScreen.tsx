@@ -87,6 +87,12 @@ export function RangeHealthScreen({ meterRunId: initialMeterRunId }: { meterRunI
           <AppText testID="range-health-summary">
             {`${run?.tag ?? ''} from ${formatSiteTime(data.from, zone, 'd LLL yyyy HH:mm')} to ${formatSiteTime(data.to, zone, 'd LLL yyyy HH:mm')} ${zoneAbbreviation(zone)}: ${data.hours} hourly records, ${formatNumber(data.flowTimeS / 3600, 4)} h of flow, ${formatNumber(fromSI(data.standardVolumeM3, set.standardVolume.unit))} ${set.standardVolume.label} at base conditions${data.uncertaintyPercent === null ? '' : `, U ±${formatNumber(data.uncertaintyPercent, 3)} % (k = 2)`}.`}
           </AppText>
+          <AppText variant="caption" tone="muted" testID="range-health-scope">
+            This report looks at the flow the meter run actually saw: U is the hourly records' uncertainty weighted by
+            mass, and the recommendation runs the range check at the period's lowest, typical and highest hourly flow
+            with the same budget. The range check screen looks at a design range you type; at the same flow both give
+            the same uncertainty.
+          </AppText>
           {data.flowTimeS > 0 ? (
             <>
               <RangeHealthBands report={data} set={set} />

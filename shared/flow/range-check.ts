@@ -12,6 +12,14 @@ import {
   expansibilityUncertaintyPercent,
 } from '../uncertainty/element-uncertainty';
 import { diameterSensitivities } from '../uncertainty/flow-rate-uncertainty';
+import { expandedAccuracyPercent, type AccuracyKind } from '../uncertainty/transmitter-uncertainty';
+import {
+  DENSITY_MODEL_UNCERTAINTY_PERCENT,
+  ELEMENT_DIAMETER_UNCERTAINTY_PERCENT,
+  PIPE_DIAMETER_UNCERTAINTY_PERCENT,
+  sampleUncertaintyBreakdown,
+  type PointTransmitter,
+} from '../history/sample-uncertainty';
 import { differentialPressureForMassFlow } from './differential-pressure-for-flow';
 import { operatingPointWarnings } from './element-limits';
 import { evaluateFlow, type FlowFluidProperties } from './evaluate-flow';
@@ -26,6 +34,8 @@ export interface RangeCheckTransmitter {
   accuracyPercentOfSpan: number;
   /** Unit the transmitter is ranged in, for the suggested span (default kPa). */
   unit?: string;
+  /** What kind of figure the accuracy is (hourly budget only; 'expanded-k2' when not given). */
+  accuracyKind?: AccuracyKind;
 }
 
 export interface RangeCheckInput {
@@ -40,6 +50,14 @@ export interface RangeCheckInput {
   pipeDiameterPercent?: number;
   elementDiameterPercent?: number;
   densityPercent?: number;
+  /**
+   * Work every flow uncertainty with the hourly records' budget (shared/history/sample-uncertainty.ts
+   * sampleUncertaintyBreakdown): its diameter and density allowances (the three percents above are then
+   * ignored), the transmitters' accuracy kinds, the static pressure and temperature transmitters given
+   * here, and the widening of U(C) outside a calibrated cone's Re_D range. The range check screen and
+   * range health both use it, so at the same flow they give what an hourly record gives.
+   */
+  hourlyBudget?: { staticPressureTransmitter?: PointTransmitter; temperatureTransmitter?: PointTransmitter };
 }
 
 export interface TransmitterAtFlow {
@@ -97,6 +115,12 @@ interface Context {
 /** Expanded flow uncertainty (percent) from everything except the DP transmitter, at a DP. */
 function otherUncertaintyPercent(ctx: Context, dp: number, reynoldsNumber: number): number {
   const { element, input, fluid } = ctx;
+  if (input.hourlyBudget) {
+    // The hourly budget without its DP term (the DP term is added per transmitter).
+    const budget = hourlyBudget(ctx, dp, reynoldsNumber, { spanPa: 1, accuracyPercentOfSpan: 0 });
+    const rest = budget.contributions.filter((c) => c.name !== 'differentialPressure');
+    return Math.sqrt(rest.reduce((a, c) => a + c.percent * c.percent, 0));
+  }
   const uC = dischargeCoefficientUncertaintyPercent({
     kind: element.kind,
     beta: element.beta,
@@ -127,6 +151,34 @@ function otherUncertaintyPercent(ctx: Context, dp: number, reynoldsNumber: numbe
   return Math.sqrt(uC * uC + uEps * uEps + uD * uD + ud * ud + uRho * uRho);
 }
 
+/** The hourly records' budget (sample-uncertainty.ts) at a DP with one transmitter. */
+function hourlyBudget(ctx: Context, dp: number, reynoldsNumber: number, t: RangeCheckTransmitter) {
+  const { element, input, fluid } = ctx;
+  return sampleUncertaintyBreakdown({
+    element,
+    spec: input.element,
+    fluidKind: input.fluid.kind,
+    reynoldsNumber,
+    differentialPressurePa: dp,
+    staticPressurePa: input.conditions.staticPressurePa,
+    isentropicExponent: fluid.isentropicExponent,
+    compressible: fluid.compressible,
+    accuracyPercentOfSpan: t.accuracyPercentOfSpan,
+    spanPa: t.spanPa,
+    accuracyKind: t.accuracyKind,
+    staticPressureTransmitter: input.hourlyBudget?.staticPressureTransmitter,
+    temperatureTransmitter: input.hourlyBudget?.temperatureTransmitter,
+    temperatureK: input.conditions.temperatureK,
+  });
+}
+
+/** The hourly budget's allowances, for callers that show them (the same constants the hourly records use). */
+export const HOURLY_BUDGET_ALLOWANCES_PERCENT = Object.freeze({
+  pipeDiameter: PIPE_DIAMETER_UNCERTAINTY_PERCENT,
+  elementDiameter: ELEMENT_DIAMETER_UNCERTAINTY_PERCENT,
+  density: DENSITY_MODEL_UNCERTAINTY_PERCENT,
+});
+
 /** Flow uncertainty with one transmitter at a DP: the other inputs plus ½ × the reading uncertainty. */
 function flowUncertaintyPercent(
   ctx: Context,
@@ -134,9 +186,21 @@ function flowUncertaintyPercent(
   dp: number,
   reynoldsNumber: number,
 ): { reading: number; flow: number } {
+  if (ctx.input.hourlyBudget && dp > 0) {
+    const budget = hourlyBudget(ctx, dp, reynoldsNumber, t);
+    const dpTerm = budget.contributions.find((c) => c.name === 'differentialPressure');
+    return { reading: dpTerm ? dpTerm.percent / dpTerm.sensitivity : 0, flow: budget.expandedPercent };
+  }
   const reading = dp > 0 ? (t.accuracyPercentOfSpan * t.spanPa) / dp : Infinity;
   const other = otherUncertaintyPercent(ctx, dp, reynoldsNumber);
   return { reading, flow: Math.hypot(other, 0.5 * reading) };
+}
+
+/** The transmitter's accuracy as an expanded (k = 2) figure: converted by its kind in the hourly budget only. */
+function expandedAccuracy(ctx: Context, t: RangeCheckTransmitter): number {
+  return ctx.input.hourlyBudget
+    ? expandedAccuracyPercent(t.accuracyPercentOfSpan, t.accuracyKind ?? 'expanded-k2')
+    : t.accuracyPercentOfSpan;
 }
 
 /** Lowest DP at which a transmitter keeps the flow within the limit, or null (fixed-point on the other uncertainties). */
@@ -217,7 +281,7 @@ export function rangeCheckWithFluid(
 
   const flowAt = (dp: number) => evaluateFlow(element, Math.min(dp, p1 * 0.999999), p1, fluid).massFlowKgPerS;
   const transmitters: TransmitterCoverage[] = input.transmitters.map((t) => {
-    const dpMin = minimumDpWithinLimit(ctx, t.accuracyPercentOfSpan, t.spanPa);
+    const dpMin = minimumDpWithinLimit(ctx, expandedAccuracy(ctx, t), t.spanPa);
     const flowAtFullSpanKgPerS = flowAt(t.spanPa);
     const minimumFlowWithinLimitKgPerS = dpMin !== null && dpMin <= t.spanPa ? flowAt(dpMin) : null;
     return {
@@ -252,11 +316,12 @@ export function rangeCheckWithFluid(
     const dpAtMinimum = flows[0].differentialPressurePa;
     const other = otherUncertaintyPercent(ctx, dpAtMinimum, flows[0].reynoldsNumber);
     if (other < limit) {
-      const spanLimitPa = (dpAtMinimum * Math.sqrt(limit * limit - other * other)) / (0.5 * high.accuracyPercentOfSpan);
+      const spanLimitPa =
+        (dpAtMinimum * Math.sqrt(limit * limit - other * other)) / (0.5 * expandedAccuracy(ctx, high));
       const unit = high.unit ?? 'kPa';
       const value = standardSpanAtOrBelow(fromSI(Math.min(spanLimitPa, high.spanPa), unit));
       const spanPa = toSI(value, unit);
-      const dpMin = minimumDpWithinLimit(ctx, high.accuracyPercentOfSpan, spanPa);
+      const dpMin = minimumDpWithinLimit(ctx, expandedAccuracy(ctx, high), spanPa);
       suggestedLowRangeSpan = {
         value,
         unit,

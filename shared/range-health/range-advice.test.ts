@@ -63,4 +63,12 @@ describe('rangeAdvice', () => {
     expect(a.kind).toBe('re-range');
     expect(a.text).toMatch(/up to/);
   });
+
+  it('says no DP span can meet the limit when the terms other than the DP already exceed it', () => {
+    // As-cast venturi U(C) 0.7 % (ISO 5167-4 [mem]) and a 2 % density allowance (½ × 2 = 1 % on qm):
+    // √(0.7² + 1²) = 1.22 % > 1 % before any DP term, so no span or bore change reaches 1 %.
+    const a = rangeAdvice({ ...base, densityPercent: 2 });
+    expect(a.kind).toBe('change-element');
+    expect(a.text).toMatch(/^No DP span can meet 1 %/);
+  });
 });

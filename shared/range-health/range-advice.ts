@@ -19,6 +19,8 @@ export interface RangeAdviceTransmitter {
   spanPa: number;
   accuracyPercentOfSpan: number;
   unit: string;
+  /** What kind of figure the accuracy is (k = 2, or a ± limit), as the hourly records take it. */
+  accuracyKind?: RangeCheckInput['transmitters'][number]['accuracyKind'];
 }
 
 export interface RangeAdviceInput {
@@ -35,6 +37,8 @@ export interface RangeAdviceInput {
   pipeDiameterPercent: number;
   elementDiameterPercent: number;
   densityPercent: number;
+  /** Work the range check with the hourly records' budget (see RangeCheckInput.hourlyBudget). */
+  hourlyBudget?: RangeCheckInput['hourlyBudget'];
 }
 
 export interface RangeAdvice {
@@ -71,11 +75,17 @@ export function rangeAdvice(input: RangeAdviceInput): RangeAdvice & { rangeCheck
     fluid: input.fluid,
     conditions: input.conditions,
     flowRange: input.flowRange,
-    transmitters: dps.map((t) => ({ spanPa: t.spanPa, accuracyPercentOfSpan: t.accuracyPercentOfSpan, unit: t.unit })),
+    transmitters: dps.map((t) => ({
+      spanPa: t.spanPa,
+      accuracyPercentOfSpan: t.accuracyPercentOfSpan,
+      unit: t.unit,
+      ...(t.accuracyKind ? { accuracyKind: t.accuracyKind } : {}),
+    })),
     uncertaintyLimitPercent: input.uncertaintyLimitPercent,
     pipeDiameterPercent: input.pipeDiameterPercent,
     elementDiameterPercent: input.elementDiameterPercent,
     densityPercent: input.densityPercent,
+    ...(input.hourlyBudget ? { hourlyBudget: input.hourlyBudget } : {}),
   });
   const [minimum, , maximum] = rc.flows;
   const top = dps[0];
@@ -146,6 +156,14 @@ export function rangeAdvice(input: RangeAdviceInput): RangeAdvice & { rangeCheck
       'resize-low-range-transmitter',
       `Resize the low-range transmitter ${low.tag} from 0–${inUnit(low.spanPa, low.unit)} to 0–${suggestion.value} ${suggestion.unit}: the lowest flow gives ${inUnit(minimum.differentialPressurePa, low.unit)}, ${pct(minimum.differentialPressurePa / low.spanPa, 1)} of its span.`,
       { transmitterId: low.id, suggestedSpan: suggestion.value, suggestedSpanUnit: suggestion.unit },
+    );
+  }
+  // No span meets the limit even at full scale: the other terms of the budget (C, the diameters, the
+  // density) already exceed it, so neither a transmitter nor a smaller bore helps; say so plainly.
+  if (rc.transmitters.every((t) => t.minimumFlowWithinLimitKgPerS === null)) {
+    return out(
+      'change-element',
+      `No DP span can meet ${rc.uncertaintyLimitPercent} %: at the lowest flow the uncertainty is ${numbers.flowUncertaintyAtMinimumPercent !== null ? Number(numbers.flowUncertaintyAtMinimumPercent).toFixed(2) : '?'} %, and the terms other than the DP transmitter (discharge coefficient, diameters, density; see the hourly budget) already exceed the limit. A calibrated element with a stated uncertainty, a measured bore, or a wider limit is needed; changing the DP range will not do it.`,
     );
   }
   return out(

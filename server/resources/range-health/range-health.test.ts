@@ -14,6 +14,7 @@ let t: Awaited<ReturnType<typeof testApp>>;
 let token: string;
 let f: Awaited<ReturnType<typeof alarmFixture>>;
 const DAY = Date.parse('2026-10-10T00:00:00Z');
+const STEADY_DAY = Date.parse('2026-10-12T00:00:00Z');
 beforeAll(async () => {
   t = await testApp();
   token = (await t.signedIn('engineer')).token;
@@ -26,6 +27,8 @@ beforeAll(async () => {
     ...repeat(61, 0),
   ];
   await f.writeMinutes(DAY, shares, { dpValue: (_i, share) => share * 50 });
+  // A steady day for the check of issue 13 item 5: six hours at 40 % of span, nothing else.
+  await f.writeMinutes(STEADY_DAY, repeat(6 * 60, 0.4), { dpValue: (_i, share) => share * 50 });
   await t.services.history.settle(120_000);
 }, 180_000);
 afterAll(() => t.close());
@@ -81,6 +84,29 @@ describe('GET /api/meter-runs/:id/range-health', () => {
     expect(res.body.recommendation.kind).toBe('re-range');
     expect(res.body.recommendation.text).toMatch(/up to/);
     expect(res.body.recommendation.numbers.overRangeTimeShare).toBeCloseTo(1 / 23, 9);
+  });
+
+  it('gives the same expanded uncertainty in its range check as its hourly records at the same flow', async () => {
+    // Six hours at one steady DP (20 kPa of a 0–50 kPa span): every hour has the same rate, so the
+    // lowest, typical and highest flow of the recommendation's range check are that rate, and its DP
+    // is the recorded one. Both sides then work one budget (shared/history/sample-uncertainty.ts) at
+    // one operating point, so they must agree; P and T wobble by 5e-5 and 3e-5 relative in the
+    // fixture, which moves U by far less than the 1e-3 % allowed here.
+    const res = await t
+      .http()
+      .get(`/api/meter-runs/${f.meterRunId}/range-health?from=2026-10-12T00:00:00Z&to=2026-10-12T06:00:00Z`)
+      .set('Authorization', `Bearer ${token}`);
+    expect(res.status).toBe(200);
+    const hourlyU = res.body.uncertaintyPercent as number;
+    const flows = res.body.recommendation.rangeCheck.flows as {
+      differentialPressurePa: number;
+      transmitters: { flowUncertaintyPercent: number }[];
+    }[];
+    expect(flows).toHaveLength(3);
+    for (const flow of flows) {
+      expect(flow.differentialPressurePa).toBeCloseTo(20_000, -1);
+      expect(Math.abs(flow.transmitters[0].flowUncertaintyPercent - hourlyU)).toBeLessThan(1e-3);
+    }
   });
 
   it('refuses a window that ends before it starts, naming to', async () => {

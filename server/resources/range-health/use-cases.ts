@@ -8,6 +8,8 @@ import {
   PIPE_DIAMETER_UNCERTAINTY_PERCENT,
 } from '../../../shared/history/sample-uncertainty';
 import { toSI } from '../../../shared/units';
+import { inEffectAt } from '../../../shared/history/dated';
+import type { PointTransmitter } from '../../../shared/history/sample-uncertainty';
 import type { DpBandName } from '../../../shared/history/types';
 import type { MeterRunContext } from '../../history/load-context';
 import type { RangeHealthHour, RangeHealthRepository } from './repository';
@@ -197,6 +199,7 @@ function recommendation(input: {
         stackRole: t.stackRole,
         spanPa: toSI(t.upperRange, t.unit) - toSI(t.lowerRange, t.unit),
         accuracyPercentOfSpan: t.accuracyPercentOfSpan,
+        accuracyKind: rangeAt(t, toMs).accuracyKind,
         unit: t.unit,
       })),
       lowInRangeTimeShare: timeShareOf('0-10'),
@@ -205,6 +208,12 @@ function recommendation(input: {
       pipeDiameterPercent: PIPE_DIAMETER_UNCERTAINTY_PERCENT,
       elementDiameterPercent: ELEMENT_DIAMETER_UNCERTAINTY_PERCENT,
       densityPercent: DENSITY_MODEL_UNCERTAINTY_PERCENT[version.fluid.kind] ?? 0,
+      // The hourly records' own budget, with the P and T transmitters as they stood at the period's
+      // end, so the advice's U at a flow is the U an hourly record at that flow carries.
+      hourlyBudget: {
+        staticPressureTransmitter: pointTransmitterAt(ctx, 'static-pressure', toMs),
+        temperatureTransmitter: pointTransmitterAt(ctx, 'temperature', toMs),
+      },
     });
     const rc = advice.rangeCheck;
     return {
@@ -231,4 +240,23 @@ function recommendation(input: {
       numbers: {},
     };
   }
+}
+
+/** A transmitter's range in force at the last instant before a time (the period's end is exclusive). */
+function rangeAt(t: MeterRunContext['transmitters'][number], atMs: number) {
+  return inEffectAt(t.ranges, atMs - 1);
+}
+
+/** The static pressure or temperature transmitter for the hourly budget, as the history worker builds it. */
+function pointTransmitterAt(
+  ctx: MeterRunContext,
+  measures: 'static-pressure' | 'temperature',
+  atMs: number,
+): PointTransmitter | undefined {
+  const transmitter = ctx.transmitters.find((t) => t.measures === measures);
+  if (!transmitter) return undefined;
+  const range = rangeAt(transmitter, atMs);
+  const span = toSI(range.upperRange, transmitter.unit) - toSI(range.lowerRange, transmitter.unit);
+  if (!(span > 0)) return undefined;
+  return { accuracyPercentOfSpan: range.accuracyPercentOfSpan, span, accuracyKind: range.accuracyKind };
 }
