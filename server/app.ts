@@ -26,6 +26,7 @@ import { readingConflictsRouter } from './resources/reading-conflicts/router';
 import { liveRouter } from './resources/live/router';
 import { alarmsRouter } from './resources/alarms/router';
 import { alarmLimitsRouter } from './resources/alarm-limits/router';
+import { alarmPerformanceRouter } from './resources/alarm-performance/router';
 import { rangeHealthRouter } from './resources/range-health/router';
 import { careDueRouter } from './resources/care-due/router';
 import { reconciliationsRouter } from './resources/reconciliations/router';
@@ -185,6 +186,8 @@ export function createApp(options: AppOptions): Express {
     // Alarms (issue 5): the list and lifecycle, limits per meter run or transmitter, range health.
     ['/alarms', alarmsRouter(services.pool)],
     ['/alarm-limits', alarmLimitsRouter(services.pool)], // new limits apply from the next evaluation (within a minute)
+    // A site's monthly alarm performance against ISA-18.2 (issue 13 item 9): every role reads.
+    ['/alarm-performance', alarmPerformanceRouter(services.pool)],
     ['/meter-runs', rangeHealthRouter(services.pool)],
     // What is due in the care of a site's meters (issue 11 §4): every role reads.
     ['/sites', careDueRouter(services.pool)],

@@ -75,6 +75,7 @@ export function AlarmBanner() {
           {latest ? (
             <AppText numberOfLines={2} testID="alarm-banner-message">
               {`Newest, ${conditionInWords(latest.condition)}: ${latest.message}`}
+              {latest.consequentialCount ? ` (+${latest.consequentialCount} consequential)` : ''}
             </AppText>
           ) : null}
         </View>

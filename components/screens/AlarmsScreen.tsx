@@ -8,7 +8,9 @@ import { router } from 'expo-router';
 import { useEffect, useState } from 'react';
 import { StyleSheet, View } from 'react-native';
 
-import { AlarmRow } from '@/components/alarms/AlarmRow';
+import { AlarmGroupRow } from '@/components/alarms/AlarmGroupRow';
+import { alarmGroupRows } from '@/components/alarms/alarmGroups';
+import { AlarmPerformanceSection } from '@/components/alarms/AlarmPerformanceSection';
 import { AppText } from '@/components/ui/AppText';
 import { Button } from '@/components/ui/Button';
 import { QueryState } from '@/components/ui/QueryState';
@@ -43,6 +45,10 @@ export function AlarmsScreen({ params }: { params: AlarmsScreenParams }) {
   const meterRuns = useMeterRuns();
   const siteById = new Map((sites.data ?? []).map((site) => [site.id, site]));
   const list = alarms.data ?? [];
+  // One row per consequential-alarm group: the first-out, with "+N consequential" under it.
+  const groups = alarmGroupRows(list);
+  const timeZoneOf = (id: string) => siteById.get(id)?.timeZone ?? 'UTC';
+  const site = filters.siteId ? siteById.get(filters.siteId) : undefined;
 
   const change = (next: AlarmFilters) => {
     setFilters(next);
@@ -91,13 +97,8 @@ export function AlarmsScreen({ params }: { params: AlarmsScreenParams }) {
       ) : null}
       <View style={styles.list} role="list" aria-label="Alarms" testID="alarm-list">
         {/* Times are on each site's clock, so rows wait for the sites. */}
-        {(sites.data || sites.error ? list : []).map((alarm) => (
-          <AlarmRow
-            key={alarm.id}
-            alarm={alarm}
-            role={user.role}
-            timeZone={siteById.get(alarm.siteId)?.timeZone ?? 'UTC'}
-          />
+        {(sites.data || sites.error ? groups : []).map((group) => (
+          <AlarmGroupRow key={group.firstOut.id} group={group} role={user.role} timeZoneOf={timeZoneOf} />
         ))}
       </View>
       {list.length >= listLimit ? (
@@ -106,6 +107,13 @@ export function AlarmsScreen({ params }: { params: AlarmsScreenParams }) {
           tone="muted"
         >{`Only the newest ${listLimit} are listed: narrow the filter to see older ones.`}</AppText>
       ) : null}
+      {filters.siteId ? (
+        <AlarmPerformanceSection siteId={filters.siteId} siteName={site?.name ?? `site ${filters.siteId}`} />
+      ) : (
+        <AppText variant="caption" tone="muted" testID="alarm-performance-hint">
+          Choose a site in the filter to see its monthly alarm performance against the ISA-18.2 benchmarks.
+        </AppText>
+      )}
     </Screen>
   );
 }

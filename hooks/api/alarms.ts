@@ -39,6 +39,13 @@ export const alarmSchema = z.object({
   shelveReason: z.string().nullable(),
   activations: z.number(),
   message: z.string(),
+  /**
+   * The consequential-alarm group (ISA-18.2 first-out), on list reads only: the first-out's id,
+   * the first-out this alarm falls under (null on a first-out), how many fall under a first-out.
+   */
+  groupId: id.optional(),
+  firstOutId: id.nullable().optional(),
+  consequentialCount: z.number().optional(),
 });
 export type Alarm = z.infer<typeof alarmSchema>;
 
@@ -126,21 +133,28 @@ export function useAlarmCounts() {
   });
 }
 
+/** How many of the newest unacknowledged alarms the banner reads to find the newest one's group. */
+const newestGroupReach = 50;
+
 /**
  * @param enabled ask only while there is something unacknowledged
- * @returns the newest unacknowledged alarm (for its message in the banner), or null
+ * @returns the first-out of the newest unacknowledged alarm's group (for its message in the banner), or null
  */
 export function useNewestUnacknowledgedAlarm(enabled: boolean) {
   return useQuery({
     queryKey: alarmKeys.newest(),
     queryFn: async ({ signal }) => {
+      // Enough of the newest to hold the newest one's group: the banner shows that group's first-out
+      // (whose consequentialCount counts the unacknowledged alarms raised under it).
       const list = await apiRequest({
         path: '/alarms',
-        query: { state: unacknowledgedStates.join(','), limit: 1 },
+        query: { state: unacknowledgedStates.join(','), limit: newestGroupReach },
         schema: z.array(alarmSchema),
         signal,
       });
-      return list[0] ?? null;
+      const newest = list[0];
+      if (!newest) return null;
+      return list.find((a) => a.id === (newest.firstOutId ?? newest.id)) ?? newest;
     },
     enabled,
     refetchInterval: alarmPollMs,
@@ -169,7 +183,8 @@ export function useAlarmEvents(alarmId: string, enabled: boolean) {
  */
 export function setAlarmInLists(queryClient: QueryClient, alarm: Alarm): void {
   queryClient.setQueriesData<Alarm[]>({ queryKey: [...alarmKeys.all, 'list'] }, (list) =>
-    list?.map((item) => (item.id === alarm.id ? alarm : item)),
+    // An action answers with the alarm alone: its place in a group is kept from the list.
+    list?.map((item) => (item.id === alarm.id ? { ...item, ...alarm } : item)),
   );
 }
 

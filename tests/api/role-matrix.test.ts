@@ -88,6 +88,8 @@ const expected: Record<string, Who[] | typeof PUBLIC> = {
   'POST /api/alarms/:id/unshelve': ['operator', 'engineer', 'admin'],
   'POST /api/alarms/:id/out-of-service': ['engineer', 'admin'],
   'POST /api/alarms/:id/return-to-service': ['engineer', 'admin'],
+  // monthly alarm performance per site (issue 13 item 9): every role reads
+  'GET /api/alarm-performance': everyone,
   // alarm limits are part of a meter run's configuration: engineer and admin change them; all read
   'GET /api/alarm-limits': everyone,
   'POST /api/alarm-limits': ['engineer', 'admin'],

@@ -1,5 +1,5 @@
 import type { AlarmEventRecord, AlarmRecord } from './repository';
-import type { AlarmWithEvents } from './use-cases';
+import type { AlarmWithEvents, GroupedAlarm, GroupedAlarmWithEvents } from './use-cases';
 
 /** The API shape of an alarm (DESIGN.md "Interfaces"), plus what the alarm list and history screens use. */
 const isoOrNull = (d: Date | null) => (d ? d.toISOString() : null);
@@ -49,7 +49,18 @@ export function presentAlarmWithEvents(a: AlarmWithEvents) {
   return { ...presentAlarm(a), events: a.events.map(presentAlarmEvent) };
 }
 
-/** A list, each alarm with its log when the list was read with its events. */
-export function presentAlarmList(list: AlarmRecord[] | AlarmWithEvents[]) {
-  return list.map((a) => ('events' in a ? presentAlarmWithEvents(a) : presentAlarm(a)));
+/** Where an alarm stands in its consequential-alarm group (ISA-18.2 first-out). */
+const presentGrouping = (a: GroupedAlarm) => ({
+  groupId: a.groupId,
+  firstOutId: a.firstOutId,
+  consequentialCount: a.consequentialCount,
+});
+
+/** A list, each alarm with its log when the list was read with its events, and its group. */
+export function presentAlarmList(list: GroupedAlarm[] | GroupedAlarmWithEvents[]) {
+  return list.map((a) =>
+    'events' in a
+      ? { ...presentAlarm(a), ...presentGrouping(a), events: a.events.map(presentAlarmEvent) }
+      : { ...presentAlarm(a), ...presentGrouping(a) },
+  );
 }

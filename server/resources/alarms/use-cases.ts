@@ -2,6 +2,7 @@ import { AppError, notFound } from '../../errors';
 import { AlarmTransitionError } from '../../../shared/alarms/alarm-lifecycle';
 import type { AlarmPriority, AlarmState } from '../../../shared/alarms/alarm-codes';
 import type { Actor } from '../../alarms/alarm-store';
+import { groupConsequential, type AlarmGrouping } from '../../../shared/alarms/alarm-performance';
 import type {
   AlarmEventRecord,
   AlarmFilter,
@@ -18,22 +19,28 @@ const FLOOD_MORE_THAN = 10;
 const UNACKNOWLEDGED: readonly AlarmState[] = ['active-unacknowledged', 'returned-unacknowledged'];
 
 export type AlarmWithEvents = AlarmRecord & { events: AlarmEventRecord[] };
+export type GroupedAlarm = AlarmRecord & AlarmGrouping;
+export type GroupedAlarmWithEvents = AlarmWithEvents & AlarmGrouping;
 
 /**
- * The alarms matching a filter, newest first.
+ * The alarms matching a filter, newest first, each with its consequential-alarm group
+ * (shared/alarms/alarm-performance.ts groupConsequential: same site, same condition family, raised
+ * within 2 minutes of the first-out). Grouping is worked out at read time over the alarms listed.
  * @param withEvents also read each alarm's log (the history screen shows them together)
  */
 export async function listAlarms(
   repository: AlarmsRepository,
   filter: AlarmFilter,
   withEvents: boolean,
-): Promise<AlarmRecord[] | AlarmWithEvents[]> {
+): Promise<GroupedAlarm[] | GroupedAlarmWithEvents[]> {
   const alarms = await repository.list(filter);
-  if (!withEvents || !alarms.length) return alarms;
+  const groups = groupConsequential(alarms);
+  const grouped = alarms.map((a) => ({ ...a, ...groups.get(a.id)! }));
+  if (!withEvents || !alarms.length) return grouped;
   const byAlarm = new Map<string, AlarmEventRecord[]>();
   for (const e of await repository.events(alarms.map((a) => a.id)))
     byAlarm.set(e.alarmId, [...(byAlarm.get(e.alarmId) ?? []), e]);
-  return alarms.map((a) => ({ ...a, events: byAlarm.get(a.id) ?? [] }));
+  return grouped.map((a) => ({ ...a, events: byAlarm.get(a.id) ?? [] }));
 }
 
 /** For the banner on every screen: open alarms, how many wait for acknowledgement, by priority, and a flood. */
