@@ -6,7 +6,16 @@
  */
 import crypto from 'node:crypto';
 import { client, createMeterRun, signIn as apiSignIn, type Client } from '../support/api';
-import { baseUrl, demoEmail, freshPage, launchBrowser, openWith, signIn, type TestBrowser } from './support';
+import {
+  baseUrl,
+  demoEmail,
+  freshPage,
+  launchBrowser,
+  openWith,
+  screenshotWhenSettled,
+  signIn,
+  type TestBrowser,
+} from './support';
 
 jest.setTimeout(120_000);
 
@@ -83,7 +92,7 @@ describe('the element care panels of the meter-run set-up screen', () => {
     await line.screenshot({ path: '/tmp/shots-helperA/gas-analysis-line-phone.png' });
     await page.screenshot({ path: '/tmp/shots-helperA/setup-phone.png' });
     await page.setViewportSize({ width: 1440, height: 900 });
-    await panel.screenshot({ path: '/tmp/shots-helperA/gas-analyses-desktop.png' });
-    await page.getByTestId('inspections').screenshot({ path: '/tmp/shots-helperA/inspections-desktop.png' });
+    await screenshotWhenSettled(panel, '/tmp/shots-helperA/gas-analyses-desktop.png');
+    await screenshotWhenSettled(page.getByTestId('inspections'), '/tmp/shots-helperA/inspections-desktop.png');
   });
 });

@@ -164,3 +164,21 @@ export async function openWith(button: Locator, opened: Locator, timeoutMs = 30_
     }
   }
 }
+
+/**
+ * Takes an element's screenshot for people to look at, after a layout change (a viewport resize
+ * re-renders the screen for the other breakpoint, so the element found a moment ago may be replaced):
+ * waits for it and tries again while it is being replaced. A screenshot is evidence, not an
+ * assertion, so the last failure is the only one that counts.
+ */
+export async function screenshotWhenSettled(element: Locator, path: string, attempts = 5): Promise<void> {
+  for (let attempt = 1; ; attempt++) {
+    try {
+      await element.waitFor();
+      await element.screenshot({ path, timeout: 10_000 });
+      return;
+    } catch (err) {
+      if (attempt >= attempts) throw err;
+    }
+  }
+}
