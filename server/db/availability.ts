@@ -78,13 +78,19 @@ export function logConnectionError(what: string) {
  */
 export class DatabaseMonitor extends EventEmitter {
   private state: 'up' | 'down' = 'up';
+  /** Failed probes in a row: one slow probe on a busy machine is not an outage, two are. */
+  private failuresInRow = 0;
   private timer: ReturnType<typeof setTimeout> | null = null;
   private readonly pool: Pool;
   private stopped = false;
 
   constructor(
     databaseUrl: string,
-    private readonly options: { intervalMs: number; timeoutMs: number } = { intervalMs: 1000, timeoutMs: 1500 },
+    private readonly options: { intervalMs: number; timeoutMs: number; failuresToDown: number } = {
+      intervalMs: 1000,
+      timeoutMs: 3000,
+      failuresToDown: 2,
+    },
   ) {
     super();
     this.pool = new Pool({
@@ -118,10 +124,13 @@ export class DatabaseMonitor extends EventEmitter {
     let next: 'up' | 'down';
     try {
       await this.pool.query('SELECT 1');
+      this.failuresInRow = 0;
       next = 'up';
     } catch (err) {
-      next = 'down';
-      if (this.state === 'up') log.error({ err: { message: (err as Error).message } }, 'the database is down');
+      this.failuresInRow++;
+      next = this.failuresInRow >= this.options.failuresToDown ? 'down' : this.state;
+      if (next === 'down' && this.state === 'up')
+        log.error({ err: { message: (err as Error).message } }, 'the database is down');
     }
     if (next !== this.state) {
       this.state = next;
