@@ -22,6 +22,7 @@ describe('recordFlag', () => {
         'outside-calibration-range',
         'outside-standard-limits',
         'over-range',
+        'reverse-flow',
       ].sort(),
     );
   });

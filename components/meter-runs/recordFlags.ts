@@ -21,13 +21,19 @@ const known: Record<string, RecordFlag> = {
   },
   'over-range': {
     label: 'Over range',
-    shape: '▲',
+    shape: '↑',
     level: 'attention',
     meaning: 'DP went above the transmitter’s upper range value.',
   },
+  'reverse-flow': {
+    label: 'Reverse flow',
+    shape: '⇄',
+    level: 'attention',
+    meaning: 'DP showed flow in reverse on a one-way meter run; that time counts as no flow, not as forward flow.',
+  },
   'outside-standard-limits': {
     label: 'Outside standard limits',
-    shape: '◆',
+    shape: '⬡',
     level: 'attention',
     meaning: 'Reynolds number, pressure ratio or geometry outside the standard’s limits.',
   },

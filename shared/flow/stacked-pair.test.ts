@@ -81,3 +81,39 @@ describe('chooseStackedTransmitter', () => {
     );
   });
 });
+
+describe('chooseStackedTransmitter on a pair ranged both ways (a bi-directional meter run)', () => {
+  /** Low −25…+25 kPa, high −250…+250 kPa: the same switch points apply to the magnitude. */
+  const twoWay: StackedPairConfig = { ...config, lowLowerRangePa: -25000 };
+
+  it('switches up on a reverse reading whose magnitude passes 90 % of the low range: |−23 kPa| > 22.5 kPa, keeping the signed DP', () => {
+    const c = chooseStackedTransmitter(good(-23000), good(-23100), 'low', twoWay);
+    expect(c).toEqual(expect.objectContaining({ use: 'high', reason: 'switched-up', differentialPressurePa: -23100 }));
+    expect(c.disagreementPa).toBe(-100); // high − low, signed
+  });
+
+  it('stays on the low-range transmitter at |−21 kPa| (84 % of 25 kPa) from start-up', () => {
+    const c = chooseStackedTransmitter(good(-21000), good(-21100), null, twoWay);
+    expect(c).toEqual(
+      expect.objectContaining({ use: 'low', reason: 'low-below-switch-up', differentialPressurePa: -21000 }),
+    );
+  });
+
+  it('switches down when the high-range magnitude falls below 80 %: |−19 kPa| < 20 kPa', () => {
+    const c = chooseStackedTransmitter(good(-18900), good(-19000), 'high', twoWay);
+    expect(c).toEqual(expect.objectContaining({ use: 'low', reason: 'switched-down', differentialPressurePa: -18900 }));
+  });
+
+  it('treats a reverse reading beyond the low range (−26 kPa) as over range and uses the high-range one', () => {
+    const c = chooseStackedTransmitter(good(-26000), good(-26100), 'low', twoWay);
+    expect(c.use).toBe('high');
+    expect(c.lowOverRange).toBe(true);
+  });
+
+  it('judges a reverse reading on its own side of an asymmetric range: −9.5 kPa is 95 % of a −10 kPa lower range value, so it switches up', () => {
+    const asymmetric: StackedPairConfig = { ...config, lowLowerRangePa: -10000 };
+    // The share 9.5/10 = 0.95 > 0.9; 9.5 kPa would be only 38 % of the forward 25 kPa.
+    expect(chooseStackedTransmitter(good(-9500), good(-9600), 'low', asymmetric).use).toBe('high');
+    expect(chooseStackedTransmitter(good(-8500), good(-8600), null, asymmetric).use).toBe('low');
+  });
+});

@@ -3,6 +3,9 @@
  * one meter run), with hysteresis so the choice does not chatter at the switch point: switch up
  * to the high-range transmitter when the reading in use rises above a share of the low-range
  * span (e.g. 90 %), back down when it falls below a lower share (e.g. 80 %) (common practice).
+ * A pair ranged both ways (the low-range transmitter's lower range value below zero, e.g. −25…+25
+ * kPa, on a bi-directional meter run) chooses on the magnitude: a reverse reading's share is
+ * |Δp| / |lower range value|, a forward one's Δp / upper range value.
  */
 import { formatNumber } from './element-limits';
 
@@ -16,7 +19,7 @@ export interface StackedReading {
 }
 
 export interface StackedPairConfig {
-  /** Range of the low-range transmitter, Pa (lower range value usually 0). */
+  /** Range of the low-range transmitter, Pa (lower range value usually 0; below 0 when ranged both ways). */
   lowLowerRangePa?: number;
   lowUpperRangePa: number;
   /** Upper range value of the high-range transmitter, Pa. */
@@ -71,11 +74,16 @@ export function chooseStackedTransmitter(
   previous: StackedRole | null,
   config: StackedPairConfig,
 ): StackedPairChoice {
-  const lrv = config.lowLowerRangePa ?? 0;
+  const twoWay = (config.lowLowerRangePa ?? 0) < 0;
+  const lrv = twoWay ? 0 : (config.lowLowerRangePa ?? 0);
   const span = config.lowUpperRangePa - lrv;
   if (!(span > 0))
     throw new Error(
       `chooseStackedTransmitter: config.lowUpperRangePa must exceed lowLowerRangePa (got ${config.lowUpperRangePa})`,
+    );
+  if (twoWay && !(config.lowUpperRangePa > 0))
+    throw new Error(
+      `chooseStackedTransmitter: config.lowUpperRangePa must be > 0 for a pair ranged both ways (got ${config.lowUpperRangePa})`,
     );
   if (!(config.highUpperRangePa > config.lowUpperRangePa)) {
     throw new Error(
@@ -89,9 +97,14 @@ export function chooseStackedTransmitter(
   }
   const upPa = lrv + config.switchUpShare * span;
   const downPa = lrv + config.switchDownShare * span;
+  // Ranged both ways, a reading is compared by its share of the low-range transmitter's range on
+  // its side, expressed on the forward side (|Δp| × upper / |lower| for a reverse reading), so a
+  // symmetric pair compares |Δp|; one-way readings are compared as they are.
+  const reverseScale = twoWay ? config.lowUpperRangePa / -(config.lowLowerRangePa as number) : 1;
+  const magnitudeOf = (valuePa: number) => (twoWay && valuePa < 0 ? -valuePa * reverseScale : valuePa);
   const lowOk = usable(low);
   const highOk = usable(high);
-  const lowOverRange = lowOk && low.valuePa > config.lowUpperRangePa;
+  const lowOverRange = lowOk && magnitudeOf(low.valuePa) > config.lowUpperRangePa;
   const pct = (share: number) => `${formatNumber(share * 100)} %`;
 
   const base = { inOverlap: false, disagreementPa: null, disagreementPercentOfReading: null, lowOverRange } as const;
@@ -116,12 +129,12 @@ export function chooseStackedTransmitter(
       message: `high-range reading missing or bad: using the low-range transmitter (${formatNumber(lowValue)} Pa${lowOverRange ? ', above its upper range value, so flow is understated' : ''})`,
     };
   }
-  const highValue = high.valuePa;
+  const highValue = magnitudeOf(high.valuePa);
   if (!lowOk || lowOverRange) {
     return {
       ...base,
       use: 'high',
-      differentialPressurePa: highValue,
+      differentialPressurePa: high.valuePa,
       reason: lowOk ? (previous === 'high' ? 'high-above-switch-down' : 'switched-up') : 'low-unavailable',
       switched: previous === 'low',
       message: lowOk
@@ -130,7 +143,7 @@ export function chooseStackedTransmitter(
     };
   }
   // Both usable, low inside its range: the overlap, where the two should agree.
-  const lowValue = low.valuePa;
+  const lowValue = magnitudeOf(low.valuePa);
   let use: StackedRole;
   let reason: StackedChoiceReason;
   let message: string;
@@ -153,8 +166,8 @@ export function chooseStackedTransmitter(
     reason = 'low-below-switch-up';
     message = `low-range reading ${formatNumber(lowValue)} Pa is at or below ${pct(config.switchUpShare)} of its span (${formatNumber(upPa)} Pa): using the low-range transmitter`;
   }
-  const used = use === 'low' ? lowValue : highValue;
-  const disagreementPa = highValue - lowValue;
+  const used = use === 'low' ? low.valuePa : high.valuePa;
+  const disagreementPa = high.valuePa - low.valuePa;
   return {
     use,
     differentialPressurePa: used,

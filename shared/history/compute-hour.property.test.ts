@@ -173,3 +173,81 @@ describe('computeHour additivity (counterexamples found by fast-check)', () => {
     expect(whole.finalStackChoice).toBe(second.finalStackChoice);
   });
 });
+
+describe('computeHour additivity with reverse flow (fast-check)', () => {
+  // Signed whole pascals: forward and reverse readings on transmitters ranged both ways.
+  const signedDp = fc.oneof(fc.constant(0), fc.integer({ min: -60000, max: 60000 }));
+  const twoWayScenario = fc.record({
+    low: series(signedDp, 20, 120),
+    high: series(signedDp, 20, 120),
+    stacked: fc.boolean(),
+    pressure: series(fc.double({ min: 3e5, max: 8e5, noNaN: true }), 5, 40),
+    temperature: series(fc.double({ min: 280, max: 350, noNaN: true }), 5, 40),
+    direction: series(fc.constantFrom(-1, 0, 1), 3, 40),
+    holdLimitS: fc.integer({ min: 30, max: 3600 }),
+    maxGapS: fc.integer({ min: 5, max: 900 }),
+    /** 'one-way': no reverseElement (reverse time flagged, not flow); else the direction source. */
+    mode: fc.constantFrom<'one-way' | 'dp-sign' | 'direction-input'>('one-way', 'dp-sign', 'direction-input'),
+  });
+  type TwoWayScenario = typeof twoWayScenario extends fc.Arbitrary<infer T> ? T : never;
+
+  function twoWayInputs(s: TwoWayScenario, startMs: number, endMs: number, initialStackChoice?: 'low' | 'high') {
+    const base = inputsFor({ ...s, versionChangeS: undefined }, startMs, endMs, initialStackChoice);
+    const reverseElement: ElementSpec = { ...VENTURI_150, dischargeCoefficient: 0.95 };
+    const inputs: HourInputs = {
+      ...base,
+      dp: base.dp.map((d) => ({ ...d, lowerRangePa: -d.upperRangePa })),
+      direction: s.direction,
+      configVersions: [
+        s.mode === 'one-way'
+          ? { id: 'v1', effectiveFromMs: 0, element: VENTURI_150, fluid: WATER }
+          : {
+              id: 'v1',
+              effectiveFromMs: 0,
+              element: VENTURI_150,
+              fluid: WATER,
+              reverseElement,
+              directionSource: s.mode,
+            },
+      ],
+    };
+    return inputs;
+  }
+
+  it('gives the same forward and reverse mass, volumes, flow times and covered time for a 2-hour period as for its two hours computed apart', () => {
+    let withReverse = 0;
+    let flagged = 0;
+    fc.assert(
+      fc.property(twoWayScenario, (s) => {
+        const whole = computeHour(twoWayInputs(s, START_MS, START_MS + 2 * HOUR_MS));
+        const first = computeHour(twoWayInputs(s, START_MS, START_MS + HOUR_MS));
+        const second = computeHour(
+          twoWayInputs(s, START_MS + HOUR_MS, START_MS + 2 * HOUR_MS, first.finalStackChoice ?? undefined),
+        );
+        expect(close(whole.massKg, first.massKg + second.massKg)).toBe(true);
+        expect(close(whole.volumeM3, first.volumeM3 + second.volumeM3)).toBe(true);
+        expect(whole.flowTimeS).toBeCloseTo(first.flowTimeS + second.flowTimeS, 9);
+        expect(coveredS(whole, 7200)).toBeCloseTo(coveredS(first, 3600) + coveredS(second, 3600), 6);
+        if (s.mode === 'one-way') {
+          expect(whole.reverse).toBeNull();
+          expect(whole.flags.includes('reverse-flow')).toBe(
+            first.flags.includes('reverse-flow') || second.flags.includes('reverse-flow'),
+          );
+          if (whole.flags.includes('reverse-flow')) flagged++;
+        } else {
+          const [w, a, b] = [whole.reverse, first.reverse, second.reverse];
+          if (!w || !a || !b) throw new Error('a bi-directional record carries a reverse part');
+          expect(close(w.massKg, a.massKg + b.massKg)).toBe(true);
+          expect(close(w.volumeM3, a.volumeM3 + b.volumeM3)).toBe(true);
+          expect(close(w.standardVolumeM3, a.standardVolumeM3 + b.standardVolumeM3)).toBe(true);
+          expect(w.flowTimeS).toBeCloseTo(a.flowTimeS + b.flowTimeS, 9);
+          expect(whole.flags).not.toContain('reverse-flow');
+          if (w.massKg > 0) withReverse++;
+        }
+      }),
+      { numRuns: 200 },
+    );
+    expect(withReverse).toBeGreaterThan(40);
+    expect(flagged).toBeGreaterThan(20);
+  });
+});

@@ -31,6 +31,20 @@
  * setting, site setting) takes effect, and stores one record per part. Called over a span with
  * several versions, computeHour still splits internally per version and reports ONE record
  * flagged 'config-changed', whose configVersionId is the version in effect at the end.
+ *
+ * Direction of flow (a piece at a time). A version with reverseElement is bi-directional: with
+ * directionSource 'dp-sign' (the default) a negative DP is reverse flow; with 'direction-input'
+ * the DP transmitters read magnitude and the direction input's latest usable sample, held for
+ * holdLimitS like P and T (its times cut the pieces too), says which way (> 0 forward, < 0
+ * reverse, 0 no flow; none in force: missing time while the DP is above the cutoff). Reverse
+ * flow is evaluated with the reverse element (prepared once per version like the forward one)
+ * and summed apart, as the record's `reverse` part; the record's own figures are forward flow.
+ * On a one-way version (no reverseElement), reverse DP beyond the cutoff, or a direction input
+ * saying reverse, is not flow: valid time with forward flow known to be zero, flagged
+ * 'reverse-flow'. A DP transmitter ranged below zero reads both ways: its share of span in a
+ * direction is Δp / upper range value forward and |Δp| / |lower range value| in reverse; one
+ * ranged from ≥ 0 keeps (Δp − lower) / span. The cutoff, low-in-range, over-range and the DP
+ * bands use the direction's share; the stated accuracy stays a percent of upper − lower.
  */
 import { dpSelector } from './dp-selector';
 import { addFlowingInterval, dpBandOf, emptyHourSums, hourlyRecordFromSums } from './hour-sums';
@@ -38,6 +52,40 @@ import { evaluateOperatingPoint, type OperatingPoint } from './operating-point';
 import { prepareConfigVersion, type PreparedConfigVersion } from './prepared-config-version';
 import { isUsableSample, sampleCursor } from './sample-cursor';
 import type { DpSeries, HourInputs, HourlyRecord, Sample } from './types';
+
+type Direction = 'forward' | 'reverse';
+
+/** A DP reading in the direction it says, as a share of the transmitter's range on that side. */
+export interface DirectionalReading {
+  direction: Direction;
+  /** |Δp| in the direction of flow, Pa. */
+  magnitudePa: number;
+  /** Share of the range on that side (may be ≤ 0 for a one-way transmitter reading below its lower range value). */
+  share: number;
+  overRange: boolean;
+}
+
+/**
+ * @param series the DP transmitter in use
+ * @param dpPa its reading, Pa
+ * @returns the reading's direction by its sign, magnitude and share of the range on that side
+ */
+export function directionalReading(series: DpSeries, dpPa: number): DirectionalReading {
+  if (series.lowerRangePa < 0 && dpPa < 0) {
+    const magnitudePa = -dpPa;
+    return {
+      direction: 'reverse',
+      magnitudePa,
+      share: magnitudePa / -series.lowerRangePa,
+      overRange: magnitudePa > -series.lowerRangePa,
+    };
+  }
+  const share =
+    series.lowerRangePa < 0
+      ? dpPa / series.upperRangePa
+      : (dpPa - series.lowerRangePa) / (series.upperRangePa - series.lowerRangePa);
+  return { direction: 'forward', magnitudePa: dpPa, share, overRange: dpPa > series.upperRangePa };
+}
 
 /**
  * Default no-flow cutoff (a dated meter-run setting since issue 9, `noFlowCutoffShare`): a DP
@@ -76,8 +124,18 @@ function checkInputs(inputs: HourInputs): void {
       `computeHour: base.pressurePa and base.temperatureK must be > 0 (got ${inputs.base?.pressurePa}, ${inputs.base?.temperatureK})`,
     );
   }
+  if (inputs.direction !== undefined && !Array.isArray(inputs.direction))
+    throw new Error(`computeHour: direction must be an array of samples (got ${typeof inputs.direction})`);
   inputs.configVersions.forEach((v, i) => {
     finite(v.effectiveFromMs, `configVersions.${i}.effectiveFromMs`);
+    if (v.directionSource !== undefined && v.reverseElement === undefined)
+      throw new Error(
+        `computeHour: configVersions.${i}.directionSource needs reverseElement (a bi-directional meter run)`,
+      );
+    if (v.directionSource !== undefined && v.directionSource !== 'dp-sign' && v.directionSource !== 'direction-input')
+      throw new Error(
+        `computeHour: configVersions.${i}.directionSource must be 'dp-sign' or 'direction-input' (got ${String(v.directionSource)})`,
+      );
     if (i > 0 && v.effectiveFromMs < inputs.configVersions[i - 1].effectiveFromMs) {
       throw new Error(`computeHour: configVersions must be sorted by effectiveFromMs (${i} is earlier than ${i - 1})`);
     }
@@ -115,6 +173,7 @@ function pieceBoundaries(inputs: HourInputs, elapsedEndMs: number): Float64Array
     addSeriesTimes(times, series.samples, inputs.maxGapS * 1000, startMs, elapsedEndMs, false);
   addSeriesTimes(times, inputs.staticPressure, inputs.holdLimitS * 1000, startMs, elapsedEndMs, true);
   addSeriesTimes(times, inputs.temperature, inputs.holdLimitS * 1000, startMs, elapsedEndMs, true);
+  if (inputs.direction) addSeriesTimes(times, inputs.direction, inputs.holdLimitS * 1000, startMs, elapsedEndMs, true);
   for (const v of inputs.configVersions)
     if (v.effectiveFromMs > startMs && v.effectiveFromMs < elapsedEndMs) times.push(v.effectiveFromMs);
   const sorted = Float64Array.from(times).sort();
@@ -143,13 +202,25 @@ export function computeHour(inputs: HourInputs): HourlyRecord {
   });
   const pressures = sampleCursor(inputs.staticPressure, 'staticPressure');
   const temperatures = sampleCursor(inputs.temperature, 'temperature');
+  const directions = inputs.direction ? sampleCursor(inputs.direction, 'direction') : null;
   const prepared: (PreparedConfigVersion | undefined)[] = [];
+  const preparedReverse: (PreparedConfigVersion | null | undefined)[] = [];
   const sums = emptyHourSums();
+  // Reverse flow of a bi-directional version, kept apart from the forward sums.
+  const reverseSums = emptyHourSums();
+  let bidirectionalSeen = false;
   let versionIndex = -1;
   let lastVersionId: string | null = null;
   // The previous piece's operating point and what it was computed from (reused when unchanged).
   let lastPoint: OperatingPoint | null = null;
-  let lastKey: [DpSeries | null, Sample | null, Sample | null, Sample | null, number] = [null, null, null, null, -1];
+  let lastKey: [DpSeries | null, Sample | null, Sample | null, Sample | null, number, Direction | null] = [
+    null,
+    null,
+    null,
+    null,
+    -1,
+    null,
+  ];
 
   const boundaries = pieceBoundaries(inputs, elapsedEndMs);
   for (let k = 0; k < boundaries.length; k++) {
@@ -160,9 +231,12 @@ export function computeHour(inputs: HourInputs): HourlyRecord {
       versionIndex++;
     const version =
       versionIndex >= 0 ? (prepared[versionIndex] ??= prepareConfigVersion(configVersions[versionIndex], base)) : null;
+    const reverseVersion =
+      versionIndex >= 0 ? (preparedReverse[versionIndex] ??= prepareReverse(configVersions, versionIndex, base)) : null;
     if (version) {
       sums.versionIds.add(version.id);
       lastVersionId = version.id;
+      if (reverseVersion) bidirectionalSeen = true;
       if (version.energy.kind === 'standard-volume' && version.energy.unconfirmedComponents.length > 0)
         sums.flags.add('energy-data-unconfirmed');
       if (version.energy.kind === 'none') {
@@ -181,9 +255,36 @@ export function computeHour(inputs: HourInputs): HourlyRecord {
     if (dpSample.quality === 'substituted') sums.flags.add('substituted');
     const dpPa = dpSample.value;
     const spanPa = series.upperRangePa - series.lowerRangePa;
-    const share = (dpPa - series.lowerRangePa) / spanPa;
-    if (dpPa <= 0 || share < noFlowCutoffShare) {
+    const reading = directionalReading(series, dpPa);
+    if (reading.magnitudePa <= 0 || reading.share < noFlowCutoffShare) {
       sums.validMs += durationMs; // known to be no flow
+      continue;
+    }
+
+    // Which way: the DP's sign, or the direction input held for the hold limit.
+    let direction: Direction = reading.direction;
+    let heldDirection: Sample | null = null;
+    if (directions !== null) {
+      directions.moveTo(t);
+      heldDirection = heldSample(directions.latestUsable(), t, holdMs);
+    }
+    if (reverseVersion !== null && configVersions[versionIndex].directionSource === 'direction-input') {
+      const latest = directions?.latest() ?? null;
+      if (latest !== null && latest.quality === 'bad' && t - latest.timeMs < holdMs) sums.flags.add('bad-quality');
+      if (heldDirection === null) continue; // missing time: which way it flows is not known
+      if (heldDirection.quality === 'substituted') sums.flags.add('substituted');
+      if (heldDirection.value === 0) {
+        sums.validMs += durationMs; // the direction input says no flow
+        continue;
+      }
+      direction = heldDirection.value > 0 ? 'forward' : 'reverse';
+    } else if (reverseVersion === null && heldDirection !== null && heldDirection.value < 0) {
+      direction = 'reverse';
+    }
+    if (direction === 'reverse' && version !== null && reverseVersion === null) {
+      // A one-way meter run: reverse flow is not counted as flow (forward flow is known to be zero).
+      sums.validMs += durationMs;
+      sums.flags.add('reverse-flow');
       continue;
     }
 
@@ -196,6 +297,7 @@ export function computeHour(inputs: HourInputs): HourlyRecord {
     }
     if (p === null || temperature === null || version === null) continue; // missing time
     if (p.quality === 'substituted' || temperature.quality === 'substituted') sums.flags.add('substituted');
+    const evaluated = direction === 'reverse' && reverseVersion !== null ? reverseVersion : version;
 
     let point: OperatingPoint | null;
     if (
@@ -203,12 +305,13 @@ export function computeHour(inputs: HourInputs): HourlyRecord {
       lastKey[1] === dpSample &&
       lastKey[2] === p &&
       lastKey[3] === temperature &&
-      lastKey[4] === versionIndex
+      lastKey[4] === versionIndex &&
+      lastKey[5] === direction
     ) {
       point = lastPoint;
     } else {
       try {
-        point = evaluateOperatingPoint(version, dpPa, p.value, temperature.value, {
+        point = evaluateOperatingPoint(evaluated, reading.magnitudePa, p.value, temperature.value, {
           accuracyPercentOfSpan: series.accuracyPercentOfSpan,
           spanPa,
           accuracyKind: series.accuracyKind,
@@ -218,26 +321,50 @@ export function computeHour(inputs: HourInputs): HourlyRecord {
       } catch {
         point = null;
       }
-      lastKey = [series, dpSample, p, temperature, versionIndex];
+      lastKey = [series, dpSample, p, temperature, versionIndex, direction];
       lastPoint = point;
     }
     if (point === null) {
       sums.flags.add('calculation-error');
       continue; // missing time
     }
-    if (share < LOW_IN_RANGE_SHARE_OF_SPAN) sums.flags.add('low-in-range');
-    if (dpPa > series.upperRangePa) sums.flags.add('over-range');
+    if (reading.share < LOW_IN_RANGE_SHARE_OF_SPAN) sums.flags.add('low-in-range');
+    if (reading.overRange) sums.flags.add('over-range');
     if (point.outsideStandardLimits) sums.flags.add('outside-standard-limits');
     if (point.outsideCalibrationRange) sums.flags.add('outside-calibration-range');
-    addFlowingInterval(sums, durationMs, point, dpPa, p.value, temperature.value, dpBandOf(share));
+    addFlowingInterval(
+      direction === 'reverse' ? reverseSums : sums,
+      durationMs,
+      point,
+      reading.magnitudePa,
+      p.value,
+      temperature.value,
+      dpBandOf(reading.share),
+      sums,
+    );
   }
-
   return hourlyRecordFromSums(
     sums,
     { startMs, endMs, elapsedMs: elapsedEndMs - startMs },
     lastVersionId,
     selector.stackChoice(),
+    bidirectionalSeen ? reverseSums : null,
   );
+}
+
+/** The version's reverse element prepared like its forward one (once per version), or null on a one-way version. */
+function prepareReverse(
+  versions: HourInputs['configVersions'],
+  index: number,
+  base: { pressurePa: number; temperatureK: number },
+): PreparedConfigVersion | null {
+  const version = versions[index];
+  if (version.reverseElement === undefined) return null;
+  try {
+    return prepareConfigVersion({ ...version, id: `${version.id}:reverse`, element: version.reverseElement }, base);
+  } catch (err) {
+    throw new Error(`computeHour: configVersions.${index}.reverseElement: ${(err as Error).message}`, { cause: err });
+  }
 }
 
 /** A P or T sample is used for at most the hold limit after its time: on [t, t + hold). */

@@ -26,9 +26,13 @@
  *   mean percent and the sources met during the hour (joined when they differ, e.g. when part of
  *   the hour lay outside a calibration). The terms are systematic like the total, so each is
  *   weighted the same way; the record's uncertaintyPercent stays the mean of the samples' totals.
+ * Reverse flow of a bi-directional meter run is summed in a second HourSums, apart from the
+ * forward one, and given as the record's `reverse` part with the same definitions; its valid time
+ * and DP bands go to the forward sums, which hold the hour's coverage and bands of both directions.
+ * On a one-way meter run, reverse DP is valid time without flow, flagged 'reverse-flow'.
  */
 import type { OperatingPoint } from './operating-point';
-import type { DpBandName, HourlyRecord } from './types';
+import type { DirectionPart, DpBandName, HourlyRecord } from './types';
 
 /** Flags in the order a record lists them. */
 export const HOUR_FLAG_ORDER = [
@@ -37,6 +41,7 @@ export const HOUR_FLAG_ORDER = [
   'substituted',
   'low-in-range',
   'over-range',
+  'reverse-flow',
   'outside-standard-limits',
   'outside-calibration-range',
   'config-changed',
@@ -110,7 +115,8 @@ export function dpBandOf(share: number): DpBandName {
  * @param durationMs interval length, ms
  * @param point the rates at the interval's operating point
  * @param dpPa, pressurePa, temperatureK the inputs of the operating point
- * @param band DP band of the active transmitter
+ * @param band DP band of the active transmitter, in the direction of flow
+ * @param hour the sums that hold the hour's valid time and DP bands (the forward sums; `sums` itself by default)
  */
 export function addFlowingInterval(
   sums: HourSums,
@@ -120,9 +126,10 @@ export function addFlowingInterval(
   pressurePa: number,
   temperatureK: number,
   band: DpBandName,
+  hour: HourSums = sums,
 ): void {
   const massKgMs = point.massFlowKgPerS * durationMs;
-  sums.validMs += durationMs;
+  hour.validMs += durationMs;
   sums.flowMs += durationMs;
   sums.massKgMs += massKgMs;
   sums.volumeM3Ms += point.volumeFlowM3PerS * durationMs;
@@ -139,8 +146,43 @@ export function addFlowingInterval(
     term.massTimesPercentMs += massKgMs * c.percent;
     if (!term.sources.includes(c.source)) term.sources.push(c.source);
   }
-  sums.bands[band].ms += durationMs;
-  sums.bands[band].massKgMs += massKgMs;
+  hour.bands[band].ms += durationMs;
+  hour.bands[band].massKgMs += massKgMs;
+}
+
+/**
+ * @param sums the reverse flow's sums (their valid time and bands are in the forward sums)
+ * @param energyAvailable the record has an energy figure (the forward record's energyJ is not null)
+ * @returns the reverse part of the record, with the definitions of the record's own figures
+ */
+export function directionPartFromSums(sums: HourSums, energyAvailable: boolean): DirectionPart {
+  const flowing = sums.flowMs > 0;
+  const perFlowMs = (x: number) => (flowing ? x / sums.flowMs : null);
+  const seconds = (ms: number) => ms / 1000;
+  return {
+    flowTimeS: seconds(sums.flowMs),
+    massKg: seconds(sums.massKgMs),
+    volumeM3: seconds(sums.volumeM3Ms),
+    standardVolumeM3: seconds(sums.standardVolumeM3Ms),
+    energyJ: energyAvailable ? seconds(sums.energyJMs) : null,
+    averageDpPa: perFlowMs(sums.dpPaMs),
+    averagePressurePa: perFlowMs(sums.pressurePaMs),
+    averageTemperatureK: perFlowMs(sums.temperatureKMs),
+    integralValue: perFlowMs(sums.flowExtensionMs),
+    integralMultiplierValue: flowing && sums.flowExtensionMs > 0 ? sums.massKgMs / sums.flowExtensionMs : null,
+    uncertaintyPercent: sums.massKgMs > 0 ? sums.massTimesUncertaintyMs / sums.massKgMs : null,
+    uncertaintyBudget: budgetOf(sums),
+  };
+}
+
+function budgetOf(sums: HourSums): { name: string; percent: number; source: string }[] {
+  return sums.massKgMs > 0
+    ? [...sums.budget].map(([name, term]) => ({
+        name,
+        percent: term.massTimesPercentMs / sums.massKgMs,
+        source: term.sources.join(' | '),
+      }))
+    : [];
 }
 
 /**
@@ -148,6 +190,7 @@ export function addFlowingInterval(
  * @param hour startMs, endMs and the elapsed length min(asOf, end) − start, ms
  * @param configVersionId version in effect at the end of the elapsed part
  * @param finalStackChoice the pair's choice at the end, or null
+ * @param reverse the reverse flow's sums on a bi-directional meter run; null on a one-way one
  * @returns the hourly record (durations in s, quantities in kg, m³, J)
  */
 export function hourlyRecordFromSums(
@@ -155,6 +198,7 @@ export function hourlyRecordFromSums(
   hour: { startMs: number; endMs: number; elapsedMs: number },
   configVersionId: string | null,
   finalStackChoice: 'low' | 'high' | null,
+  reverse: HourSums | null = null,
 ): HourlyRecord {
   const flowing = sums.flowMs > 0;
   const perFlowMs = (x: number) => (flowing ? x / sums.flowMs : null);
@@ -169,6 +213,7 @@ export function hourlyRecordFromSums(
   }
   const activeTransmitterTimeS: Record<string, number> = {};
   for (const [id, ms] of Object.entries(sums.activeTransmitterMs)) activeTransmitterTimeS[id] = seconds(ms);
+  const energyAvailable = sums.energyAvailable && sums.versionIds.size > 0;
   return {
     startMs: hour.startMs,
     endMs: hour.endMs,
@@ -176,7 +221,7 @@ export function hourlyRecordFromSums(
     massKg: seconds(sums.massKgMs),
     volumeM3: seconds(sums.volumeM3Ms),
     standardVolumeM3: seconds(sums.standardVolumeM3Ms),
-    energyJ: sums.energyAvailable && sums.versionIds.size > 0 ? seconds(sums.energyJMs) : null,
+    energyJ: energyAvailable ? seconds(sums.energyJMs) : null,
     averageDpPa: perFlowMs(sums.dpPaMs),
     averagePressurePa: perFlowMs(sums.pressurePaMs),
     averageTemperatureK: perFlowMs(sums.temperatureKMs),
@@ -185,15 +230,9 @@ export function hourlyRecordFromSums(
     coverage,
     flags: HOUR_FLAG_ORDER.filter((f) => flags.has(f)),
     uncertaintyPercent: sums.massKgMs > 0 ? sums.massTimesUncertaintyMs / sums.massKgMs : null,
-    uncertaintyBudget:
-      sums.massKgMs > 0
-        ? [...sums.budget].map(([name, term]) => ({
-            name,
-            percent: term.massTimesPercentMs / sums.massKgMs,
-            source: term.sources.join(' | '),
-          }))
-        : [],
+    uncertaintyBudget: budgetOf(sums),
     configVersionId,
+    reverse: reverse === null ? null : directionPartFromSums(reverse, energyAvailable),
     dpBands,
     activeTransmitterTimeS,
     finalStackChoice,

@@ -3,7 +3,7 @@
  * GET /api/meter-runs/:id/totals returns them (DESIGN.md, "Interfaces").
  */
 import { widenForUnmeasuredTime } from '../uncertainty/total-uncertainty';
-import type { PeriodBounds, PeriodTotal, RollUpRecord, TotalStatus } from './types';
+import type { PeriodBounds, PeriodReverse, PeriodTotal, RollUpRecord, TotalStatus } from './types';
 
 const MS_PER_HOUR = 3_600_000;
 
@@ -39,6 +39,10 @@ export interface RollUpOptions {
  * - Status: 'closed' when options.closed; else, once now ≥ end, 'missing' when nothing at all was
  *   recorded (coverage 0: a period without data is not complete), 'complete' when every hour of
  *   the period has a record; else 'provisional'.
+ * - Reverse flow (a bi-directional meter run): the records' figures above are forward flow; their
+ *   reverse parts are summed apart into `reverse` (energy null only when no reverse part has one),
+ *   and `net` = forward − reverse (energy null when either is null). Both are present only when
+ *   some record of the period has a reverse part (not null), so one-way totals keep their shape.
  * - Time before options.historyStartMs (the meter run did not exist yet) counts neither as elapsed
  *   nor as needing a record.
  * Hours are the period's start + k h for k < hours (a contract day starts at a local hour, and
@@ -86,7 +90,20 @@ export function rollUpRecords(
   // Mass of records resting on substituted readings (the whole record counts: it does not say how much).
   let substitutedMassKg = 0;
   const flags: string[] = [];
+  let reverse: PeriodReverse | null = null;
+  let reverseEnergyCount = 0;
   for (const r of byStart.values()) {
+    if (r.reverse) {
+      reverse ??= { flowTimeS: 0, massKg: 0, volumeM3: 0, standardVolumeM3: 0, energyJ: 0 };
+      reverse.flowTimeS += r.reverse.flowTimeS;
+      reverse.massKg += r.reverse.massKg;
+      reverse.volumeM3 += r.reverse.volumeM3;
+      reverse.standardVolumeM3 += r.reverse.standardVolumeM3;
+      if (r.reverse.energyJ !== null) {
+        reverse.energyJ = (reverse.energyJ as number) + r.reverse.energyJ;
+        reverseEnergyCount++;
+      }
+    }
     flowTimeS += r.flowTimeS;
     massKg += r.massKg;
     volumeM3 += r.volumeM3;
@@ -141,7 +158,7 @@ export function rollUpRecords(
   else if (nowMs >= endMs && coverage === 0) status = 'missing';
   else if (nowMs >= endMs && everyHourHasRecord) status = 'complete';
 
-  return {
+  const total: PeriodTotal = {
     start: new Date(startMs).toISOString(),
     end: new Date(endMs).toISOString(),
     hours,
@@ -158,4 +175,15 @@ export function rollUpRecords(
         : null,
     status,
   };
+  if (reverse !== null) {
+    if (reverseEnergyCount === 0) reverse.energyJ = null;
+    total.reverse = reverse;
+    total.net = {
+      massKg: massKg - reverse.massKg,
+      volumeM3: volumeM3 - reverse.volumeM3,
+      standardVolumeM3: standardVolumeM3 - reverse.standardVolumeM3,
+      energyJ: total.energyJ !== null && reverse.energyJ !== null ? total.energyJ - reverse.energyJ : null,
+    };
+  }
+  return total;
 }

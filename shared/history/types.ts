@@ -37,7 +37,19 @@ export interface ConfigVersionInput {
   effectiveFromMs: number;
   element: ElementSpec;
   fluid: FluidSpec;
+  /**
+   * The element's constants in reverse flow (a cone or orifice may differ by direction; a calibrated
+   * element has its own curve per direction). Present ⇔ the meter run is bi-directional from this version on.
+   */
+  reverseElement?: ElementSpec;
+  /**
+   * Only with reverseElement; 'dp-sign' when not given. 'dp-sign': a negative DP is reverse flow.
+   * 'direction-input': the DP transmitters read magnitude and HourInputs.direction says which way.
+   */
+  directionSource?: DirectionSource;
 }
+
+export type DirectionSource = 'dp-sign' | 'direction-input';
 
 export interface HourInputs {
   startMs: number;
@@ -50,6 +62,11 @@ export interface HourInputs {
   staticPressure: Sample[];
   /** K, sorted; includes the latest sample before startMs if any. */
   temperature: Sample[];
+  /**
+   * The direction input's samples (measure `flow-direction`, unit `sign`: > 0 forward, < 0 reverse,
+   * 0 no flow), sorted, including the latest before startMs; held like P and T for holdLimitS.
+   */
+  direction?: Sample[];
   /**
    * The static pressure (span in Pa) and temperature (span in K) transmitters' stated accuracies,
    * when known: they enter each sample's uncertainty through the density (ISO 5167-1:2003 §8).
@@ -78,6 +95,27 @@ export interface HourInputs {
    * startMs is chosen on from it, as in a computation that runs through the boundary.
    */
   initialStackChoice?: 'low' | 'high';
+}
+
+/**
+ * The figures of one flow direction over a record. The record's own figures are forward flow; the
+ * reverse part of a bi-directional meter run is kept apart in this shape (never netted in a record).
+ */
+export interface DirectionPart {
+  flowTimeS: number;
+  massKg: number;
+  volumeM3: number;
+  standardVolumeM3: number;
+  energyJ: number | null;
+  /** Magnitude, Pa, flow-weighted over this direction's flowing time. */
+  averageDpPa: number | null;
+  averagePressurePa: number | null;
+  averageTemperatureK: number | null;
+  integralValue: number | null;
+  /** massKg = IMV × IV × flowTimeS. */
+  integralMultiplierValue: number | null;
+  uncertaintyPercent: number | null;
+  uncertaintyBudget: { name: string; percent: number; source: string }[];
 }
 
 /** Bands of the DP reading as a share of the ACTIVE transmitter's span, percent. */
@@ -111,7 +149,16 @@ export interface HourlyRecord {
    */
   uncertaintyBudget?: { name: string; percent: number; source: string }[];
   configVersionId: string | null;
-  /** Flowing time and mass per band of the DP as a share of the ACTIVE transmitter's span (the band times sum to flowTimeS). */
+  /**
+   * Reverse flow of a bi-directional meter run, apart from the record's own (forward) figures;
+   * null on a one-way meter run. computeHour always sets it (optional so records built by hand
+   * elsewhere still type-check).
+   */
+  reverse?: DirectionPart | null;
+  /**
+   * Flowing time and mass per band of the DP as a share of the ACTIVE transmitter's span in the
+   * direction of flow (both directions: the band times sum to flowTimeS + reverse.flowTimeS).
+   */
   dpBands: Record<DpBandName, { timeS: number; massKg: number }>;
   /** Per transmitter id, the time its reading was the one in use (flowing or not; also when P or T was missing). */
   activeTransmitterTimeS: Record<string, number>;
@@ -131,6 +178,7 @@ export type RollUpRecord = Pick<
   | 'coverage'
   | 'flags'
   | 'uncertaintyPercent'
+  | 'reverse'
 >;
 
 /** 'missing': the period has ended and nothing at all was recorded in it (coverage 0) — not complete. */
@@ -150,6 +198,25 @@ export interface PeriodTotal {
   flags: string[];
   uncertaintyPercent: number | null;
   status: TotalStatus;
+  /** Reverse flow of the period: present only when some hour of it has a reverse part. */
+  reverse?: PeriodReverse;
+  /** Forward − reverse: present with reverse (energyJ null when either is null). */
+  net?: PeriodNet;
+}
+
+export interface PeriodReverse {
+  flowTimeS: number;
+  massKg: number;
+  volumeM3: number;
+  standardVolumeM3: number;
+  energyJ: number | null;
+}
+
+export interface PeriodNet {
+  massKg: number;
+  volumeM3: number;
+  standardVolumeM3: number;
+  energyJ: number | null;
 }
 
 /** A period [startMs, endMs) and its length in hours (23, 24 or 25 for a contract day). */

@@ -45,8 +45,12 @@ export const siteSchema = z.object({
 
 export const pressureUnits = ['Pa', 'kPa', 'MPa', 'mbar', 'bar', 'psi', 'inH2O-4C', 'inH2O-60F', 'inH2O-68F'] as const;
 export const temperatureUnits = ['K', 'degC', 'degF'] as const;
-export const transmitterUnits = [...pressureUnits, ...temperatureUnits] as const;
+/** A direction input (measure 'flow-direction') reads a sign: > 0 forward, < 0 reverse, 0 no flow. */
+export const directionUnits = ['sign'] as const;
+export const transmitterUnits = [...pressureUnits, ...temperatureUnits, ...directionUnits] as const;
 export const measures = ['differential-pressure', 'static-pressure', 'temperature'] as const;
+/** Every measure a transmitter may have: the process measures and a bi-directional meter run's direction input. */
+export const transmitterMeasures = [...measures, 'flow-direction'] as const;
 
 export const lineSchema = z
   .object({
@@ -70,6 +74,28 @@ export const lineSchema = z
     bidirectional: z.boolean().optional(),
   })
   .strict();
+
+/**
+ * How a bi-directional meter run knows the direction of flow: 'dp-sign' (the default), a negative DP
+ * is reverse flow; 'direction-input', the DP transmitters read magnitude and a transmitter measuring
+ * 'flow-direction' says which way.
+ */
+export const directionSources = ['dp-sign', 'direction-input'] as const;
+const directionSourceField = z.enum(directionSources, { error: `must be one of ${directionSources.join(', ')}` });
+const REVERSE_ELEMENT_REQUIRED = "required for a bi-directional meter run: the element's constants in reverse flow";
+
+/** directionSource is only for a bi-directional meter run (one with reverseElement). */
+function directionSourceRule(
+  v: { reverseElement?: unknown; directionSource?: (typeof directionSources)[number] },
+  ctx: z.RefinementCtx,
+): void {
+  if (v.directionSource !== undefined && v.reverseElement === undefined)
+    ctx.addIssue({
+      code: 'custom',
+      path: ['directionSource'],
+      message: 'only for a bi-directional meter run: give reverseElement too',
+    });
+}
 
 /** The largest PostgreSQL bigint: a longer id names no record and must not reach SQL, where it fails the query. */
 const maxBigint = 9_223_372_036_854_775_807n;
@@ -110,6 +136,8 @@ export const meterRunSchema = z
     line: lineSchema.default({}),
     /** When the first configuration version takes effect (history before it cannot be computed). */
     effectiveFrom: z.iso.datetime({ offset: true, error: 'must be ISO 8601 with an offset or Z' }).optional(),
+    reverseElement: elementSpecSchema.optional(),
+    directionSource: directionSourceField.optional(),
   })
   .superRefine((m, ctx) => {
     if (m.stackSwitchDownShare >= m.stackSwitchUpShare)
@@ -118,14 +146,28 @@ export const meterRunSchema = z
         path: ['stackSwitchDownShare'],
         message: 'must be below stackSwitchUpShare (hysteresis)',
       });
+    if (m.line.bidirectional === true && m.reverseElement === undefined)
+      ctx.addIssue({ code: 'custom', path: ['reverseElement'], message: REVERSE_ELEMENT_REQUIRED });
+    if (m.reverseElement !== undefined && m.line.bidirectional !== true)
+      ctx.addIssue({
+        code: 'custom',
+        path: ['line', 'bidirectional'],
+        message: 'must be true when reverseElement is given (a bi-directional meter run)',
+      });
+    directionSourceRule(m, ctx);
   });
 
-export const configVersionSchema = z.object({
-  effectiveFrom: z.iso.datetime({ offset: true, error: 'must be ISO 8601 with an offset or Z' }),
-  element: elementSpecSchema,
-  fluid: fluidSpecSchema,
-  reason: z.string().trim().min(1, 'is required: say why the configuration changed').max(1000),
-});
+export const configVersionSchema = z
+  .object({
+    effectiveFrom: z.iso.datetime({ offset: true, error: 'must be ISO 8601 with an offset or Z' }),
+    element: elementSpecSchema,
+    fluid: fluidSpecSchema,
+    /** The element's constants in reverse flow: present ⇔ the meter run is bi-directional from effectiveFrom. */
+    reverseElement: elementSpecSchema.optional(),
+    directionSource: directionSourceField.optional(),
+    reason: z.string().trim().min(1, 'is required: say why the configuration changed').max(1000),
+  })
+  .superRefine(directionSourceRule);
 
 /**
  * What kind of figure a datasheet accuracy is: 'expanded-k2', an expanded uncertainty with k = 2
@@ -141,7 +183,7 @@ export const transmitterSchema = z
       .string()
       .trim()
       .regex(/^[A-Za-z0-9][A-Za-z0-9_.-]{0,63}$/, 'letters, digits, ., - and _ only (it is the MQTT topic)'),
-    measures: z.enum(measures, { error: `must be one of ${measures.join(', ')}` }),
+    measures: z.enum(transmitterMeasures, { error: `must be one of ${transmitterMeasures.join(', ')}` }),
     unit: z.enum(transmitterUnits, { error: `must be one of ${transmitterUnits.join(' ')}` }),
     pressureReference: z.enum(['absolute', 'gauge']).default('absolute'),
     lowerRange: finite('lowerRange'),
@@ -164,7 +206,10 @@ export const transmitterSchema = z
         path: ['unit'],
         message: `a temperature transmitter needs a temperature unit (${temperatureUnits.join(', ')})`,
       });
-    if (t.measures !== 'temperature' && isTemperature)
+    const isSign = (directionUnits as readonly string[]).includes(t.unit);
+    if (t.measures === 'flow-direction' && !isSign)
+      ctx.addIssue({ code: 'custom', path: ['unit'], message: "a direction input needs the unit 'sign'" });
+    if (t.measures !== 'temperature' && t.measures !== 'flow-direction' && (isTemperature || isSign))
       ctx.addIssue({
         code: 'custom',
         path: ['unit'],
