@@ -1,21 +1,15 @@
 /**
- * Shows an instant from the API (ISO 8601) in the viewer's own time zone, with the zone named
- * so a reader never has to guess which clock a record was written on.
- *
- * @param iso an ISO 8601 timestamp
- * @returns e.g. "3 Mar 2025, 14:05:22 MST", or the input unchanged when it is not a date
+ * Shows an instant from the API (ISO 8601) the one way Tallyrun shows time (shared/format/time.ts):
+ * in the site's zone when the screen knows the site, otherwise in the viewer's own, with the zone
+ * named so a reader never has to guess which clock a record was written on.
  */
-export function formatTimestamp(iso: string): string {
-  const date = new Date(iso);
-  if (Number.isNaN(date.getTime())) return iso;
-  return date.toLocaleString(undefined, {
-    day: 'numeric',
-    month: 'short',
-    year: 'numeric',
-    hour: '2-digit',
-    minute: '2-digit',
-    second: '2-digit',
-    hour12: false,
-    timeZoneName: 'short',
-  });
+import { formatInstant } from '@/shared/format/time';
+
+/**
+ * @param iso an ISO 8601 timestamp
+ * @param timeZone the site's IANA zone, when the screen knows it
+ * @returns e.g. "3 Dec 2026, 09:11 CST", or the input unchanged when it is not a date
+ */
+export function formatTimestamp(iso: string, timeZone?: string): string {
+  return formatInstant(iso, timeZone);
 }

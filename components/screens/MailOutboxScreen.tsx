@@ -3,13 +3,35 @@ import { useState } from 'react';
 import { Platform, Pressable, StyleSheet, View } from 'react-native';
 
 import { formatTimestamp } from '@/components/format/formatTimestamp';
+import { mailRuleWords, unmailedAlarmsWords } from '@/components/format/mailRuleWords';
 import { AppText } from '@/components/ui/AppText';
 import { Button } from '@/components/ui/Button';
 import { Panel } from '@/components/ui/Panel';
 import { QueryState } from '@/components/ui/QueryState';
 import { Screen } from '@/components/ui/Screen';
 import { colors, radius, space } from '@/constants/theme';
+import { useAlarmCounts } from '@/hooks/api/alarms';
 import { useMail, type Mail } from '@/hooks/api/mail';
+import { useUsers } from '@/hooks/api/users';
+
+/** When Tallyrun mails, to whom, and why unacknowledged alarms may have sent nothing. */
+function MailRulePanel() {
+  const users = useUsers();
+  const counts = useAlarmCounts();
+  if (!users.data) return null;
+  const engineers = users.data.filter((u) => u.role === 'engineer' && !u.disabled).length;
+  const why = counts.data ? unmailedAlarmsWords(counts.data.unacknowledgedByPriority, engineers) : null;
+  return (
+    <Panel title="When mail is sent" testID="mail-rule">
+      <AppText>{mailRuleWords(engineers)}</AppText>
+      {why ? (
+        <AppText tone="muted" testID="mail-rule-unmailed">
+          {why}
+        </AppText>
+      ) : null}
+    </Panel>
+  );
+}
 
 function MailRow({ mail }: { mail: Mail }) {
   const [open, setOpen] = useState(false);
@@ -38,6 +60,7 @@ export function MailOutboxScreen() {
   const list = mail.data ?? [];
   return (
     <Screen lead="Alarm notices, month-end messages and other mail Tallyrun sent. On this installation mail is captured here rather than delivered.">
+      <MailRulePanel />
       <Panel
         title={mail.data ? `Messages (${list.length})` : 'Messages'}
         actions={

@@ -1,8 +1,10 @@
 /**
  * The words of alarm mails: one alarm, a flood summary, the daily digest. Plain text; times in
- * UTC and in the site's local time (the contract day is local).
+ * the site's local time with its zone named (shared/format/time.ts), conditions, states and
+ * priorities in words (shared/format/alarm-words.ts), never as codes.
  */
-import { DateTime } from 'luxon';
+import { alarmConditionWords, alarmPriorityWords, alarmStateWords } from '../../shared/format/alarm-words';
+import { formatContractDay, formatDate, formatInstant } from '../../shared/format/time';
 
 export interface MailAlarm {
   id: string;
@@ -22,10 +24,9 @@ export interface MailSite {
   timeZone: string;
 }
 
-const local = (d: Date, site: MailSite) =>
-  `${DateTime.fromJSDate(d, { zone: site.timeZone }).toFormat('yyyy-LL-dd HH:mm')} ${site.timeZone}`;
+const local = (d: Date, site: MailSite) => formatInstant(d, site.timeZone);
 const line = (a: MailAlarm, site: MailSite) =>
-  `- [${a.priority.toUpperCase()}] ${a.meterRunTag}${a.transmitterTag ? ` / ${a.transmitterTag}` : ''}: ${a.condition}, raised ${local(a.raisedAt, site)} (${a.state}) — ${a.message}`;
+  `- ${alarmPriorityWords(a.priority)} priority, ${a.meterRunTag}${a.transmitterTag ? ` / ${a.transmitterTag}` : ''}: ${alarmConditionWords(a.condition)}, raised ${local(a.raisedAt, site)}, ${alarmStateWords(a.state)} — ${a.message}`;
 
 /** The usual caution: the mail may send someone to the line. */
 const CAUTION =
@@ -34,14 +35,14 @@ const CAUTION =
 /** @returns subject and text of the mail for one new alarm */
 export function alarmMail(a: MailAlarm, site: MailSite): { subject: string; text: string } {
   return {
-    subject: `[Tallyrun] ${a.priority.toUpperCase()} alarm at ${site.code}: ${a.meterRunTag} ${a.condition}`,
+    subject: `[Tallyrun] ${alarmPriorityWords(a.priority)}-priority alarm at ${site.code}: ${a.meterRunTag} ${alarmConditionWords(a.condition)}`,
     text: [
       a.message,
       '',
       `Site: ${site.code} ${site.name}`,
       `Meter run: ${a.meterRunTag}${a.transmitterTag ? `, transmitter ${a.transmitterTag}` : ''}`,
-      `Condition: ${a.condition}; priority ${a.priority}; state ${a.state}`,
-      `Raised: ${a.raisedAt.toISOString()} (${local(a.raisedAt, site)})`,
+      `Condition: ${alarmConditionWords(a.condition)}; ${a.priority} priority; ${alarmStateWords(a.state)}`,
+      `Raised: ${local(a.raisedAt, site)}`,
       `Alarm id: ${a.id} — acknowledge or shelve it in Tallyrun (Alarms).`,
       '',
       CAUTION,
@@ -57,7 +58,10 @@ export function floodMail(
   countInWindow: number,
 ): { subject: string; text: string } {
   const byCondition = new Map<string, number>();
-  for (const a of alarms) byCondition.set(a.condition, (byCondition.get(a.condition) ?? 0) + 1);
+  for (const a of alarms) {
+    const words = alarmConditionWords(a.condition);
+    byCondition.set(words, (byCondition.get(words) ?? 0) + 1);
+  }
   const shown = alarms.slice(0, 50);
   return {
     subject: `[Tallyrun] Alarm flood at ${site.code}: ${alarms.length} alarms (${countInWindow} in ${windowMinutes} min)`,
@@ -77,18 +81,25 @@ export function floodMail(
   };
 }
 
-/** @returns subject and text of the daily digest for a site's contract day */
+/**
+ * @param bounds the contract day's start and end (to say them: "yesterday" is unambiguous)
+ * @returns subject and text of the daily digest for a site's contract day
+ */
 export function digestMail(
   site: MailSite,
   contractDay: string,
   raised: MailAlarm[],
   open: MailAlarm[],
+  bounds?: { startMs: number; endMs: number },
 ): { subject: string; text: string } {
+  const dayWords = bounds
+    ? formatContractDay(contractDay, bounds, site.timeZone)
+    : `Contract day ${formatDate(contractDay)}`;
   const count = (list: MailAlarm[], p: string) => list.filter((a) => a.priority === p).length;
   return {
-    subject: `[Tallyrun] Alarm digest ${site.code} for contract day ${contractDay}: ${raised.length} raised, ${open.length} open`,
+    subject: `[Tallyrun] Alarm digest ${site.code} for contract day ${formatDate(contractDay)}: ${raised.length} raised, ${open.length} open`,
     text: [
-      `Alarms at ${site.code} ${site.name} for the contract day ${contractDay}.`,
+      `Alarms at ${site.code} ${site.name}. ${dayWords}.`,
       `Raised that day: ${raised.length} (high ${count(raised, 'high')}, medium ${count(raised, 'medium')}, low ${count(raised, 'low')}).`,
       `Open now (not normal): ${open.length}.`,
       '',

@@ -41,17 +41,19 @@ describe('AlarmNotifier', () => {
     const notifier = new AlarmNotifier(t.services.pool, mailer, { floodCount: 1000 });
     const sent = await notifier.run();
     expect(sent.alarmMails).toBeGreaterThanOrEqual(1);
-    const mails = (await mailsAbout(f.tag)).filter((m) => m.subject.includes('dp-low-in-range'));
+    const mails = (await mailsAbout(f.tag)).filter((m) => m.subject.includes('DP low in range'));
     expect(mails).toHaveLength(1);
-    expect(mails[0].subject).toMatch(/MEDIUM alarm/);
+    expect(mails[0].subject).toMatch(/Medium-priority alarm/);
     expect(mails[0].recipients).toContain(engineer.email);
     expect(mails[0].recipients).not.toContain(admin.email);
     expect(mails[0].text).toMatch(/5\.0 % of its span/);
+    expect(mails[0].text).toMatch(/Condition: DP low in range; medium priority; active, unacknowledged/);
+    expect(mails[0].text).not.toMatch(/dp-low-in-range|active-unacknowledged/);
     const outbox = await t.http().get('/api/mail').set('Authorization', `Bearer ${admin.token}`);
     expect(outbox.body.some((m: { subject: string }) => m.subject === mails[0].subject)).toBe(true);
     // This alarm is not mailed twice (other files' alarms may be mailed by the same run).
     await notifier.run();
-    expect((await mailsAbout(f.tag)).filter((m) => m.subject.includes('dp-low-in-range'))).toHaveLength(1);
+    expect((await mailsAbout(f.tag)).filter((m) => m.subject.includes('DP low in range'))).toHaveLength(1);
   });
 
   it('sends at most one mail per alarm point per interval when the condition comes back', async () => {
@@ -72,7 +74,7 @@ describe('AlarmNotifier', () => {
     await applySignal(t.services.pool, f.meterRunId, signal('clear', now - 4 * MIN), 'medium', now);
     await applySignal(t.services.pool, f.meterRunId, signal('raise', now - 3 * MIN), 'medium', now); // back to alarm, unacknowledged
     await notifier.run();
-    expect((await mailsAbout(f.tag)).filter((m) => m.subject.includes('bad-quality'))).toHaveLength(1);
+    expect((await mailsAbout(f.tag)).filter((m) => m.subject.includes('Bad-quality readings'))).toHaveLength(1);
   });
 
   it('summarises a flood (more than 10 alarms in 10 minutes at a site) in one mail', async () => {
@@ -110,7 +112,7 @@ describe('AlarmNotifier', () => {
     const mails = await mailsAbout(site);
     expect(mails).toHaveLength(1);
     expect(mails[0].subject).toMatch(new RegExp(`Alarm flood at ${site}: 12 alarms`));
-    expect(mails[0].text).toMatch(/frozen: 3/);
+    expect(mails[0].text).toMatch(/Transmitter frozen: 3/);
   });
 
   it('sends one digest per site for the contract day just ended, within the hour after the contract hour', async () => {
@@ -138,6 +140,8 @@ describe('AlarmNotifier', () => {
     expect(await notifier.sendDigests(nextDay + 20 * MIN)).not.toContain(f.siteId); // once per day
     const site = (await t.services.pool.query('SELECT code FROM sites WHERE id = $1', [f.siteId])).rows[0].code;
     const digest = (await mailsAbout(`Alarm digest ${site}`))[0];
-    expect(digest.subject).toBe(`[Tallyrun] Alarm digest ${site} for contract day 2026-10-20: 1 raised, 1 open`);
+    expect(digest.subject).toBe(`[Tallyrun] Alarm digest ${site} for contract day 20 Oct 2026: 1 raised, 1 open`);
+    // 09:00 MDT: Denver keeps daylight saving time until the first Sunday of November.
+    expect(digest.text).toContain('Contract day 20 Oct 2026, 09:00 20 Oct – 09:00 21 Oct MDT.');
   });
 });

@@ -175,7 +175,7 @@ export class AlarmNotifier {
       if (!raised.length && !open.length) continue;
       const to = await engineerEmails(this.pool);
       if (!to.length) continue;
-      const mail = digestMail(site, day, raised, open);
+      const mail = digestMail(site, day, raised, open, bounds);
       // Claim the day first (unique per site and day), so two processes never both send it.
       const claimId = await claimDigest(
         this.pool,
