@@ -1,6 +1,7 @@
 import net from 'node:net';
 import type { AddressInfo } from 'node:net';
-import type { Aedes } from 'aedes';
+import type { Aedes, Client as AedesClient } from 'aedes';
+import { ConnectionLane, Slots } from './publish-pipeline';
 
 /** Decides whether a device may connect with these credentials. */
 export type DeviceAuthenticator = (
@@ -17,6 +18,11 @@ export type PublishHandler = (
 
 /** Where refused publishes are re-addressed: a `$` topic, which no wildcard matches, never delivered. */
 const refusedTopic = '$tallyrun/refused';
+/** Where aedes sends a pipelined publish once handed to the writer: heard by nobody (see below). */
+const pipelinedTopic = '$tallyrun/refused/pipelined';
+
+/** A PUBACK (MQTT 3.1.1 §3.4): fixed header 0x40, remaining length 2, the packet identifier. */
+const pubackOf = (messageId: number) => Buffer.from([0x40, 0x02, messageId >> 8, messageId & 0xff]);
 
 type SignedIn = { id: string; siteCode: string; username: string };
 const deviceOf = (client: object): SignedIn | null => (client as { device?: SignedIn }).device ?? null;
@@ -63,6 +69,8 @@ export async function startEmbeddedBroker(options: {
   port: number;
   authenticate: DeviceAuthenticator;
   onPublish: PublishHandler;
+  /** Messages between arrival and acknowledgement: per connection and overall (back-pressure). */
+  window?: { perConnection: number; overall: number };
 }): Promise<EmbeddedBroker> {
   // aedes 1.x ships as an ES module only; a dynamic import keeps this file loadable from CommonJS.
   const { Aedes } = await import('aedes');
@@ -114,27 +122,63 @@ export async function startEmbeddedBroker(options: {
       .catch(() => done(Object.assign(new Error('Server unavailable'), { returnCode: 3 as const }), false));
   };
 
-  // Storing happens before aedes acknowledges: its PUBACK for QoS 1 goes out only after this
-  // callback, so an acknowledged reading is a committed reading. A database failure is passed
-  // back as an error, which drops the connection unacknowledged and the device sends it again.
+  // Storing happens before the device is acknowledged: an acknowledged reading is a committed
+  // reading. QoS 0 and 1 publishes of devices go through the ordered pipeline of
+  // publish-pipeline.ts (the argument is there): several of one connection's messages are in
+  // flight to the writer at once, each PUBACK is written only after its own commit and in arrival
+  // order, and a full window holds the packet flow (back-pressure). QoS 2 keeps aedes' own flow,
+  // answered after the commit. A database failure acknowledges nothing: the connection closes and
+  // the device sends the message again.
   //
   // A publish outside the device's own site (issue 12 §2) is refused by being dropped, not by an
   // error: MQTT 3.1.1 has no negative PUBACK, and an error makes aedes close the connection, so a
   // QoS 1 device would resend the same message after every reconnect and never get past it. The
   // message is counted as a rejection for the device (the ingest path records why), acknowledged,
-  // and re-addressed to a topic nobody can subscribe to and that authorizeForward never delivers.
-  // Retained messages are not kept: the retain flag is cleared on every publish.
+  // and never forwarded (re-addressed to a topic nobody can subscribe to and that authorizeForward
+  // never delivers). Retained messages are not kept: the retain flag is cleared on every publish.
+  const overall = new Slots(options.window?.overall ?? 4096);
+  const perConnection = options.window?.perConnection ?? 256;
+  const lanes = new WeakMap<object, ConnectionLane>();
+  const laneOf = (client: AedesClient) => {
+    let lane = lanes.get(client);
+    if (!lane) {
+      const made = new ConnectionLane(perConnection, overall, () => client.close());
+      client.conn.once('close', () => made.closing());
+      lanes.set(client, made);
+      lane = made;
+    }
+    return lane;
+  };
   aedes.authorizePublish = (client, packet, callback) => {
     packet.retain = false;
     const device = client ? deviceOf(client) : null;
-    if (!device) return callback(null); // the server's own publishes (live views)
+    if (!client || !device) return callback(null); // the server's own publishes (live views)
     const inside = withinSite(device.siteCode, packet.topic);
-    options.onPublish(device, packet.topic, packet.payload as Buffer).then(
+    if (packet.qos === 2) {
+      options.onPublish(device, packet.topic, packet.payload as Buffer).then(
+        () => {
+          if (!inside) packet.topic = refusedTopic;
+          callback(null);
+        },
+        (err: Error) => callback(err),
+      );
+      return;
+    }
+    const { topic, payload, qos, messageId } = packet;
+    laneOf(client).admit(
       () => {
-        if (!inside) packet.topic = refusedTopic;
+        const stored = options.onPublish(device, topic, payload as Buffer);
+        // aedes goes on at once: no PUBACK from it, nothing forwarded (both come in the message's turn).
+        packet.qos = 0;
+        packet.topic = pipelinedTopic;
         callback(null);
+        return stored;
       },
-      (err: Error) => callback(err),
+      () => {
+        if (qos === 1 && messageId !== undefined && client.conn.writable) client.conn.write(pubackOf(messageId));
+        if (inside) aedes.publish({ cmd: 'publish', topic, payload, qos, retain: false, dup: false }, () => undefined);
+      },
+      () => callback(new Error('connection closed')),
     );
   };
   aedes.authorizeForward = (_client, packet) => (packet.topic.startsWith(refusedTopic) ? null : packet);
