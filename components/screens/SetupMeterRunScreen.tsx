@@ -76,7 +76,7 @@ function Details({ run, site }: { run: MeterRun; site: Site }) {
           <AppText
             variant="caption"
             tone="muted"
-          >{`Hold limit ${run.holdLimitS} s · longest gap ${run.maxGapS} s · no-flow cutoff ${run.noFlowCutoffPercentOfSpan ?? 0.5} % of DP span · stacked pair switches up at ${Math.round(run.stackSwitchUpShare * 100)} % and down at ${Math.round(run.stackSwitchDownShare * 100)} % of the low range`}</AppText>
+          >{`Hold limit ${run.holdLimitS} s · gap limit ${run.maxGapS} s · no-flow cutoff ${run.noFlowCutoffPercentOfSpan ?? 0.5} % of DP span · stacked pair switches up at ${Math.round(run.stackSwitchUpShare * 100)} % and down at ${Math.round(run.stackSwitchDownShare * 100)} % of the low range`}</AppText>
           <AppText variant="caption" tone="muted">
             {lineSummary(run)}
           </AppText>

@@ -92,7 +92,13 @@ export function ConfigVersionForm({ meterRun, site, onDone, onCancel }: ConfigVe
 
   return (
     <View style={styles.form} testID={prefix}>
-      <FormErrorSummary errors={shown} labels={labels} general={general} testID={`${prefix}-errors`} />
+      <FormErrorSummary
+        errors={shown}
+        labels={labels}
+        general={general}
+        testID={`${prefix}-errors`}
+        fieldPrefix={prefix}
+      />
       <FieldRow>
         <View style={styles.field}>
           <TextField

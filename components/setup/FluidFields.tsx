@@ -13,8 +13,16 @@ import { StateBadge } from '@/components/ui/StateBadge';
 import { space } from '@/constants/theme';
 import type { DetailComponent } from '@/shared/fluids/aga8/detail-constants';
 import { FieldRow } from './FieldRow';
-import { convertNumberText, errorFor, fieldTestID, type FieldErrors } from './formFields';
-import { commonComponents, compositionFromDraft, otherComponents, type FluidDraft, type FluidKind } from './fluidDraft';
+import { errorFor, fieldTestID, type FieldErrors } from './formFields';
+import {
+  commonComponents,
+  compositionFromDraft,
+  compositionUnitOfSum,
+  otherComponents,
+  switchCompositionUnit,
+  type FluidDraft,
+  type FluidKind,
+} from './fluidDraft';
 import { NumberField } from './NumberField';
 
 const kindOptions: { value: FluidKind; label: string }[] = [
@@ -60,6 +68,7 @@ function CompositionFields({ draft, onChange, errors, testPrefix }: FluidFieldsP
   );
   const off = Math.abs(sum - 1) > sumTolerance;
   const percent = draft.compositionUnit === 'percent';
+  const typedIn = compositionUnitOfSum(draft);
   const setComponent = (name: DetailComponent) => (text: string) =>
     onChange({ ...draft, composition: { ...draft.composition, [name]: text } });
   const error = errorFor(errors, 'fluid.composition');
@@ -71,18 +80,7 @@ function CompositionFields({ draft, onChange, errors, testPrefix }: FluidFieldsP
         label="Composition typed as"
         options={compositionUnitOptions}
         value={draft.compositionUnit}
-        onChange={(compositionUnit) => {
-          if (compositionUnit === draft.compositionUnit) return;
-          // mol % = 100 × mole fraction: the amounts typed keep their meaning.
-          const factor = compositionUnit === 'percent' ? 100 : 0.01;
-          const composition = Object.fromEntries(
-            Object.entries(draft.composition).map(([name, text]) => [
-              name,
-              convertNumberText(text ?? '', (value) => value * factor),
-            ]),
-          );
-          onChange({ ...draft, compositionUnit, composition });
-        }}
+        onChange={(compositionUnit) => onChange(switchCompositionUnit(draft, compositionUnit))}
         testIDPrefix={fieldTestID(testPrefix, 'fluid.compositionUnit')}
       />
       <FieldRow>
@@ -100,7 +98,7 @@ function CompositionFields({ draft, onChange, errors, testPrefix }: FluidFieldsP
       </FieldRow>
       <View style={styles.sumRow}>
         <AppText variant="label" tabular testID={fieldTestID(testPrefix, 'fluid.composition-sum')}>
-          {percent ? `Sum ${(sum * 100).toFixed(2)} mol %` : `Sum ${sum.toFixed(4)}`}
+          {percent ? `Sum ${(sum * 100).toFixed(2)} mol %` : `Sum ${sum.toFixed(4)} (mole fraction)`}
         </AppText>
         {off && sum > 0 ? (
           <StateBadge
@@ -120,9 +118,16 @@ function CompositionFields({ draft, onChange, errors, testPrefix }: FluidFieldsP
           onPress={() => setShowAll((all) => !all)}
         />
       </View>
+      {typedIn && typedIn !== draft.compositionUnit ? (
+        <AppText variant="caption" tone="muted" testID={fieldTestID(testPrefix, 'fluid.composition-unit-hint')}>
+          {typedIn === 'percent'
+            ? 'These add up to about 100: if they are mol %, choose mol % above; the numbers stay as typed.'
+            : 'These add up to about 1: if they are mole fractions, choose mole fraction above; the numbers stay as typed.'}
+        </AppText>
+      ) : null}
       {error ? (
         <AppText variant="caption" tone="alarm" testID={`${fieldTestID(testPrefix, 'fluid.composition')}-error`}>
-          {`▲ ${error}`}
+          {`⊗ ${error}`}
         </AppText>
       ) : null}
     </View>

@@ -1,7 +1,7 @@
 /**
  * A meter run's own details that may change without a new configuration version: its name,
- * hold limit, longest gap, no-flow cutoff and line data. (The element and fluid change only
- * through a dated configuration version.) The hold limit, longest gap and no-flow cutoff are
+ * hold limit, gap limit, no-flow cutoff and line data. (The element and fluid change only
+ * through a dated configuration version.) The hold limit, gap limit and no-flow cutoff are
  * dated settings: a change takes effect from a time on the site's clock (default now), with a
  * reason, and recomputes the meter run's history from then on only.
  */
@@ -39,7 +39,7 @@ const backDatingGraceMs = 5 * 60 * 1000;
 const labels: Record<string, string> = {
   name: 'Name',
   holdLimitS: 'Hold limit',
-  maxGapS: 'Longest gap',
+  maxGapS: 'Gap limit',
   noFlowCutoffPercentOfSpan: 'No-flow cutoff',
   effectiveFrom: 'Effective from',
   reason: 'Reason',
@@ -139,7 +139,7 @@ export function MeterRunDetailsForm({ meterRun, site, onDone, onCancel }: MeterR
           testID={id('holdLimitS')}
         />
         <NumberField
-          label="Longest gap (s)"
+          label="Gap limit (s)"
           value={maxGap}
           onChangeText={setMaxGap}
           error={shown.maxGapS}
@@ -174,7 +174,7 @@ export function MeterRunDetailsForm({ meterRun, site, onDone, onCancel }: MeterR
             />
           ) : null}
           <Notice title="Dated settings">
-            The hold limit, the longest gap and the no-flow cutoff decide which time counts as flow, as no flow and as
+            The hold limit, the gap limit and the no-flow cutoff decide which time counts as flow, as no flow and as
             missing. A change takes effect from the time above: hours before it keep the settings then in force, and the
             hour it falls in is split into two records.
           </Notice>

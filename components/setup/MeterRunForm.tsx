@@ -61,7 +61,7 @@ const labels: Record<string, string> = {
   tag: 'Tag',
   name: 'Name',
   holdLimitS: 'Hold limit',
-  maxGapS: 'Longest gap',
+  maxGapS: 'Gap limit',
   stackSwitchUpShare: 'Switch up to the high range at',
   stackSwitchDownShare: 'Switch back down at',
   effectiveFrom: 'First configuration effective from',
@@ -142,7 +142,13 @@ export function MeterRunForm({ site, onDone }: MeterRunFormProps) {
   return (
     <View style={styles.form} testID={prefix}>
       {added ? <Notice testID={`${prefix}-done`}>{added}</Notice> : null}
-      <FormErrorSummary errors={shown} labels={labels} general={general} testID={`${prefix}-errors`} />
+      <FormErrorSummary
+        errors={shown}
+        labels={labels}
+        general={general}
+        testID={`${prefix}-errors`}
+        fieldPrefix={prefix}
+      />
       <FieldRow>
         <View style={styles.field}>
           <TextField
@@ -182,7 +188,7 @@ export function MeterRunForm({ site, onDone }: MeterRunFormProps) {
 
       <FormSection
         title="Data handling"
-        description="The hold limit is how long a static pressure or temperature reading may stand in for the next; a gap between readings longer than the longest gap counts as missing time, not flow. A stacked pair switches up to the high-range DP above the first share of the low-range span and back below the second (hysteresis)."
+        description="The hold limit is how long a static pressure or temperature reading may stand in for the next; a gap between readings longer than the gap limit counts as missing time, not flow. A stacked pair switches up to the high-range DP above the first share of the low-range span and back below the second (hysteresis)."
       >
         <FieldRow>
           <NumberField
@@ -193,7 +199,7 @@ export function MeterRunForm({ site, onDone }: MeterRunFormProps) {
             testID={id('holdLimitS')}
           />
           <NumberField
-            label="Longest gap (s)"
+            label="Gap limit (s)"
             value={run.maxGapS}
             onChangeText={editRun('maxGapS')}
             error={shown.maxGapS}

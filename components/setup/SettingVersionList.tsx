@@ -1,5 +1,5 @@
 /**
- * The dated settings of a meter run (issue 9), newest first: its hold limit, longest gap, no-flow
+ * The dated settings of a meter run (issue 9), newest first: its hold limit, gap limit, no-flow
  * cutoff and stacked-pair shares, its transmitters' ranges and accuracies, and its site's contract
  * hour, base conditions and atmospheric pressure. Each version shows when it took effect on the
  * site's clock, what it is about, the reason, who made it and field by field what it changed, so

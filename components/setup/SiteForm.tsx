@@ -5,9 +5,11 @@
  * Editing, the contract hour, base conditions and atmospheric pressure are dated settings: a
  * change takes effect from a time on the site's clock (default now), with a reason.
  */
+import { Link } from 'expo-router';
 import { useState } from 'react';
 import { StyleSheet, View } from 'react-native';
 
+import { AppText } from '@/components/ui/AppText';
 import { Button } from '@/components/ui/Button';
 import { ChoiceGroup } from '@/components/ui/ChoiceGroup';
 import { Notice } from '@/components/ui/Notice';
@@ -18,23 +20,19 @@ import { siteSchema } from '@/shared/schemas/setup';
 import { DatedChangeFields } from './DatedChangeFields';
 import { FieldRow } from './FieldRow';
 import { FormErrorSummary } from './FormErrorSummary';
-import {
-  convertNumberText,
-  fieldErrorFromServer,
-  fieldErrorsFromZod,
-  fieldTestID,
-  numberText,
-  parseNumberText,
-  type FieldErrors,
-} from './formFields';
+import { fieldErrorFromServer, fieldErrorsFromZod, fieldTestID, parseNumberText, type FieldErrors } from './formFields';
 import { NumberField } from './NumberField';
+import { TimeZoneField } from './TimeZoneField';
+import { useReveal } from './useReveal';
 import { siteClockNow, zonedIso } from './zonedTime';
 import {
   absolutePressureUnits,
+  convertShown,
   fromSI,
-  optionalToSI,
-  toSI,
+  roundedText,
+  siFromShown,
   temperatureUnits,
+  type ShownValue,
   type AbsolutePressureUnit,
   type TemperatureUnit,
 } from './unitChoices';
@@ -51,7 +49,11 @@ interface SiteDraft {
   atmosphericPressure: string;
   atmosphericPressureUnit: AbsolutePressureUnit;
   displayUnits: 'si' | 'us';
+  /** The SI values behind numbers the form converted and rounded for reading (kept while the text is unchanged). */
+  shown: Partial<Record<ValueField, ShownValue>>;
 }
+
+type ValueField = 'basePressure' | 'baseTemperature' | 'atmosphericPressure';
 
 const labels: Record<string, string> = {
   code: 'Code',
@@ -91,6 +93,7 @@ function emptyDraft(): SiteDraft {
     atmosphericPressure: '101.325',
     atmosphericPressureUnit: 'kPa',
     displayUnits: 'si',
+    shown: {},
   };
 }
 
@@ -98,18 +101,26 @@ function draftFromSite(site: Site): SiteDraft {
   const us = site.displayUnits === 'us';
   const pressureUnit: AbsolutePressureUnit = us ? 'psi' : 'kPa';
   const temperatureUnit: TemperatureUnit = us ? 'degF' : 'degC';
+  const stored = (si: number, unit: AbsolutePressureUnit | TemperatureUnit): ShownValue => ({
+    text: roundedText(fromSI(si, unit), unit),
+    si,
+  });
+  const basePressure = stored(site.basePressurePa, pressureUnit);
+  const baseTemperature = stored(site.baseTemperatureK, temperatureUnit);
+  const atmosphericPressure = stored(site.atmosphericPressurePa, pressureUnit);
   return {
     code: site.code,
     name: site.name,
     timeZone: site.timeZone,
     contractHour: String(site.contractHour),
-    basePressure: numberText(fromSI(site.basePressurePa, pressureUnit)),
+    basePressure: basePressure.text,
     basePressureUnit: pressureUnit,
-    baseTemperature: numberText(fromSI(site.baseTemperatureK, temperatureUnit)),
+    baseTemperature: baseTemperature.text,
     baseTemperatureUnit: temperatureUnit,
-    atmosphericPressure: numberText(fromSI(site.atmosphericPressurePa, pressureUnit)),
+    atmosphericPressure: atmosphericPressure.text,
     atmosphericPressureUnit: pressureUnit,
     displayUnits: site.displayUnits,
+    shown: { basePressure, baseTemperature, atmosphericPressure },
   };
 }
 
@@ -119,9 +130,13 @@ function bodyFrom(draft: SiteDraft) {
     name: draft.name,
     timeZone: draft.timeZone.trim(),
     contractHour: parseNumberText(draft.contractHour),
-    basePressurePa: optionalToSI(parseNumberText(draft.basePressure), draft.basePressureUnit),
-    baseTemperatureK: optionalToSI(parseNumberText(draft.baseTemperature), draft.baseTemperatureUnit),
-    atmosphericPressurePa: optionalToSI(parseNumberText(draft.atmosphericPressure), draft.atmosphericPressureUnit),
+    basePressurePa: siFromShown(draft.basePressure, draft.basePressureUnit, draft.shown.basePressure),
+    baseTemperatureK: siFromShown(draft.baseTemperature, draft.baseTemperatureUnit, draft.shown.baseTemperature),
+    atmosphericPressurePa: siFromShown(
+      draft.atmosphericPressure,
+      draft.atmosphericPressureUnit,
+      draft.shown.atmosphericPressure,
+    ),
     displayUnits: draft.displayUnits,
   };
 }
@@ -140,7 +155,9 @@ export function SiteForm({ site, onDone, onCancel }: SiteFormProps) {
   const prefix = site ? 'site-edit' : 'site-create';
   const [draft, setDraft] = useState<SiteDraft>(() => (site ? draftFromSite(site) : emptyDraft()));
   const [errors, setErrors] = useState<FieldErrors>({});
-  const [saved, setSaved] = useState<string | null>(null);
+  const [saved, setSaved] = useState<{ text: string; site: Site } | null>(null);
+  const [attempt, setAttempt] = useState(0);
+  const savedRef = useReveal(saved);
   const [effective, setEffective] = useState(() => siteClockNow(site?.timeZone ?? 'UTC', Date.now()));
   const [reason, setReason] = useState('');
   const datedChanged = site ? datedSettingsDiffer(site, bodyFrom(draft)) : false;
@@ -151,22 +168,25 @@ export function SiteForm({ site, onDone, onCancel }: SiteFormProps) {
     if (mutation.error) mutation.reset();
   };
 
-  /** A new unit for a value field: the typed number is converted so the quantity stays the same. */
-  const changeUnit = <V extends 'basePressure' | 'baseTemperature' | 'atmosphericPressure'>(
-    field: V,
-    unit: SiteDraft[`${V}Unit`],
-  ) => {
+  /** A new unit for a value field: the quantity stays the same, shown rounded for reading (see convertShown). */
+  const changeUnit = <V extends ValueField>(field: V, unit: SiteDraft[`${V}Unit`]) => {
+    setDraft((current) => withUnit(current, field, unit));
+  };
+
+  /** US customary units on screen: the base conditions are shown in psia and °F too (SI: kPa and °C). */
+  const changeDisplayUnits = (displayUnits: SiteDraft['displayUnits']) => {
+    const pressure: AbsolutePressureUnit = displayUnits === 'us' ? 'psi' : 'kPa';
+    const temperature: TemperatureUnit = displayUnits === 'us' ? 'degF' : 'degC';
     setDraft((current) => {
-      const from = current[`${field}Unit`];
-      return {
-        ...current,
-        [`${field}Unit`]: unit,
-        [field]: convertNumberText(current[field], (value) => fromSI(toSI(value, from), unit)),
-      };
+      const withPressure = withUnit(current, 'basePressure', pressure);
+      const withTemperature = withUnit(withPressure, 'baseTemperature', temperature);
+      return { ...withUnit(withTemperature, 'atmosphericPressure', pressure), displayUnits };
     });
+    setSaved(null);
   };
 
   const submit = () => {
+    setAttempt((count) => count + 1);
     const body = bodyFrom(draft);
     const parsed = siteSchema.safeParse(body);
     if (!parsed.success) {
@@ -175,7 +195,7 @@ export function SiteForm({ site, onDone, onCancel }: SiteFormProps) {
     }
     setErrors({});
     const onSuccess = (result: Site) => {
-      setSaved(site ? `Saved ${result.code}.` : `Added ${result.code} · ${result.name}.`);
+      setSaved({ text: site ? `Saved ${result.code}.` : `Added ${result.code} · ${result.name}.`, site: result });
       if (!site) setDraft(emptyDraft());
       onDone?.(result);
     };
@@ -198,8 +218,26 @@ export function SiteForm({ site, onDone, onCancel }: SiteFormProps) {
 
   return (
     <View style={styles.form} testID={prefix}>
-      {saved ? <Notice testID={`${prefix}-done`}>{saved}</Notice> : null}
-      <FormErrorSummary errors={shown} labels={labels} general={general} testID={`${prefix}-errors`} />
+      {saved ? (
+        <View ref={savedRef} aria-live="polite">
+          <Notice testID={`${prefix}-done`}>
+            <AppText>{saved.text}</AppText>
+            {site ? null : (
+              <Link href={`/setup?site=${encodeURIComponent(saved.site.id)}`} testID={`${prefix}-done-open`}>
+                <AppText style={styles.link}>{`Open ${saved.site.code} to add its meter runs`}</AppText>
+              </Link>
+            )}
+          </Notice>
+        </View>
+      ) : null}
+      <FormErrorSummary
+        errors={shown}
+        labels={labels}
+        general={general}
+        testID={`${prefix}-errors`}
+        fieldPrefix={prefix}
+        revealKey={attempt}
+      />
       <FieldRow>
         <View style={styles.field}>
           <TextField
@@ -230,15 +268,11 @@ export function SiteForm({ site, onDone, onCancel }: SiteFormProps) {
       </FieldRow>
       <FieldRow>
         <View style={styles.field}>
-          <TextField
-            label="Time zone"
+          <TimeZoneField
             value={draft.timeZone}
             onChangeText={(text) => edit('timeZone', text)}
             error={shown.timeZone}
-            hint="IANA name, e.g. America/Denver: contract days follow its daylight-saving rules."
             testID={id('timeZone')}
-            autoCapitalize="none"
-            autoCorrect={false}
           />
         </View>
         <NumberField
@@ -307,7 +341,7 @@ export function SiteForm({ site, onDone, onCancel }: SiteFormProps) {
         label="Units on screen"
         options={displayUnitOptions}
         value={draft.displayUnits}
-        onChange={(value) => edit('displayUnits', value)}
+        onChange={changeDisplayUnits}
         testIDPrefix={id('displayUnits')}
       />
       <View style={styles.actions}>
@@ -328,7 +362,21 @@ const styles = StyleSheet.create({
   form: { gap: space.md },
   field: { flexGrow: 1, flexBasis: 200, minWidth: 160 },
   actions: { flexDirection: 'row', gap: space.sm, flexWrap: 'wrap' },
+  link: { textDecorationLine: 'underline' },
 });
+
+/** The draft with one value field in a new unit, converted once and rounded for reading. */
+function withUnit<V extends ValueField>(draft: SiteDraft, field: V, unit: SiteDraft[`${V}Unit`]): SiteDraft {
+  const from = draft[`${field}Unit`];
+  if (from === unit) return draft;
+  const converted = convertShown(draft[field], from, unit, draft.shown[field]);
+  return {
+    ...draft,
+    [`${field}Unit`]: unit,
+    [field]: converted.text,
+    shown: { ...draft.shown, [field]: converted.shown },
+  };
+}
 
 /** Whether the draft changes a dated setting (a unit round trip's last-digit noise is not a change). */
 function datedSettingsDiffer(site: Site, body: ReturnType<typeof bodyFrom>): boolean {

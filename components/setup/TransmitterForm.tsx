@@ -135,7 +135,13 @@ export function TransmitterForm({ meterRun, existing, us, onDone }: TransmitterF
   return (
     <View style={styles.form} testID={prefix}>
       {added ? <Notice testID={`${prefix}-done`}>{added}</Notice> : null}
-      <FormErrorSummary errors={shown} labels={labels} general={general} testID={`${prefix}-errors`} />
+      <FormErrorSummary
+        errors={shown}
+        labels={labels}
+        general={general}
+        testID={`${prefix}-errors`}
+        fieldPrefix={prefix}
+      />
       <TextField
         label="Tag"
         value={draft.tag}
@@ -162,7 +168,7 @@ export function TransmitterForm({ meterRun, existing, us, onDone }: TransmitterF
           testIDPrefix={id('unit')}
         />
         {shown.unit ? (
-          <AppText variant="caption" tone="alarm" testID={`${id('unit')}-error`}>{`▲ ${shown.unit}`}</AppText>
+          <AppText variant="caption" tone="alarm" testID={`${id('unit')}-error`}>{`⊗ ${shown.unit}`}</AppText>
         ) : null}
       </View>
       {draft.measures === 'static-pressure' ? (
@@ -204,7 +210,7 @@ export function TransmitterForm({ meterRun, existing, us, onDone }: TransmitterF
               variant="caption"
               tone="alarm"
               testID={`${id('stackRole')}-error`}
-            >{`▲ ${shown.stackRole}`}</AppText>
+            >{`⊗ ${shown.stackRole}`}</AppText>
           ) : null}
         </View>
       ) : null}

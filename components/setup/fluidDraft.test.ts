@@ -7,11 +7,13 @@ import { DETAIL_COMPONENTS } from '@/shared/fluids/aga8/detail-constants';
 import {
   commonComponents,
   compositionFromDraft,
+  compositionUnitOfSum,
   describeFluid,
   draftFromFluid,
   emptyFluidDraft,
   fluidFromDraft,
   otherComponents,
+  switchCompositionUnit,
 } from './fluidDraft';
 
 describe('the component lists', () => {
@@ -107,5 +109,68 @@ describe('describeFluid', () => {
     ).toBe('liquid, 850 kg/m³');
     expect(describeFluid({ kind: 'steam' })).toBe('steam');
     expect(describeFluid(undefined)).toBe('no fluid');
+  });
+});
+
+describe('switchCompositionUnit', () => {
+  // 1 mol % = 0.01 mole fraction (ISO 80000-1, the percent).
+  const typed = (compositionUnit: 'fraction' | 'percent', composition: Record<string, string>) => ({
+    ...emptyFluidDraft,
+    compositionUnit,
+    composition,
+  });
+
+  it('turns 90, 5, 2 and 3 mol % into mole fractions 0.9, 0.05, 0.02 and 0.03, once', () => {
+    const switched = switchCompositionUnit(
+      typed('percent', { methane: '90', ethane: '5', propane: '2', nitrogen: '3' }),
+      'fraction',
+    );
+    expect(switched.compositionUnit).toBe('fraction');
+    expect(switched.composition).toEqual({ methane: '0.9', ethane: '0.05', propane: '0.02', nitrogen: '0.03' });
+  });
+
+  it('turns mole fractions back into the mol % first typed', () => {
+    const start = typed('percent', { methane: '90', ethane: '5', propane: '2', nitrogen: '3' });
+    const back = switchCompositionUnit(switchCompositionUnit(start, 'fraction'), 'percent');
+    expect(back).toEqual(start);
+  });
+
+  it('converts a composition still being typed (90, 5, 2 mol %) both ways', () => {
+    const start = typed('percent', { methane: '90', ethane: '5', propane: '2' });
+    const fractions = switchCompositionUnit(start, 'fraction');
+    expect(fractions.composition).toEqual({ methane: '0.9', ethane: '0.05', propane: '0.02' });
+    expect(compositionFromDraft(fractions).methane).toBeCloseTo(0.9, 12);
+    expect(switchCompositionUnit(fractions, 'percent').composition).toEqual(start.composition);
+  });
+
+  it('keeps numbers that already add up to 100 as typed when mol % is chosen after typing them', () => {
+    const switched = switchCompositionUnit(typed('fraction', { methane: '96', ethane: '3', nitrogen: '1' }), 'percent');
+    expect(switched.compositionUnit).toBe('percent');
+    expect(switched.composition).toEqual({ methane: '96', ethane: '3', nitrogen: '1' });
+  });
+
+  it('keeps numbers that already add up to 1 as typed when mole fraction is chosen after typing them', () => {
+    const switched = switchCompositionUnit(typed('percent', { methane: '0.96', ethane: '0.04' }), 'fraction');
+    expect(switched.composition).toEqual({ methane: '0.96', ethane: '0.04' });
+  });
+
+  it('leaves text that is not a number and blank components as they are', () => {
+    const switched = switchCompositionUnit(typed('percent', { methane: '90', ethane: 'abc', propane: '' }), 'fraction');
+    expect(switched.composition).toEqual({ methane: '0.9', ethane: 'abc', propane: '' });
+  });
+
+  it('returns the same draft when the unit does not change', () => {
+    const start = typed('percent', { methane: '90' });
+    expect(switchCompositionUnit(start, 'percent')).toBe(start);
+  });
+});
+
+describe('compositionUnitOfSum', () => {
+  it('reads a sum near 1 as mole fractions, near 100 as mol %, and anything else as neither', () => {
+    expect(compositionUnitOfSum({ ...emptyFluidDraft, composition: { methane: '0.97', ethane: '0.03' } })).toBe(
+      'fraction',
+    );
+    expect(compositionUnitOfSum({ ...emptyFluidDraft, composition: { methane: '97', ethane: '3' } })).toBe('percent');
+    expect(compositionUnitOfSum({ ...emptyFluidDraft, composition: { methane: '40' } })).toBeUndefined();
   });
 });

@@ -5,7 +5,7 @@
  */
 import type { FluidSpec } from '@/shared/fluids/fluid-types';
 import { DETAIL_COMPONENTS, type DetailComponent } from '@/shared/fluids/aga8/detail-constants';
-import { numberText, parseNumberText } from './formFields';
+import { convertNumberText, numberText, parseNumberText } from './formFields';
 import { fromSI, optionalToSI } from './unitChoices';
 
 export type FluidKind = FluidSpec['kind'];
@@ -74,6 +74,44 @@ export function compositionFromDraft(draft: FluidDraft): Record<string, number> 
     composition[name] = draft.compositionUnit === 'percent' ? value * fractionPerPercent : value;
   }
   return composition;
+}
+
+/** How far a typed composition's sum may be from a whole (1 or 100) and still be read as one. */
+const wholeTolerance = 0.05;
+
+/**
+ * The unit the numbers typed add up in: about 1 as mole fractions, about 100 in mol %; undefined
+ * when they add up to neither (a composition still being typed).
+ * @param draft the form's fluid
+ */
+export function compositionUnitOfSum(draft: FluidDraft): FluidDraft['compositionUnit'] | undefined {
+  let sum = 0;
+  for (const text of Object.values(draft.composition)) {
+    const value = parseNumberText(text ?? '');
+    if (value !== undefined && Number.isFinite(value)) sum += value;
+  }
+  if (Math.abs(sum - 1) <= wholeTolerance) return 'fraction';
+  if (Math.abs(sum - 100) <= 100 * wholeTolerance) return 'percent';
+  return undefined;
+}
+
+/**
+ * A new unit for the composition, converted once: each amount keeps its meaning (mol % =
+ * 100 × mole fraction). When the numbers typed already add up to about 100 and mol % is chosen
+ * (or to about 1 and mole fraction), they were typed in that unit before it was chosen: only
+ * the unit changes, the numbers stay as typed.
+ * @param draft the form's fluid
+ * @param unit the unit chosen
+ * @returns the draft in that unit
+ */
+export function switchCompositionUnit(draft: FluidDraft, unit: FluidDraft['compositionUnit']): FluidDraft {
+  if (unit === draft.compositionUnit) return draft;
+  if (compositionUnitOfSum(draft) === unit) return { ...draft, compositionUnit: unit };
+  const toUnit = (value: number) => (unit === 'percent' ? value / fractionPerPercent : value * fractionPerPercent);
+  const composition = Object.fromEntries(
+    Object.entries(draft.composition).map(([name, text]) => [name, convertNumberText(text ?? '', toUnit)]),
+  );
+  return { ...draft, compositionUnit: unit, composition };
 }
 
 /**

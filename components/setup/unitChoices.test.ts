@@ -4,9 +4,12 @@
  */
 import {
   absolutePressureUnits,
+  convertShown,
   lengthFromMetres,
   lengthToMetres,
   optionalToSI,
+  roundedText,
+  siFromShown,
   temperatureUnits,
   toSI,
 } from './unitChoices';
@@ -45,5 +48,44 @@ describe('the unit choices', () => {
 
   it('offers temperatures in °C, °F and K', () => {
     expect(temperatureUnits.map((unit) => unit.label)).toEqual(['°C', '°F', 'K']);
+  });
+});
+
+describe('roundedText, convertShown and siFromShown', () => {
+  // 1 atm = 101325 Pa = 14.6959488 psi (NIST SP 811 Appendix B.8: 1 psi = 6894.757293168 Pa, 1 atm = 101325 Pa).
+  it('shows 101.325 kPa as 14.696 psia and sends back exactly 101325 Pa while the text is left alone', () => {
+    const { text, shown } = convertShown('101.325', 'kPa', 'psi');
+    expect(text).toBe('14.696');
+    expect(siFromShown(text, 'psi', shown)).toBe(101325);
+  });
+
+  it('turns 101.325 kPa to psia and back into the same 101.325 kPa text', () => {
+    const inPsi = convertShown('101.325', 'kPa', 'psi');
+    const back = convertShown(inPsi.text, 'psi', 'kPa', inPsi.shown);
+    expect(back.text).toBe('101.325');
+    expect(back.shown?.si).toBe(101325);
+  });
+
+  // ISO 80000-5: T/K = t/°C + 273.15; t/°F = 1.8 t/°C + 32 (NIST SP 811 Appendix B.8).
+  it('shows 15 °C as 59 °F and 60 °F as 15.56 °C, each standing for the exact kelvin', () => {
+    const fahrenheit = convertShown('15', 'degC', 'degF');
+    expect(fahrenheit.text).toBe('59');
+    expect(fahrenheit.shown?.si).toBeCloseTo(288.15, 12);
+    const celsius = convertShown('60', 'degF', 'degC');
+    expect(celsius.text).toBe('15.56');
+    expect(siFromShown(celsius.text, 'degC', celsius.shown)).toBeCloseTo(288.705556, 6);
+  });
+
+  it('reads a retyped value as typed, a blank as undefined and words as NaN', () => {
+    const { shown } = convertShown('101.325', 'kPa', 'psi');
+    expect(siFromShown('14.73', 'psi', shown)).toBeCloseTo(101559.77, 1);
+    expect(siFromShown('', 'psi', shown)).toBeUndefined();
+    expect(siFromShown('abc', 'psi')).toBeNaN();
+    expect(convertShown('abc', 'kPa', 'psi')).toEqual({ text: 'abc' });
+  });
+
+  it('rounds a bar value to five decimals and drops trailing zeros', () => {
+    expect(roundedText(1.01325, 'bar')).toBe('1.01325');
+    expect(roundedText(14.7, 'psi')).toBe('14.7');
   });
 });

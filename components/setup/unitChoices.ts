@@ -4,6 +4,7 @@
  * SI prefix milli.
  */
 import { INCH_M, fromSI, toSI } from '@/shared/units';
+import { parseNumberText } from './formFields';
 
 export const absolutePressureUnits = [
   { value: 'kPa', label: 'kPa abs' },
@@ -53,3 +54,67 @@ export function optionalToSI<T extends number | undefined>(value: T, unit: strin
 }
 
 export { fromSI, toSI };
+
+/**
+ * Decimals shown when a value is converted for the person (not when it is typed): a thousandth
+ * of a kPa or psi, a hundred-thousandth of a bar, a hundredth of a degree, which is finer than
+ * any base condition or barometer is stated to.
+ */
+const shownDecimals: Record<AbsolutePressureUnit | TemperatureUnit, number> = {
+  kPa: 3,
+  psi: 3,
+  bar: 5,
+  degC: 2,
+  degF: 2,
+  K: 2,
+};
+
+/**
+ * @param value a converted value in unit
+ * @param unit the unit it is shown in
+ * @returns its text rounded for reading (14.6959487755 psia → "14.696"), with no trailing zeros
+ */
+export function roundedText(value: number, unit: AbsolutePressureUnit | TemperatureUnit): string {
+  if (!Number.isFinite(value)) return '';
+  return String(Number(value.toFixed(shownDecimals[unit])));
+}
+
+/**
+ * A value the form converted for showing, with the SI value it stands for: while the text is
+ * left as shown, the SI value is sent, so rounding for reading never changes what is stored.
+ */
+export interface ShownValue {
+  text: string;
+  si: number;
+}
+
+/**
+ * A field's value in a new unit, rounded for reading.
+ * @param text the field's text
+ * @param from the unit it is in
+ * @param to the unit to show it in
+ * @param shown what the form last showed in this field, if it converted it
+ * @returns the new text and the SI value it stands for (no SI value when the text is not a number)
+ */
+export function convertShown(
+  text: string,
+  from: AbsolutePressureUnit | TemperatureUnit,
+  to: AbsolutePressureUnit | TemperatureUnit,
+  shown?: ShownValue,
+): { text: string; shown?: ShownValue } {
+  const si = siFromShown(text, from, shown);
+  if (si === undefined || !Number.isFinite(si)) return { text };
+  const converted = roundedText(fromSI(si, to), to);
+  return { text: converted, shown: { text: converted, si } };
+}
+
+/**
+ * @param text the field's text
+ * @param unit the unit it is in
+ * @param shown what the form last showed in this field, if it converted it
+ * @returns the SI value: the one shown stands for while the text is unchanged, else the text's (undefined when blank, NaN when not a number)
+ */
+export function siFromShown(text: string, unit: string, shown?: ShownValue): number | undefined {
+  if (shown && shown.text === text) return shown.si;
+  return optionalToSI(parseNumberText(text), unit);
+}
