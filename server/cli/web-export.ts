@@ -1,6 +1,7 @@
 import { spawnSync } from 'node:child_process';
 import fs from 'node:fs';
 import path from 'node:path';
+import zlib from 'node:zlib';
 
 const sources = ['app', 'components', 'hooks', 'constants', 'shared', 'assets', 'app.json', 'package.json'];
 
@@ -35,8 +36,60 @@ export function exportWebClient(root: string, log: (s: string) => void, options:
     },
   );
   if (result.status !== 0) throw new Error(`expo export failed:\n${result.stdout}\n${result.stderr}`);
+  const { files, rawBytes, brBytes } = precompressWebClient(path.join(root, 'dist'));
+  log(`pre-compressed ${files} files: ${kb(rawBytes)} → ${kb(brBytes)} brotli`);
   fs.writeFileSync(stamp, new Date().toISOString());
   const seconds = (Date.now() - started) / 1000;
   log(`web client exported in ${seconds.toFixed(0)} s`);
   return seconds;
+}
+
+/** Text that compresses; images and WOFF2 fonts are compressed already. */
+const COMPRESSIBLE = /\.(js|css|html|json|svg|txt|map|ico|ttf)$/;
+/** Below this a compressed copy saves less than its headers cost. */
+const MIN_BYTES = 1024;
+
+const kb = (bytes: number) => `${(bytes / 1024).toFixed(0)} KB`;
+
+/**
+ * Writes `<file>.br` (quality 11) and `<file>.gz` (level 9) beside every compressible file of the
+ * export, once, so the server sends them without compressing per request (server/web.ts). A copy
+ * that would not be smaller is not written.
+ */
+export function precompressWebClient(dir: string) {
+  let files = 0;
+  let rawBytes = 0;
+  let brBytes = 0;
+  for (const file of listFiles(dir)) {
+    if (!COMPRESSIBLE.test(file)) continue;
+    const raw = fs.readFileSync(file);
+    if (raw.length < MIN_BYTES) continue;
+    const br = zlib.brotliCompressSync(raw, {
+      params: {
+        [zlib.constants.BROTLI_PARAM_QUALITY]: 11,
+        [zlib.constants.BROTLI_PARAM_SIZE_HINT]: raw.length,
+      },
+    });
+    const gz = zlib.gzipSync(raw, { level: 9 });
+    if (br.length < raw.length) writeBeside(`${file}.br`, br);
+    if (gz.length < raw.length) writeBeside(`${file}.gz`, gz);
+    files += 1;
+    rawBytes += raw.length;
+    brBytes += Math.min(br.length, raw.length);
+  }
+  return { files, rawBytes, brBytes };
+}
+
+/** Written under a temporary name and renamed, so a server never sends half a copy. */
+function writeBeside(target: string, bytes: Buffer) {
+  const temporary = `${target}.${process.pid}.tmp`;
+  fs.writeFileSync(temporary, bytes);
+  fs.renameSync(temporary, target);
+}
+
+function listFiles(dir: string): string[] {
+  return fs.readdirSync(dir, { withFileTypes: true }).flatMap((entry) => {
+    const full = path.join(dir, entry.name);
+    return entry.isDirectory() ? listFiles(full) : [full];
+  });
 }

@@ -1,10 +1,14 @@
 import crypto from 'node:crypto';
 import fs from 'node:fs';
+import http from 'node:http';
+import type { AddressInfo } from 'node:net';
 import os from 'node:os';
 import path from 'node:path';
+import zlib from 'node:zlib';
 import express from 'express';
 import request from 'supertest';
 import { testApp } from '../../server/test-support/app';
+import { precompressWebClient } from '../../server/cli/web-export';
 import { serveWebClient } from '../../server/web';
 
 /** Issue 12 §10: API answers are never stored by a browser or proxy; the web client runs under a strict policy. */
@@ -96,5 +100,94 @@ describe('Content-Security-Policy of the web client', () => {
   it('leaves API answers to the API', async () => {
     const res = await request(app).get('/api/ping');
     expect(res.headers['content-security-policy']).toBeUndefined();
+  });
+});
+
+describe('Compression and caching of the web client files', () => {
+  const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'tallyrun-web-'));
+  const script = `globalThis.rows = [${Array.from({ length: 2000 }, (_, i) => i).join(',')}];`;
+  const hashed = 'entry-0123456789abcdef0123456789abcdef.js';
+  const page = `<!DOCTYPE html><html><head><script src="/${hashed}" defer></script></head><body>${'<p>Tallyrun</p>'.repeat(200)}</body></html>`;
+  fs.writeFileSync(path.join(dir, 'index.html'), page);
+  fs.writeFileSync(path.join(dir, hashed), script);
+  fs.writeFileSync(path.join(dir, 'manifest.json'), JSON.stringify({ name: 'x'.repeat(2000) }));
+  precompressWebClient(dir);
+  afterAll(() => fs.rmSync(dir, { recursive: true, force: true }));
+
+  const app = express();
+  serveWebClient(app, dir);
+  let server: http.Server;
+  let port = 0;
+  beforeAll(async () => {
+    server = http.createServer(app);
+    await new Promise<void>((resolve) => server.listen(0, '127.0.0.1', resolve));
+    port = (server.address() as AddressInfo).port;
+  });
+  afterAll(() => new Promise<void>((resolve) => server.close(() => resolve())));
+
+  /** A raw GET: node:http leaves the body as sent, so the encoding is checked on the bytes themselves. */
+  const get = (url: string, acceptEncoding?: string) =>
+    new Promise<{ status: number; headers: http.IncomingHttpHeaders; body: Buffer }>((resolve, reject) => {
+      const headers = acceptEncoding === undefined ? {} : { 'Accept-Encoding': acceptEncoding };
+      http
+        .get({ host: '127.0.0.1', port, path: url, headers }, (res) => {
+          const chunks: Buffer[] = [];
+          res.on('data', (chunk: Buffer) => chunks.push(chunk));
+          res.on('end', () => resolve({ status: res.statusCode!, headers: res.headers, body: Buffer.concat(chunks) }));
+        })
+        .on('error', reject);
+    });
+
+  it('answers a request with Accept-Encoding br with the brotli copy, its own Content-Type and Vary', async () => {
+    const res = await get(`/${hashed}`, 'gzip, deflate, br');
+    expect(res.status).toBe(200);
+    expect(res.headers['content-encoding']).toBe('br');
+    expect(res.headers['vary']).toMatch(/Accept-Encoding/);
+    expect(res.headers['content-type']).toMatch(/^(application|text)\/javascript/);
+    expect(zlib.brotliDecompressSync(res.body).toString('utf8')).toBe(script);
+    expect(res.body.length).toBeLessThan(Buffer.byteLength(script) / 2);
+  });
+
+  it('answers a request that accepts only gzip with the gzip copy and Vary', async () => {
+    const res = await get(`/${hashed}`, 'gzip');
+    expect(res.headers['content-encoding']).toBe('gzip');
+    expect(res.headers['vary']).toMatch(/Accept-Encoding/);
+    expect(res.headers['content-type']).toMatch(/javascript/);
+    expect(zlib.gunzipSync(res.body).toString('utf8')).toBe(script);
+  });
+
+  it('answers a request without Accept-Encoding, or with identity only, with the plain file and Vary', async () => {
+    for (const acceptEncoding of [undefined, 'identity']) {
+      const res = await get(`/${hashed}`, acceptEncoding);
+      expect(res.headers['content-encoding']).toBeUndefined();
+      expect(res.headers['vary']).toMatch(/Accept-Encoding/);
+      expect(res.body.toString('utf8')).toBe(script);
+    }
+  });
+
+  it('compresses the pages too, keeping their HTML Content-Type', async () => {
+    const res = await get('/', 'br');
+    expect(res.headers['content-encoding']).toBe('br');
+    expect(res.headers['content-type']).toMatch(/^text\/html/);
+    expect(zlib.brotliDecompressSync(res.body).toString('utf8')).toBe(page);
+    expect((await get('/manifest.json', 'gzip')).headers['content-type']).toMatch(/^application\/json/);
+  });
+
+  it('marks a file whose name carries a content hash immutable for a year', async () => {
+    const res = await get(`/${hashed}`, 'br');
+    expect(res.headers['cache-control']).toBe('public, max-age=31536000, immutable');
+  });
+
+  it('makes index.html and files without a hash in their name revalidate', async () => {
+    for (const url of ['/', '/index.html', '/manifest.json']) {
+      expect((await get(url, 'gzip')).headers['cache-control']).toBe('no-cache');
+    }
+  });
+
+  it('never serves the compressed copies or dotfiles as files of their own', async () => {
+    fs.writeFileSync(path.join(dir, '.export-stamp'), 'x');
+    expect((await get(`/${hashed}.br`)).headers['content-type']).toMatch(/^text\/html/);
+    expect((await get('/.export-stamp')).body.toString('utf8')).not.toBe('x');
+    expect((await get('/..%2f..%2fetc%2fpasswd')).body.toString('utf8')).not.toMatch(/root:/);
   });
 });
