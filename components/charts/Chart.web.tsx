@@ -176,6 +176,27 @@ function logTickLabels(_u: uPlot, splits: (number | null)[]): string[] {
   });
 }
 
+let measureContext: CanvasRenderingContext2D | null = null;
+
+/**
+ * A value axis as wide as its longest tick number (measured in the axis font) plus the tick and
+ * gap, never less than `least` px: a fixed width let "1,200" run into the rotated axis title on a
+ * phone. uPlot calls this again once the values are known; from the third pass the width is kept,
+ * so the layout settles.
+ */
+function valueAxisSize(least: number) {
+  return (u: uPlot, values: string[] | null, axisIndex: number, cycle: number): number => {
+    const axis = u.axes[axisIndex] as uPlot.Axis & { _size?: number };
+    if (cycle > 1 && axis._size) return axis._size;
+    measureContext ??= document.createElement('canvas').getContext('2d');
+    if (!measureContext) return least;
+    measureContext.font = font;
+    const widest = Math.max(0, ...(values ?? []).map((v) => measureContext?.measureText(String(v ?? '')).width ?? 0));
+    const tick = axis.ticks?.show === false ? 0 : (axis.ticks?.size ?? 10);
+    return Math.max(least, Math.ceil(tick + (axis.gap ?? 5) + widest + 4));
+  };
+}
+
 /** Time axis labels on the site's clock, 24-hour, with the date where the day changes. */
 function timeFormatting(timeZone: string | undefined) {
   const local = (ts: number) => (timeZone ? uPlot.tzDate(new Date(ts * 1e3), timeZone) : new Date(ts * 1e3));
@@ -279,7 +300,7 @@ function build(
       side: axis.side === 'left' ? 3 : 1,
       label: axis.label,
       grid: { show: i === 0, stroke: gridLine, width: 1 },
-      size: narrow ? 40 : 56,
+      size: valueAxisSize(narrow ? 32 : 56),
       values: tickLabels,
     })),
   ];

@@ -13,10 +13,11 @@ import { formatNumber, unitsFor } from '@/constants/units-display';
 import type { Site } from '@/hooks/api/sites';
 import { useTotals } from '@/hooks/api/totals';
 import { contractDayBounds, contractDayOf } from '@/shared/history/contract-day';
+import { latestContractDays } from './contractDayLabels';
 import { FlagList } from './FlagList';
 import { RecordVersionsView, VersionMarker, versionColumn } from './RecordVersionsView';
 import { formatSiteTime } from './siteTime';
-import { totalCells } from './totalCells';
+import { coverageTitle, totalCells, uncertaintyTitle } from './totalCells';
 
 const days = 31;
 const dayMs = 86_400_000;
@@ -39,20 +40,22 @@ function lastDaysWindow(site: Site): { from: string; to: string } {
 
 export function DailyTotalsPanel({ meterRunId, site }: { meterRunId: string; site: Site }) {
   const [period] = useState(() => lastDaysWindow(site));
+  // Today's and yesterday's contract days said with their start and end (issue 14): "yesterday" is unambiguous.
+  const [latest] = useState(() => latestContractDays(site, Date.now()));
   const totals = useTotals(meterRunId, 'day', period.from, period.to);
   const [opened, setOpened] = useState<string | null>(null);
   const set = unitsFor(site.displayUnits);
 
   const columns: DataColumn[] = [
-    { key: 'day', title: 'Contract day', width: 104 },
+    { key: 'day', title: 'Contract day', width: 120 },
     { key: 'hours', title: 'Hours', width: 56 },
     { key: 'flowTime', title: 'Flow time, h', width: 80 },
     { key: 'mass', title: `Mass, ${set.mass.label}`, width: 104 },
     { key: 'volume', title: `Volume at base, ${set.standardVolume.label}`, width: 112 },
     { key: 'energy', title: `Energy, ${set.energy.label}`, width: 100 },
-    { key: 'coverage', title: 'Coverage', width: 80 },
-    { key: 'flags', title: 'Flags', width: 170, align: 'left' },
-    { key: 'uncertainty', title: 'U (k = 2)', width: 88 },
+    { key: 'coverage', title: coverageTitle, width: 80 },
+    { key: 'flags', title: 'Flags', width: 150, align: 'left' },
+    { key: 'uncertainty', title: uncertaintyTitle, width: 88 },
     { key: 'status', title: 'Status', width: 100, align: 'left' },
     versionColumn,
   ];
@@ -95,6 +98,9 @@ export function DailyTotalsPanel({ meterRunId, site }: { meterRunId: string; sit
         onRetry={() => void totals.refetch()}
         noun="daily totals"
       />
+      <AppText variant="caption" testID="daily-contract-days">
+        {`Today: ${latest.today.label}. Yesterday: ${latest.yesterday.label}.`}
+      </AppText>
       {totals.data ? (
         <DataTable
           columns={columns}

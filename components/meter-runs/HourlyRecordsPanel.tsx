@@ -24,11 +24,12 @@ import {
 } from '@/constants/units-display';
 import { useHourlyRecords } from '@/hooks/api/totals';
 import type { Site } from '@/hooks/api/sites';
+import { formatContractDay } from '@/shared/format/time';
 import { contractDayBounds, contractDayOf } from '@/shared/history/contract-day';
 import { FlagList } from './FlagList';
 import { RecordVersionsView, VersionMarker, versionColumn } from './RecordVersionsView';
 import { formatSiteTime } from './siteTime';
-import { totalCells } from './totalCells';
+import { coverageTitle, totalCells, uncertaintyTitle } from './totalCells';
 import { UncertaintyBudgetView } from './UncertaintyBudgetView';
 
 interface HourlyRecordsPanelProps {
@@ -62,9 +63,9 @@ export function HourlyRecordsPanel({ meterRunId, site }: HourlyRecordsPanelProps
     // SI whatever the display units: they are the record's own constants, to recompute its mass.
     { key: 'integral', title: 'IV, √(Pa·kg/m³)', width: 96 },
     { key: 'multiplier', title: 'IMV, m²', width: 96 },
-    { key: 'coverage', title: 'Coverage', width: 80 },
+    { key: 'coverage', title: coverageTitle, width: 80 },
     { key: 'flags', title: 'Flags', width: 160, align: 'left' },
-    { key: 'uncertainty', title: 'U (k = 2)', width: 80 },
+    { key: 'uncertainty', title: uncertaintyTitle, width: 80 },
     { key: 'status', title: 'Status', width: 96, align: 'left' },
     versionColumn,
   ];
@@ -125,7 +126,7 @@ export function HourlyRecordsPanel({ meterRunId, site }: HourlyRecordsPanelProps
           testID="hourly-previous-day"
         />
         <AppText variant="bodyStrong" testID="hourly-day" style={styles.day}>
-          {`Contract day ${day} (${bounds.hours} h from ${formatSiteTime(bounds.startMs, site.timeZone, 'HH:mm ZZZZ')})`}
+          {formatContractDay(day, bounds, site.timeZone)}
         </AppText>
         <Button
           label="Next day ›"

@@ -75,13 +75,13 @@ export function RecordVersionsView({ meterRunId, site, record, onClose }: Record
   const versionColumns: DataColumn[] = [
     { key: 'version', title: 'Version', width: 64 },
     { key: 'cause', title: 'Cause', width: 150, align: 'left' },
-    { key: 'computed', title: 'Computed', width: 136, align: 'left' },
+    { key: 'computed', title: 'Computed', width: 150, align: 'left' },
     // A phone shows what made each version and when; the figures are in the comparison above.
     ...(phone
       ? []
       : [
           { key: 'mass', title: `Mass, ${set.mass.label}`, width: 104 },
-          { key: 'coverage', title: 'Coverage', width: 80 },
+          { key: 'coverage', title: 'Coverage, %', width: 80 },
           { key: 'state', title: 'State', width: 120, align: 'left' as const },
         ]),
   ];
@@ -153,7 +153,7 @@ export function RecordVersionsView({ meterRunId, site, record, onClose }: Record
                 cause: `${causeWords[v.cause] ?? v.cause}${v.causeReference ? ` (${v.causeReference})` : ''}`,
                 computed: formatSiteTime(v.computedAt, site.timeZone, 'yyyy-MM-dd HH:mm'),
                 mass: formatNumber(fromSI(v.massKg, set.mass.unit), 6),
-                coverage: `${formatNumber(v.coverage * 100, 3)} %`,
+                coverage: formatNumber(v.coverage * 100, 3),
                 state: v.supersededAt
                   ? `replaced ${formatSiteTime(v.supersededAt, site.timeZone, 'MM-dd HH:mm')}`
                   : 'in force',

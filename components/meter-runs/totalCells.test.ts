@@ -40,10 +40,10 @@ describe('totalCells', () => {
     });
   });
 
-  it('shows coverage as a percent, uncertainty as ± percent and the status in words', () => {
+  it('shows coverage and uncertainty as bare percents (the unit is in the header) and the status in words', () => {
     expect(totalCells(total, unitsFor('si'))).toMatchObject({
-      coverage: '98.8 %',
-      uncertainty: '±0.51 %',
+      coverage: '98.8',
+      uncertainty: '±0.51',
       status: 'complete',
     });
   });

@@ -12,7 +12,7 @@ import { Panel } from '@/components/ui/Panel';
 import { QueryState } from '@/components/ui/QueryState';
 import { unitsFor, type DisplayUnits } from '@/constants/units-display';
 import { useTotals, type Total } from '@/hooks/api/totals';
-import { totalCells } from '@/components/meter-runs/totalCells';
+import { coverageTitle, totalCells, uncertaintyTitle } from '@/components/meter-runs/totalCells';
 import { formatSiteTime } from '@/components/meter-runs/siteTime';
 
 interface Props {
@@ -31,12 +31,12 @@ export function MonthDrillDown({ meterRunId, tag, from, to, timeZone, displayUni
   const hours = useTotals(meterRunId, 'hour', day?.start ?? from, day?.end ?? from);
   const set = unitsFor(displayUnits);
   const columns = (first: string): DataColumn[] => [
-    { key: 'when', title: first, width: 112 },
+    { key: 'when', title: first, width: 128 },
     { key: 'volume', title: `Volume at base, ${set.standardVolume.label}`, width: 120 },
     { key: 'mass', title: `Mass, ${set.mass.label}`, width: 100 },
     { key: 'energy', title: `Energy, ${set.energy.label}`, width: 100 },
-    { key: 'coverage', title: 'Coverage', width: 84 },
-    { key: 'uncertainty', title: 'U (k = 2)', width: 84 },
+    { key: 'coverage', title: coverageTitle, width: 84 },
+    { key: 'uncertainty', title: uncertaintyTitle, width: 84 },
     { key: 'status', title: 'Status', width: 96, align: 'left' },
   ];
   const row = (t: Total, index: number, prefix: string, format: string, open?: () => void) => ({

@@ -78,7 +78,7 @@ const verdict = (within: boolean | null) => (within === null ? 'No Tallyrun figu
 export function reconciliationColumns(unit: string): DataColumn[] {
   const u = unitLabel(unit);
   return [
-    { key: 'day', title: 'Contract day', width: 104 },
+    { key: 'day', title: 'Contract day', width: 120 },
     { key: 'tallyrun', title: `Tallyrun, ${u}`, width: 120 },
     { key: 'field', title: `Field, ${u}`, width: 120 },
     { key: 'difference', title: `Difference, ${u}`, width: 120 },

@@ -16,6 +16,7 @@ import { formatSiteTime } from '@/components/meter-runs/siteTime';
 import { TrendsPanel } from '@/components/meter-runs/TrendsPanel';
 import { ReconciliationPanel } from '@/components/reconciliation/ReconciliationPanel';
 import { recentMonthsWindow } from '@/components/reconciliation/reconciliationView';
+import { useScreenTitle } from '@/components/shell/screenTitle';
 import { AppText } from '@/components/ui/AppText';
 import { Notice } from '@/components/ui/Notice';
 import { QueryState } from '@/components/ui/QueryState';
@@ -30,6 +31,8 @@ export function MeterRunScreen({ meterRunId }: { meterRunId: string }) {
   const run = useMeterRun(meterRunId);
   const site = useSite(run.data?.siteId);
   const transmitters = useTransmitters(meterRunId);
+  // The header names this meter run, not the area ("Meter runs").
+  useScreenTitle(run.data ? `${run.data.tag} · ${run.data.name}` : undefined);
 
   if (isApiError(run.error, 404)) {
     return (

@@ -6,7 +6,7 @@ import { Pressable, StyleSheet, View } from 'react-native';
 
 import { AppText } from '@/components/ui/AppText';
 import { TextField } from '@/components/ui/TextField';
-import { colors, radius, space } from '@/constants/theme';
+import { colors, layout, radius, space } from '@/constants/theme';
 
 interface NumberFieldProps<U extends string> {
   label: string;
@@ -82,8 +82,11 @@ const styles = StyleSheet.create({
   wrap: { gap: space.xs, flexGrow: 1, flexBasis: 200, minWidth: 160 },
   compact: { flexBasis: 140, minWidth: 120 },
   units: { flexDirection: 'row', flexWrap: 'wrap', gap: space.xs },
+  // A finger-sized target (44 × 44 px, WCAG 2.5.5) however short the unit's name.
   unit: {
-    minHeight: 28,
+    minHeight: layout.touchTarget,
+    minWidth: layout.touchTarget,
+    alignItems: 'center',
     paddingHorizontal: space.sm,
     justifyContent: 'center',
     borderRadius: radius.sm,

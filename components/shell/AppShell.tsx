@@ -18,6 +18,7 @@ import { useDocumentTitle } from '@/hooks/useDocumentTitle';
 import { AppHeader } from './AppHeader';
 import { BottomBar } from './BottomBar';
 import { MoreMenu } from './MoreMenu';
+import { useScreenTitleFor } from './screenTitle';
 import { SideNav } from './SideNav';
 
 interface AppShellProps {
@@ -40,7 +41,8 @@ export function AppShell({ user, children }: AppShellProps) {
 
   const allowed = areasForRole(user.role);
   const current = areaForPath(pathname);
-  const title = current?.title ?? 'Tallyrun';
+  // A screen of one thing (a meter run) names it; otherwise the area's title.
+  const title = useScreenTitleFor(pathname) ?? current?.title ?? 'Tallyrun';
   useDocumentTitle(title);
 
   if (breakpoint === 'wide') {

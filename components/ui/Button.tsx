@@ -77,8 +77,10 @@ export function Button({
 }
 
 const styles = StyleSheet.create({
+  // Every size keeps a finger-sized target (44 × 44 px, WCAG 2.5.5); compact only trims the padding.
   base: {
     minHeight: layout.touchTarget,
+    minWidth: layout.touchTarget,
     paddingHorizontal: space.lg,
     borderRadius: radius.md,
     borderWidth: 1,
@@ -86,7 +88,7 @@ const styles = StyleSheet.create({
     alignItems: 'center',
     justifyContent: 'center',
   },
-  compact: { minHeight: 36, paddingHorizontal: space.md },
+  compact: { paddingHorizontal: space.md },
   content: { flexDirection: 'row', alignItems: 'center', gap: space.sm },
   primary: { backgroundColor: colors.actionFill, borderColor: colors.actionFill },
   primaryPressed: { backgroundColor: colors.actionFillPressed },

@@ -4,7 +4,7 @@
  */
 import { Pressable, StyleSheet, View } from 'react-native';
 
-import { colors, radius, space } from '@/constants/theme';
+import { colors, layout, radius, space } from '@/constants/theme';
 import { AppText } from './AppText';
 import type { WebPressableState } from '@/components/ui/pressableState';
 
@@ -62,8 +62,11 @@ export function ChoiceGroup<T extends string>({
 const styles = StyleSheet.create({
   group: { gap: space.xs },
   options: { flexDirection: 'row', flexWrap: 'wrap', gap: space.xs },
+  // A finger-sized target (44 × 44 px, WCAG 2.5.5).
   option: {
-    minHeight: 40,
+    minHeight: layout.touchTarget,
+    minWidth: layout.touchTarget,
+    alignItems: 'center',
     paddingHorizontal: space.md,
     justifyContent: 'center',
     borderRadius: radius.sm,
