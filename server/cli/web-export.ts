@@ -25,9 +25,13 @@ export function exportWebClient(root: string, log: (s: string) => void, options:
   if (!options.force && stampTime > newest) return 0;
   log('exporting the web client (expo export --platform web) ...');
   const started = Date.now();
+  // Export beside dist/ and swap it in at the end: a server (or another test run) reading dist/
+  // meanwhile never sees it half-written or emptied, as it did when expo wrote into it in place.
+  const next = `dist.next-${process.pid}`;
+  fs.rmSync(path.join(root, next), { recursive: true, force: true });
   const result = spawnSync(
     path.join(root, 'node_modules', '.bin', 'expo'),
-    ['export', '--platform', 'web', '--output-dir', 'dist'],
+    ['export', '--platform', 'web', '--output-dir', next],
     {
       cwd: root,
       stdio: ['ignore', 'pipe', 'pipe'],
@@ -35,10 +39,17 @@ export function exportWebClient(root: string, log: (s: string) => void, options:
       env: { ...process.env, EXPO_NO_TELEMETRY: '1', CI: '1' },
     },
   );
-  if (result.status !== 0) throw new Error(`expo export failed:\n${result.stdout}\n${result.stderr}`);
-  const { files, rawBytes, brBytes } = precompressWebClient(path.join(root, 'dist'));
+  if (result.status !== 0) {
+    fs.rmSync(path.join(root, next), { recursive: true, force: true });
+    throw new Error(`expo export failed:\n${result.stdout}\n${result.stderr}`);
+  }
+  const { files, rawBytes, brBytes } = precompressWebClient(path.join(root, next));
   log(`pre-compressed ${files} files: ${kb(rawBytes)} → ${kb(brBytes)} brotli`);
-  fs.writeFileSync(stamp, new Date().toISOString());
+  fs.writeFileSync(path.join(root, next, '.export-stamp'), new Date().toISOString());
+  const old = `dist.old-${process.pid}`;
+  if (fs.existsSync(path.join(root, 'dist'))) fs.renameSync(path.join(root, 'dist'), path.join(root, old));
+  fs.renameSync(path.join(root, next), path.join(root, 'dist'));
+  fs.rmSync(path.join(root, old), { recursive: true, force: true });
   const seconds = (Date.now() - started) / 1000;
   log(`web client exported in ${seconds.toFixed(0)} s`);
   return seconds;
