@@ -4,7 +4,9 @@
  * (TRADE.md §7: more than 10 alarms in 10 minutes). A tap opens the alarm list. When everything
  * is acknowledged the line turns grey and says how many are still open; with no open alarm it
  * is not drawn at all (ISA-101: a normal display stays quiet). The counts are polled every 10 s
- * and again when the window regains focus (hooks/api/alarms.ts).
+ * and again when the window regains focus (hooks/api/alarms.ts). On a phone it is one line (the
+ * counts by priority, the count, then as much of the newest message as fits) so the screen's own
+ * content keeps most of the height.
  */
 import { Link } from 'expo-router';
 import { useState } from 'react';
@@ -13,6 +15,7 @@ import { Pressable, StyleSheet, View } from 'react-native';
 import { AppText } from '@/components/ui/AppText';
 import { alarmStyle, colors, layout, space } from '@/constants/theme';
 import { useAlarmCounts, useNewestUnacknowledgedAlarm } from '@/hooks/api/alarms';
+import { useBreakpoint } from '@/hooks/useBreakpoint';
 import { ALARM_PRIORITIES } from '@/shared/alarms/alarm-codes';
 import { PriorityBadge } from './PriorityBadge';
 import { conditionInWords } from './alarmWords';
@@ -23,6 +26,7 @@ export function AlarmBanner() {
   const newest = useNewestUnacknowledgedAlarm(unacknowledged > 0);
   const [hovered, setHovered] = useState(false);
   const [focused, setFocused] = useState(false);
+  const compact = useBreakpoint() === 'phone';
 
   if (!counts.data || counts.data.open === 0) return null;
   const { unacknowledgedByPriority: byPriority, open, flood, raisedLast10Minutes } = counts.data;
@@ -33,13 +37,16 @@ export function AlarmBanner() {
     unacknowledged > 0
       ? `${unacknowledged} unacknowledged alarm${unacknowledged === 1 ? '' : 's'}`
       : `No unacknowledged alarms · ${open} open`;
+  const shortSummary = unacknowledged > 0 ? `${unacknowledged} unacknowledged` : `${open} open, all acknowledged`;
+  const newestWords = latest
+    ? `Newest, ${conditionInWords(latest.condition)}: ${latest.message}${latest.consequentialCount ? ` (+${latest.consequentialCount} consequential)` : ''}`
+    : null;
 
   return (
     <Link href="/alarms" asChild>
       <Pressable
         testID="alarm-banner"
         role="link"
-        aria-label={`${summary}. Open the alarm list.`}
         aria-live="polite"
         onHoverIn={() => setHovered(true)}
         onHoverOut={() => setHovered(false)}
@@ -53,7 +60,7 @@ export function AlarmBanner() {
         ])}
       >
         <View style={styles.content}>
-          <View style={styles.line}>
+          <View style={compact ? styles.oneLine : styles.line}>
             {ALARM_PRIORITIES.filter((priority) => byPriority[priority] > 0).map((priority) => (
               <PriorityBadge
                 key={priority}
@@ -63,19 +70,37 @@ export function AlarmBanner() {
                 testID={`alarm-banner-${priority}`}
               />
             ))}
-            <AppText variant="bodyStrong" tone={unacknowledged > 0 ? 'default' : 'muted'} testID="alarm-banner-count">
-              {summary}
+            <AppText
+              variant="bodyStrong"
+              tone={unacknowledged > 0 ? 'default' : 'muted'}
+              numberOfLines={1}
+              style={compact && styles.keep}
+              testID="alarm-banner-count"
+            >
+              {compact ? shortSummary : summary}
             </AppText>
             {flood ? (
-              <AppText variant="label" tone="alarm" testID="alarm-banner-flood">
-                {`▲ Alarm flood: ${raisedLast10Minutes} raised in 10 min`}
+              <AppText
+                variant="label"
+                tone="alarm"
+                numberOfLines={1}
+                style={compact && styles.keep}
+                testID="alarm-banner-flood"
+              >
+                {compact
+                  ? `Flood: ${raisedLast10Minutes} in 10 min`
+                  : `Alarm flood: ${raisedLast10Minutes} raised in 10 min`}
+              </AppText>
+            ) : null}
+            {compact && newestWords ? (
+              <AppText numberOfLines={1} tone="muted" style={styles.squeeze} testID="alarm-banner-message">
+                {newestWords}
               </AppText>
             ) : null}
           </View>
-          {latest ? (
+          {!compact && newestWords ? (
             <AppText numberOfLines={2} testID="alarm-banner-message">
-              {`Newest, ${conditionInWords(latest.condition)}: ${latest.message}`}
-              {latest.consequentialCount ? ` (+${latest.consequentialCount} consequential)` : ''}
+              {newestWords}
             </AppText>
           ) : null}
         </View>
@@ -103,6 +128,10 @@ const styles = StyleSheet.create({
   hovered: { opacity: 0.92 },
   focused: { outlineColor: colors.focusRing, outlineStyle: 'solid', outlineWidth: 2, outlineOffset: -2 },
   content: { flex: 1, minWidth: 0, gap: space.xxs },
+  /** Phone: never wraps; the newest message gives way first. */
+  oneLine: { flexDirection: 'row', flexWrap: 'nowrap', alignItems: 'center', gap: space.sm, overflow: 'hidden' },
+  keep: { flexShrink: 0 },
+  squeeze: { flexShrink: 1, minWidth: 0 },
   line: { flexDirection: 'row', flexWrap: 'wrap', alignItems: 'center', columnGap: space.sm, rowGap: space.xxs },
   chevron: { fontSize: 22 },
 });

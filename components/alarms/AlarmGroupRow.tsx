@@ -10,7 +10,7 @@ import { AppText } from '@/components/ui/AppText';
 import { Button } from '@/components/ui/Button';
 import { can, type Role } from '@/constants/roles';
 import { space } from '@/constants/theme';
-import { useAlarmAction } from '@/hooks/api/alarms';
+import { useAlarmAction, type Alarm } from '@/hooks/api/alarms';
 import type { AlarmGroupRow as Group } from './alarmGroups';
 import { AlarmRow } from './AlarmRow';
 import { isUnacknowledged } from './alarmWords';
@@ -19,10 +19,13 @@ export function AlarmGroupRow({
   group,
   role,
   timeZoneOf,
+  onActed,
 }: {
   group: Group;
   role: Role;
   timeZoneOf: (siteId: string) => string;
+  /** Told of each alarm an action changed, so the list keeps it shown under its new state. */
+  onActed?: (alarmId: string, alarm: Alarm | null) => void;
 }) {
   const [open, setOpen] = useState(false);
   const [outcome, setOutcome] = useState<string | null>(null);
@@ -34,23 +37,28 @@ export function AlarmGroupRow({
   const acknowledgeGroup = async () => {
     setOutcome(null);
     let refused = 0;
+    let done = 0;
     // One request per alarm, in turn: each gets its own transition and log line on the server.
+    for (const alarm of waiting) onActed?.(alarm.id, alarm);
     for (const alarm of waiting) {
       try {
-        await action.mutateAsync({ alarmId: alarm.id, action: { kind: 'acknowledge' } });
+        onActed?.(alarm.id, await action.mutateAsync({ alarmId: alarm.id, action: { kind: 'acknowledge' } }));
+        done += 1;
       } catch {
+        onActed?.(alarm.id, null);
         refused += 1;
       }
     }
-    if (refused)
-      setOutcome(
-        `${refused} of ${waiting.length} could not be acknowledged: they had moved on. The list is refreshed.`,
-      );
+    setOutcome(
+      refused
+        ? `${done} acknowledged; ${refused} of ${waiting.length} could not be: they had moved on. The list is refreshed.`
+        : `All ${done} acknowledged. They stay listed under their new state.`,
+    );
   };
 
   return (
     <View style={styles.group} testID={`alarm-group-${firstOut.id}`}>
-      <AlarmRow alarm={firstOut} role={role} timeZone={timeZoneOf(firstOut.siteId)} />
+      <AlarmRow alarm={firstOut} role={role} timeZone={timeZoneOf(firstOut.siteId)} onActed={onActed} />
       {n ? (
         <View style={styles.actions}>
           <Button
@@ -73,11 +81,15 @@ export function AlarmGroupRow({
           ) : null}
         </View>
       ) : null}
-      {outcome ? <AppText tone="muted">{outcome}</AppText> : null}
+      {outcome ? (
+        <AppText tone="muted" role="status" testID={`alarm-group-outcome-${firstOut.id}`}>
+          {outcome}
+        </AppText>
+      ) : null}
       {open ? (
         <View style={styles.under} aria-label={`Consequential alarms of ${firstOut.id}`}>
           {consequential.map((alarm) => (
-            <AlarmRow key={alarm.id} alarm={alarm} role={role} timeZone={timeZoneOf(alarm.siteId)} />
+            <AlarmRow key={alarm.id} alarm={alarm} role={role} timeZone={timeZoneOf(alarm.siteId)} onActed={onActed} />
           ))}
         </View>
       ) : null}

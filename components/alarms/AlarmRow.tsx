@@ -2,9 +2,10 @@
  * One alarm in the list, phone-first: priority (shape, word, colour while annunciated), state in
  * ISA-18.2 words, condition, meter run and transmitter, raised time on the site's clock and the
  * message; then the actions the role may take. Acknowledging is one tap; shelving and taking out
- * of service ask for a reason first. The log opens under the row.
+ * of service ask for a reason first. The log opens under the row. After an action the row shows
+ * its new state and, for a while, a notice in place saying what happened.
  */
-import { useState } from 'react';
+import { useEffect, useState } from 'react';
 import { Pressable, StyleSheet, View } from 'react-native';
 
 import { formatSiteTime, zoneAbbreviation } from '@/components/meter-runs/siteTime';
@@ -14,6 +15,7 @@ import { Notice } from '@/components/ui/Notice';
 import { can, type Role } from '@/constants/roles';
 import { alarmStyle, colors, radius, space } from '@/constants/theme';
 import { useAlarmAction, type Alarm, type AlarmAction } from '@/hooks/api/alarms';
+import { actionOutcome } from './actionOutcome';
 import { actionProblem, type ActionProblem } from './actionProblem';
 import { AlarmEventLog } from './AlarmEventLog';
 import { conditionInWords, isAnnunciated, isUnacknowledged, stateInWords } from './alarmWords';
@@ -26,15 +28,29 @@ interface AlarmRowProps {
   role: Role;
   /** The site's IANA zone: times are shown on its clock. */
   timeZone: string;
+  /**
+   * Told when an action starts (the alarm as shown), when the server accepts it (the alarm as it now
+   * stands) and when it is refused (null), so the list keeps the row while the refresh would drop it.
+   */
+  onActed?: (alarmId: string, alarm: Alarm | null) => void;
 }
+
+/** How long the "Acknowledged at …" notice stays: long enough to read twice. */
+const outcomeShownMs = 10_000;
 
 const shelvable = new Set(['active-unacknowledged', 'active-acknowledged', 'returned-unacknowledged']);
 
-export function AlarmRow({ alarm, role, timeZone }: AlarmRowProps) {
+export function AlarmRow({ alarm, role, timeZone, onActed }: AlarmRowProps) {
   const action = useAlarmAction();
   const [dialog, setDialog] = useState<'shelve' | 'out-of-service' | null>(null);
   const [problem, setProblem] = useState<ActionProblem | null>(null);
   const [logOpen, setLogOpen] = useState(false);
+  const [outcome, setOutcome] = useState<string | null>(null);
+  useEffect(() => {
+    if (!outcome) return;
+    const timer = setTimeout(() => setOutcome(null), outcomeShownMs);
+    return () => clearTimeout(timer);
+  }, [outcome]);
   const respond = can(role, 'respondToAlarms');
   const maintain = can(role, 'configure');
   const at = (iso: string | null) => (iso ? formatSiteTime(iso, timeZone, 'd LLL HH:mm') : '—');
@@ -43,11 +59,20 @@ export function AlarmRow({ alarm, role, timeZone }: AlarmRowProps) {
 
   const run = (next: AlarmAction) => {
     setProblem(null);
+    setOutcome(null);
+    onActed?.(alarm.id, alarm);
     action.mutate(
       { alarmId: alarm.id, action: next },
       {
-        onSuccess: () => setDialog(null),
+        onSuccess: (changed) => {
+          setDialog(null);
+          setOutcome(
+            actionOutcome(next.kind, changed.state, `${at(new Date().toISOString())} ${zoneAbbreviation(timeZone)}`),
+          );
+          onActed?.(alarm.id, changed);
+        },
         onError: (error) => {
+          onActed?.(alarm.id, null);
           const found = actionProblem(error);
           setProblem(found);
           // The alarm moved on: the dialog has nothing left to confirm.
@@ -184,6 +209,7 @@ export function AlarmRow({ alarm, role, timeZone }: AlarmRowProps) {
           {problem.message}
         </Notice>
       ) : null}
+      {outcome && !problem ? <Notice testID={`alarm-done-${alarm.id}`}>{outcome}</Notice> : null}
       {logOpen ? <AlarmEventLog alarmId={alarm.id} timeZone={timeZone} /> : null}
     </View>
   );

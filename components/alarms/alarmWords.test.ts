@@ -20,7 +20,7 @@ describe('conditionInWords', () => {
 
   it('says a few conditions as the trade does', () => {
     expect(conditionInWords('dp-low-in-range')).toBe('DP low in range');
-    expect(conditionInWords('stale')).toBe('Transmitter silent (no readings)');
+    expect(conditionInWords('stale')).toBe('Transmitter silent');
   });
 
   it('shows a condition this client does not know by its code, never dropping it', () => {

@@ -3,48 +3,23 @@
  * actions in its log. The codes are DESIGN.md's (shared/alarms/alarm-codes.ts); a code this
  * client does not know is shown as it came, never dropped.
  */
-import type { AlarmCondition, AlarmPriority, AlarmState } from '@/shared/alarms/alarm-codes';
-
-const conditionWords: Record<AlarmCondition, string> = {
-  'dp-low-in-range': 'DP low in range',
-  'dp-over-range': 'DP over range',
-  'stack-disagreement': 'Stacked DP pair disagree',
-  frozen: 'Transmitter frozen',
-  stale: 'Transmitter silent (no readings)',
-  'bad-quality': 'Bad-quality readings',
-  'outside-standard-limits': "Outside the standard's limits",
-  'calibration-due': 'Calibration due soon',
-  'calibration-overdue': 'Calibration overdue',
-  'reconciliation-out-of-tolerance': 'Reconciliation out of tolerance',
-  'balance-out-of-tolerance': 'Balance out of tolerance',
-  'care-due': 'Element care due soon',
-  'care-overdue': 'Element care overdue',
-};
+import type { AlarmPriority } from '@/shared/alarms/alarm-codes';
+import { alarmConditionWords, alarmStateName } from '@/shared/format/alarm-words';
 
 /**
  * @param condition a condition code
- * @returns it in words, e.g. "DP low in range"
+ * @returns it in words, e.g. "DP low in range" (shared/format/alarm-words.ts, the words mails use too)
  */
 export function conditionInWords(condition: string): string {
-  return conditionWords[condition as AlarmCondition] ?? condition;
+  return alarmConditionWords(condition);
 }
-
-/** ISA-18.2 / IEC 62682 names of the states. */
-const stateWords: Record<AlarmState, string> = {
-  'active-unacknowledged': 'Active, unacknowledged',
-  'active-acknowledged': 'Active, acknowledged',
-  'returned-unacknowledged': 'Returned to normal, unacknowledged',
-  normal: 'Normal',
-  shelved: 'Shelved',
-  'out-of-service': 'Out of service',
-};
 
 /**
  * @param state a state code
- * @returns its ISA-18.2 name, e.g. "Active, unacknowledged"
+ * @returns its ISA-18.2 name, e.g. "Active, unacknowledged" (shared/format/alarm-words.ts)
  */
 export function stateInWords(state: string): string {
-  return stateWords[state as AlarmState] ?? state;
+  return alarmStateName(state);
 }
 
 export const priorityWords: Record<AlarmPriority, string> = { high: 'High', medium: 'Medium', low: 'Low' };

@@ -181,7 +181,7 @@ export function CalibrationForm({ transmitter, onDone }: { transmitter: Transmit
       <CertificatePicker file={certificate} onChange={setCertificate} disabled={record.isPending} />
       {errors.certificate ? (
         <AppText tone="alarm" testID="calibration-certificate-error">
-          ▲ {errors.certificate}
+          ⊗ {errors.certificate}
         </AppText>
       ) : null}
       {formError ? <Notice tone="alarm">{formError}</Notice> : null}

@@ -44,7 +44,7 @@ function Points({ title, points, unit }: { title: string; points: CalibrationPoi
       <AppText variant="label">{title}</AppText>
       {points.map((p, i) => (
         <AppText key={i} tabular style={p.pass ? null : styles.fail}>
-          {`${formatPlain(p.appliedValue)} → ${formatPlain(p.indicatedValue)} ${unitLabel(unit)}: ${p.errorPercentOfSpan >= 0 ? '+' : '−'}${Math.abs(p.errorPercentOfSpan).toFixed(3)} % of span (±${formatPlain(p.tolerancePercentOfSpan)}) ${p.pass ? 'pass' : '▲ fail'}`}
+          {`${formatPlain(p.appliedValue)} → ${formatPlain(p.indicatedValue)} ${unitLabel(unit)}: ${p.errorPercentOfSpan >= 0 ? '+' : '−'}${Math.abs(p.errorPercentOfSpan).toFixed(3)} % of span (±${formatPlain(p.tolerancePercentOfSpan)}) ${p.pass ? 'pass' : '⚑ fail'}`}
         </AppText>
       ))}
     </View>
@@ -109,7 +109,7 @@ function ProposeCorrection({ calibration }: { calibration: Calibration }) {
         busy={suggest.isPending}
         testID={`calibration-propose-correction-${calibration.id}`}
       />
-      {suggest.error ? <AppText tone="alarm">▲ {suggest.error.message}</AppText> : null}
+      {suggest.error ? <AppText tone="alarm">⊗ {suggest.error.message}</AppText> : null}
     </View>
   );
 }
@@ -126,8 +126,8 @@ function CalibrationCard({ calibration, canPropose }: { calibration: Calibration
       </AppText>
       {accreditation ? <AppText tone="muted">{accreditation}</AppText> : null}
       <AppText>
-        As found: {c.asFoundPass ? 'pass' : '▲ fail'} · As left:{' '}
-        {c.asLeft.length ? (c.asLeftPass ? 'pass' : '▲ fail') : '—'}
+        As found: {c.asFoundPass ? 'pass' : '⚑ fail'} · As left:{' '}
+        {c.asLeft.length ? (c.asLeftPass ? 'pass' : '⚑ fail') : '—'}
       </AppText>
       <Points title="As found" points={c.asFound} unit={c.unit} />
       <Points title="As left" points={c.asLeft} unit={c.unit} />
@@ -143,7 +143,7 @@ function CalibrationCard({ calibration, canPropose }: { calibration: Calibration
             busy={download.isPending}
             testID={`calibration-certificate-${c.id}`}
           />
-          {download.error ? <AppText tone="alarm">▲ {download.error.message}</AppText> : null}
+          {download.error ? <AppText tone="alarm">⊗ {download.error.message}</AppText> : null}
         </View>
       ) : (
         <AppText tone="muted">No certificate attached.</AppText>

@@ -10,6 +10,7 @@ import { StyleSheet, View } from 'react-native';
 import { AppText } from '@/components/ui/AppText';
 import { Button } from '@/components/ui/Button';
 import { ChoiceGroup } from '@/components/ui/ChoiceGroup';
+import { Reveal } from '@/components/setup/Reveal';
 import { Notice } from '@/components/ui/Notice';
 import { TextField } from '@/components/ui/TextField';
 import { space } from '@/constants/theme';
@@ -102,7 +103,7 @@ export function CorrectionProposeForm({ meterRuns, sites, onDone, initial }: Pro
         onChange={(meterRunId) => set({ meterRunId, transmitterId: '' })}
         testIDPrefix="correction-meter-run"
       />
-      {errors.meterRunId ? <AppText tone="alarm">{`▲ ${errors.meterRunId}`}</AppText> : null}
+      {errors.meterRunId ? <AppText tone="alarm">{`⊗ ${errors.meterRunId}`}</AppText> : null}
       <AppText variant="caption" tone="muted">
         {`Times are on the site’s clock (${timeZone}), whole hours; the period runs from the start up to the end.`}
       </AppText>
@@ -201,7 +202,7 @@ export function CorrectionProposeForm({ meterRuns, sites, onDone, initial }: Pro
             testIDPrefix="correction-transmitter"
           />
           {errors['substitute.transmitterId'] ? (
-            <AppText tone="alarm">{`▲ ${errors['substitute.transmitterId']}`}</AppText>
+            <AppText tone="alarm">{`⊗ ${errors['substitute.transmitterId']}`}</AppText>
           ) : null}
           <ChoiceGroup
             label="Substituted value"
@@ -223,7 +224,7 @@ export function CorrectionProposeForm({ meterRuns, sites, onDone, initial }: Pro
               testID="correction-value"
             />
           ) : errors['substitute.hold'] ? (
-            <AppText tone="alarm">{`▲ ${errors['substitute.hold']}`}</AppText>
+            <AppText tone="alarm">{`⊗ ${errors['substitute.hold']}`}</AppText>
           ) : null}
         </View>
       ) : null}
@@ -236,9 +237,11 @@ export function CorrectionProposeForm({ meterRuns, sites, onDone, initial }: Pro
         testID="correction-reason"
       />
       {errors.form ? (
-        <Notice tone="alarm" testID="correction-form-error">
-          {errors.form}
-        </Notice>
+        <Reveal when={errors}>
+          <Notice tone="alarm" testID="correction-form-error">
+            {errors.form}
+          </Notice>
+        </Reveal>
       ) : null}
       <Button
         label="Propose correction"

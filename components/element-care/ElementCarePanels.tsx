@@ -144,7 +144,7 @@ function RecordLine(props: { text: string; nextDue: string | null; file: CareCer
           />
         </View>
       ) : null}
-      {download.error ? <AppText tone="alarm">▲ {download.error.message}</AppText> : null}
+      {download.error ? <AppText tone="alarm">⊗ {download.error.message}</AppText> : null}
     </View>
   );
 }

@@ -7,10 +7,13 @@ import { Link } from 'expo-router';
 import { useState } from 'react';
 import { Pressable, StyleSheet, View } from 'react-native';
 
+import { PriorityBadge } from '@/components/alarms/PriorityBadge';
 import { AppText } from '@/components/ui/AppText';
 import { StateBadge } from '@/components/ui/StateBadge';
 import { colors, radius, space } from '@/constants/theme';
 import type { LiveBoardRow } from '@/hooks/api/live';
+import { formatClock } from '@/shared/format/time';
+import type { RunAlarms } from './boardOrder';
 import { DpShareBar } from './DpShareBar';
 import { flowFigures, type DisplayUnits, type FluidFamily } from './flowFigures';
 import { formatAge, formatFigure } from './formatFigure';
@@ -23,7 +26,16 @@ interface LiveRunCardProps {
   /** Age of the newest reading now, in seconds. */
   ageS: number | null;
   states: RunState[];
+  /** The meter run's open alarms (from the alarm list), so the card and the banner agree. */
+  alarms?: RunAlarms;
   width?: number;
+}
+
+/** The card's alarm line in words: "2 open alarms, 1 unacknowledged". */
+function alarmLine(alarms: RunAlarms): string {
+  const open = `${alarms.open} open alarm${alarms.open === 1 ? '' : 's'}`;
+  if (alarms.unacknowledged) return `${open}, ${alarms.unacknowledged} unacknowledged`;
+  return alarms.worst ? `${open}, acknowledged` : `${open}, shelved or out of service`;
 }
 
 /** Which DP transmitter the server uses, in words: the stacked pair's choice is named, not coloured. */
@@ -37,28 +49,16 @@ function transmitterInUse(row: LiveBoardRow): string {
   return stacked ? 'Stacked pair: neither in use (no fresh DP)' : 'No DP transmitter in use';
 }
 
-/** The contract day's start in the site's own clock, e.g. "09:00 MST". */
+/** The contract day's start in the site's own clock, e.g. "09:00 MST" (shared/format/time.ts). */
 function dayStartLabel(row: LiveBoardRow): string {
-  const start = new Date(row.todayStart);
-  if (Number.isNaN(start.getTime())) return '';
-  try {
-    return start.toLocaleTimeString(undefined, {
-      timeZone: row.timeZone,
-      hour: '2-digit',
-      minute: '2-digit',
-      hour12: false,
-      timeZoneName: 'short',
-    });
-  } catch {
-    return start.toISOString();
-  }
+  return Number.isNaN(Date.parse(row.todayStart)) ? '' : formatClock(row.todayStart, row.timeZone);
 }
 
-export function LiveRunCard({ row, family, displayUnits, ageS, states, width }: LiveRunCardProps) {
+export function LiveRunCard({ row, family, displayUnits, ageS, states, alarms, width }: LiveRunCardProps) {
   const [hovered, setHovered] = useState(false);
   const [focused, setFocused] = useState(false);
   const figures = flowFigures(row, family, displayUnits);
-  const abnormal = states.length > 0;
+  const abnormal = states.length > 0 || Boolean(alarms?.worst);
   const testID = `live-run-${row.tag}`;
 
   return (
@@ -86,6 +86,20 @@ export function LiveRunCard({ row, family, displayUnits, ageS, states, width }: 
             {row.name}
           </AppText>
         </View>
+
+        {alarms?.open ? (
+          <View style={styles.alarms} testID={`${testID}-alarms`}>
+            {alarms.worst ? (
+              <PriorityBadge
+                priority={alarms.worst}
+                emphasis={alarms.worstUnacknowledged ? 'unacknowledged' : 'acknowledged'}
+              />
+            ) : null}
+            <AppText variant="label" testID={`${testID}-alarm-count`}>
+              {alarmLine(alarms)}
+            </AppText>
+          </View>
+        ) : null}
 
         {states.length ? (
           <View style={styles.states} testID={`${testID}-states`}>
@@ -172,6 +186,7 @@ const styles = StyleSheet.create({
   titleRow: { flexDirection: 'row', alignItems: 'baseline', gap: space.sm },
   name: { flexShrink: 1 },
   states: { gap: space.xs },
+  alarms: { flexDirection: 'row', flexWrap: 'wrap', alignItems: 'center', gap: space.sm },
   figures: { flexDirection: 'row', flexWrap: 'wrap', gap: space.lg, justifyContent: 'space-between' },
   figure: { gap: space.xxs, minWidth: 120 },
   valueRow: { flexDirection: 'row', alignItems: 'baseline', gap: space.xs },

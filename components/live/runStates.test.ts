@@ -60,7 +60,7 @@ describe('runStates', () => {
   it('says a row is stale past its hold limit, keeping warnings other than "no fresh ..."', () => {
     const states = runStates(row({ warnings: ['no fresh temperature reading', 'stacked pair disagree'] }), 300, 120);
     expect(states).toEqual([
-      { key: 'stale', priority: 'medium', label: 'Stale: newest reading 5 min old' },
+      { key: 'stale', priority: 'medium', label: 'Transmitter silent: newest reading 5 min old' },
       { key: 'warning', priority: 'medium', label: 'stacked pair disagree' },
     ]);
   });

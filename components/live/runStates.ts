@@ -58,7 +58,11 @@ export function runStates(row: LiveBoardRow, ageS: number | null, staleAfterS: n
   const stale = ageS !== null && ageS > staleAfterS;
   if (ageS === null) states.push({ key: 'no-readings', priority: 'medium', label: 'No readings yet' });
   else if (stale)
-    states.push({ key: 'stale', priority: 'medium', label: `Stale: newest reading ${formatAge(ageS)} old` });
+    states.push({
+      key: 'stale',
+      priority: 'medium',
+      label: `Transmitter silent: newest reading ${formatAge(ageS)} old`,
+    });
   // With no readings at all, or none recent, the server's "no fresh ..." warnings only repeat that.
   const implied = (warning: string) => ageS === null || (stale && /^no fresh /.test(warning));
   for (const warning of row.warnings)

@@ -115,7 +115,7 @@ export function MeterRunHeader({ run, site, transmitters, today }: MeterRunHeade
             {last ? (
               <Link href={`/transmitters/${t.id}`} testID={`transmitter-last-calibration-${t.tag}`}>
                 <AppText variant="caption" tone={last.asFoundPass ? 'muted' : 'alarm'}>
-                  {`calibrated ${last.calibratedOn} · as found ${last.asFoundPass ? 'pass' : '▲ fail'}`}
+                  {`calibrated ${last.calibratedOn} · as found ${last.asFoundPass ? 'pass' : '⚑ fail'}`}
                 </AppText>
               </Link>
             ) : null}

@@ -7,11 +7,11 @@ describe('calibrationState', () => {
 
   it('marks an overdue calibration as abnormal, with a shape and the days overdue', () => {
     expect(calibrationState('2026-03-01', '2026-03-03')).toEqual({
-      text: '▲ 2026-03-01, overdue by 2 days',
+      text: '⚑ 2026-03-01, overdue by 2 days',
       abnormal: true,
     });
     expect(calibrationState('2026-03-02', '2026-03-03')).toEqual({
-      text: '▲ 2026-03-02, overdue by 1 day',
+      text: '⚑ 2026-03-02, overdue by 1 day',
       abnormal: true,
     });
   });

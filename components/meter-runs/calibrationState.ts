@@ -18,7 +18,7 @@ export function calibrationState(due: string | null, today: string): { text: str
     DateTime.fromISO(due, { zone: 'UTC' }).diff(DateTime.fromISO(today, { zone: 'UTC' }), 'days').days,
   );
   if (!Number.isFinite(days)) return { text: due, abnormal: false };
-  if (days < 0) return { text: `▲ ${due}, overdue by ${-days} day${days === -1 ? '' : 's'}`, abnormal: true };
+  if (days < 0) return { text: `⚑ ${due}, overdue by ${-days} day${days === -1 ? '' : 's'}`, abnormal: true };
   if (days <= dueSoonDays) return { text: `${due} (in ${days} day${days === 1 ? '' : 's'})`, abnormal: false };
   return { text: due, abnormal: false };
 }

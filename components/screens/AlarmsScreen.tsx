@@ -5,19 +5,20 @@
  * alarm history and a reload keeps the view.
  */
 import { router } from 'expo-router';
-import { useEffect, useState } from 'react';
+import { useEffect, useRef, useState } from 'react';
 import { StyleSheet, View } from 'react-native';
 
 import { AlarmGroupRow } from '@/components/alarms/AlarmGroupRow';
 import { alarmGroupRows } from '@/components/alarms/alarmGroups';
 import { AlarmPerformanceSection } from '@/components/alarms/AlarmPerformanceSection';
+import { withKeptAlarms, type KeptAlarm } from '@/components/alarms/keptAlarms';
 import { AppText } from '@/components/ui/AppText';
 import { Button } from '@/components/ui/Button';
 import { QueryState } from '@/components/ui/QueryState';
 import { Screen } from '@/components/ui/Screen';
 import { can } from '@/constants/roles';
 import { space } from '@/constants/theme';
-import { useAlarms, type AlarmFilters } from '@/hooks/api/alarms';
+import { useAlarms, type Alarm, type AlarmFilters } from '@/hooks/api/alarms';
 import { useMeterRuns } from '@/hooks/api/meterRuns';
 import { useSites } from '@/hooks/api/sites';
 import { useSignedInUser } from '@/hooks/session/SessionProvider';
@@ -41,10 +42,27 @@ export function AlarmsScreen({ params }: { params: AlarmsScreenParams }) {
     [state, siteId, meterRunId, priority],
   );
   const alarms = useAlarms({ ...filters, limit: listLimit });
+  // Alarms acted on since the filter last changed stay listed under their new state (keptAlarms.ts).
+  const [kept, setKept] = useState<ReadonlyMap<string, KeptAlarm>>(new Map());
+  const filterKey = JSON.stringify(filters);
+  useEffect(() => setKept(new Map()), [filterKey]);
+  const shownRef = useRef<Alarm[]>([]);
+  const acted = (alarmId: string, alarm: Alarm | null) =>
+    setKept((before) => {
+      const next = new Map(before);
+      if (!alarm) {
+        next.delete(alarmId);
+        return next;
+      }
+      const shown = shownRef.current.findIndex((item) => item.id === alarmId);
+      const index = before.get(alarmId)?.index ?? (shown < 0 ? shownRef.current.length : shown);
+      return next.set(alarmId, { alarm, index });
+    });
   const sites = useSites();
   const meterRuns = useMeterRuns();
   const siteById = new Map((sites.data ?? []).map((site) => [site.id, site]));
-  const list = alarms.data ?? [];
+  const list = withKeptAlarms(alarms.data ?? [], kept);
+  shownRef.current = list;
   // One row per consequential-alarm group: the first-out, with "+N consequential" under it.
   const groups = alarmGroupRows(list);
   const timeZoneOf = (id: string) => siteById.get(id)?.timeZone ?? 'UTC';
@@ -98,7 +116,13 @@ export function AlarmsScreen({ params }: { params: AlarmsScreenParams }) {
       <View style={styles.list} role="list" aria-label="Alarms" testID="alarm-list">
         {/* Times are on each site's clock, so rows wait for the sites. */}
         {(sites.data || sites.error ? groups : []).map((group) => (
-          <AlarmGroupRow key={group.firstOut.id} group={group} role={user.role} timeZoneOf={timeZoneOf} />
+          <AlarmGroupRow
+            key={group.firstOut.id}
+            group={group}
+            role={user.role}
+            timeZoneOf={timeZoneOf}
+            onActed={acted}
+          />
         ))}
       </View>
       {list.length >= listLimit ? (

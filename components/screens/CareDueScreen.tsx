@@ -16,7 +16,7 @@ import { DataTable, type DataColumn, type DataRow } from '@/components/ui/DataTa
 import { Panel } from '@/components/ui/Panel';
 import { QueryState } from '@/components/ui/QueryState';
 import { Screen } from '@/components/ui/Screen';
-import { StateBadge } from '@/components/ui/StateBadge';
+import { FlagMark } from '@/components/ui/StatusMark';
 import { space } from '@/constants/theme';
 import { useCareDue, type CareDueItem, type CareDueSort } from '@/hooks/api/careDue';
 import { useSites } from '@/hooks/api/sites';
@@ -41,18 +41,14 @@ const columns: readonly DataColumn[] = [
   { key: 'last', title: 'Last done', width: 130, align: 'left' },
 ];
 
-/** The state in words; overdue and due soon also carry the alarm colours and shapes (medium, low), as their alarms do. */
+/** The state in words; overdue and due soon carry the flag mark (components/ui/marks.ts): ▲ ◆ ■ belong to alarm priorities. */
 function StateCell({ item }: { item: CareDueItem }) {
   const days = item.daysLeft ?? 0;
   if (item.state === 'overdue')
-    return <StateBadge priority="medium" label={`Overdue ${-days} d`} testID={`care-due-state-${item.state}`} />;
+    return <FlagMark label={`Overdue ${-days} d`} testID={`care-due-state-${item.state}`} />;
   if (item.state === 'due-soon')
     return (
-      <StateBadge
-        priority="low"
-        label={days === 0 ? 'Due today' : `Due in ${days} d`}
-        testID={`care-due-state-${item.state}`}
-      />
+      <FlagMark quiet label={days === 0 ? 'Due today' : `Due in ${days} d`} testID={`care-due-state-${item.state}`} />
     );
   return (
     <AppText tone="muted" testID={`care-due-state-${item.state}`}>

@@ -10,6 +10,7 @@ import { AppText } from '@/components/ui/AppText';
 import { Button } from '@/components/ui/Button';
 import { ChoiceGroup } from '@/components/ui/ChoiceGroup';
 import { CopyButton } from '@/components/ui/CopyButton';
+import { Reveal } from '@/components/setup/Reveal';
 import { Notice } from '@/components/ui/Notice';
 import { Panel } from '@/components/ui/Panel';
 import { TextField } from '@/components/ui/TextField';
@@ -54,10 +55,12 @@ export function DevicesCreateForm() {
     const siteCode = created.siteCode ?? sites.data?.find((site) => site.id === created.siteId)?.code ?? '<site code>';
     return (
       <Panel title="Device created" testID="device-created">
-        <Notice tone="alarm" title="Store this password now: it will not be shown again">
-          Tallyrun keeps only a hash of it. Put it into the device’s configuration before you leave this page. If it is
-          lost, create a new device and disable this one.
-        </Notice>
+        <Reveal when={created}>
+          <Notice tone="alarm" title="Store this password now: it will not be shown again">
+            Tallyrun keeps only a hash of it. Put it into the device’s configuration before you leave this page. If it
+            is lost, create a new device and disable this one.
+          </Notice>
+        </Reveal>
         <View style={styles.secret}>
           <AppText variant="label">User name</AppText>
           <AppText style={styles.mono} selectable testID="device-created-username">
@@ -72,6 +75,15 @@ export function DevicesCreateForm() {
           </AppText>
           <CopyButton text={created.password} what="password" testID="device-created-copy" />
         </View>
+        {created.broker ? (
+          <View style={styles.secret}>
+            <AppText variant="label">Broker</AppText>
+            <AppText style={styles.mono} selectable testID="device-created-broker">
+              {created.broker.url}
+            </AppText>
+            <CopyButton text={created.broker.url} what="broker address" />
+          </View>
+        ) : null}
         <AppText variant="caption" tone="muted">
           {`It may publish readings only under its own site’s topics: tallyrun/${siteCode}/<transmitter tag>, QoS 1, payload {"t": "<ISO 8601>", "v": <value>, "q": "good"}.`}
         </AppText>
@@ -91,9 +103,11 @@ export function DevicesCreateForm() {
   return (
     <Panel title="Add a device" testID="device-create">
       {create.error && !serverField ? (
-        <Notice tone="alarm" testID="device-create-error">
-          {create.error.message}
-        </Notice>
+        <Reveal when={create.error}>
+          <Notice tone="alarm" testID="device-create-error">
+            {create.error.message}
+          </Notice>
+        </Reveal>
       ) : null}
       <TextField
         label="Name"
@@ -123,7 +137,7 @@ export function DevicesCreateForm() {
           />
           {shown.siteId ? (
             <AppText variant="caption" tone="alarm" testID="device-create-site-error">
-              {`▲ ${shown.siteId}`}
+              {`⊗ ${shown.siteId}`}
             </AppText>
           ) : null}
         </View>

@@ -31,6 +31,11 @@ export function DevicesRow({ device }: { device: Device }) {
             tone="muted"
             selectable
           >{`${device.siteCode ?? `site ${device.siteId}`} · ${device.username}`}</AppText>
+          {device.broker ? (
+            <AppText variant="caption" tone="muted" selectable testID={`${testID}-broker`}>
+              {`Publishes to ${device.broker.url}`}
+            </AppText>
+          ) : null}
         </View>
         <View style={styles.facts}>
           <AppText variant="label" testID={`${testID}-status`}>
@@ -62,7 +67,7 @@ export function DevicesRow({ device }: { device: Device }) {
 
       {update.error ? (
         <AppText variant="caption" tone="alarm" role="alert">
-          {`▲ ${update.error.message}`}
+          {`⊗ ${update.error.message}`}
         </AppText>
       ) : null}
 

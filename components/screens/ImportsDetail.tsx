@@ -3,6 +3,7 @@
  * committed batches), then the final counts and every rejected line with its number and reason;
  * and the original file as kept, by its SHA-256, to download.
  */
+import { Link } from 'expo-router';
 import { useState } from 'react';
 import { Platform, StyleSheet, View } from 'react-native';
 
@@ -104,7 +105,7 @@ export function ImportsDetail({ item }: { item: Import }) {
       {item.sha256 ? <Original item={{ ...item, sha256: item.sha256 }} /> : null}
 
       <AppText variant="label" testID="import-status" aria-live="polite">
-        {running ? '… Importing' : item.status === 'done' ? '✓ Finished' : '▲ Stopped before the end'}
+        {running ? '… Importing' : item.status === 'done' ? '✓ Finished' : '⊗ Stopped before the end'}
       </AppText>
       <ProgressBar
         share={share}
@@ -126,6 +127,24 @@ export function ImportsDetail({ item }: { item: Import }) {
         <Count label="Duplicates" value={item.duplicates} testID="import-count-duplicates" />
         <Count label="Rejected" value={item.rejected} testID="import-count-rejected" />
       </View>
+
+      {!running && item.meterRuns?.length ? (
+        <View style={styles.touched} testID="import-meter-runs">
+          <AppText variant="label">{`Meter run${item.meterRuns.length === 1 ? '' : 's'} this import touched`}</AppText>
+          <View style={styles.touchedLinks}>
+            {item.meterRuns.map((run) => (
+              <Link
+                key={run.id}
+                href={`/meter-runs/${encodeURIComponent(run.id)}`}
+                testID={`import-meter-run-${run.id}`}
+                style={styles.touchedLink}
+              >
+                <AppText style={styles.linkText}>{`${run.tag}: its records and daily totals`}</AppText>
+              </Link>
+            ))}
+          </View>
+        </View>
+      ) : null}
 
       {item.rejected > 0 ? (
         <View style={styles.rejected} testID="import-rejected">
@@ -182,6 +201,11 @@ export function ImportsDetail({ item }: { item: Import }) {
 const styles = StyleSheet.create({
   wrap: { gap: space.md },
   heading: { gap: space.xxs },
+  touched: { gap: space.xs },
+  touchedLinks: { flexDirection: 'row', flexWrap: 'wrap', gap: space.sm },
+  // At least 44 px high: a comfortable touch target on a phone.
+  touchedLink: { minHeight: 44, justifyContent: 'center', paddingVertical: space.xs },
+  linkText: { textDecorationLine: 'underline' },
   original: { flexDirection: 'row', flexWrap: 'wrap', alignItems: 'center', gap: space.sm },
   hash: { gap: space.xxs, flexGrow: 1 },
   hashText: { fontFamily: monospace },

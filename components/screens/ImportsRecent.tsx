@@ -14,7 +14,7 @@ interface ImportsRecentProps {
   onSelect: (importId: string) => void;
 }
 
-const statusText: Record<Import['status'], string> = { running: '… running', done: '✓ done', failed: '▲ stopped' };
+const statusText: Record<Import['status'], string> = { running: '… running', done: '✓ done', failed: '⊗ stopped' };
 
 export function ImportsRecent({ imports, selectedId, onSelect }: ImportsRecentProps) {
   if (imports.length === 0) return <AppText tone="muted">No imports yet.</AppText>;

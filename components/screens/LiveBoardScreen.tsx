@@ -4,9 +4,19 @@
  * stream. An overview first (what needs attention), then one card per meter run, each opening
  * the meter run's own screen (ISA-101: overview, unit, detail).
  */
-import { Link } from 'expo-router';
+import { Link, router, useLocalSearchParams } from 'expo-router';
 import { Pressable, StyleSheet, View } from 'react-native';
 
+import { PriorityBadge } from '@/components/alarms/PriorityBadge';
+import {
+  alarmsByRun,
+  boardOrderFrom,
+  boardSummary,
+  needsAttention,
+  sortRuns,
+  type BoardOrder,
+  type RunAlarms,
+} from '@/components/live/boardOrder';
 import { CardGrid } from '@/components/live/CardGrid';
 import { fluidFamily } from '@/components/live/flowFigures';
 import { LiveConnectionLine } from '@/components/live/LiveConnectionLine';
@@ -14,12 +24,14 @@ import { LiveRunCard } from '@/components/live/LiveRunCard';
 import { defaultStaleAfterS, runStates, type RunState } from '@/components/live/runStates';
 import { useNow } from '@/components/live/useNow';
 import { AppText } from '@/components/ui/AppText';
+import { ChoiceGroup } from '@/components/ui/ChoiceGroup';
 import { Notice } from '@/components/ui/Notice';
 import { Panel } from '@/components/ui/Panel';
 import { QueryState } from '@/components/ui/QueryState';
 import { Screen } from '@/components/ui/Screen';
 import { StateBadge } from '@/components/ui/StateBadge';
 import { colors, space } from '@/constants/theme';
+import { useAlarms } from '@/hooks/api/alarms';
 import { useLiveBoard, type LiveBoardRow } from '@/hooks/api/live';
 import { useMeterRuns, type MeterRun } from '@/hooks/api/meterRuns';
 import { useSites, type Site } from '@/hooks/api/sites';
@@ -28,11 +40,25 @@ import { useSites, type Site } from '@/hooks/api/sites';
 const clockTickMs = 1_000;
 /** Narrowest card: a phone's width less its padding still fits one. */
 const minCardWidthPx = 320;
+/** Every open alarm is read to mark the cards: far more than a board's meter runs ever hold at once. */
+const alarmReach = 300;
+
+const orderOptions: readonly { value: BoardOrder; label: string }[] = [
+  { value: 'worst', label: 'Worst first' },
+  { value: 'dp-share', label: 'DP share' },
+  { value: 'name', label: 'Name' },
+];
 
 interface BoardEntry {
   row: LiveBoardRow;
   ageS: number | null;
   states: RunState[];
+  alarms: RunAlarms | undefined;
+  /** For boardOrder.ts. */
+  meterRunId: string;
+  tag: string;
+  dpShareOfSpan: number | null;
+  stateCount: number;
 }
 
 interface SiteGroup {
@@ -41,7 +67,8 @@ interface SiteGroup {
   entries: BoardEntry[];
 }
 
-function groupBySite(entries: BoardEntry[], sites: Site[]): SiteGroup[] {
+/** Groups keep the order of their first (worst, lowest or first-named) meter run; by name, sites go by code. */
+function groupBySite(entries: BoardEntry[], sites: Site[], order: BoardOrder): SiteGroup[] {
   const groups = new Map<string, SiteGroup>();
   for (const entry of entries) {
     const code = entry.row.siteCode;
@@ -52,33 +79,54 @@ function groupBySite(entries: BoardEntry[], sites: Site[]): SiteGroup[] {
     }
     group.entries.push(entry);
   }
-  return [...groups.values()].sort((a, b) => a.code.localeCompare(b.code));
+  const list = [...groups.values()];
+  return order === 'name' ? list.sort((a, b) => a.code.localeCompare(b.code)) : list;
+}
+
+function alarmWords(alarms: RunAlarms): string {
+  const open = `${alarms.open} open alarm${alarms.open === 1 ? '' : 's'}`;
+  return alarms.unacknowledged ? `${open}, ${alarms.unacknowledged} unacknowledged` : open;
 }
 
 function AttentionPanel({ entries }: { entries: BoardEntry[] }) {
-  const attention = entries.filter((entry) => entry.states.length > 0);
+  const attention = entries.filter((entry) => needsAttention(entry, entry.alarms));
+  const summary = boardSummary(
+    entries,
+    new Map(entries.flatMap((entry) => (entry.alarms ? [[entry.meterRunId, entry.alarms] as const] : []))),
+  );
   if (attention.length === 0) {
-    return <AppText testID="live-all-normal">{`All ${entries.length} meter runs normal.`}</AppText>;
+    return <AppText testID="live-all-normal">{summary}</AppText>;
   }
   // Meter runs that have never reported share one line, so a new site does not bury the rest.
-  const silent = attention.filter(({ states }) => states.length === 1 && states[0].key === 'no-readings');
+  const silent = attention.filter(
+    ({ states, alarms }) => states.length === 1 && states[0].key === 'no-readings' && !alarms?.worst,
+  );
   const others = attention.filter((entry) => !silent.includes(entry));
   return (
-    <Panel title={`Needs attention (${attention.length} of ${entries.length})`} testID="live-attention">
-      {others.map(({ row, states }) => (
+    <Panel title={summary} testID="live-attention">
+      {others.map(({ row, states, alarms }) => (
         <Link key={row.meterRunId} href={`/meter-runs/${encodeURIComponent(row.meterRunId)}`} asChild>
           <Pressable
             style={styles.attentionRow}
-            aria-label={`${row.tag}: ${states.map((state) => state.label).join('; ')}`}
+            aria-label={`${row.tag}: ${[alarms?.open ? alarmWords(alarms) : null, ...states.map((state) => state.label)].filter(Boolean).join('; ')}`}
           >
             <AppText variant="bodyStrong" style={styles.attentionTag}>
               {row.tag}
             </AppText>
-            <StateBadge
-              priority={states[0].priority}
-              label={states.length > 1 ? `${states[0].label} (+${states.length - 1} more)` : states[0].label}
-              variant="inline"
-            />
+            {alarms?.worst ? (
+              <PriorityBadge
+                priority={alarms.worst}
+                emphasis={alarms.worstUnacknowledged ? 'unacknowledged' : 'acknowledged'}
+                suffix={`· ${alarmWords(alarms)}`}
+              />
+            ) : null}
+            {states.length ? (
+              <StateBadge
+                priority={states[0].priority}
+                label={states.length > 1 ? `${states[0].label} (+${states.length - 1} more)` : states[0].label}
+                variant="inline"
+              />
+            ) : null}
           </Pressable>
         </Link>
       ))}
@@ -100,6 +148,10 @@ export function LiveBoardScreen() {
   const sites = useSites();
   const runs = useMeterRuns();
   const nowMs = useNow(clockTickMs);
+  const openAlarms = useAlarms({ state: 'open', limit: alarmReach });
+  const params = useLocalSearchParams<{ order?: string }>();
+  const order = boardOrderFrom(params.order);
+  const runAlarms = alarmsByRun(openAlarms.data ?? []);
 
   const runById = new Map<string, MeterRun>((runs.data ?? []).map((run) => [run.id, run]));
   const receivedAtMs = board.data?.receivedAtMs;
@@ -107,9 +159,20 @@ export function LiveBoardScreen() {
   const entries: BoardEntry[] = (board.data?.rows ?? []).map((row) => {
     const ageS = row.freshnessS === null ? null : row.freshnessS + sinceReceivedS;
     const staleAfterS = runById.get(row.meterRunId)?.holdLimitS ?? defaultStaleAfterS;
-    return { row, ageS, states: runStates(row, ageS, staleAfterS) };
+    const states = runStates(row, ageS, staleAfterS);
+    return {
+      row,
+      ageS,
+      states,
+      alarms: runAlarms.get(row.meterRunId),
+      meterRunId: row.meterRunId,
+      tag: row.tag,
+      dpShareOfSpan: row.dpShareOfSpan,
+      stateCount: states.length,
+    };
   });
-  const groups = sites.isPending || runs.isPending ? [] : groupBySite(entries, sites.data ?? []);
+  const sorted = sortRuns(entries, runAlarms, order);
+  const groups = sites.isPending || runs.isPending ? [] : groupBySite(sorted, sites.data ?? [], order);
 
   return (
     <Screen testID="screen-live">
@@ -129,7 +192,16 @@ export function LiveBoardScreen() {
           Engineers add sites, meter runs and transmitters under Set-up; they appear here once they exist.
         </Notice>
       ) : null}
-      {groups.length > 0 ? <AttentionPanel entries={entries} /> : null}
+      {groups.length > 0 ? <AttentionPanel entries={sorted} /> : null}
+      {groups.length > 0 ? (
+        <ChoiceGroup
+          label="Order"
+          options={orderOptions}
+          value={order}
+          onChange={(next) => router.setParams({ order: next === 'worst' ? undefined : next })}
+          testIDPrefix="live-order"
+        />
+      ) : null}
       {groups.map((group) => (
         <View key={group.code} style={styles.site} testID={`live-site-${group.code}`}>
           <View style={styles.siteHeading}>
@@ -151,6 +223,7 @@ export function LiveBoardScreen() {
                     row={entry.row}
                     ageS={entry.ageS}
                     states={entry.states}
+                    alarms={entry.alarms}
                     family={fluidFamily(run?.fluid?.kind)}
                     displayUnits={group.site?.displayUnits ?? 'si'}
                     width={width}

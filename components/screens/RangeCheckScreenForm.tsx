@@ -180,7 +180,7 @@ export function RangeCheckForm({
             variant="caption"
             tone="alarm"
             testID="range-check-elementKind-error"
-          >{`▲ ${problems.elementKind}`}</AppText>
+          >{`⊗ ${problems.elementKind}`}</AppText>
         ) : null}
         {text('pipeDiameter', `Pipe inside diameter D, ${set.length.label}`)}
         {values.elementKind === 'cone'
@@ -320,7 +320,7 @@ export function RangeCheckForm({
       </Section>
 
       <View style={[styles.submit, wide && styles.submitWide]}>
-        {problems.form ? <AppText tone="alarm" testID="range-check-form-error">{`▲ ${problems.form}`}</AppText> : null}
+        {problems.form ? <AppText tone="alarm" testID="range-check-form-error">{`⊗ ${problems.form}`}</AppText> : null}
         <Button label="Check the range" variant="primary" onPress={onSubmit} testID="range-check-submit" />
       </View>
     </View>

@@ -111,7 +111,7 @@ export function RangeCheckResults({ run, displayUnits }: RangeCheckResultsProps)
             `share${i}`,
             <Marked
               key="share"
-              text={`${t.lowInRange ? '▼ ' : t.overRange ? '▲ ' : ''}${formatNumber(t.shareOfSpanPercent, 3)} %${t.lowInRange ? ' low' : t.overRange ? ' over' : ''}`}
+              text={`${t.lowInRange ? '▼ ' : t.overRange ? '↑ ' : ''}${formatNumber(t.shareOfSpanPercent, 3)} %${t.lowInRange ? ' low' : t.overRange ? ' over' : ''}`}
               abnormal={t.lowInRange || t.overRange}
             />,
           ],
@@ -122,7 +122,7 @@ export function RangeCheckResults({ run, displayUnits }: RangeCheckResultsProps)
             ) : (
               <Marked
                 key="u"
-                text={`${t.flowUncertaintyPercent > limit ? '◆ ' : ''}±${formatNumber(t.flowUncertaintyPercent, 3)}`}
+                text={`${t.flowUncertaintyPercent > limit ? '⚑ ' : ''}±${formatNumber(t.flowUncertaintyPercent, 3)}`}
                 abnormal={t.flowUncertaintyPercent > limit}
               />
             ),
@@ -152,7 +152,7 @@ export function RangeCheckResults({ run, displayUnits }: RangeCheckResultsProps)
       ),
       lowest:
         t.minimumFlowWithinLimitKgPerS === null ? (
-          <Marked text="◆ never" abnormal />
+          <Marked text="⚑ never" abnormal />
         ) : (
           flowText(t.minimumFlowWithinLimitKgPerS)
         ),
@@ -188,7 +188,7 @@ export function RangeCheckResults({ run, displayUnits }: RangeCheckResultsProps)
           testID="range-check-flows"
         />
         <AppText variant="caption" tone="muted">
-          {`β ${result.beta.toFixed(4)}, density ${formatNumber(result.densityKgPerM3)} kg/m³ at the operating conditions. ▼ low: below 10 % of span. ◆: above the ±${formatPlain(limit)} % limit. Flow uncertainty is expanded (k = 2) and worked with the same budget as the hourly records (ISO 5167-1 §8): C and ε, the pipe and element diameters, the density model, the DP transmitter's accuracy as a share of the reading and, for a meter run picked above, its pressure and temperature transmitters.`}
+          {`β ${result.beta.toFixed(4)}, density ${formatNumber(result.densityKgPerM3)} kg/m³ at the operating conditions. ▼ low: below 10 % of span. ↑ over: above the upper range value. ⚑: above the ±${formatPlain(limit)} % limit. Flow uncertainty is expanded (k = 2) and worked with the same budget as the hourly records (ISO 5167-1 §8): C and ε, the pipe and element diameters, the density model, the DP transmitter's accuracy as a share of the reading and, for a meter run picked above, its pressure and temperature transmitters.`}
         </AppText>
         <AppText variant="caption" tone="muted" testID="range-check-scope">
           This check looks at the design range typed above; range health looks at the flow the meter run actually saw in
@@ -215,7 +215,7 @@ export function RangeCheckResults({ run, displayUnits }: RangeCheckResultsProps)
             <AppText
               key={`${w.code}-${i}`}
               style={styles.abnormal}
-            >{`◆ ${rangeHealthTextInSiteUnits(w.message, set, displayUnits)}`}</AppText>
+            >{`⚑ ${rangeHealthTextInSiteUnits(w.message, set, displayUnits)}`}</AppText>
           ))}
         </Panel>
       ) : null}

@@ -9,7 +9,7 @@ import { StyleSheet, View } from 'react-native';
 
 import { AppText } from '@/components/ui/AppText';
 import { Button } from '@/components/ui/Button';
-import { StateBadge } from '@/components/ui/StateBadge';
+import { FlagMark } from '@/components/ui/StatusMark';
 import { TextField } from '@/components/ui/TextField';
 import { colors, radius, space } from '@/constants/theme';
 import { useUpdateTransmitter, type Transmitter } from '@/hooks/api/transmitters';
@@ -122,7 +122,7 @@ export function TransmitterRow({ transmitter, timeZone }: { transmitter: Transmi
           transmitter.measures === 'static-pressure' ? ` ${transmitter.pressureReference}` : ''
         } · accuracy ${transmitter.accuracyPercentOfSpan} % of span · calibration due ${transmitter.calibrationDue ?? 'not recorded'}`}
       </AppText>
-      {state ? <StateBadge priority={state.priority} variant="inline" label={state.label} /> : null}
+      {state ? <FlagMark quiet={state.priority === 'low'} label={state.label} /> : null}
       {editing ? (
         <View style={styles.editor}>
           <FormErrorSummary

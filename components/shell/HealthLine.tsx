@@ -16,7 +16,7 @@ export function HealthLine({ onDark }: { onDark?: boolean }) {
     return (
       <View style={[styles.row, styles.alarm]} role="alert" testID="health-line">
         <AppText variant="caption" style={styles.alarmText}>
-          ▲ Server not reachable
+          ⊗ Server not reachable
         </AppText>
       </View>
     );
@@ -34,7 +34,7 @@ export function HealthLine({ onDark }: { onDark?: boolean }) {
   return (
     <View style={[styles.row, styles.alarm]} role="alert" testID="health-line">
       <AppText variant="caption" style={styles.alarmText}>
-        {`▲ ${down.length ? down.map((part) => `${part} down`).join(', ') : `server ${health.data.status}`}`}
+        {`⊗ ${down.length ? down.map((part) => `${part} down`).join(', ') : `server ${health.data.status}`}`}
       </AppText>
     </View>
   );

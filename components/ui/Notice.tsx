@@ -1,6 +1,6 @@
 /**
- * A message block. `alarm` is for something that failed or needs attention (colour, a
- * triangle and words together); `info` is a neutral note.
+ * A message block. `alarm` is for something that failed or needs attention (colour, the error
+ * mark ⊗ and words together; components/ui/marks.ts); `info` is a neutral note.
  */
 import type { ReactNode } from 'react';
 import { StyleSheet, View } from 'react-native';
@@ -20,7 +20,7 @@ export function Notice({ tone = 'info', title, children, testID }: NoticeProps) 
   return (
     <View testID={testID} role={alarm ? 'alert' : 'status'} style={[styles.box, alarm ? styles.alarm : styles.info]}>
       <AppText variant="bodyStrong" tone={alarm ? 'alarm' : 'muted'} aria-hidden style={styles.shape}>
-        {alarm ? '▲' : 'i'}
+        {alarm ? '⊗' : 'i'}
       </AppText>
       <View style={styles.body}>
         {title ? <AppText variant="bodyStrong">{title}</AppText> : null}

@@ -80,7 +80,7 @@ export function ReasonDialog({
       />
       {otherError ? (
         <AppText variant="caption" tone="alarm" testID={`${testIDPrefix}-error`}>
-          {`▲ ${otherError}`}
+          {`⊗ ${otherError}`}
         </AppText>
       ) : null}
       <View style={styles.actions}>

@@ -40,7 +40,7 @@ export function TextField({ label, error, hint, testID, ref, onFocus, onBlur, ..
       />
       {error ? (
         <AppText variant="caption" tone="alarm" testID={testID ? `${testID}-error` : undefined}>
-          {`▲ ${error}`}
+          {`⊗ ${error}`}
         </AppText>
       ) : hint ? (
         <AppText variant="caption" tone="muted">

@@ -68,7 +68,7 @@ describe('the transmitter calibrations screen', () => {
     const history = page.getByTestId('calibration-history');
     await history.getByText('2026-06-10 · Northgate Instrument Laboratory').waitFor();
     await history.getByText('+0.120 % of span', { exact: false }).waitFor();
-    await expect(history.getByText('As found: ▲ fail', { exact: false }).count()).resolves.toBe(1);
+    await expect(history.getByText('As found: ⚑ fail', { exact: false }).count()).resolves.toBe(1);
     await history.getByText('Certificate: NIL-2026-0610.pdf').waitFor();
     await expect(page.getByTestId('calibration-due').textContent()).resolves.toContain('2027-06-10');
     // The page fits the phone: nothing wider than the viewport.
@@ -108,7 +108,7 @@ describe('the transmitter calibrations screen', () => {
     await signIn(wide, demoEmail('engineer'));
     await wide.goto(`${baseUrl}/meter-runs/${f.meterRun.id}`);
     const last = wide.getByTestId(`transmitter-last-calibration-${f.dp.tag}`);
-    await last.getByText('calibrated 2026-06-10 · as found ▲ fail').waitFor();
+    await last.getByText('calibrated 2026-06-10 · as found ⚑ fail').waitFor();
     await wide.getByTestId(`transmitter-row-${f.dp.tag}`).getByText('2027-06-10', { exact: false }).first().waitFor();
     if (shots) await wide.screenshot({ path: `${shots}/meter-run-wide.png`, fullPage: true });
   });

@@ -5,6 +5,7 @@ import { StyleSheet, View } from 'react-native';
 import { AppText } from '@/components/ui/AppText';
 import { Button } from '@/components/ui/Button';
 import { ChoiceGroup } from '@/components/ui/ChoiceGroup';
+import { Reveal } from '@/components/setup/Reveal';
 import { Notice } from '@/components/ui/Notice';
 import { Panel } from '@/components/ui/Panel';
 import { TextField } from '@/components/ui/TextField';
@@ -57,11 +58,17 @@ export function CreateUserForm() {
 
   return (
     <Panel title="Add a user" testID="user-create">
-      {added ? <Notice testID="user-create-done">{added}</Notice> : null}
+      {added ? (
+        <Reveal when={added}>
+          <Notice testID="user-create-done">{added}</Notice>
+        </Reveal>
+      ) : null}
       {create.error && !serverField ? (
-        <Notice tone="alarm" testID="user-create-error">
-          {create.error.message}
-        </Notice>
+        <Reveal when={create.error}>
+          <Notice tone="alarm" testID="user-create-error">
+            {create.error.message}
+          </Notice>
+        </Reveal>
       ) : null}
       <TextField
         label="Name"
@@ -95,7 +102,7 @@ export function CreateUserForm() {
         </AppText>
         {shown.role ? (
           <AppText variant="caption" tone="alarm">
-            {`▲ ${shown.role}`}
+            {`⊗ ${shown.role}`}
           </AppText>
         ) : null}
       </View>

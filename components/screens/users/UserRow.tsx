@@ -53,7 +53,7 @@ export function UserRow({ user, isSelf }: UserRowProps) {
 
       {update.error && mode !== 'password' ? (
         <AppText variant="caption" tone="alarm" role="alert">
-          {`▲ ${update.error.message}`}
+          {`⊗ ${update.error.message}`}
         </AppText>
       ) : null}
 
