@@ -36,6 +36,12 @@ export interface BoardRow {
   freshnessS: number | null;
   transmitters: BoardTransmitter[];
   warnings: string[];
+  /**
+   * Which way the meter run flows now (issue 13 §11), beside the rates, which stay positive: by the
+   * sign of the active DP, or by the direction input on a bi-directional run that has one; null
+   * without a fresh reading or without flow. A one-way run seeing reverse DP shows 'reverse' with zero rates.
+   */
+  direction: 'forward' | 'reverse' | null;
 }
 
 interface MeterRunRow {
@@ -52,7 +58,13 @@ interface MeterRunRow {
   base_temperature_k: number;
   atmospheric_pressure_pa: number;
   /** The configuration in effect now, or null before the first one takes effect. */
-  config: { element: ElementSpec; fluid: FluidSpec } | null;
+  config: {
+    element: ElementSpec;
+    fluid: FluidSpec;
+    /** Present on a bi-directional configuration (migration 0024). */
+    reverse_element: ElementSpec | null;
+    direction_source: 'dp-sign' | 'direction-input' | null;
+  } | null;
 }
 
 /** A transmitter and its latest reading (time, value and quality are null before its first reading). */
@@ -93,7 +105,7 @@ export class LiveBoard {
     const { rows: runs } = await this.pool.query<MeterRunRow>(
       `SELECT m.id::text, m.tag, m.name, m.hold_limit_s, m.stack_switch_up_share, m.stack_switch_down_share,
               s.code AS site_code, s.time_zone, s.contract_hour, s.base_pressure_pa, s.base_temperature_k, s.atmospheric_pressure_pa,
-              (SELECT row_to_json(c) FROM (SELECT element, fluid FROM config_versions cv WHERE cv.meter_run_id = m.id AND cv.effective_from <= now()
+              (SELECT row_to_json(c) FROM (SELECT element, fluid, reverse_element, direction_source FROM config_versions cv WHERE cv.meter_run_id = m.id AND cv.effective_from <= now()
                  ORDER BY effective_from DESC LIMIT 1) c) AS config
          FROM meter_runs m JOIN sites s ON s.id = m.site_id ORDER BY s.code, m.tag`,
     );
@@ -148,12 +160,20 @@ export class LiveBoard {
       }
       let massFlow: number | null = null;
       let standardFlow: number | null = null;
+      // A direction input reads a sign, no SI unit: > 0 forward, < 0 reverse, 0 no flow.
+      const directionInput = ts.find((t) => t.measures === 'flow-direction' && fresh(t));
+      const byInput = run.config?.reverse_element && run.config.direction_source === 'direction-input';
+      const signedDpPa = active && fresh(active) ? si(active) : null;
+      const sign = byInput ? (directionInput?.value ?? null) : signedDpPa;
+      const direction = sign === null || sign === 0 || signedDpPa === 0 ? null : sign > 0 ? 'forward' : 'reverse';
       if (active && p && temp && run.config) {
-        const dpPa = si(active);
-        if (dpPa > 0) {
+        // Reverse flow is flow only on a bi-directional run, with its reverse constants and |Δp|.
+        const element = direction === 'reverse' ? run.config.reverse_element : run.config.element;
+        const dpPa = element && direction !== null ? Math.abs(si(active)) : 0;
+        if (element && dpPa > 0) {
           try {
             const result = solveFlowCase({
-              element: run.config.element,
+              element,
               fluid: run.config.fluid,
               conditions: { differentialPressurePa: dpPa, staticPressurePa: si(p), temperatureK: si(temp) },
               base: { pressurePa: run.base_pressure_pa, temperatureK: run.base_temperature_k },
@@ -203,6 +223,7 @@ export class LiveBoard {
           shareOfSpan: share(t),
         })),
         warnings,
+        direction,
       });
     }
     return board;

@@ -181,6 +181,7 @@ export class AlarmEvaluator extends EventEmitter {
         const walked = walkMeterRunAlarms({
           state: { ...state, watermarkMs: watermark },
           meterRunTag: tag,
+          timeZone: ctx.timeZone,
           transmitters,
           readings,
           hours,
@@ -247,7 +248,7 @@ export class AlarmEvaluator extends EventEmitter {
     toMs: number,
   ): Promise<WalkReading[]> {
     const out: WalkReading[] = [];
-    for (const t of ctx.transmitters) {
+    for (const t of measuringTransmitters(ctx)) {
       const offset =
         t.measures === 'static-pressure' && t.pressureReference === 'gauge' ? ctx.atmosphericPressurePa : 0;
       for (const r of await readingsAround(db, t.id, fromMs, toMs))
@@ -291,7 +292,7 @@ export class AlarmEvaluator extends EventEmitter {
           condition,
           holds,
           priority,
-          alarmMessage(condition, r.tag, detail),
+          alarmMessage(condition, r.tag, detail, r.timeZone),
           detail,
           nowMs,
         );
@@ -338,7 +339,7 @@ export class AlarmEvaluator extends EventEmitter {
           condition,
           records.length > 0 && conditionLimits.enabled,
           conditionLimits.priority,
-          alarmMessage(condition, run.tag, detail),
+          alarmMessage(condition, run.tag, detail, run.timeZone),
           detail,
           nowMs,
         );
@@ -351,6 +352,11 @@ export class AlarmEvaluator extends EventEmitter {
   }
 }
 
+/** The transmitters the alarm walk judges: every one but a direction input. */
+function measuringTransmitters(ctx: MeterRunContext) {
+  return ctx.transmitters.flatMap((t) => (t.measures === 'flow-direction' ? [] : [{ ...t, measures: t.measures }]));
+}
+
 /** The record kinds in the alarm's words. */
 const careWords: Record<CareRecordKind, string> = {
   'element-calibration': 'element calibration',
@@ -360,7 +366,8 @@ const careWords: Record<CareRecordKind, string> = {
 
 /** The meter run's transmitters with their ranges in SI (as the readings are converted). */
 function walkTransmitters(ctx: MeterRunContext, tags: Map<string, string>): WalkTransmitter[] {
-  return ctx.transmitters.map((t) => {
+  // A direction input (unit `sign`) has no span to judge: its reverse flow is judged from the hourly records.
+  return measuringTransmitters(ctx).map((t) => {
     const offset = t.measures === 'static-pressure' && t.pressureReference === 'gauge' ? ctx.atmosphericPressurePa : 0;
     return {
       id: t.id,

@@ -23,6 +23,7 @@ import * as m0018 from '../migrations/0018-token-version';
 import * as m0019 from '../migrations/0019-reconciliation-tolerance-versions';
 import * as m0022 from '../migrations/0022-hourly-uncertainty-budget';
 import * as m0023 from '../migrations/0023-transmitter-accuracy-kind';
+import * as m0024 from '../migrations/0024-bidirectional-meter-runs';
 
 /**
  * Migrations are listed here, in order, rather than globbed: the list works the same under
@@ -50,6 +51,7 @@ const migrations = [
   { name: '0019-reconciliation-tolerance-versions', ...m0019 },
   { name: '0022-hourly-uncertainty-budget', ...m0022 },
   { name: '0023-transmitter-accuracy-kind', ...m0023 },
+  { name: '0024-bidirectional-meter-runs', ...m0024 },
 ];
 
 export function migrator(sequelize: Sequelize) {

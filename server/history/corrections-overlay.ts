@@ -169,9 +169,9 @@ export function overlayReadings(series: ReadingSeries, inForce: CorrectionsInFor
         d.transmitterId === s.transmitterId ? { ...d, samples: lay(d.samples, inForce.dpCoverMs, true) } : d,
       );
     } else if (s.measures === 'static-pressure') staticPressure = lay(staticPressure, inForce.holdCoverMs, false);
-    else temperature = lay(temperature, inForce.holdCoverMs, false);
+    else if (s.measures === 'temperature') temperature = lay(temperature, inForce.holdCoverMs, false);
   }
-  return { dp, staticPressure, temperature };
+  return { ...series, dp, staticPressure, temperature };
 }
 
 /**

@@ -5,7 +5,7 @@
  * load-context.ts.
  */
 import type { Pool } from 'pg';
-import type { HourlyRecord, PeriodTotal, RollUpRecord } from '../../shared/history/types';
+import type { DirectionPart, HourlyRecord, PeriodTotal, RollUpRecord } from '../../shared/history/types';
 import type { RecomputeReason, RecordCause } from './record-causes';
 
 /** How long an hour must be quiet, or may wait at most, before it is claimed. */
@@ -69,6 +69,8 @@ interface HourlyRecordRow {
   coverage: number;
   flags: string[];
   uncertainty_percent: number | null;
+  /** The reverse-flow part (migration 0024), NULL on a one-way meter run. */
+  reverse: DirectionPart | null;
 }
 
 /** The table of contract-day totals or of contract-month totals, with its key column. */
@@ -199,14 +201,14 @@ export async function saveHourlyRecords(
      saved AS (
      INSERT INTO hourly_records (meter_run_id, start, "end", flow_time_s, mass_kg, volume_m3, standard_volume_m3, energy_j,
        average_dp_pa, average_pressure_pa, average_temperature_k, integral_value, integral_multiplier_value, coverage, flags,
-       uncertainty_percent, uncertainty_budget, config_version_id, dp_bands, active_transmitter_time, final_stack_choice,
-       computed_at, recompute_cause, recompute_reference, as_of)
+       uncertainty_percent, uncertainty_budget, reverse, config_version_id, dp_bands, active_transmitter_time,
+       final_stack_choice, computed_at, recompute_cause, recompute_reference, as_of)
      SELECT $1, i.start, to_timestamp((r->>'endMs')::float8 / 1000),
             (r->>'flowTimeS')::float8, (r->>'massKg')::float8, (r->>'volumeM3')::float8, (r->>'standardVolumeM3')::float8,
             (r->>'energyJ')::float8, (r->>'averageDpPa')::float8, (r->>'averagePressurePa')::float8, (r->>'averageTemperatureK')::float8,
             (r->>'integralValue')::float8, (r->>'integralMultiplierValue')::float8, (r->>'coverage')::float8,
             ARRAY(SELECT jsonb_array_elements_text(r->'flags')), (r->>'uncertaintyPercent')::float8, r->'uncertaintyBudget',
-            (r->>'configVersionId')::bigint, r->'dpBands', r->'activeTransmitterTimeS', r->>'finalStackChoice', now(),
+            nullif(r->'reverse', 'null'::jsonb), (r->>'configVersionId')::bigint, r->'dpBands', r->'activeTransmitterTimeS', r->>'finalStackChoice', now(),
             r->>'recomputeCause', r->>'recomputeReference',
             least(to_timestamp((r->>'endMs')::float8 / 1000), to_timestamp($3::float8 / 1000))
        FROM input i
@@ -217,7 +219,7 @@ export async function saveHourlyRecords(
        integral_value = EXCLUDED.integral_value, integral_multiplier_value = EXCLUDED.integral_multiplier_value,
        coverage = EXCLUDED.coverage, flags = EXCLUDED.flags,
        uncertainty_percent = EXCLUDED.uncertainty_percent, uncertainty_budget = EXCLUDED.uncertainty_budget,
-       config_version_id = EXCLUDED.config_version_id, dp_bands = EXCLUDED.dp_bands, active_transmitter_time = EXCLUDED.active_transmitter_time,
+       reverse = EXCLUDED.reverse, config_version_id = EXCLUDED.config_version_id, dp_bands = EXCLUDED.dp_bands, active_transmitter_time = EXCLUDED.active_transmitter_time,
        final_stack_choice = EXCLUDED.final_stack_choice, computed_at = now(), recompute_cause = EXCLUDED.recompute_cause,
        recompute_reference = EXCLUDED.recompute_reference, as_of = EXCLUDED.as_of
      RETURNING start, version, cause, cause_reference)
@@ -243,7 +245,8 @@ export async function hourlyRecordsIn(
   endMs: number,
 ): Promise<RollUpRecord[]> {
   const { rows } = await pool.query<HourlyRecordRow>(
-    `SELECT start, "end", flow_time_s, mass_kg, volume_m3, standard_volume_m3, energy_j, coverage, flags, uncertainty_percent
+    `SELECT start, "end", flow_time_s, mass_kg, volume_m3, standard_volume_m3, energy_j, coverage, flags, uncertainty_percent,
+            reverse
        FROM hourly_records WHERE meter_run_id = $1 AND start >= to_timestamp($2 / 1000.0) AND start < to_timestamp($3 / 1000.0) ORDER BY start`,
     [meterRunId, startMs, endMs],
   );
@@ -258,6 +261,7 @@ export async function hourlyRecordsIn(
     coverage: r.coverage,
     flags: r.flags,
     uncertaintyPercent: r.uncertainty_percent,
+    reverse: r.reverse,
   }));
 }
 
@@ -277,12 +281,13 @@ export async function savePeriodTotal(
   const { table, keyColumn } = period;
   await pool.query(
     `INSERT INTO ${table} (meter_run_id, ${keyColumn}, start, "end", hours, flow_time_s, mass_kg, volume_m3, standard_volume_m3,
-       energy_j, coverage, flags, uncertainty_percent, status, computed_at, recompute_cause, recompute_reference)
-     VALUES ($1, $2, $3, $4, $5, $6, $7, $8, $9, $10, $11, $12, $13, $14, now(), $15, $16)
+       energy_j, coverage, flags, uncertainty_percent, reverse, status, computed_at, recompute_cause, recompute_reference)
+     VALUES ($1, $2, $3, $4, $5, $6, $7, $8, $9, $10, $11, $12, $13, $17::jsonb, $14, now(), $15, $16)
      ON CONFLICT (meter_run_id, ${keyColumn}) DO UPDATE SET start = EXCLUDED.start, "end" = EXCLUDED."end", hours = EXCLUDED.hours,
        flow_time_s = EXCLUDED.flow_time_s, mass_kg = EXCLUDED.mass_kg, volume_m3 = EXCLUDED.volume_m3,
        standard_volume_m3 = EXCLUDED.standard_volume_m3, energy_j = EXCLUDED.energy_j, coverage = EXCLUDED.coverage,
-       flags = EXCLUDED.flags, uncertainty_percent = EXCLUDED.uncertainty_percent, status = EXCLUDED.status, computed_at = now(),
+       flags = EXCLUDED.flags, uncertainty_percent = EXCLUDED.uncertainty_percent, reverse = EXCLUDED.reverse,
+       status = EXCLUDED.status, computed_at = now(),
        recompute_cause = EXCLUDED.recompute_cause, recompute_reference = EXCLUDED.recompute_reference`,
     [
       meterRunId,
@@ -301,6 +306,8 @@ export async function savePeriodTotal(
       total.status,
       reason.cause,
       reason.reference,
+      // The period's reverse flow (0024), only on a period with some reverse part; net is derived, never stored.
+      total.reverse ? JSON.stringify(total.reverse) : null,
     ],
   );
 }

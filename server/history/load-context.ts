@@ -1,8 +1,9 @@
 import type { Pool } from 'pg';
 import { toSI } from '../../shared/units';
-import type { ConfigVersionInput, DpSeries, Quality, Sample } from '../../shared/history/types';
+import type { ConfigVersionInput, DirectionSource, DpSeries, Quality, Sample } from '../../shared/history/types';
 import { inEffectAt } from '../../shared/history/dated';
 import type { AccuracyKind } from '../../shared/uncertainty';
+import type { ElementSpec } from '../../shared/flow/flow-types';
 
 const qualityName: Quality[] = ['good', 'uncertain', 'bad', 'substituted'];
 
@@ -56,7 +57,7 @@ export interface MeterRunContext {
   siteVersions: SiteSettings[];
   transmitters: {
     id: string;
-    measures: 'differential-pressure' | 'static-pressure' | 'temperature';
+    measures: TransmitterMeasure;
     unit: string;
     pressureReference: 'absolute' | 'gauge';
     lowerRange: number;
@@ -67,6 +68,9 @@ export interface MeterRunContext {
   }[];
   atmosphericPressurePa: number;
 }
+
+/** What a transmitter measures; 'flow-direction' (unit `sign`) says which way a bi-directional run flows (0024). */
+export type TransmitterMeasure = 'differential-pressure' | 'static-pressure' | 'temperature' | 'flow-direction';
 
 type ContextTransmitter = MeterRunContext['transmitters'][number];
 
@@ -90,6 +94,8 @@ interface ConfigVersionRow {
   effective_from: Date;
   element: ConfigVersionInput['element'];
   fluid: ConfigVersionInput['fluid'];
+  reverse_element: ElementSpec | null;
+  direction_source: DirectionSource | null;
 }
 
 interface TransmitterRow {
@@ -131,11 +137,12 @@ interface RangeVersionRow {
 }
 
 /** A stored reading: value in the transmitter's unit, quality as its code (0 good … 3 substituted). */
-interface ReadingRow {
-  time: Date;
-  value: number;
-  quality: number;
-}
+/**
+ * A reading as the recompute reads it: the time as epoch milliseconds, computed in the database
+ * (`floor` of the exact instant, the same millisecond pg's Date parsing gives) so a month at 1 Hz
+ * is not millions of date strings parsed in JavaScript; an array row, not an object per reading.
+ */
+type ReadingRow = [timeMs: number, value: number, quality: number];
 
 /**
  * Everything about a meter run that its hourly computation needs, except the readings. A meter
@@ -153,7 +160,8 @@ export async function loadMeterRunContext(pool: Pool, meterRunId: string): Promi
   const r = run.rows[0];
   if (!r) return null;
   const versions = await pool.query<ConfigVersionRow>(
-    'SELECT id::text, effective_from, element, fluid FROM config_versions WHERE meter_run_id = $1 ORDER BY effective_from',
+    `SELECT id::text, effective_from, element, fluid, reverse_element, direction_source
+       FROM config_versions WHERE meter_run_id = $1 ORDER BY effective_from`,
     [meterRunId],
   );
   const transmitters = await pool.query<TransmitterRow>(
@@ -227,6 +235,10 @@ export async function loadMeterRunContext(pool: Pool, meterRunId: string): Promi
       effectiveFromMs: v.effective_from.getTime(),
       element: v.element,
       fluid: v.fluid,
+      // Bi-directional from this version on: the reverse constants and how the direction is known.
+      ...(v.reverse_element
+        ? { reverseElement: v.reverse_element, directionSource: v.direction_source ?? 'dp-sign' }
+        : {}),
     })),
     settingVersions,
     siteVersions,
@@ -269,6 +281,8 @@ export interface ReadingSeries {
   dp: DpSeries[];
   staticPressure: Sample[];
   temperature: Sample[];
+  /** The direction input's samples (unit `sign`: > 0 forward, < 0 reverse, 0 no flow), unconverted. */
+  direction: Sample[];
 }
 
 /**
@@ -282,20 +296,24 @@ export async function loadReadings(
   fromMs: number,
   toMs: number,
 ): Promise<ReadingSeries> {
-  const series: ReadingSeries = { dp: [], staticPressure: [], temperature: [] };
+  const series: ReadingSeries = { dp: [], staticPressure: [], temperature: [], direction: [] };
   for (const t of ctx.transmitters) {
-    const { rows } = await pool.query<ReadingRow>(
-      `(SELECT time, value, quality FROM readings WHERE transmitter_id = $1 AND time < to_timestamp($2 / 1000.0) ORDER BY time DESC LIMIT 1)
-       UNION ALL
-       (SELECT time, value, quality FROM readings WHERE transmitter_id = $1 AND time >= to_timestamp($2 / 1000.0) AND time < to_timestamp($3 / 1000.0) ORDER BY time)`,
-      [t.id, fromMs, toMs],
-    );
+    const { rows } = await pool.query<ReadingRow>({
+      text: `SELECT floor(extract(epoch FROM time) * 1000)::float8, value, quality FROM (
+         (SELECT time, value, quality FROM readings WHERE transmitter_id = $1 AND time < to_timestamp($2 / 1000.0) ORDER BY time DESC LIMIT 1)
+         UNION ALL
+         (SELECT time, value, quality FROM readings WHERE transmitter_id = $1 AND time >= to_timestamp($2 / 1000.0) AND time < to_timestamp($3 / 1000.0) ORDER BY time)) AS r`,
+      values: [t.id, fromMs, toMs],
+      rowMode: 'array',
+    });
     const gauge = t.measures === 'static-pressure' && t.pressureReference === 'gauge';
     const offsetAt = (timeMs: number) => (gauge ? inEffectAt(ctx.siteVersions, timeMs).atmosphericPressurePa : 0);
-    const samples: Sample[] = rows.map((row) => ({
-      timeMs: row.time.getTime(),
-      value: toSI(row.value, t.unit) + offsetAt(row.time.getTime()),
-      quality: qualityName[row.quality],
+    // A direction input's unit (`sign`) has no SI conversion: its value is only its sign.
+    const toValue = (value: number) => (t.measures === 'flow-direction' ? value : toSI(value, t.unit));
+    const samples: Sample[] = rows.map(([timeMs, value, quality]) => ({
+      timeMs,
+      value: toValue(value) + offsetAt(timeMs),
+      quality: qualityName[quality],
     }));
     samples.sort((a, b) => a.timeMs - b.timeMs);
     if (t.measures === 'differential-pressure') {
@@ -309,6 +327,8 @@ export async function loadReadings(
       });
     } else if (t.measures === 'static-pressure') {
       series.staticPressure = mergeSorted(series.staticPressure, samples);
+    } else if (t.measures === 'flow-direction') {
+      series.direction = mergeSorted(series.direction, samples);
     } else {
       series.temperature = mergeSorted(series.temperature, samples);
     }

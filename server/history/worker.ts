@@ -58,9 +58,14 @@ export class HistoryWorker {
     private readonly timing: ClaimTiming = { quietMs: 1000, maxWaitMs: 10_000 },
   ) {}
 
+  /**
+   * Starts the timed rounds. Called only in the process that holds the job runner's lock
+   * (server/jobs/single-runner.ts), so one process recomputes on the clock; `drain`/`settle` called
+   * elsewhere stay safe, as claims skip each other's rows.
+   */
   start(onChange?: (meterRunIds: string[]) => void) {
     this.onChange = onChange;
-    // A claim left by a process that died is released.
+    // A claim left by a process that died is released: the lock's previous holder is gone (or there was none).
     void releaseAllClaims(this.pool).catch(() => undefined);
     // A round that fails (the database is unreachable) is logged and the timer goes on: the queue
     // is in the database, so the worker resumes by itself when the database is back.
@@ -391,5 +396,7 @@ function computePart(
     stackSwitchUpShare: settings.stackSwitchUpShare,
     stackSwitchDownShare: settings.stackSwitchDownShare,
     initialStackChoice: part.previousChoice ?? undefined,
+    // A direction input (bi-directional runs reading DP magnitude) says which way each part of the hour flows.
+    ...(readings.direction.length ? { direction: window(readings.direction, startMs, endMs) } : {}),
   });
 }

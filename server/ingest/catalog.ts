@@ -8,7 +8,7 @@ export interface CatalogTransmitter {
   siteId: string;
   siteCode: string;
   timeZone: string;
-  measures: 'differential-pressure' | 'static-pressure' | 'temperature';
+  measures: 'differential-pressure' | 'static-pressure' | 'temperature' | 'flow-direction';
   unit: string;
   pressureReference: 'absolute' | 'gauge';
   lowerRange: number;

@@ -36,6 +36,9 @@ export class ConfigVersion extends Model {
   declare effectiveFrom: Date;
   declare element: Record<string, unknown>;
   declare fluid: Record<string, unknown>;
+  /** The element's constants in reverse flow: present ⇔ bi-directional from effectiveFrom (migration 0024). */
+  declare reverseElement: Record<string, unknown> | null;
+  declare directionSource: 'dp-sign' | 'direction-input' | null;
   declare reason: string;
   declare createdBy: string | null;
   declare createdAt: Date;
@@ -48,6 +51,8 @@ export class ConfigVersion extends Model {
         effectiveFrom: { type: DataTypes.DATE, allowNull: false },
         element: { type: DataTypes.JSONB, allowNull: false },
         fluid: { type: DataTypes.JSONB, allowNull: false },
+        reverseElement: { type: DataTypes.JSONB },
+        directionSource: { type: DataTypes.TEXT },
         reason: { type: DataTypes.TEXT, allowNull: false, defaultValue: '' },
         createdBy: { type: DataTypes.BIGINT },
       },

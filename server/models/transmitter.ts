@@ -4,7 +4,7 @@ export class Transmitter extends Model {
   declare id: string;
   declare meterRunId: string;
   declare tag: string;
-  declare measures: 'differential-pressure' | 'static-pressure' | 'temperature';
+  declare measures: 'differential-pressure' | 'static-pressure' | 'temperature' | 'flow-direction';
   declare unit: string;
   declare pressureReference: 'absolute' | 'gauge';
   declare lowerRange: number;
@@ -21,7 +21,11 @@ export class Transmitter extends Model {
         id: { type: DataTypes.BIGINT, primaryKey: true, autoIncrement: true },
         meterRunId: { type: DataTypes.BIGINT, allowNull: false },
         tag: { type: DataTypes.TEXT, allowNull: false },
-        measures: { type: DataTypes.ENUM('differential-pressure', 'static-pressure', 'temperature'), allowNull: false },
+        measures: {
+          // 'flow-direction': a bi-directional meter run's direction input (migration 0024).
+          type: DataTypes.ENUM('differential-pressure', 'static-pressure', 'temperature', 'flow-direction'),
+          allowNull: false,
+        },
         unit: { type: DataTypes.TEXT, allowNull: false },
         pressureReference: { type: DataTypes.TEXT, allowNull: false, defaultValue: 'absolute' },
         lowerRange: { type: DataTypes.DOUBLE, allowNull: false },

@@ -16,6 +16,7 @@ export const ALARM_CONDITIONS = [
   'balance-out-of-tolerance',
   'care-due',
   'care-overdue',
+  'reverse-flow',
 ] as const;
 export type AlarmCondition = (typeof ALARM_CONDITIONS)[number];
 

@@ -49,6 +49,7 @@ export const ALARM_LIMIT_FIELDS: Readonly<Record<AlarmCondition, readonly AlarmL
   'balance-out-of-tolerance': [...common],
   'care-due': [...common, 'dueSoonDays'],
   'care-overdue': [...common],
+  'reverse-flow': [...common],
 };
 
 /**
@@ -106,6 +107,8 @@ export const DEFAULT_ALARM_LIMITS: Readonly<Record<AlarmCondition, AlarmLimits>>
   // The element's care records (issue 11 §4) are judged as a transmitter's calibration is: same window and priorities.
   'care-due': { enabled: true, priority: 'low', onDelayS: 0, offDelayS: 0, dueSoonDays: 14 },
   'care-overdue': { enabled: true, priority: 'medium', onDelayS: 0, offDelayS: 0 },
+  // Reverse flow on a one-way meter run is not counted (issue 13 §11): medium, judged hour by hour.
+  'reverse-flow': { enabled: true, priority: 'medium', onDelayS: 0, offDelayS: 0 },
 };
 
 /** A limit that makes no sense; `field` names it (the API answers 400 with it). */

@@ -87,6 +87,8 @@ export interface AlarmSignal {
 export interface AlarmWalkInput {
   state: AlarmWalkState;
   meterRunTag: string;
+  /** The site's IANA zone: the messages say times in it (UTC ISO 8601 when absent). */
+  timeZone?: string;
   transmitters: readonly WalkTransmitter[];
   /** Sorted by time; those at or before state.watermarkMs only warm up. */
   readings: readonly WalkReading[];
@@ -160,7 +162,7 @@ export function walkMeterRunAlarms(input: AlarmWalkInput): { signals: AlarmSigna
       transmitterId: tid,
       timeMs,
       onsetMs,
-      message: kind === 'raise' ? alarmMessage(condition, subjectOf(tid), detail) : '',
+      message: kind === 'raise' ? alarmMessage(condition, subjectOf(tid), detail, input.timeZone) : '',
       detail,
     });
   };
@@ -375,6 +377,9 @@ export function walkMeterRunAlarms(input: AlarmWalkInput): { signals: AlarmSigna
     if (h.endMs > horizon || (st.recordsToMs !== null && h.startMs < st.recordsToMs)) continue;
     const raw = h.flags.includes('outside-standard-limits') ? true : h.flowTimeS > 0 ? false : null;
     observe('outside-standard-limits', null, raw, h.startMs, { hourStartMs: h.startMs });
+    // Reverse flow on a one-way meter run (issue 13 §11): raised by a flagged hour, cleared by an hour of forward flow.
+    const reverse = h.flags.includes('reverse-flow') ? true : h.flowTimeS > 0 ? false : null;
+    observe('reverse-flow', null, reverse, h.startMs, { hourStartMs: h.startMs });
     st.recordsToMs = h.endMs;
   }
 

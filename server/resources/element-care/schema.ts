@@ -25,6 +25,8 @@ export const elementCalibrationBody = z
     points: z.array(calibrationPointSchema).min(1, 'needs at least one point').optional(),
     /** The same points as CSV text, header `reynoldsNumber,dischargeCoefficient`. */
     pointsCsv: z.string().max(200_000).optional(),
+    /** Which flow direction the curve is for (issue 13 §11): 'reverse' goes into the reverse constants. */
+    direction: z.enum(['forward', 'reverse'], { error: 'must be forward or reverse' }).default('forward'),
     nextDue,
     reason,
   })

@@ -76,16 +76,36 @@ function newVersion(
   deps: ElementCareDeps,
   meterRunId: string,
   at: Date,
-  config: { element: Element; fluid: Fluid },
+  config: { element: Element; fluid: Fluid; reverseElement?: Element; directionSource?: DirectionSource },
   reason: string,
   actor: SignedInUser,
 ) {
   return addConfigVersion(deps.meterRuns, {
     meterRunId,
-    input: { effectiveFrom: at.toISOString(), element: config.element, fluid: config.fluid, reason },
+    input: {
+      effectiveFrom: at.toISOString(),
+      element: config.element,
+      fluid: config.fluid,
+      // A bi-directional run stays bi-directional: the new version keeps the reverse constants in force.
+      ...(config.reverseElement
+        ? { reverseElement: config.reverseElement, directionSource: config.directionSource ?? 'dp-sign' }
+        : {}),
+      reason,
+    },
     actor,
   });
 }
+
+type DirectionSource = 'dp-sign' | 'direction-input';
+
+/** The reverse constants in force (issue 13 §11), carried into a version the element's care makes. */
+const reverseOf = (c: ConfigVersionRecord): { reverseElement?: Element; directionSource?: DirectionSource } =>
+  c.reverseElement
+    ? {
+        reverseElement: checked(elementSpecSchema, c.reverseElement, 'reverseElement'),
+        directionSource: c.directionSource ?? 'dp-sign',
+      }
+    : {};
 
 /**
  * Refuses a next due date before the record's own date, both as dates in the site's zone.
@@ -159,18 +179,29 @@ export async function recordElementCalibration(
     input.effectiveFrom ? 'effectiveFrom' : 'calibratedAt',
   );
   await checkRecord(deps, meterRunId, calibratedAt, input.nextDue, request.certificate);
+  // A calibration in reverse flow (issue 13 §11) is the curve of the reverse constants: a one-way run has none.
+  const reverse = input.direction === 'reverse';
+  if (reverse && !current.reverseElement)
+    throw badRequest(
+      'direction: a reverse calibration needs a bi-directional meter run (the configuration in force has no reverseElement)',
+      'direction',
+      'invalid_field',
+    );
   // A fixed C and a curve exclude each other: the curve replaces it.
-  const { dischargeCoefficient: _fixed, ...element } = current.element;
+  const { dischargeCoefficient: _fixed, ...element } = (reverse ? current.reverseElement : current.element) ?? {};
   const calibrated = checked(
     elementSpecSchema,
     { ...element, calibration: points, calibrationUncertaintyPercent: input.uncertaintyPercent },
     'points',
   );
+  const forwardElement = checked(elementSpecSchema, current.element, 'element');
   const version = await newVersion(
     deps,
     meterRunId,
     effectiveFrom,
-    { element: calibrated, fluid: storedFluid(current) },
+    reverse
+      ? { element: forwardElement, fluid: storedFluid(current), ...reverseOf(current), reverseElement: calibrated }
+      : { element: calibrated, fluid: storedFluid(current), ...reverseOf(current) },
     input.reason ?? `element calibration of ${calibratedAt.toISOString().slice(0, 10)} by ${input.laboratory}`,
     actor,
   );
@@ -240,6 +271,7 @@ export async function recordGasAnalysis(
     {
       element: checked(elementSpecSchema, current.element, 'element'),
       fluid: checked(fluidSpecSchema, { ...fluid, composition }, 'components'),
+      ...reverseOf(current),
     },
     input.reason ?? `gas analysis sampled ${sampledAt.toISOString()} by ${input.laboratory}`,
     actor,
@@ -341,7 +373,7 @@ export async function recordInspection(
         deps,
         meterRunId,
         inspectedAt,
-        { element: changed, fluid: storedFluid(current) },
+        { element: changed, fluid: storedFluid(current), ...reverseOf(current) },
         input.reason ?? `element inspection of ${inspectedAt.toISOString()}: ${input.condition}`,
         actor,
       )

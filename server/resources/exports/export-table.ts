@@ -1,3 +1,4 @@
+import { formatInstant } from '../../../shared/format/time';
 import { fromSI } from '../../../shared/units';
 import type { MonthlyVolumes, MonthFigures } from '../monthly-volumes/use-cases';
 import type { AllocationRow } from './use-cases';
@@ -46,16 +47,21 @@ export function exportTable(
       `mass ${word(u.mass)}, volume ${word(u.volume)}, volume at base conditions ${word(u.standardVolume)}, energy ${word(u.energy)}`,
     ],
     ['Status', volumes.totals.status],
-    ['Exported at', new Date(exported.atMs).toISOString()],
+    // In the site's local time with its zone named, as every screen and mail says time (issue 14).
+    ['Exported at', formatInstant(exported.atMs, site.timeZone, { seconds: true })],
     ['Exported by', `${exported.by.name} <${exported.by.email}>`],
   ];
+  // A month with reverse flow (a bi-directional meter run, issue 13 §11) names the figures forward and adds
+  // reverse and net (forward − reverse) as columns of their own; a one-way month keeps its columns.
+  const bidirectional = volumes.meterRuns.some((r) => r.reverse);
+  const forward = (label: string) => (bidirectional ? `Forward ${label.toLowerCase()}` : label);
   const columns = [
     'Meter run',
     'Name',
-    `Mass (${word(u.mass)})`,
-    `Volume (${word(u.volume)})`,
-    `Volume at base conditions (${word(u.standardVolume)})`,
-    `Energy (${word(u.energy)})`,
+    `${forward('Mass')} (${word(u.mass)})`,
+    `${forward('Volume')} (${word(u.volume)})`,
+    `${forward('Volume at base conditions')} (${word(u.standardVolume)})`,
+    `${forward('Energy')} (${word(u.energy)})`,
     'Coverage (%)',
     'Flags',
     'Expanded uncertainty k=2 (%)',
@@ -64,6 +70,16 @@ export function exportTable(
     'Change from previous month (%)',
     'Change from a year earlier (%)',
     'Allocation factor',
+    ...(bidirectional
+      ? [
+          `Reverse mass (${word(u.mass)})`,
+          `Reverse volume at base conditions (${word(u.standardVolume)})`,
+          `Reverse energy (${word(u.energy)})`,
+          `Net mass (${word(u.mass)})`,
+          `Net volume at base conditions (${word(u.standardVolume)})`,
+          `Net energy (${word(u.energy)})`,
+        ]
+      : []),
   ];
   const conv = (v: number | null, unit: string) => (v === null ? null : fromSI(v, unit));
   const figures = (f: MonthFigures): ExportCell[] => [
@@ -76,6 +92,21 @@ export function exportTable(
     f.uncertaintyPercent,
     f.status,
   ];
+  /** Reverse and net cells (a bi-directional month only): empty for a meter run without reverse flow. */
+  const directions = (
+    reverse: { massKg: number; standardVolumeM3: number; energyJ: number | null } | undefined,
+    net: { massKg: number; standardVolumeM3: number; energyJ: number | null } | undefined,
+  ): ExportCell[] =>
+    bidirectional
+      ? [
+          conv(reverse?.massKg ?? null, u.mass),
+          conv(reverse?.standardVolumeM3 ?? null, u.standardVolume),
+          conv(reverse?.energyJ ?? null, u.energy),
+          conv(net?.massKg ?? null, u.mass),
+          conv(net?.standardVolumeM3 ?? null, u.standardVolume),
+          conv(net?.energyJ ?? null, u.energy),
+        ]
+      : [];
   const rows: ExportCell[][] = volumes.meterRuns.map((r) => [
     r.meterRun.tag,
     r.meterRun.name,
@@ -84,6 +115,7 @@ export function exportTable(
     r.changeFromPreviousMonthPercent,
     r.changeFromYearEarlierPercent,
     null,
+    ...directions(r.reverse, r.net),
   ]);
   rows.push([
     'Site total',
@@ -93,6 +125,8 @@ export function exportTable(
     volumes.totals.changeFromPreviousMonthPercent,
     volumes.totals.changeFromYearEarlierPercent,
     null,
+    // The site's reverse and net are in the meter runs' rows; the site total row stays forward.
+    ...directions(undefined, undefined),
   ]);
   for (const a of allocation) {
     rows.push([
@@ -110,6 +144,7 @@ export function exportTable(
       null,
       null,
       a.factor,
+      ...directions(undefined, undefined),
     ]);
   }
   return { header, columns, rows };

@@ -20,6 +20,52 @@ const presentFigures = (t: HistoryTotal): PeriodTotal => ({
   status: t.status,
 });
 
+/**
+ * Reverse and net flow (issue 13 §11), only for a period with reverse flow (a bi-directional meter
+ * run): a one-way meter run's totals keep their shape. The figures before them are forward flow.
+ */
+const presentDirections = (t: HistoryTotal) =>
+  t.reverse && t.net
+    ? {
+        reverse: {
+          flowTimeS: t.reverse.flowTimeS,
+          massKg: t.reverse.massKg,
+          volumeM3: t.reverse.volumeM3,
+          standardVolumeM3: t.reverse.standardVolumeM3,
+          energyJ: t.reverse.energyJ,
+        },
+        net: {
+          massKg: t.net.massKg,
+          volumeM3: t.net.volumeM3,
+          standardVolumeM3: t.net.standardVolumeM3,
+          energyJ: t.net.energyJ,
+        },
+      }
+    : {};
+
+/** An hour's whole reverse part (null on a one-way meter run), its budget terms named as the forward budget's. */
+const presentReversePart = (r: HistoryHourlyRecord) =>
+  r.reversePart
+    ? {
+        flowTimeS: r.reversePart.flowTimeS,
+        massKg: r.reversePart.massKg,
+        volumeM3: r.reversePart.volumeM3,
+        standardVolumeM3: r.reversePart.standardVolumeM3,
+        energyJ: r.reversePart.energyJ,
+        averageDpPa: r.reversePart.averageDpPa,
+        averagePressurePa: r.reversePart.averagePressurePa,
+        averageTemperatureK: r.reversePart.averageTemperatureK,
+        integralValue: r.reversePart.integralValue,
+        integralMultiplierValue: r.reversePart.integralMultiplierValue,
+        uncertaintyPercent: r.reversePart.uncertaintyPercent,
+        uncertaintyBudget: r.reversePart.uncertaintyBudget.map((t) => ({
+          term: t.name,
+          percent: t.percent,
+          source: t.source,
+        })),
+      }
+    : null;
+
 /** Added last (issue 9): the record's version and version 1's mass and standard volume (null: no record). */
 const presentVersion = (t: HistoryTotal) => ({
   version: t.version,
@@ -28,7 +74,11 @@ const presentVersion = (t: HistoryTotal) => ({
 });
 
 /** One entry of `GET /api/meter-runs/:id/totals`. */
-export const presentTotal = (t: HistoryTotal) => ({ ...presentFigures(t), ...presentVersion(t) });
+export const presentTotal = (t: HistoryTotal) => ({
+  ...presentFigures(t),
+  ...presentDirections(t),
+  ...presentVersion(t),
+});
 
 /** One entry of `GET /api/meter-runs/:id/hourly-records`: the total of the hour and what only an hour carries. */
 export const presentHourlyRecord = (r: HistoryHourlyRecord) => ({
@@ -45,6 +95,9 @@ export const presentHourlyRecord = (r: HistoryHourlyRecord) => ({
   ...presentVersion(r),
   // Added last (issue 13): each term of U(qm)/qm (k = 2, percent) with where its input comes from.
   uncertaintyBudget: r.uncertaintyBudget?.map((t) => ({ term: t.name, percent: t.percent, source: t.source })) ?? null,
+  // Added last (issue 13 §11): the hour's reverse flow (null on a one-way meter run) and net, forward − reverse (null likewise).
+  reverse: presentReversePart(r),
+  net: r.net,
 });
 
 export const presentRecomputeStatus = (q: RecomputeQueue) => ({

@@ -1,5 +1,5 @@
 import type { Pool } from 'pg';
-import type { DpBandName, TotalStatus } from '../../../shared/history/types';
+import type { DirectionPart, DpBandName, PeriodReverse, TotalStatus } from '../../../shared/history/types';
 import type { TotalsInterval } from './schema';
 
 /** The site calendar a meter run's contract days and months are counted in. */
@@ -29,6 +29,8 @@ export interface PeriodFigures {
 
 /** A stored total of an hour, contract day or contract month, with its place among its versions. */
 export interface StoredTotal extends PeriodFigures {
+  /** Reverse flow of a bi-directional meter run (migration 0024); null on a one-way one. The figures above are forward. */
+  reverse: PeriodReverse | null;
   /** The record's version (1, 2, … — issue 9); null for a period with no record. */
   version: number | null;
   /** Mass and standard volume of version 1 (the current ones when there is no other); null with no record. */
@@ -53,6 +55,8 @@ export interface StoredHourlyRecord extends StoredTotal {
    * in percent (k = 2) and its source; null for a record stored before budgets were kept.
    */
   uncertaintyBudget: StoredBudgetTerm[] | null;
+  /** The hour's whole reverse part (migration 0024), null on a one-way meter run. */
+  reversePart: DirectionPart | null;
 }
 
 /** One stored term of an hourly record's uncertainty budget (shared/history/types.ts HourlyRecord). */
@@ -113,9 +117,12 @@ interface TotalRow {
   version: number;
   first_mass_kg: number;
   first_standard_volume_m3: number;
+  /** PeriodReverse for days and months; an hour stores its whole DirectionPart (a superset). */
+  reverse: (PeriodReverse & Partial<DirectionPart>) | null;
 }
 
 interface HourlyRecordRow extends TotalRow {
+  reverse: DirectionPart | null;
   average_dp_pa: number | null;
   average_pressure_pa: number | null;
   average_temperature_k: number | null;
@@ -139,7 +146,7 @@ interface TrendTransmitterRow {
 }
 
 const totalColumns = `start, "end", flow_time_s, mass_kg, volume_m3, standard_volume_m3, energy_j, coverage, flags,
-  uncertainty_percent`;
+  uncertainty_percent, reverse`;
 /** The version and version 1's mass and standard volume (from `withFirstVersion`). */
 const versionColumns = `version, coalesce(v1_mass_kg, mass_kg) AS first_mass_kg,
   coalesce(v1_standard_volume_m3, standard_volume_m3) AS first_standard_volume_m3`;
@@ -179,6 +186,15 @@ const storedTotal = (r: TotalRow): StoredTotal => ({
   flags: r.flags,
   uncertaintyPercent: r.uncertainty_percent,
   status: r.status,
+  reverse: r.reverse
+    ? {
+        flowTimeS: r.reverse.flowTimeS,
+        massKg: r.reverse.massKg,
+        volumeM3: r.reverse.volumeM3,
+        standardVolumeM3: r.reverse.standardVolumeM3,
+        energyJ: r.reverse.energyJ,
+      }
+    : null,
   version: r.version,
   firstMassKg: r.first_mass_kg,
   firstStandardVolumeM3: r.first_standard_volume_m3,
@@ -251,6 +267,7 @@ export function meterRunHistoryRepository(pool: Pool): MeterRunHistoryRepository
         activeTransmitterTimeS: r.active_transmitter_time,
         computedAtMs: r.computed_at.getTime(),
         uncertaintyBudget: r.uncertainty_budget,
+        reversePart: r.reverse,
       }));
     },
 

@@ -10,6 +10,8 @@ export const presentConfigVersion = (c: ConfigVersionRecord) => ({
   effectiveFrom: c.effectiveFrom.toISOString(),
   element: c.element,
   fluid: c.fluid,
+  // Only on a bi-directional version (issue 13 §11): a one-way version keeps its shape.
+  ...(c.reverseElement ? { reverseElement: c.reverseElement, directionSource: c.directionSource } : {}),
   reason: c.reason,
   createdAt: c.createdAt.toISOString(),
 });
@@ -41,7 +43,16 @@ export const presentMeterRun = (m: MeterRunRecord, current?: ConfigVersionRecord
   line: m.line,
   noFlowCutoffPercentOfSpan: percentOf(m.noFlowCutoffShare),
   reconciliationTolerancePercent: m.reconciliationTolerancePercent,
-  ...(current ? { element: current.element, fluid: current.fluid, configVersionId: current.id } : {}),
+  ...(current
+    ? {
+        element: current.element,
+        fluid: current.fluid,
+        ...(current.reverseElement
+          ? { reverseElement: current.reverseElement, directionSource: current.directionSource }
+          : {}),
+        configVersionId: current.id,
+      }
+    : {}),
 });
 
 /** One entry of `GET /api/meter-runs/:id/setting-versions`. */

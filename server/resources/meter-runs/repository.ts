@@ -59,6 +59,10 @@ export interface ConfigVersionRecord {
   effectiveFrom: Date;
   element: Record<string, unknown>;
   fluid: Record<string, unknown>;
+  /** The element's constants in reverse flow (migration 0024): present ⇔ bi-directional from effectiveFrom; null one-way. */
+  reverseElement: Record<string, unknown> | null;
+  /** How the direction is known, with reverseElement ('dp-sign' when not given); null one-way. */
+  directionSource: 'dp-sign' | 'direction-input' | null;
   reason: string;
   createdAt: Date;
 }
@@ -81,6 +85,8 @@ interface ConfigVersionHistoryRow {
   effective_from: Date;
   element: Record<string, JsonValue>;
   fluid: Record<string, JsonValue>;
+  reverse_element: Record<string, JsonValue> | null;
+  direction_source: 'dp-sign' | 'direction-input' | null;
   reason: string;
   created_at: Date;
   author_email: string | null;
@@ -121,6 +127,8 @@ const configVersionRecord = (c: ConfigVersion): ConfigVersionRecord => ({
   effectiveFrom: c.effectiveFrom,
   element: c.element,
   fluid: c.fluid,
+  reverseElement: c.reverseElement ?? null,
+  directionSource: c.directionSource ?? null,
   reason: c.reason,
   createdAt: c.createdAt,
 });
@@ -272,7 +280,8 @@ export function meterRunRepository(sequelize: Sequelize): MeterRunRepository {
 
     async configVersionHistory(meterRunId) {
       const rows = await sequelize.query<ConfigVersionHistoryRow>(
-        `SELECT v.id::text, v.meter_run_id::text, v.effective_from, v.element, v.fluid, v.reason, v.created_at,
+        `SELECT v.id::text, v.meter_run_id::text, v.effective_from, v.element, v.fluid, v.reverse_element,
+                v.direction_source, v.reason, v.created_at,
                 u.email AS author_email, u.name AS author_name
            FROM config_versions v LEFT JOIN users u ON u.id = v.created_by
           WHERE v.meter_run_id = :meterRunId
@@ -286,6 +295,8 @@ export function meterRunRepository(sequelize: Sequelize): MeterRunRepository {
           effectiveFrom: r.effective_from,
           element: r.element,
           fluid: r.fluid,
+          reverseElement: r.reverse_element,
+          directionSource: r.direction_source,
           reason: r.reason,
           createdAt: r.created_at,
         },

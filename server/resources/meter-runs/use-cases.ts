@@ -115,6 +115,7 @@ export async function createMeterRun(
             effectiveFrom,
             element: input.element,
             fluid: input.fluid,
+            ...directionOf(input),
             reason: 'first configuration',
             createdBy: actor.id,
           },
@@ -275,7 +276,25 @@ export interface RecomputeSummary {
   hours: number;
 }
 
-const configOf = (v: ConfigVersionRecord) => ({ element: v.element, fluid: v.fluid });
+/** What a version's change list compares: the reverse constants only where a version has them (one-way lists stay as they were). */
+const configOf = (v: ConfigVersionRecord) => ({
+  element: v.element,
+  fluid: v.fluid,
+  ...(v.reverseElement ? { reverseElement: v.reverseElement, directionSource: v.directionSource } : {}),
+});
+
+/**
+ * A version's reverse element and direction source (issue 13 §11): with a reverse element the
+ * meter run is bi-directional from the version on, by the sign of the DP unless told otherwise.
+ */
+function directionOf(input: {
+  reverseElement?: Record<string, unknown>;
+  directionSource?: 'dp-sign' | 'direction-input';
+}) {
+  return input.reverseElement
+    ? { reverseElement: input.reverseElement, directionSource: input.directionSource ?? 'dp-sign' }
+    : { reverseElement: null, directionSource: null };
+}
 
 /** @throws not found when the meter run does not exist */
 export async function listConfigVersions(
@@ -343,6 +362,7 @@ export async function addConfigVersion(
             effectiveFrom,
             element: input.element,
             fluid: input.fluid,
+            ...directionOf(input),
             reason: input.reason,
             createdBy: actor.id,
           },

@@ -1,5 +1,5 @@
 import type { Pool } from 'pg';
-import type { TotalStatus } from '../../../shared/history/types';
+import type { PeriodReverse, TotalStatus } from '../../../shared/history/types';
 import { periodIsClosed } from '../../history/closed-periods';
 
 /** A site as the monthly volumes read it: its calendar, base conditions and display units. */
@@ -37,6 +37,8 @@ export interface StoredMonthlyTotal {
   uncertaintyPercent: number | null;
   status: TotalStatus;
   version: number;
+  /** Reverse flow of a bi-directional meter run's month (migration 0024); null one-way. The figures above are forward. */
+  reverse: PeriodReverse | null;
 }
 
 interface SiteRow {
@@ -65,6 +67,7 @@ interface MonthlyTotalRow {
   uncertainty_percent: number | null;
   status: TotalStatus;
   version: number;
+  reverse: PeriodReverse | null;
 }
 
 /** What the monthly volumes read: the site, its meter runs, their monthly totals and corrections in force. */
@@ -114,7 +117,7 @@ export function monthlyVolumesRepository(pool: Pool): MonthlyVolumesRepository {
       const { rows } = await pool.query<MonthlyTotalRow>(
         `SELECT t.meter_run_id::text, to_char(t.month, 'YYYY-MM') AS month, t.start, t."end", t.hours, t.mass_kg,
                 t.volume_m3, t.standard_volume_m3, t.energy_j, t.coverage, t.flags, t.uncertainty_percent, t.status,
-                t.version
+                t.version, t.reverse
            FROM monthly_totals t JOIN meter_runs m ON m.id = t.meter_run_id
           WHERE m.site_id = $1 AND to_char(t.month, 'YYYY-MM') = ANY($2::text[])`,
         [siteId, months],
@@ -134,6 +137,7 @@ export function monthlyVolumesRepository(pool: Pool): MonthlyVolumesRepository {
         uncertaintyPercent: r.uncertainty_percent,
         status: r.status,
         version: r.version,
+        reverse: r.reverse,
       }));
     },
 

@@ -1,6 +1,7 @@
 import { DateTime } from 'luxon';
 import { contractMonthBounds } from '../../../shared/history/contract-day';
-import type { TotalStatus } from '../../../shared/history/types';
+import type { PeriodNet, PeriodReverse, TotalStatus } from '../../../shared/history/types';
+import { netOf } from '../../history/net-flow';
 import { notFound } from '../../errors';
 import type { MonthlyVolumesRepository, StoredMonthlyTotal, VolumesMeterRun, VolumesSite } from './repository';
 
@@ -36,6 +37,12 @@ export interface MeterRunMonth extends MonthFigures {
   version: number | null;
   /** Approved corrections overlapping the month. */
   correctionsInForce: number;
+  /**
+   * A bi-directional meter run's month (issue 13 §11): its reverse flow and net (forward − reverse)
+   * as figures of their own; absent on a one-way meter run, whose month keeps its shape.
+   */
+  reverse?: PeriodReverse;
+  net?: PeriodNet;
 }
 
 export interface MonthlyVolumes {
@@ -127,6 +134,7 @@ export async function monthlyVolumes(
       yearEarlier: yearBefore,
       changeFromPreviousMonthPercent: changePercent(standardVolumeM3, before),
       changeFromYearEarlierPercent: changePercent(standardVolumeM3, yearBefore),
+      ...directionsOf(total),
     });
   }
 
@@ -142,6 +150,12 @@ export async function monthlyVolumes(
 }
 
 /** The site's sum of its meter runs' months. */
+/** The month's reverse and net flow, only where the meter run flowed in reverse (a bi-directional run). */
+function directionsOf(total: StoredMonthlyTotal | undefined): { reverse?: PeriodReverse; net?: PeriodNet } {
+  const net = total ? netOf(total, total.reverse) : null;
+  return total?.reverse && net ? { reverse: total.reverse, net } : {};
+}
+
 function siteTotals(runs: MeterRunMonth[], previous: string, yearEarlier: string) {
   const withTotal = runs.filter((r) => r.version !== null);
   const sum = (pick: (r: MeterRunMonth) => number | null) => {

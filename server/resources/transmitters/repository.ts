@@ -8,7 +8,7 @@ export interface TransmitterRecord {
   id: string;
   meterRunId: string;
   tag: string;
-  measures: 'differential-pressure' | 'static-pressure' | 'temperature';
+  measures: 'differential-pressure' | 'static-pressure' | 'temperature' | 'flow-direction';
   unit: string;
   pressureReference: 'absolute' | 'gauge';
   lowerRange: number;
