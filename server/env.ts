@@ -30,6 +30,22 @@ const schema = z.object({
     .string()
     .regex(/^[A-Za-z0-9_-]+$/)
     .optional(),
+  /**
+   * The external broker's client id of this process: stable across its restarts (the broker keeps its
+   * session, and the messages in flight to it, until it comes back) and different for every process
+   * sharing MQTT_SHARED_GROUP. Defaults to `tallyrun-ingest-<host name>`.
+   */
+  MQTT_CLIENT_ID: z
+    .string()
+    .regex(/^[A-Za-z0-9_.-]{1,64}$/, 'MQTT_CLIENT_ID must be 1 to 64 letters, digits, dots, dashes or underscores')
+    .optional(),
+  /** How long the external broker keeps this process's session (and its queued messages) while it is away, s. */
+  MQTT_SESSION_EXPIRY_S: z.coerce.number().int().min(0).max(4_294_967_295).default(86_400),
+  /**
+   * How often a process that does not run the scheduled jobs and the history recompute checks whether
+   * their runner has gone (PostgreSQL advisory lock), ms.
+   */
+  TALLYRUN_RUNNER_POLL_MS: z.coerce.number().int().min(100).default(5000),
   SMTP_PORT: port(2525),
   DATABASE_URL: z.string().min(1, 'DATABASE_URL is required (npm start sets it for the private cluster)'),
   TALLYRUN_DATA_DIR: z.string().default('.tallyrun'),

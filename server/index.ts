@@ -15,6 +15,7 @@ import { seedDemoUsers } from './seed/demo-users';
 import { seedDemoScenario } from './seed/demo-scenario';
 import { createServices } from './services';
 import { makePartitionsAhead, startAlarmSchedule, startSchedule } from './jobs/schedule';
+import { startSingleRunner } from './jobs/single-runner';
 import { createMailer } from './mail/send';
 import { AlarmNotifier } from './mail/notifier';
 import { componentLogger } from './log';
@@ -60,12 +61,6 @@ export async function startServer(env: Env = readEnv()): Promise<RunningServer> 
   // worker logs and retries instead of ending the process (DEVELOPERS.md, "When the database goes away").
   const databaseMonitor = new DatabaseMonitor(env.DATABASE_URL);
   databaseMonitor.start();
-  services.history.start((ids) => {
-    services.live.historyChanged(ids);
-    // Alarms: judge the new readings of the meter runs just recomputed (issue 5).
-    services.alarms.meterRunsChanged(ids);
-  });
-  const schedule = startSchedule({ pool: services.pool, history: services.history });
 
   const broker = env.MQTT_URL
     ? {
@@ -73,6 +68,8 @@ export async function startServer(env: Env = readEnv()): Promise<RunningServer> 
         ...(await startExternalBrokerIngest({
           url: env.MQTT_URL,
           sharedGroup: env.MQTT_SHARED_GROUP,
+          clientId: env.MQTT_CLIENT_ID,
+          sessionExpiryS: env.MQTT_SESSION_EXPIRY_S,
           ingest: services.mqttIngest,
         })),
       }
@@ -83,13 +80,35 @@ export async function startServer(env: Env = readEnv()): Promise<RunningServer> 
         onPublish: (device, topic, payload) => services.mqttIngest(device, topic, payload),
       });
   if ('disconnect' in broker) services.brokerControl.disconnect = (username) => broker.disconnect(username);
+  // Where devices publish, shown with each device credential (issue 14 item 6).
+  services.brokerControl.address = env.MQTT_URL ? { externalUrl: env.MQTT_URL } : { port: broker.port };
   const smtp = await startSmtpStandIn({ host: env.HOST, port: env.SMTP_PORT });
   // Alarm mail through the stand-in (issue 5): new alarms soon after they are raised, digests and
   // clock-judged conditions (stale, calibration, shelving over) on the minute.
   const mailer = createMailer({ host: env.HOST, port: smtp.port, access: smtp.access });
   const notifier = new AlarmNotifier(services.pool, mailer);
   services.alarms.on('raised', () => notifier.requestRun());
-  const alarmSchedule = startAlarmSchedule({ alarms: services.alarms, notifier });
+  // The scheduled jobs and the history recompute run in one process of those sharing the database
+  // (a PostgreSQL advisory lock); another takes them over when it dies (server/jobs/single-runner.ts).
+  const runner = startSingleRunner({
+    databaseUrl: env.DATABASE_URL,
+    pollMs: env.TALLYRUN_RUNNER_POLL_MS,
+    start: () => {
+      services.history.start((ids) => {
+        services.live.historyChanged(ids);
+        // Alarms: judge the new readings of the meter runs just recomputed (issue 5).
+        services.alarms.meterRunsChanged(ids);
+      });
+      const schedule = startSchedule({ pool: services.pool, history: services.history });
+      const alarmSchedule = startAlarmSchedule({ alarms: services.alarms, notifier });
+      return async () => {
+        schedule.stop();
+        await alarmSchedule.stop();
+        await services.history.stop();
+      };
+    },
+  });
+  await runner.firstTry;
 
   const app = createApp({
     sequelize,
@@ -119,8 +138,7 @@ export async function startServer(env: Env = readEnv()): Promise<RunningServer> 
     async stop() {
       server.closeAllConnections();
       await new Promise<void>((resolve) => server.close(() => resolve()));
-      schedule.stop();
-      await alarmSchedule.stop();
+      await runner.stop();
       notifier.stop();
       await broker.close();
       mailer.close();

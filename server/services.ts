@@ -43,8 +43,14 @@ export function createServices(options: { databaseUrl: string; sequelize: Sequel
     readings: (id: string, file: string) => importReadingsCsv({ pool, catalog, writer, onStored: stored }, id, file),
     fieldTotals: (id: string, file: string) => importFieldTotalsCsv({ pool }, id, file),
   };
-  /** Set by startServer once the embedded broker runs: drops the connections of a device. */
-  const brokerControl = { disconnect: (_username: string) => {} };
+  /**
+   * Set by startServer once the embedded broker runs: drops the connections of a device. `address`
+   * is where devices publish (the external broker's URL, or the embedded broker's port), null until known.
+   */
+  const brokerControl: {
+    disconnect: (username: string) => void;
+    address: { externalUrl: string } | { port: number } | null;
+  } = { disconnect: (_username: string) => {}, address: null };
   return {
     brokerControl,
     pool,

@@ -21,7 +21,7 @@ const log = (s: string) => testLog.info(s);
 const say = (s: string) => process.stdout.write(`${s}\n`);
 const isRoot = typeof process.getuid === 'function' && process.getuid() === 0;
 
-/** Debian packages the tests call: reference libraries (IAPWS-IF97, units) and the browser. */
+/** Debian packages the tests call: reference libraries (IAPWS-IF97, units), the browser and the MQTT 5 broker. */
 function ensureTestTools() {
   const missing: string[] = [];
   const hasPython = (mod: string) =>
@@ -29,6 +29,8 @@ function ensureTestTools() {
   if (!hasPython('iapws')) missing.push('python3-iapws');
   if (!hasPython('pint')) missing.push('python3-pint');
   if (!fs.existsSync('/usr/bin/chromium')) missing.push('chromium');
+  // Mosquitto 2 stands for the external broker of several ingest workers (tests/mqtt/mosquitto.ts).
+  if (!fs.existsSync('/usr/sbin/mosquitto')) missing.push('mosquitto');
   if (missing.length === 0) return;
   if (!isRoot)
     throw new Error(`missing Debian packages for the tests: ${missing.join(' ')} (install them with apt-get)`);
