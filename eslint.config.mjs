@@ -8,7 +8,18 @@ import tseslint from 'typescript-eslint';
 import prettier from 'eslint-config-prettier';
 
 export default tseslint.config(
-  { ignores: ['node_modules/', 'dist/', 'dist.*/', '.expo/', '.tallyrun/', '.test-results/', 'coverage/', 'expo-env.d.ts'] },
+  {
+    ignores: [
+      'node_modules/',
+      'dist/',
+      'dist.*/',
+      '.expo/',
+      '.tallyrun/',
+      '.test-results/',
+      'coverage/',
+      'expo-env.d.ts',
+    ],
+  },
   js.configs.recommended,
   ...tseslint.configs.recommended,
   {
