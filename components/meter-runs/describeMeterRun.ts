@@ -1,10 +1,14 @@
 /**
  * A meter run's primary element and fluid in a few words, for lists and headers. β comes from
  * the flow engine (shared/flow prepareElement at the element's reference temperature), so the
- * cone's β = √(1 − dc²/D²) is not written a second time here.
+ * cone's β = √(1 − dc²/D²) is not written a second time here. It imports the flow engine's
+ * modules it uses, not shared/flow's index: the index brings the whole solver and the fluid
+ * properties with it, which the web client then loads on every first visit (issue 15 item 4).
  */
 import type { FluidSpec } from '@/shared/fluids';
-import { DEFAULT_REFERENCE_TEMPERATURE_K, prepareElement, type ElementSpec } from '@/shared/flow';
+import type { ElementSpec } from '@/shared/flow/flow-types';
+import { prepareElement } from '@/shared/flow/prepare-element';
+import { DEFAULT_REFERENCE_TEMPERATURE_K } from '@/shared/flow/thermal-expansion';
 import { fromSI } from '@/shared/units';
 
 const elementNames: Record<ElementSpec['kind'], string> = {

@@ -3,7 +3,19 @@ import fs from 'node:fs';
 import path from 'node:path';
 import zlib from 'node:zlib';
 
-const sources = ['app', 'components', 'hooks', 'constants', 'shared', 'assets', 'app.json', 'package.json'];
+const sources = [
+  'app',
+  'components',
+  'hooks',
+  'constants',
+  'shared',
+  'assets',
+  'public',
+  'web-stubs',
+  'app.json',
+  'metro.config.js',
+  'package.json',
+];
 
 function newestMtime(p: string): number {
   if (!fs.existsSync(p)) return 0;
