@@ -162,6 +162,7 @@ export function createApp(options: AppOptions): Express {
     [
       '/devices',
       devicesRouter(sequelize, {
+        brokerAddress: () => services.brokerControl.address,
         credentialsChanged: (username) => {
           services.deviceAuth.forget();
           // A disabled device is cut off now, not when it next signs in.

@@ -8,6 +8,7 @@ import { AppText } from '@/components/ui/AppText';
 import { StateBadge } from '@/components/ui/StateBadge';
 import { space } from '@/constants/theme';
 import type { LiveConnection } from '@/hooks/api/live';
+import { formatClock } from '@/shared/format/time';
 
 interface LiveConnectionLineProps {
   connection: LiveConnection;
@@ -15,14 +16,8 @@ interface LiveConnectionLineProps {
   nowMs: number;
 }
 
-function clock(ms: number): string {
-  return new Date(ms).toLocaleTimeString(undefined, {
-    hour: '2-digit',
-    minute: '2-digit',
-    second: '2-digit',
-    hour12: false,
-  });
-}
+/** The viewer's clock with its zone named (the board spans sites; shared/format/time.ts). */
+const clock = (ms: number) => formatClock(ms, undefined, { seconds: true });
 
 export function LiveConnectionLine({ connection, receivedAtMs, nowMs }: LiveConnectionLineProps) {
   const asOf = receivedAtMs ? `Board as of ${clock(receivedAtMs)}` : 'No board received yet';

@@ -33,6 +33,11 @@ export function AuditLogScreen() {
   const meterRuns = useMeterRuns();
   const exportCsv = useExportAuditCsv();
   const list = events.data ?? [];
+  // The API names each actor beside the e-mail; the sentence says the name.
+  const names = new Map(
+    list.flatMap((e) => (e.actorEmail && e.actorName ? [[e.actorEmail, e.actorName] as const] : [])),
+  );
+  const nameOf = (email: string) => names.get(email);
 
   return (
     <Screen lead="Every change to set-up, readings, corrections, periods and users, with who made it and when: the trail to show an auditor. Read only.">
@@ -97,7 +102,7 @@ export function AuditLogScreen() {
           </AppText>
         ) : null}
         {list.map((event) => (
-          <AuditEventRow key={event.id} event={event} />
+          <AuditEventRow key={event.id} event={event} nameOf={nameOf} />
         ))}
         {list.length >= defaultAuditLimit ? (
           <AppText variant="caption" tone="muted">

@@ -6,7 +6,7 @@
  * of a chosen meter run against its field totals.
  */
 import { useQueries } from '@tanstack/react-query';
-import { useState } from 'react';
+import { useState, type ReactNode } from 'react';
 import { StyleSheet, View } from 'react-native';
 import { z } from 'zod';
 
@@ -94,7 +94,11 @@ function MonthReconciliation({ volumes }: { volumes: MonthlyVolumes }) {
   );
 }
 
-export function MonthlyVolumesScreen() {
+/**
+ * @param siteExtra drawn below the site and month choice, for the chosen site (the Totals tab puts
+ *   each meter run's latest contract days there)
+ */
+export function MonthlyVolumesScreen({ siteExtra }: { siteExtra?: (siteId: string) => ReactNode } = {}) {
   const user = useSignedInUser();
   const breakpoint = useBreakpoint();
   const sites = useSites();
@@ -155,6 +159,7 @@ export function MonthlyVolumesScreen() {
           />
         </View>
       </Panel>
+      {siteId && siteExtra ? siteExtra(siteId) : null}
 
       <QueryState
         isPending={volumes.isPending && siteId !== undefined}

@@ -25,6 +25,7 @@ const auditEventSchema = z
     after: z.unknown(),
     reason: z.string().nullable().optional(),
     actorId: z.string().nullable().optional(),
+    actorName: z.string().nullable().optional(),
     kind: z.enum(AUDIT_KINDS).optional().catch(undefined),
   })
   // A server from before the kinds still gets each event's kind, from the same map.

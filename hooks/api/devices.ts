@@ -22,6 +22,8 @@ export const deviceSchema = z.object({
   lastRejection: z.string().nullable(),
   lastSeenAt: z.string().nullable(),
   createdAt: z.string(),
+  /** Where the device publishes (absent from a PATCH answer; null when the server does not know yet). */
+  broker: z.object({ url: z.string() }).nullable().optional(),
 });
 export type Device = z.infer<typeof deviceSchema>;
 

@@ -40,6 +40,8 @@ export const importSchema = z.object({
   sha256: z.string().nullable().catch(null),
   uploadedBy: z.string().nullable().catch(null),
   uploadedAt: z.string().nullable().catch(null),
+  /** The meter runs a finished import touched (the detail only; absent from the list). */
+  meterRuns: z.array(z.object({ id: z.union([z.string(), z.number()]).transform(String), tag: z.string() })).optional(),
 });
 export type Import = z.infer<typeof importSchema>;
 

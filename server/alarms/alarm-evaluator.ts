@@ -194,6 +194,7 @@ export class AlarmEvaluator extends EventEmitter {
             stackSwitchUpShare: ctx.stackSwitchUpShare,
             stackSwitchDownShare: ctx.stackSwitchDownShare,
           },
+          reverseFlow: liveReverseFlowRule(ctx),
         });
         for (const signal of walked.signals) {
           const applied = await applySignal(
@@ -350,6 +351,25 @@ export class AlarmEvaluator extends EventEmitter {
     if (touched.length) this.emit('changed', touched);
     if (raised.length) this.emit('raised', raised);
   }
+}
+
+/**
+ * Reverse flow on a one-way meter run judged live from the DP (issue 13 §11), with the dated
+ * configuration and no-flow cutoff in force at each reading. A meter run with a direction input is
+ * judged from its hourly records instead (undefined): the walk does not read the direction input.
+ */
+function liveReverseFlowRule(ctx: MeterRunContext) {
+  if (ctx.transmitters.some((t) => t.measures === 'flow-direction')) return undefined;
+  const inForce = <T extends { effectiveFromMs: number }>(versions: readonly T[], timeMs: number) => {
+    let found: T | undefined = versions[0]; // before the first one: the first (no hour is computed there)
+    for (const v of versions) if (v.effectiveFromMs <= timeMs) found = v;
+    return found;
+  };
+  return {
+    oneWayAt: (timeMs: number) => !inForce(ctx.configVersions, timeMs)?.reverseElement,
+    noFlowCutoffShareAt: (timeMs: number) =>
+      inForce(ctx.settingVersions, timeMs)?.noFlowCutoffShare ?? ctx.noFlowCutoffShare,
+  };
 }
 
 /** The transmitters the alarm walk judges: every one but a direction input. */

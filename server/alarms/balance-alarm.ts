@@ -68,7 +68,7 @@ export async function judgeBalanceAlarms(pool: Pool, nowMs: number) {
             transmitterId: null,
             timeMs: day.endMs,
             onsetMs: day.startMs,
-            message: alarmMessage(condition, group.name, detail),
+            message: alarmMessage(condition, group.name, detail, group.timeZone),
             detail,
           },
           limits.priority,

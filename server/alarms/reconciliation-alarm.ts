@@ -75,7 +75,7 @@ export async function judgeReconciliationAlarms(pool: Pool, nowMs: number) {
             transmitterId: null,
             timeMs: verdict.worst.endMs,
             onsetMs: verdict.worst.startMs,
-            message: alarmMessage(condition, run.tag, detail),
+            message: alarmMessage(condition, run.tag, detail, run.timeZone),
             detail,
           },
           limits.priority,

@@ -57,6 +57,9 @@ export function alarmMessage(
     case 'care-overdue':
       return `${subject}: element care overdue: ${detail.records}.`;
     case 'reverse-flow':
+      // Judged live from the DP (sinceMs) or from an hourly record (hourStartMs).
+      if (typeof detail.sinceMs === 'number')
+        return `${subject} is a one-way meter run and reads reverse flow since ${iso(detail.sinceMs)} (DP ${pct(detail.shareOfSpan)} of its span below zero): it is not counted as flow.`;
       return `${subject} is a one-way meter run and saw reverse flow in the hour from ${iso(detail.hourStartMs)}: it is not counted as flow.`;
     default:
       return `${subject}: ${condition}.`;

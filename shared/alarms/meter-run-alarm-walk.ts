@@ -18,9 +18,14 @@
  * - stale: a gap between readings longer than the limit (raised at last + limit, cleared by the
  *   next reading), and by the clock after the last reading;
  * - bad-quality: the reading in force is bad;
- * - outside-standard-limits: from the hourly records' flags, hour by hour.
+ * - outside-standard-limits: from the hourly records' flags, hour by hour;
+ * - reverse-flow (a one-way meter run): with `reverseFlow`, live from the DP in use by the rule of
+ *   the hourly records (shared/history directionalReading: a transmitter ranged below zero reading
+ *   beyond the no-flow cutoff of its reverse side), raised by reverse DP, cleared by forward flow,
+ *   no judgement without flow; without it, from the hourly records' 'reverse-flow' flag. One source
+ *   per walk, so the alarm point never sees observations out of time order.
  */
-import { NO_FLOW_CUTOFF_SHARE_OF_SPAN } from '../history/compute-hour';
+import { directionalReading, NO_FLOW_CUTOFF_SHARE_OF_SPAN } from '../history/compute-hour';
 import { dpSelector, type DpSelector } from '../history/dp-selector';
 import { chooseStackedTransmitter } from '../flow/stacked-pair';
 import type { DpSeries, Quality } from '../history/types';
@@ -102,6 +107,16 @@ export interface AlarmWalkInput {
   latestReadingMs?: Readonly<Record<string, number>>;
   limits: (condition: AlarmCondition, transmitterId: string | null) => AlarmLimits;
   meterRun: { maxGapS: number; stackSwitchUpShare: number; stackSwitchDownShare: number };
+  /**
+   * Judge reverse flow live from the DP (issue 13 §11). Absent: from the hourly records' flag (a
+   * meter run whose direction comes from a direction input, which the walk does not read).
+   */
+  reverseFlow?: {
+    /** Whether the configuration in force at a time is one-way (no reverseElement). */
+    oneWayAt: (timeMs: number) => boolean;
+    /** The meter run's no-flow cutoff in force at a time (a dated setting), share of the side's range. */
+    noFlowCutoffShareAt: (timeMs: number) => number;
+  };
 }
 
 /** @returns the state of a meter run never walked */
@@ -307,6 +322,8 @@ export function walkMeterRunAlarms(input: AlarmWalkInput): { signals: AlarmSigna
   function judgeDp(t: number) {
     const selection = selector!.at(t);
     st.stackChoice = selector!.stackChoice();
+    if (input.reverseFlow && selection.series !== null && selection.sample !== null)
+      judgeReverseFlow(t, selection.series, selection.sample.value, input.reverseFlow);
     if (selection.series !== null && selection.sample !== null) {
       for (const tr of dps) {
         if (tr.id !== selection.series.transmitterId) {
@@ -372,14 +389,29 @@ export function walkMeterRunAlarms(input: AlarmWalkInput): { signals: AlarmSigna
     }
   }
 
+  /** The hourly records' rule at one reading: reverse beyond the cutoff is reverse flow; no flow says nothing. */
+  function judgeReverseFlow(
+    t: number,
+    dp: DpSeries,
+    dpPa: number,
+    rule: NonNullable<AlarmWalkInput['reverseFlow']>,
+  ) {
+    if (!rule.oneWayAt(t)) return observe('reverse-flow', null, false, t); // counted as reverse flow
+    const reading = directionalReading(dp, dpPa);
+    if (reading.magnitudePa <= 0 || reading.share < rule.noFlowCutoffShareAt(t)) return observe('reverse-flow', null, null, t);
+    observe('reverse-flow', null, reading.direction === 'reverse', t, { sinceMs: t, shareOfSpan: reading.share });
+  }
+
   // Hourly records: outside the standard's limits, hour by hour (an hour without flow says nothing).
   for (const h of input.hours) {
     if (h.endMs > horizon || (st.recordsToMs !== null && h.startMs < st.recordsToMs)) continue;
     const raw = h.flags.includes('outside-standard-limits') ? true : h.flowTimeS > 0 ? false : null;
     observe('outside-standard-limits', null, raw, h.startMs, { hourStartMs: h.startMs });
     // Reverse flow on a one-way meter run (issue 13 §11): raised by a flagged hour, cleared by an hour of forward flow.
-    const reverse = h.flags.includes('reverse-flow') ? true : h.flowTimeS > 0 ? false : null;
-    observe('reverse-flow', null, reverse, h.startMs, { hourStartMs: h.startMs });
+    if (!input.reverseFlow) {
+      const reverse = h.flags.includes('reverse-flow') ? true : h.flowTimeS > 0 ? false : null;
+      observe('reverse-flow', null, reverse, h.startMs, { hourStartMs: h.startMs });
+    }
     st.recordsToMs = h.endMs;
   }
 

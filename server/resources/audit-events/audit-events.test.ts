@@ -37,6 +37,8 @@ describe('GET /api/audit-events', () => {
       previousHash: expect.stringMatching(/^[0-9a-f]{64}$/),
       actorId: admin.id,
       kind: 'user',
+      // Added last (issue 14): the actor's name, so the log says who in words.
+      actorName: expect.any(String),
     });
     expect(Number(res.body[0].chainSeq)).toBeGreaterThan(Number(res.body[1].chainSeq));
     expect((await get(accountant.token, `?entityType=user&entityId=${u.id}&limit=1`)).body).toHaveLength(1);

@@ -20,6 +20,8 @@ export function presentAuditEvent(e: AuditEventRecord) {
     // Added last (issue 9): who acted, by id (for the user filter), and the action's family.
     actorId: e.actorId,
     kind: auditKindOf(e.action),
+    // Added last (issue 14): the acting user's name, so the log says who in words.
+    actorName: e.actorName,
   };
 }
 

@@ -16,6 +16,8 @@ export interface AuditEventRecord {
   chainSeq: string;
   hash: string;
   previousHash: string | null;
+  /** The acting user's name as it is now (null for the system or a user no longer known). */
+  actorName: string | null;
 }
 
 export interface AuditEventFilter {
@@ -59,6 +61,7 @@ interface AuditEventRow {
   chain_seq: string;
   hash: string;
   previous_hash: string | null;
+  actor_name: string | null;
 }
 
 /** Escapes LIKE's wildcards in a prefix (`_` appears in none today, but a prefix is data, not a pattern). */
@@ -116,6 +119,7 @@ const record = (r: AuditEventRow): AuditEventRecord => ({
   chainSeq: r.chain_seq,
   hash: r.hash,
   previousHash: r.previous_hash,
+  actorName: r.actor_name,
 });
 
 export function auditEventsRepository(pool: Pool): AuditEventsRepository {
@@ -124,7 +128,8 @@ export function auditEventsRepository(pool: Pool): AuditEventsRepository {
       const where = whereOf(filter);
       const { rows } = await pool.query<AuditEventRow>(
         `SELECT id::text, occurred_at, actor_id::text, actor_email, action, entity_type, entity_id, before, after,
-                reason, chain_seq::text, hash, previous_hash
+                reason, chain_seq::text, hash, previous_hash,
+                (SELECT u.name FROM users u WHERE u.id = audit_events.actor_id) AS actor_name
            FROM audit_events ${where.sql}
           ORDER BY occurred_at DESC, audit_events.id DESC
           LIMIT ${Number(filter.limit)}`,

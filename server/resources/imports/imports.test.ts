@@ -103,7 +103,7 @@ describe('the originals of imports', () => {
     expect(fs.statSync(file).mode & 0o777).toBe(0o444);
   });
 
-  it('lists and shows the hash, the uploader and the upload time beside the keys it had', async () => {
+  it('lists and shows the hash, the uploader, the upload time and the meter runs touched beside the keys it had', async () => {
     const csv = Buffer.from(`time,tag,value\n2025-03-01T00:01:00Z,${f.dp.tag},12.5\n`);
     const id = await upload(csv, 'shown.csv');
     const one = await finished(id);
@@ -125,10 +125,15 @@ describe('the originals of imports', () => {
       'sha256',
       'uploadedBy',
       'uploadedAt',
+      // Added last (issue 14): the meter runs the import touched, so a finished import leads on to them.
+      'meterRuns',
     ]);
     expect(one).toMatchObject({ sha256: sha256sum(csv), uploadedBy: engineer.email, uploadedAt: one.createdAt });
+    expect(one.meterRuns).toEqual([{ id: f.meterRunId, tag: f.tag }]);
+    // The list carries the same keys but the touched meter runs, which only the detail looks for.
+    const { meterRuns: _touched, ...listed } = one;
     const list = await t.http().get('/api/imports').set(auth());
-    expect(list.body.find((i: { id: string }) => i.id === id)).toEqual(one);
+    expect(list.body.find((i: { id: string }) => i.id === id)).toEqual(listed);
   });
 
   it('gives back the exact bytes uploaded, named as uploaded, with their hash', async () => {

@@ -1,4 +1,4 @@
-import type { ImportRecord } from './repository';
+import type { ImportRecord, TouchedMeterRun } from './repository';
 
 /**
  * An import's progress and rejected lines; ids as strings, instants as ISO 8601. The kept
@@ -22,6 +22,12 @@ export const presentImport = (r: ImportRecord) => ({
   sha256: r.sha256,
   uploadedBy: r.uploadedBy,
   uploadedAt: r.createdAt.toISOString(),
+});
+
+/** An import's detail: as in the list, then the meter runs it touched (ids as strings), added last. */
+export const presentImportDetail = (r: ImportRecord, meterRuns: readonly TouchedMeterRun[]) => ({
+  ...presentImport(r),
+  meterRuns: meterRuns.map((m) => ({ id: m.id, tag: m.tag })),
 });
 
 /**

@@ -86,6 +86,17 @@ export interface ImportRepository {
   setOriginalPath(id: string, originalPath: string): Promise<void>;
   /** Ends a running import as failed before its job started, with the reason as its only listed line. */
   fail(id: string, message: string): Promise<void>;
+  /**
+   * The meter runs an import stored anything for (readings, offered conflicting readings, field
+   * totals), by tag. One pass over the readings (they carry the import's id since migration 0008).
+   */
+  touchedMeterRuns(id: string): Promise<TouchedMeterRun[]>;
+}
+
+/** A meter run an import touched. */
+export interface TouchedMeterRun {
+  id: string;
+  tag: string;
 }
 
 export function importRepository(pool: Pool): ImportRepository {
@@ -115,6 +126,23 @@ export function importRepository(pool: Pool): ImportRepository {
         [id, originalPath],
       );
       if (rowCount !== 1) throw new Error(`import ${id}: its original path is already recorded`);
+    },
+
+    async touchedMeterRuns(id) {
+      const { rows } = await pool.query<TouchedMeterRun>(
+        `WITH touched AS (
+           SELECT t.meter_run_id FROM transmitters t
+            WHERE t.id IN (SELECT DISTINCT r.transmitter_id FROM readings r WHERE r.import_id = $1)
+           UNION
+           SELECT t.meter_run_id FROM reading_conflicts c JOIN transmitters t ON t.id = c.transmitter_id
+            WHERE c.offered_import_id = $1
+           UNION
+           SELECT f.meter_run_id FROM field_total_versions f WHERE f.import_id = $1)
+         SELECT m.id::text AS id, m.tag FROM meter_runs m WHERE m.id IN (SELECT meter_run_id FROM touched)
+          ORDER BY m.tag`,
+        [id],
+      );
+      return rows;
     },
 
     async fail(id, message) {

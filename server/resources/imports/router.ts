@@ -8,8 +8,8 @@ import { parseId } from '../../http/params';
 import { importKindOf } from './schema';
 import { importRepository } from './repository';
 import { originalsStore } from './originals';
-import { getImport, listImports, originalOfImport, startImport, type ImportJobs } from './use-cases';
-import { attachmentDisposition, presentImport } from './presenter';
+import { getImportDetail, listImports, originalOfImport, startImport, type ImportJobs } from './use-cases';
+import { attachmentDisposition, presentImport, presentImportDetail } from './presenter';
 
 /**
  * CSV uploads of readings and field totals. The file is streamed to disk (size-limited), hashed
@@ -55,7 +55,8 @@ export function importsRouter(options: {
   });
 
   router.get('/:id', requireCapability('importData'), async (req, res) => {
-    res.json(presentImport(await getImport(repository, parseId(req.params.id, 'Import'))));
+    const detail = await getImportDetail(repository, parseId(req.params.id, 'Import'));
+    res.json(presentImportDetail(detail.import, detail.meterRuns));
   });
 
   router.get('/:id/original', requireCapability('importData'), async (req, res) => {

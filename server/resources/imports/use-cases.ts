@@ -25,6 +25,16 @@ export async function getImport(repository: ImportRepository, importId: string) 
 }
 
 /**
+ * An import with the meter runs it touched, so a finished import leads on to them. While it runs
+ * the list is not looked for (the client polls the progress) and is empty.
+ */
+export async function getImportDetail(repository: ImportRepository, importId: string) {
+  const found = await getImport(repository, importId);
+  const meterRuns = found.status === 'running' ? [] : await repository.touchedMeterRuns(importId);
+  return { import: found, meterRuns };
+}
+
+/**
  * Records an import of an uploaded file and starts its job without waiting for it: the caller
  * answers at once and the client follows the progress. The file is hashed first and kept, read-
  * only, as part of the record; the job reads the kept file, and the start is audited with the
