@@ -187,7 +187,14 @@ export class HistoryWorker {
     const historyStartMs = historyStartOf(ctx);
     // One question for the whole span first: most rounds touch no closed month.
     const spanTouchesClosed = await periodIsClosed(this.pool, meterRunId, spanStart, spanEnd);
+    let yieldedAt = performance.now();
     for (const startMs of hours) {
+      // A round computes up to a week of hours in one go: hand the event loop back every ~20 ms so
+      // live ingest (its commits and PUBACKs run in this process) is not starved by a recompute.
+      if (performance.now() - yieldedAt > 20) {
+        await new Promise((resolve) => setImmediate(resolve));
+        yieldedAt = performance.now();
+      }
       const endMs = nextHourStart(startMs, ctx.timeZone);
       if (startMs > nowMs) continue;
       // Before the meter run's first configuration version there is nothing to record.
