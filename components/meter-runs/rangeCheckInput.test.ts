@@ -14,6 +14,7 @@ import { defaultValues, type RangeCheckValues } from './rangeCheckValues';
 const PSI_PA = 6894.757; // NIST SP 811
 const IN_H2O_60F_PA = 248.84; // NIST SP 811
 const CUBIC_FOOT_M3 = 0.028316846592; // exact
+const POUND_KG = 0.45359237; // exact
 const ATMOSPHERE_PA = 101_325; // exact by definition
 
 const relative = (actual: number, expected: number) => Math.abs(actual / expected - 1);
@@ -230,6 +231,62 @@ describe('runRangeCheck on the fluid', () => {
     const fluid = runOf({ ...defaultValues('us'), ...liquid, liquidReferenceTemperature: '68' } as RangeCheckValues)
       .input.fluid as { referenceTemperatureK: number };
     expect(fluid.referenceTemperatureK).toBeCloseTo(293.15, 10); // 68 °F = 20 °C (ISO 80000-5)
+  });
+
+  it('reads a US liquid’s density in lb/ft³ and its expansion per °F, and sends kg/m³ and per K', () => {
+    const liquid = {
+      fluidKind: 'liquid',
+      flowUnitKey: 'lb/h',
+      minimumFlow: '1e4',
+      normalFlow: '5e4',
+      maximumFlow: '1e5',
+    };
+    const fluid = runOf({
+      ...defaultValues('us'),
+      ...liquid,
+      liquidDensity: '62.428',
+      liquidExpansion: '0.0001',
+    } as RangeCheckValues).input.fluid as { densityKgPerM3: number; expansionPerK: number };
+    // 62.428 lb/ft³ × 0.45359237 kg/lb / 0.028316846592 m³/ft³ = 999.999 kg/m³ (NIST SP 811 exact factors).
+    expect(relative(fluid.densityKgPerM3, (62.428 * POUND_KG) / CUBIC_FOOT_M3)).toBeLessThan(1e-12);
+    expect(fluid.densityKgPerM3).toBeCloseTo(1000, 1);
+    expect(fluid.expansionPerK).toBeCloseTo(0.00018, 15); // 0.0001 per °F × 1.8 °F per K (ISO 80000-5)
+  });
+});
+
+describe('runRangeCheck on the orifice method', () => {
+  it('sends no method for ISO 5167-2, the schema’s default', () => {
+    const { input } = runOf(si());
+    expect(input.element).not.toHaveProperty('method');
+    expect(input.element).not.toHaveProperty('expansionReference');
+  });
+
+  it('sends API MPMS 14.3 with the static tap a what-if chose', () => {
+    const { input } = runOf(si({ orificeMethod: 'api-14.3', expansionReference: 'downstream' }));
+    expect(input.element).toMatchObject({
+      kind: 'orifice',
+      taps: 'flange',
+      method: 'api-14.3',
+      expansionReference: 'downstream',
+    });
+  });
+
+  it('says API MPMS 14.3 covers flange taps only when corner taps are chosen with it', () => {
+    const { problems, run } = runRangeCheck(si({ orificeMethod: 'api-14.3', taps: 'corner' }));
+    expect(run).toBeNull();
+    expect(problems.elementKind).toMatch(/taps must be flange for method api-14\.3/);
+  });
+
+  it('gives a different C under API MPMS 14.3 than under ISO 5167-2 for the same plate, within 0.5 % (ISO 5167-2 §5.3.3.1)', () => {
+    const iso = runOf(si()).result.flows[1];
+    const api = runOf(si({ orificeMethod: 'api-14.3' })).result.flows[1];
+    expect(api.differentialPressurePa).not.toBe(iso.differentialPressurePa);
+    expect(relative(api.differentialPressurePa, iso.differentialPressurePa)).toBeLessThan(0.01);
+  });
+
+  it('sends nothing of the orifice method for another element', () => {
+    const { input } = runOf(si({ elementKind: 'venturi', orificeMethod: 'api-14.3' }));
+    expect(input.element).not.toHaveProperty('method');
   });
 });
 

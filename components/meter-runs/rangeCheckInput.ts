@@ -29,6 +29,7 @@ import {
 } from '@/shared/schemas/flow-case';
 import { transmitterSchema } from '@/shared/schemas/setup';
 import type { RangeCheckValues } from './rangeCheckValues';
+import { densityFromDisplay, expansionFromDisplay } from './rangeCheckUnits';
 
 /** Form fields that can carry a problem; `span0`/`accuracy1` are the transmitters' fields. */
 export type RangeCheckField =
@@ -74,6 +75,8 @@ const elementFields: Record<string, RangeCheckField> = {
   dischargeCoefficient: 'dischargeCoefficient',
   calibration: 'dischargeCoefficient',
   taps: 'elementKind',
+  method: 'elementKind',
+  expansionReference: 'elementKind',
   venturiType: 'elementKind',
   nozzleType: 'elementKind',
 };
@@ -145,6 +148,10 @@ export function runRangeCheck(values: RangeCheckValues): { problems: Problems; r
     kind: values.elementKind,
     pipeDiameterM: pipe === undefined ? undefined : pipe * mm,
     ...(values.elementKind === 'orifice' ? { taps: values.taps } : {}),
+    // The method of a prefilled meter run, or the what-if's choice (ISO 5167-2 is the schema's default).
+    ...(values.elementKind === 'orifice' && values.orificeMethod === 'api-14.3'
+      ? { method: 'api-14.3', expansionReference: values.expansionReference }
+      : {}),
     ...(values.elementKind === 'venturi' ? { venturiType: values.venturiType } : {}),
     ...(values.elementKind === 'nozzle' ? { nozzleType: values.nozzleType } : {}),
     ...(bore !== undefined ? { boreDiameterM: bore * mm } : {}),
@@ -189,12 +196,14 @@ export function runRangeCheck(values: RangeCheckValues): { problems: Problems; r
     };
   } else if (values.fluidKind === 'liquid') {
     const referenceTemperature = need('liquidReferenceTemperature', values.liquidReferenceTemperature);
+    const density = need('liquidDensity', values.liquidDensity);
+    const expansion = need('liquidExpansion', values.liquidExpansion);
     fluidDraft = {
       ...fluidDraft,
-      densityKgPerM3: need('liquidDensity', values.liquidDensity),
+      densityKgPerM3: density === undefined ? undefined : densityFromDisplay(density, values.displayUnits),
       referenceTemperatureK:
         referenceTemperature === undefined ? undefined : temperatureFromDisplay(referenceTemperature, set),
-      expansionPerK: need('liquidExpansion', values.liquidExpansion) ?? 0,
+      expansionPerK: expansion === undefined ? 0 : expansionFromDisplay(expansion, values.displayUnits),
     };
   }
   let fluid: FluidSpec | null = null;

@@ -117,6 +117,22 @@ describe('switchUnits', () => {
     expect(relative(us.staticPressure, (4_000_000 - ATMOSPHERE_PA) / PSI_PA)).toBeLessThan(1e-5);
   });
 
+  it('converts a liquid’s density from kg/m³ to lb/ft³ and its expansion from per K to per °F', () => {
+    const si = { ...defaultValues('si'), liquidDensity: '1000', liquidExpansion: '0.00018' };
+    const us = switchUnits(si, 'us');
+    // 1000 kg/m³ = 1000 × 0.028316846592 / 0.45359237 lb/ft³ = 62.4280 (NIST SP 811 exact factors).
+    expect(relative(us.liquidDensity, (1000 * CUBIC_FOOT_M3) / POUND_KG)).toBeLessThan(1e-6);
+    expect(us.liquidExpansion).toBe('0.0001'); // 0.00018 / 1.8 (ISO 80000-5)
+    const back = switchUnits(us, 'si');
+    expect(relative(back.liquidDensity, 1000)).toBeLessThan(1e-6);
+    expect(back.liquidExpansion).toBe('0.00018');
+  });
+
+  it('starts a US form’s liquid at 62.32 lb/ft³, water’s 998.2 kg/m³ at 20 °C', () => {
+    expect(relative(defaultValues('us').liquidDensity, (998.2 * CUBIC_FOOT_M3) / POUND_KG)).toBeLessThan(1e-6);
+    expect(defaultValues('si').liquidDensity).toBe('998.2');
+  });
+
   it('converts 15 °C to 59 °F and a 20 °C liquid reference temperature to 68 °F', () => {
     expect(us.temperature).toBe('59');
     expect(us.liquidReferenceTemperature).toBe('68');
@@ -269,9 +285,35 @@ describe('prefillFromMeterRun', () => {
       usSite,
       [],
     );
-    expect(liquid.liquidDensity).toBe('850');
+    // 850 kg/m³ in lb/ft³: 850 × 0.028316846592 / 0.45359237 = 53.0637 (NIST SP 811 exact factors).
+    expect(relative(liquid.liquidDensity, (850 * CUBIC_FOOT_M3) / POUND_KG)).toBeLessThan(1e-6);
     expect(liquid.liquidReferenceTemperature).toBe('59'); // 15 °C = 59 °F
-    expect(liquid.liquidExpansion).toBe('0.0009');
+    // 0.0009 per K is 0.0005 per °F (a kelvin is 1.8 °F, ISO 80000-5).
+    expect(liquid.liquidExpansion).toBe('0.0005');
+  });
+
+  it('takes an orifice meter run’s method and static tap, and ISO 5167-2 when it names none', () => {
+    const api = prefillFromMeterRun(
+      defaultValues('si'),
+      meterRun({
+        element: {
+          kind: 'orifice',
+          taps: 'flange',
+          method: 'api-14.3',
+          expansionReference: 'downstream',
+          pipeDiameterM: 0.1023,
+          boreDiameterM: 0.05,
+        },
+      }),
+      usSite,
+      [],
+    );
+    expect(api.orificeMethod).toBe('api-14.3');
+    expect(api.expansionReference).toBe('downstream');
+    expect(api.elementExtras).toEqual({});
+    const iso = prefillFromMeterRun(api, run, usSite, []);
+    expect(iso.orificeMethod).toBe('iso-5167-2');
+    expect(iso.expansionReference).toBe('upstream');
   });
 
   it('moves a steam meter run to a mass flow unit', () => {

@@ -19,10 +19,18 @@ import type { MeterRun } from '@/hooks/api/meterRuns';
 import type { Site } from '@/hooks/api/sites';
 import type { Transmitter } from '@/hooks/api/transmitters';
 import type { FluidSpec } from '@/shared/fluids';
-import type { ElementSpec, NozzleType, OrificeTaps, VenturiType } from '@/shared/flow';
+import type {
+  ElementSpec,
+  ExpansionReference,
+  NozzleType,
+  OrificeMethod,
+  OrificeTaps,
+  VenturiType,
+} from '@/shared/flow';
 import { fromSI, toSI } from '@/shared/units';
 import type { PointTransmitter } from '@/shared/history/sample-uncertainty';
 import type { RecordedOperatingPoint } from './recordedOperatingPoint';
+import { densityForDisplay, densityFromDisplay, expansionForDisplay, expansionFromDisplay } from './rangeCheckUnits';
 
 export interface TransmitterValues {
   /** Upper range value (span from zero) in the display DP unit. */
@@ -40,6 +48,10 @@ export interface RangeCheckValues {
   baseTemperatureK: number;
   elementKind: ElementSpec['kind'];
   taps: OrificeTaps;
+  /** Orifice only: the method the meter run uses (or a what-if's choice). */
+  orificeMethod: OrificeMethod;
+  /** API 14.3 only: the static tap the expansion factor is referred to. */
+  expansionReference: ExpansionReference;
   venturiType: VenturiType;
   nozzleType: NozzleType;
   /** In the display length unit (mm or in). */
@@ -59,11 +71,11 @@ export interface RangeCheckValues {
   isentropicExponent: string;
   /** mPa·s (= cP); blank for the fluid's own. */
   viscosity: string;
-  /** kg/m³ at the reference temperature. */
+  /** At the reference temperature, in the display density unit (kg/m³ or lb/ft³). */
   liquidDensity: string;
   /** In the display temperature unit. */
   liquidReferenceTemperature: string;
-  /** Volumetric expansion per K. */
+  /** Volumetric expansion per K (SI) or per °F (US). */
   liquidExpansion: string;
   /** Static pressure (gauge or absolute as the display units say) and temperature. */
   staticPressure: string;
@@ -125,6 +137,8 @@ export function defaultValues(displayUnits: DisplayUnits = 'si'): RangeCheckValu
     ...defaultSite[displayUnits],
     elementKind: 'orifice',
     taps: 'flange',
+    orificeMethod: 'iso-5167-2',
+    expansionReference: 'upstream',
     venturiType: 'machined',
     nozzleType: 'isa-1932',
     pipeDiameter: us ? '6.065' : '154.05',
@@ -138,9 +152,10 @@ export function defaultValues(displayUnits: DisplayUnits = 'si'): RangeCheckValu
     compressibility: '1',
     isentropicExponent: '',
     viscosity: '',
-    liquidDensity: '998.2',
+    // Water at 20 °C, 998.2 kg/m³ (IAPWS-95 [mem]), in the site's density unit.
+    liquidDensity: shown(densityForDisplay(998.2, displayUnits)),
     liquidReferenceTemperature: us ? '68' : '20',
-    liquidExpansion: '0.00021',
+    liquidExpansion: shown(expansionForDisplay(0.00021, displayUnits)),
     staticPressure: us ? '565' : '4000',
     temperature: us ? '60' : '15',
     flowUnitKey: defaultFlowRateUnit(displayUnits, 'natural-gas').key,
@@ -189,7 +204,13 @@ export function switchUnits(values: RangeCheckValues, to: DisplayUnits): RangeCh
     pipeDiameter: length(values.pipeDiameter),
     boreDiameter: length(values.boreDiameter),
     coneDiameter: length(values.coneDiameter),
+    liquidDensity: convert(values.liquidDensity, (v) =>
+      densityForDisplay(densityFromDisplay(v, values.displayUnits), to),
+    ),
     liquidReferenceTemperature: temperature(values.liquidReferenceTemperature),
+    liquidExpansion: convert(values.liquidExpansion, (v) =>
+      expansionForDisplay(expansionFromDisplay(v, values.displayUnits), to),
+    ),
     staticPressure: convert(values.staticPressure, (v) =>
       staticPressureForDisplay(staticPressureFromDisplay(v, from, atm), next, atm),
     ),
@@ -235,6 +256,8 @@ export function prefillFromMeterRun(
     const {
       kind,
       taps,
+      method,
+      expansionReference,
       venturiType,
       nozzleType,
       pipeDiameterM,
@@ -246,6 +269,8 @@ export function prefillFromMeterRun(
     Object.assign(next, {
       elementKind: kind,
       taps: taps ?? next.taps,
+      orificeMethod: method ?? 'iso-5167-2',
+      expansionReference: expansionReference ?? 'upstream',
       venturiType: venturiType ?? next.venturiType,
       nozzleType: nozzleType ?? next.nozzleType,
       pipeDiameter: length(pipeDiameterM),
@@ -269,9 +294,9 @@ export function prefillFromMeterRun(
       next.compressibility = String(fluid.compressibility ?? 1);
     }
     if (fluid.kind === 'liquid') {
-      next.liquidDensity = String(fluid.densityKgPerM3);
+      next.liquidDensity = shown(densityForDisplay(fluid.densityKgPerM3, site.displayUnits));
       next.liquidReferenceTemperature = shown(temperatureForDisplay(fluid.referenceTemperatureK, set));
-      next.liquidExpansion = String(fluid.expansionPerK);
+      next.liquidExpansion = shown(expansionForDisplay(fluid.expansionPerK, site.displayUnits));
     }
     const flowUnit = defaultFlowRateUnit(site.displayUnits, fluid.kind);
     if (flowRateUnit(next.flowUnitKey).basis !== flowUnit.basis) next.flowUnitKey = flowUnit.key;

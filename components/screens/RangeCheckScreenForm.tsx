@@ -16,6 +16,7 @@ import { flowRateUnits, formatNumber, unitsFor, type DisplayUnits } from '@/cons
 import type { MeterRun } from '@/hooks/api/meterRuns';
 import type { RangeCheckField, Problems } from '@/components/meter-runs/rangeCheckInput';
 import type { RangeCheckValues, TransmitterValues } from '@/components/meter-runs/rangeCheckValues';
+import { densityLabel, expansionLabel } from '@/components/meter-runs/rangeCheckUnits';
 import { fromSI } from '@/shared/units';
 
 const unitOptions = [
@@ -33,6 +34,15 @@ const tapOptions = [
   { value: 'corner' as const, label: 'Corner taps' },
   { value: 'D-D/2' as const, label: 'D and D/2' },
 ];
+const methodOptions = [
+  { value: 'iso-5167-2' as const, label: 'ISO 5167-2:2003' },
+  { value: 'api-14.3' as const, label: 'API MPMS 14.3 (flange taps)' },
+];
+const expansionReferenceOptions = [
+  { value: 'upstream' as const, label: 'Upstream tap (Y1)' },
+  { value: 'downstream' as const, label: 'Downstream tap (Y2)' },
+];
+const methodNames = { 'iso-5167-2': 'ISO 5167-2:2003', 'api-14.3': 'API MPMS 14.3' } as const;
 const venturiOptions = [
   { value: 'as-cast' as const, label: 'As-cast' },
   { value: 'machined' as const, label: 'Machined' },
@@ -116,6 +126,8 @@ export function RangeCheckForm({
     onEdit({ transmitters: values.transmitters.map((t, i) => (i === index ? { ...t, ...change } : t)) }, field);
   const runOptions = [{ value: '', label: 'None' }, ...meterRuns.map((run) => ({ value: run.id, label: run.tag }))];
   const extras = Object.keys(values.elementExtras);
+  const pickedRun = meterRuns.find((run) => run.id === values.meterRunId);
+  const runMethod = pickedRun?.element?.kind === 'orifice' ? (pickedRun.element.method ?? 'iso-5167-2') : null;
 
   return (
     <View style={[styles.sections, wide && styles.sectionsWide]}>
@@ -156,6 +168,37 @@ export function RangeCheckForm({
             onChange={(taps) => onEdit({ taps }, 'elementKind')}
             testIDPrefix="range-check-taps"
           />
+        ) : null}
+        {values.elementKind === 'orifice' ? (
+          <ChoiceGroup
+            label="Method"
+            options={methodOptions}
+            value={values.orificeMethod}
+            // API MPMS 14.3 Part 1 covers flange taps only, so choosing it sets them.
+            onChange={(orificeMethod) =>
+              onEdit(
+                orificeMethod === 'api-14.3' ? { orificeMethod, taps: 'flange' } : { orificeMethod },
+                'elementKind',
+              )
+            }
+            testIDPrefix="range-check-method"
+          />
+        ) : null}
+        {values.elementKind === 'orifice' && values.orificeMethod === 'api-14.3' ? (
+          <ChoiceGroup
+            label="Static pressure measured at"
+            options={expansionReferenceOptions}
+            value={values.expansionReference}
+            onChange={(expansionReference) => onEdit({ expansionReference }, 'elementKind')}
+            testIDPrefix="range-check-expansion-reference"
+          />
+        ) : null}
+        {values.elementKind === 'orifice' && runMethod && pickedRun ? (
+          <AppText variant="caption" tone="muted" testID="range-check-run-method">
+            {runMethod === values.orificeMethod
+              ? `${pickedRun.tag} uses ${methodNames[runMethod]}.`
+              : `${pickedRun.tag} uses ${methodNames[runMethod]}; this what-if uses ${methodNames[values.orificeMethod]}.`}
+          </AppText>
         ) : null}
         {values.elementKind === 'venturi' ? (
           <ChoiceGroup
@@ -228,9 +271,9 @@ export function RangeCheckForm({
         ) : null}
         {values.fluidKind === 'liquid' ? (
           <>
-            {text('liquidDensity', 'Density at the reference temperature, kg/m³')}
+            {text('liquidDensity', `Density at the reference temperature, ${densityLabel(values.displayUnits)}`)}
             {text('liquidReferenceTemperature', `Reference temperature, ${set.temperature.label}`)}
-            {text('liquidExpansion', 'Volumetric expansion, per K')}
+            {text('liquidExpansion', `Volumetric expansion, ${expansionLabel(values.displayUnits)}`)}
           </>
         ) : null}
         {values.fluidKind === 'natural-gas' || values.fluidKind === 'ideal-gas' || values.fluidKind === 'steam'
@@ -245,7 +288,7 @@ export function RangeCheckForm({
           `Static pressure, ${set.staticPressure.label}`,
           set.staticPressure.gauge
             ? `Gauge, on an atmosphere of ${formatNumber(fromSI(values.atmosphericPressurePa, set.staticPressure.unit))} ${set.staticPressure.unit}a.`
-            : 'Absolute, at the upstream tap.',
+            : `Absolute, at the ${values.elementKind === 'orifice' && values.orificeMethod === 'api-14.3' && values.expansionReference === 'downstream' ? 'downstream' : 'upstream'} tap.`,
         )}
         {text('temperature', `Temperature, ${set.temperature.label}`)}
         <ChoiceGroup

@@ -10,6 +10,7 @@ import { StyleSheet, View } from 'react-native';
 import { Chart } from '@/components/charts/Chart';
 import { rangeCheckPlot } from '@/components/meter-runs/rangeCheckPlot';
 import type { RangeCheckRun } from '@/components/meter-runs/rangeCheckInput';
+import { densityForDisplay, densityLabel } from '@/components/meter-runs/rangeCheckUnits';
 import { AppText } from '@/components/ui/AppText';
 import { DataTable, type DataColumn, type DataRow } from '@/components/ui/DataTable';
 import { Notice } from '@/components/ui/Notice';
@@ -188,7 +189,7 @@ export function RangeCheckResults({ run, displayUnits }: RangeCheckResultsProps)
           testID="range-check-flows"
         />
         <AppText variant="caption" tone="muted">
-          {`β ${result.beta.toFixed(4)}, density ${formatNumber(result.densityKgPerM3)} kg/m³ at the operating conditions. ▼ low: below 10 % of span. ↑ over: above the upper range value. ⚑: above the ±${formatPlain(limit)} % limit. Flow uncertainty is expanded (k = 2) and worked with the same budget as the hourly records (ISO 5167-1 §8): C and ε, the pipe and element diameters, the density model, the DP transmitter's accuracy as a share of the reading and, for a meter run picked above, its pressure and temperature transmitters.`}
+          {`β ${result.beta.toFixed(4)}, density ${formatNumber(densityForDisplay(result.densityKgPerM3, displayUnits))} ${densityLabel(displayUnits)} at the operating conditions${input.element.kind === 'orifice' ? `, ${input.element.method === 'api-14.3' ? `API MPMS 14.3 (expansion factor at the ${input.element.expansionReference ?? 'upstream'} tap)` : 'ISO 5167-2:2003'}` : ''}. ▼ low: below 10 % of span. ↑ over: above the upper range value. ⚑: above the ±${formatPlain(limit)} % limit. Flow uncertainty is expanded (k = 2) and worked with the same budget as the hourly records (ISO 5167-1 §8): C and ε, the pipe and element diameters, the density model, the DP transmitter's accuracy as a share of the reading and, for a meter run picked above, its pressure and temperature transmitters.`}
         </AppText>
         <AppText variant="caption" tone="muted" testID="range-check-scope">
           This check looks at the design range typed above; range health looks at the flow the meter run actually saw in

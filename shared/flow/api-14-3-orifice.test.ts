@@ -4,7 +4,9 @@
  * implementation shakeelr/AGA3, aga3.py procedures 4.3.2.5/4.3.2.9, in its X = 4000/Re_D form, which is a
  * different arrangement of the terms from the module's) or written out below; none from the module.
  */
+import { fluidState } from '../fluids';
 import {
+  apiDownstreamCompressibilityRatio,
   apiExpansionFactorDownstream,
   apiExpansionFactorUpstream,
   apiOrificeDischargeCoefficient,
@@ -181,5 +183,83 @@ describe('calculateFlow with method api-14.3', () => {
     const unknown = calculateFlow({ element: { ...element, method: 'aga' }, fluid: gas, conditions });
     expect(unknown.ok).toBe(false);
     if (!unknown.ok) expect(unknown.error.field).toBe('element.method');
+  });
+});
+
+describe('Z_f2/Z_f1 of the downstream-tap expansion factor (AGA 3 Part 1 §1.7.3, Y2 = Y1 sqrt[(p_f1 Z_f2)/(p_f2 Z_f1)])', () => {
+  // AGA Report No. 8 Part 1 "Gulf Coast" gas (TRADE.md §4), the engine's DETAIL equation of state.
+  const gulfCoast = {
+    kind: 'natural-gas',
+    composition: {
+      methane: 0.965222,
+      nitrogen: 0.002595,
+      'carbon-dioxide': 0.005956,
+      ethane: 0.018186,
+      propane: 0.004596,
+      isobutane: 0.000977,
+      'n-butane': 0.001007,
+      isopentane: 0.000473,
+      'n-pentane': 0.000324,
+      'n-hexane': 0.000664,
+    },
+  } as const;
+  const p2 = 4e6;
+  const dp = 4e4; // x2 = 1 %
+  const t = 288.15;
+
+  it('is Z at p_f2 over Z at p_f1 = p_f2 + Δp (AGA 3 Part 4 procedure 4.3.2.6), both at the flowing temperature', () => {
+    const z2 = fluidState(gulfCoast, p2, t).compressibility as number;
+    const z1 = fluidState(gulfCoast, p2 + dp, t).compressibility as number;
+    expect(apiDownstreamCompressibilityRatio(gulfCoast, p2, dp, t)).toBeCloseTo(z2 / z1, 14);
+  });
+
+  it('is above 1 for a lean gas below 10 MPa, by about (1 − Z)·x: not negligible beside a 0.5 % budget', () => {
+    // Z falls with pressure in this range (Z ≈ 0.91 at 4 MPa, 15 °C, from memory of AGA 8 tables), so Z_f2 > Z_f1.
+    const ratio = apiDownstreamCompressibilityRatio(gulfCoast, p2, dp, t);
+    const z = fluidState(gulfCoast, p2, t).compressibility as number;
+    expect(z).toBeGreaterThan(0.88);
+    expect(z).toBeLessThan(0.94);
+    expect(ratio - 1).toBeGreaterThan(0.5 * (1 - z) * (dp / p2));
+    expect(ratio - 1).toBeLessThan(2 * (1 - z) * (dp / p2));
+  });
+
+  it('makes Y2·sqrt(ρ2) equal Y1·sqrt(ρ1), so the flow is the same whichever tap the density is taken at', () => {
+    // The defining identity of Y2 (AGA 3 Part 1 §1.7.3): qm ∝ Y sqrt(ρ Δp), with ρ from DETAIL at each tap.
+    const beta = 0.6;
+    const kappa = 1.3;
+    const rho1 = fluidState(gulfCoast, p2 + dp, t).densityKgPerM3;
+    const rho2 = fluidState(gulfCoast, p2, t).densityKgPerM3;
+    const y1 = apiExpansionFactorUpstream(beta, dp, p2 + dp, kappa);
+    const ratio = apiDownstreamCompressibilityRatio(gulfCoast, p2, dp, t);
+    const y2 = apiExpansionFactorDownstream(beta, dp, p2, kappa, ratio);
+    expect(Math.abs((y2 * Math.sqrt(rho2)) / (y1 * Math.sqrt(rho1)) - 1)).toBeLessThan(1e-12);
+    // Taking Z_f2/Z_f1 as 1 misses that by half the ratio's departure from 1.
+    const y2Unity = apiExpansionFactorDownstream(beta, dp, p2, kappa);
+    expect(Math.abs((y2Unity * Math.sqrt(rho2)) / (y1 * Math.sqrt(rho1)) - 1)).toBeGreaterThan(1e-4);
+  });
+
+  it('works Y2 by hand for β 0.6, κ 1.3, x2 = 1 % and Z_f2/Z_f1 = 1.0008', () => {
+    // p_f1 = 4.04 MPa, x1 = 0.04/4.04: Y1 = 1 − (0.41 + 0.04536)(0.0099010)/1.3 = 0.9965319116527037
+    // (python3, by hand); Y2 = Y1 sqrt[(p_f1/p_f2)(Z_f2/Z_f1)] = Y1 sqrt(1.01 × 1.0008).
+    const y1 = 1 - ((0.41 + 0.35 * 0.6 ** 4) * (4e4 / 4.04e6)) / 1.3;
+    expect(y1).toBeCloseTo(0.9965319116527037, 13);
+    expect(apiExpansionFactorDownstream(0.6, 4e4, 4e6, 1.3, 1.0008)).toBeCloseTo(
+      0.9965319116527037 * Math.sqrt(1.01 * 1.0008),
+      13,
+    );
+  });
+
+  it('is 1 for a liquid, which has no compressibility', () => {
+    const water = {
+      kind: 'liquid',
+      densityKgPerM3: 998.2,
+      referenceTemperatureK: 293.15,
+      expansionPerK: 0.00021,
+    } as const;
+    expect(apiDownstreamCompressibilityRatio(water, 1e6, 1e4, 293.15)).toBe(1);
+  });
+
+  it('refuses a pressure that is not above zero, naming it', () => {
+    expect(() => apiDownstreamCompressibilityRatio(gulfCoast, 0, 1e4, t)).toThrow(/downstreamPressurePa must be > 0/);
   });
 });

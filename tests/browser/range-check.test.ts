@@ -9,7 +9,17 @@
  * qm / ε. A transmitter spanned 0–17 kPa therefore reaches full span at that flow, and at 10 % of
  * span, with C fixed, the flow is √0.1 of it (flow goes as √Δp, TRADE.md §6).
  */
-import { baseUrl, choose, demoEmail, freshPage, launchBrowser, signIn, signOut, type TestBrowser } from './support';
+import {
+  baseUrl,
+  choose,
+  demoEmail,
+  freshPage,
+  launchBrowser,
+  screenshotWhenSettled,
+  signIn,
+  signOut,
+  type TestBrowser,
+} from './support';
 import type { Page } from 'playwright-core';
 
 let browser: TestBrowser;
@@ -84,6 +94,36 @@ describe('the range check screen', () => {
     await signOut(page);
     await page.close();
   });
+
+  it.each(['phone', 'wide'] as const)(
+    'shows density in lb/ft³ on US units and lets a what-if choose API MPMS 14.3 (%s)',
+    async (viewport) => {
+      const page = await freshPage(browser, viewport);
+      await signIn(page, demoEmail('engineer'));
+      await openRangeCheck(page);
+      await choose(page.getByTestId('range-check-units-us'));
+      await choose(page.getByTestId('range-check-method-api-14.3'));
+      await choose(page.getByTestId('range-check-expansion-reference-downstream'));
+      await page.getByTestId('range-check-submit').click();
+      await page.getByTestId('range-check-result').waitFor();
+      const caption = await page.getByTestId('range-check-result').innerText();
+      expect(caption).toMatch(
+        /lb\/ft³ at the operating conditions, API MPMS 14\.3 \(expansion factor at the downstream tap\)/,
+      );
+      expect(caption).not.toMatch(/kg\/m³/);
+      const shot = viewport === 'phone' ? 390 : 1440;
+      await screenshotWhenSettled(
+        page.getByTestId('range-check-result'),
+        `/work/notes/round10/shots/L2-range-check-us-${shot}.png`,
+      );
+      await page
+        .getByTestId('range-check-start')
+        .screenshot({ path: `/work/notes/round10/shots/L2-range-check-form-${shot}.png` })
+        .catch(() => undefined);
+      await signOut(page);
+      await page.close();
+    },
+  );
 
   it('names the field at fault under that field and computes nothing (wide)', async () => {
     const page = await freshPage(browser, 'wide');
