@@ -124,6 +124,10 @@ export async function startServer(env: Env = readEnv()): Promise<RunningServer> 
     }),
   });
   const server = http.createServer(app);
+  // Longer than clients' idle keep-alive (undici's fetch: 4 s), so the server never closes a socket
+  // just as a client reuses it ("other side closed", seen under load); 65 s suits proxies in front too.
+  server.keepAliveTimeout = 65_000;
+  server.headersTimeout = 66_000;
   await new Promise<void>((resolve, reject) => {
     server.once('error', reject);
     server.listen(env.PORT, env.HOST, () => resolve());

@@ -109,6 +109,8 @@ function sendWebFile(req: Request, res: Response, next: NextFunction, file: stri
     HASHED_NAME.test(path.basename(file)) ? 'public, max-age=31536000, immutable' : 'no-cache',
   );
   res.sendFile(sent, { cacheControl: false, dotfiles: 'allow' }, (err) => {
+    // A browser that leaves the page drops its pending font and script requests: not a server error.
+    if (err && (err as NodeJS.ErrnoException).code === 'ECONNABORTED') return;
     if (err && !res.headersSent) next(err);
   });
 }
