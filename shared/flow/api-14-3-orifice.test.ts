@@ -5,8 +5,8 @@
  * different arrangement of the terms from the module's) or written out below; none from the module.
  */
 import { fluidState } from '../fluids';
+import { apiDownstreamCompressibilityRatio } from './api-14-3-compressibility-ratio';
 import {
-  apiDownstreamCompressibilityRatio,
   apiExpansionFactorDownstream,
   apiExpansionFactorUpstream,
   apiOrificeDischargeCoefficient,
@@ -261,5 +261,31 @@ describe('Z_f2/Z_f1 of the downstream-tap expansion factor (AGA 3 Part 1 §1.7.3
 
   it('refuses a pressure that is not above zero, naming it', () => {
     expect(() => apiDownstreamCompressibilityRatio(gulfCoast, 0, 1e4, t)).toThrow(/downstreamPressurePa must be > 0/);
+  });
+
+  it('is used by the flow calculation: a real gas gives the same flow referred to either tap', () => {
+    // AGA 3 Part 1 §1.7.3 defines Y2 so that Y2 sqrt(ρ2) = Y1 sqrt(ρ1): the same installation measured at p_f1 or at
+    // p_f2 = p_f1 − Δp must give one mass flow. Only Re_D differs (viscosity at two pressures), which moves C by far
+    // less than the 1e-5 allowed here; with Z_f2/Z_f1 taken as 1 the two would differ by about 2e-4.
+    const orifice = {
+      kind: 'orifice',
+      taps: 'flange',
+      pipeDiameterM: 0.3,
+      boreDiameterM: 0.15,
+      referenceTemperatureK: t,
+      method: 'api-14.3',
+    } as const;
+    const up = calculateFlow({
+      element: { ...orifice, expansionReference: 'upstream' },
+      fluid: gulfCoast,
+      conditions: { differentialPressurePa: dp, staticPressurePa: p2 + dp, temperatureK: t },
+    });
+    const down = calculateFlow({
+      element: { ...orifice, expansionReference: 'downstream' },
+      fluid: gulfCoast,
+      conditions: { differentialPressurePa: dp, staticPressurePa: p2, temperatureK: t },
+    });
+    if (!up.ok || !down.ok) throw new Error('calculation failed');
+    expect(Math.abs(down.result.massFlowKgPerS / up.result.massFlowKgPerS - 1)).toBeLessThan(1e-5);
   });
 });

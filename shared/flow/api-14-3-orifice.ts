@@ -20,8 +20,6 @@
  * 4.3.2.9 of Part 4), which carries the same A0…A6 and S1…S8 constants.
  */
 
-import { fluidState, type FluidSpec } from '../fluids';
-
 /** One inch in metres: N4 of AGA 3 for D in metres, and the flange tap distance. */
 const INCH_M = 0.0254;
 
@@ -170,36 +168,4 @@ export function apiExpansionFactorDownstream(
   const upstreamPressurePa = downstreamPressurePa + differentialPressurePa;
   const y1 = apiExpansionFactorUpstream(beta, differentialPressurePa, upstreamPressurePa, isentropicExponent);
   return y1 * Math.sqrt((upstreamPressurePa / downstreamPressurePa) * compressibilityRatio);
-}
-
-/**
- * Z_f2/Z_f1 of the downstream-tap expansion factor, from the fluid's own equation of state (AGA 8
- * DETAIL for natural gas) at the two taps: p_f2 as measured and p_f1 = p_f2 + Δp (AGA 3 Part 4
- * procedure 4.3.2.6), both at the flowing temperature (AGA 3 takes one temperature for both taps).
- * A fluid without a compressibility (a liquid) gives 1: Y2 is not used for it.
- * @param fluid the meter run's fluid
- * @param downstreamPressurePa absolute static pressure at the downstream tap, Pa
- * @param differentialPressurePa Δp, Pa
- * @param temperatureK flowing temperature, K
- * @returns Z_f2/Z_f1
- */
-export function apiDownstreamCompressibilityRatio(
-  fluid: FluidSpec,
-  downstreamPressurePa: number,
-  differentialPressurePa: number,
-  temperatureK: number,
-): number {
-  if (!(downstreamPressurePa > 0)) {
-    throw new Error(
-      `apiDownstreamCompressibilityRatio: downstreamPressurePa must be > 0 (got ${downstreamPressurePa})`,
-    );
-  }
-  if (!(differentialPressurePa >= 0)) {
-    throw new Error(
-      `apiDownstreamCompressibilityRatio: differentialPressurePa must be ≥ 0 (got ${differentialPressurePa})`,
-    );
-  }
-  const z2 = fluidState(fluid, downstreamPressurePa, temperatureK).compressibility;
-  const z1 = fluidState(fluid, downstreamPressurePa + differentialPressurePa, temperatureK).compressibility;
-  return z1 === null || z2 === null ? 1 : z2 / z1;
 }

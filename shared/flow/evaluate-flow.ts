@@ -14,6 +14,11 @@ export interface FlowFluidProperties {
   isentropicExponent: number;
   /** false for liquids: ε = 1 (TRADE.md §1). */
   compressible: boolean;
+  /**
+   * API 14.3 referred to the downstream tap: Z_f2/Z_f1 at this Δp (api-14-3-compressibility-ratio.ts),
+   * computed by the caller, which knows the fluid; 1 when not given.
+   */
+  downstreamCompressibilityRatio?: number;
 }
 
 export interface FlowEvaluation {
@@ -49,12 +54,13 @@ export function elementExpansibility(
         fluid.isentropicExponent,
       );
     case 'api-14.3-downstream':
-      // staticPressurePa is the downstream tap's; Z_f2/Z_f1 is taken as 1 (the fluid state is known only there).
+      // staticPressurePa is the downstream tap's; Z_f2/Z_f1 comes with the fluid (the caller knows the fluid).
       return apiExpansionFactorDownstream(
         element.beta,
         differentialPressurePa,
         staticPressurePa,
         fluid.isentropicExponent,
+        fluid.downstreamCompressibilityRatio ?? 1,
       );
     case 'cone':
       return coneExpansibility(element.beta, differentialPressurePa, staticPressurePa, fluid.isentropicExponent);

@@ -2,6 +2,7 @@
  * The flow result of a case once the fluid state at upstream conditions is known: element
  * prepared at flowing temperature, C iterated on Re_D, ε, qm, volumes and every limit broken.
  */
+import { apiDownstreamCompressibilityRatio } from './api-14-3-compressibility-ratio';
 import { formatNumber, operatingPointWarnings } from './element-limits';
 import { evaluateFlow } from './evaluate-flow';
 import type { FlowCase, FlowResult, FlowWarning } from './flow-types';
@@ -42,7 +43,22 @@ export function flowResultFromState(flowCase: FlowCase, state: FlowFluidState): 
     );
   }
   const element = prepareElement(flowCase.element, temperatureK);
-  const flow = evaluateFlow(element, differentialPressurePa, staticPressurePa, state);
+  const flow = evaluateFlow(
+    element,
+    differentialPressurePa,
+    staticPressurePa,
+    element.expansibilityModel === 'api-14.3-downstream' && state.compressible
+      ? {
+          ...state,
+          downstreamCompressibilityRatio: apiDownstreamCompressibilityRatio(
+            flowCase.fluid,
+            staticPressurePa,
+            differentialPressurePa,
+            temperatureK,
+          ),
+        }
+      : state,
+  );
   const warnings: FlowWarning[] = [...state.warnings, ...element.warnings];
   // An API 14.3 run referred downstream measures p2 (as installed): p1 = p2 + Δp (AGA 3 Part 4 §4.3.2.6).
   const downstreamTap = element.expansibilityModel === 'api-14.3-downstream';

@@ -4,6 +4,7 @@
  * hourly record needs beside the mass rate: volumes, energy, the flow extension for the
  * integral value, the expanded uncertainty, and whether a limit of ISO 5167 is broken.
  */
+import { apiDownstreamCompressibilityRatio } from '../flow/api-14-3-compressibility-ratio';
 import { operatingPointWarnings } from '../flow/element-limits';
 import { evaluateFlow } from '../flow/evaluate-flow';
 import { waterStatePT } from '../fluids';
@@ -66,7 +67,19 @@ export function evaluateOperatingPoint(
     );
   }
   const element = version.elementAt(temperatureK);
-  const fluid = version.fluidAt(staticPressurePa, temperatureK);
+  const state = version.fluidAt(staticPressurePa, temperatureK);
+  const fluid =
+    element.expansibilityModel === 'api-14.3-downstream' && state.compressible
+      ? {
+          ...state,
+          downstreamCompressibilityRatio: apiDownstreamCompressibilityRatio(
+            version.fluid,
+            staticPressurePa,
+            differentialPressurePa,
+            temperatureK,
+          ),
+        }
+      : state;
   const flow = evaluateFlow(element, differentialPressurePa, staticPressurePa, fluid);
   const massFlowKgPerS = flow.massFlowKgPerS;
   const baseDensity = version.baseDensityKgPerM3;
