@@ -5,7 +5,7 @@
  */
 import { StyleSheet, View } from 'react-native';
 
-import { formatSiteTime } from '@/components/meter-runs/siteTime';
+import { formatInstant } from '@/shared/format/time';
 import { AppText } from '@/components/ui/AppText';
 import { QueryState } from '@/components/ui/QueryState';
 import { colors, radius, space } from '@/constants/theme';
@@ -31,7 +31,7 @@ export function AlarmEventLog({ alarmId, timeZone }: AlarmEventLogProps) {
       {events.data?.map((event) => (
         <View key={event.id} style={styles.event} role="listitem">
           <AppText variant="label" tabular style={styles.when}>
-            {event.occurredAt ? formatSiteTime(event.occurredAt, timeZone, 'd LLL HH:mm:ss') : '—'}
+            {event.occurredAt ? formatInstant(event.occurredAt, timeZone, { seconds: true }) : '—'}
           </AppText>
           <View style={styles.what}>
             <AppText variant="bodyStrong">{`${actionInWords(event.action)} · by ${event.userEmail ?? 'Tallyrun'}`}</AppText>
@@ -58,6 +58,6 @@ const styles = StyleSheet.create({
     borderRadius: radius.sm,
   },
   event: { flexDirection: 'row', flexWrap: 'wrap', columnGap: space.md, rowGap: space.xxs },
-  when: { width: 128 },
+  when: { width: 176 },
   what: { flex: 1, minWidth: 200, gap: space.xxs },
 });

@@ -7,7 +7,7 @@
 import { useState } from 'react';
 import { StyleSheet, View } from 'react-native';
 
-import { formatSiteTime } from '@/components/meter-runs/siteTime';
+import { formatInstant } from '@/shared/format/time';
 import { AppText } from '@/components/ui/AppText';
 import { DataTable } from '@/components/ui/DataTable';
 import { Panel } from '@/components/ui/Panel';
@@ -106,7 +106,7 @@ export function AlarmPerformanceSection({ siteId, siteName }: { siteId: string; 
       {r ? (
         <View style={styles.body}>
           <AppText tone="muted" variant="caption">
-            {`${r.annunciations} alarms raised from ${formatSiteTime(r.from, r.timeZone, 'd LLL yyyy HH:mm')} to ${formatSiteTime(r.to, r.timeZone, 'd LLL yyyy HH:mm')} (site clock). One operator position per site is assumed: Tallyrun has no setting for more.`}
+            {`${r.annunciations} alarms raised from ${formatInstant(r.from, r.timeZone)} to ${formatInstant(r.to, r.timeZone)} (site clock). One operator position per site is assumed: Tallyrun has no setting for more.`}
           </AppText>
           <DataTable
             label="Alarm performance against the benchmarks"

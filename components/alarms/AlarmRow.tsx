@@ -8,7 +8,7 @@
 import { useEffect, useState } from 'react';
 import { Pressable, StyleSheet, View } from 'react-native';
 
-import { formatSiteTime, zoneAbbreviation } from '@/components/meter-runs/siteTime';
+import { formatInstant } from '@/shared/format/time';
 import { AppText } from '@/components/ui/AppText';
 import { Button } from '@/components/ui/Button';
 import { Notice } from '@/components/ui/Notice';
@@ -53,7 +53,7 @@ export function AlarmRow({ alarm, role, timeZone, onActed }: AlarmRowProps) {
   }, [outcome]);
   const respond = can(role, 'respondToAlarms');
   const maintain = can(role, 'configure');
-  const at = (iso: string | null) => (iso ? formatSiteTime(iso, timeZone, 'd LLL HH:mm') : '—');
+  const at = (iso: string | null) => (iso ? formatInstant(iso, timeZone) : '—');
   const subject = `${conditionInWords(alarm.condition)} on ${alarm.transmitterTag ?? alarm.meterRunTag}`;
   const annunciated = isAnnunciated(alarm.state);
 
@@ -66,9 +66,7 @@ export function AlarmRow({ alarm, role, timeZone, onActed }: AlarmRowProps) {
       {
         onSuccess: (changed) => {
           setDialog(null);
-          setOutcome(
-            actionOutcome(next.kind, changed.state, `${at(new Date().toISOString())} ${zoneAbbreviation(timeZone)}`),
-          );
+          setOutcome(actionOutcome(next.kind, changed.state, formatInstant(Date.now(), timeZone)));
           onActed?.(alarm.id, changed);
         },
         onError: (error) => {
@@ -104,7 +102,7 @@ export function AlarmRow({ alarm, role, timeZone, onActed }: AlarmRowProps) {
           {stateText}
         </AppText>
         <AppText variant="label" tone="muted" tabular>
-          {`Raised ${at(alarm.raisedAt)} ${zoneAbbreviation(timeZone)}`}
+          {`Raised ${at(alarm.raisedAt)}`}
         </AppText>
       </View>
       <AppText variant="bodyStrong">{conditionInWords(alarm.condition)}</AppText>

@@ -6,7 +6,7 @@
 import { Link } from 'expo-router';
 import { StyleSheet, View } from 'react-native';
 
-import { formatSiteTime } from '@/components/meter-runs/siteTime';
+import { formatInstant } from '@/shared/format/time';
 import { AppText } from '@/components/ui/AppText';
 import { DataTable, type DataColumn } from '@/components/ui/DataTable';
 import { Panel } from '@/components/ui/Panel';
@@ -26,8 +26,8 @@ const columns: DataColumn[] = [
   { key: 'priority', title: 'Priority', width: 108 },
   { key: 'state', title: 'State', width: 190, align: 'left' },
   { key: 'condition', title: 'Condition', width: 200, align: 'left' },
-  { key: 'raised', title: 'Raised', width: 110 },
-  { key: 'cleared', title: 'Cleared', width: 110 },
+  { key: 'raised', title: 'Raised', width: 150 },
+  { key: 'cleared', title: 'Cleared', width: 150 },
   { key: 'transmitter', title: 'Transmitter', width: 160, align: 'left' },
 ];
 
@@ -35,7 +35,7 @@ export function MeterRunAlarmsSection({ meterRunId, timeZone }: { meterRunId: st
   const user = useSignedInUser();
   const engineering = can(user.role, 'configure');
   const alarms = useAlarms({ state: 'all', meterRunId, limit: shown });
-  const at = (iso: string | null) => (iso ? formatSiteTime(iso, timeZone, 'd LLL HH:mm') : '—');
+  const at = (iso: string | null) => (iso ? formatInstant(iso, timeZone) : '—');
   const rows = (alarms.data ?? []).map((alarm) => ({
     key: alarm.id,
     testID: `meter-run-alarm-${alarm.id}`,

@@ -18,8 +18,8 @@ const doneWords: Record<AlarmAction['kind'], string> = {
 /**
  * @param kind the action that succeeded
  * @param state the alarm's state as the server now has it
- * @param at when, on the site's clock ("3 Dec 09:14 MST")
- * @returns the notice's words, e.g. "Acknowledged at 3 Dec 09:14 MST. Now: Active, acknowledged."
+ * @param at when, on the site's clock (shared/format/time.ts formatInstant: "3 Dec 2026, 09:14 MST")
+ * @returns the notice's words, e.g. "Acknowledged at 3 Dec 2026, 09:14 MST. Now: Active, acknowledged."
  */
 export function actionOutcome(kind: AlarmAction['kind'], state: string, at: string): string {
   const now =

@@ -58,6 +58,16 @@ describe('balanceView', () => {
     );
   });
 
+  it('names a month by its month and year on the site clock, as the shared date formatter spells it', () => {
+    // 00:30 UTC on the 1st of October is still the 30th of September in Denver (UTC−6 then).
+    const [row] = balanceRows([{ ...day, start: '2026-10-01T00:30:00Z' }], {
+      displayUnits: 'si',
+      timeZone: 'America/Denver',
+      interval: 'month',
+    });
+    expect(row.cells.period).toBe('Sep 2026');
+  });
+
   it('says whether any imbalance is larger than its own uncertainty when every period is within tolerance', () => {
     const within = { ...day, withinTolerance: true, exceedsUncertainty: false };
     expect(balanceSummary([within], 2)).toBe(

@@ -5,8 +5,8 @@
  * (which equals the sales meter's).
  */
 import type { DataColumn, DataRow } from '@/components/ui/DataTable';
-import { formatSiteTime } from '@/components/meter-runs/siteTime';
 import { unitsFor, type DisplayUnits } from '@/constants/units-display';
+import { formatDate } from '@/shared/format/time';
 import { fromSI } from '@/shared/units';
 import type { Allocation, BalancePeriod } from './useBalanceGroups';
 
@@ -59,6 +59,16 @@ export function uncertaintyVerdict(p: Pick<BalancePeriod, 'exceedsUncertainty'>)
 }
 
 /**
+ * @param start the period's start
+ * @param timeZone the site's zone
+ * @param interval a contract day ("10 Sep 2026") or a month ("Sep 2026"): the shared date's words
+ */
+function periodName(start: string, timeZone: string, interval: 'day' | 'month'): string {
+  const date = formatDate(start, timeZone);
+  return interval === 'day' ? date : date.replace(/^\d+ /, '');
+}
+
+/**
  * @param periods the balance as the API sends it (SI)
  * @param options the site's units and zone; the interval names each row (a contract day or month)
  */
@@ -73,7 +83,7 @@ export function balanceRows(
     key: p.start,
     testID: `balance-row-${p.start.slice(0, 10)}`,
     cells: {
-      period: formatSiteTime(p.start, options.timeZone, options.interval === 'day' ? 'd LLL yyyy' : 'LLL yyyy'),
+      period: periodName(p.start, options.timeZone, options.interval),
       inlet: formatFigure(conv(p.inletStandardVolumeM3), decimals),
       outlet: formatFigure(conv(p.outletStandardVolumeM3), decimals),
       allowance: formatFigure(conv(p.allowanceM3), decimals),

@@ -25,6 +25,7 @@ import { formatPlain, unitLabel } from '@/constants/units-display';
 import { useMeterRuns } from '@/hooks/api/meterRuns';
 import { useSites } from '@/hooks/api/sites';
 import { useSignedInUser } from '@/hooks/session/SessionProvider';
+import { formatDate } from '@/shared/format/time';
 import {
   useCalibrations,
   useCorrectionProposal,
@@ -121,7 +122,7 @@ function CalibrationCard({ calibration, canPropose }: { calibration: Calibration
   return (
     <View style={styles.card} testID={`calibration-${c.id}`}>
       <AppText variant="bodyStrong">
-        {c.calibratedOn} · {c.laboratory}
+        {formatDate(c.calibratedOn)} · {c.laboratory}
         {c.current ? '' : ' (corrected by a later record)'}
       </AppText>
       {accreditation ? <AppText tone="muted">{accreditation}</AppText> : null}
@@ -132,7 +133,7 @@ function CalibrationCard({ calibration, canPropose }: { calibration: Calibration
       <Points title="As found" points={c.asFound} unit={c.unit} />
       <Points title="As left" points={c.asLeft} unit={c.unit} />
       <AppText tone="muted">
-        Performed by {c.performedBy} · next due {c.nextDue}
+        Performed by {c.performedBy} · next due {c.nextDue ? formatDate(c.nextDue) : '—'}
       </AppText>
       {c.certificate ? (
         <View style={styles.row}>

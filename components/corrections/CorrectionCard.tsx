@@ -6,13 +6,13 @@
 import { useState } from 'react';
 import { StyleSheet, View } from 'react-native';
 
-import { formatOnSiteClock } from '@/components/setup/zonedTime';
 import { AppText } from '@/components/ui/AppText';
 import { Button } from '@/components/ui/Button';
 import { Panel } from '@/components/ui/Panel';
 import { ReasonDialog } from '@/components/ui/ReasonDialog';
 import { space } from '@/constants/theme';
 import { isApiError } from '@/hooks/api/client';
+import { formatInstant } from '@/shared/format/time';
 import { useCorrectionTransmitters, useDecideCorrection, type Correction } from './api';
 import { estimateMethodText } from './estimateMethod';
 
@@ -63,14 +63,14 @@ export function CorrectionCard({ correction: c, meterRunTag, timeZone, canDecide
           {estimateMethodText(c.estimate.method, c.estimate.basis)}
         </AppText>
       ) : null}
-      <AppText>{`${formatOnSiteClock(c.start, timeZone)} → ${formatOnSiteClock(c.end, timeZone)}`}</AppText>
+      <AppText>{`${formatInstant(c.start, timeZone)} → ${formatInstant(c.end, timeZone)}`}</AppText>
       <AppText tone="muted">{`Why: ${c.reason}`}</AppText>
       <AppText variant="caption" tone="muted">
-        {`Proposed by ${c.proposedBy.name} on ${formatOnSiteClock(c.proposedAt, timeZone)}`}
+        {`Proposed by ${c.proposedBy.name} on ${formatInstant(c.proposedAt, timeZone)}`}
       </AppText>
       {c.decidedBy && c.decidedAt ? (
         <AppText variant="caption" tone="muted" testID={`correction-${c.id}-decision`}>
-          {`${c.status === 'approved' ? 'Approved' : 'Rejected'} by ${c.decidedBy.name} on ${formatOnSiteClock(c.decidedAt, timeZone)}: ${c.decisionReason ?? ''}`}
+          {`${c.status === 'approved' ? 'Approved' : 'Rejected'} by ${c.decidedBy.name} on ${formatInstant(c.decidedAt, timeZone)}: ${c.decisionReason ?? ''}`}
         </AppText>
       ) : null}
       {c.status === 'approved' && figures ? (

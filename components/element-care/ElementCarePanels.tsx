@@ -14,7 +14,7 @@ import { DatedChangeFields, type EffectiveOnSiteClock } from '@/components/setup
 import { FieldRow } from '@/components/setup/FieldRow';
 import { fieldErrorFromServer, parseNumberText } from '@/components/setup/formFields';
 import { NumberField } from '@/components/setup/NumberField';
-import { formatOnSiteClock, siteClockNow, zonedIso } from '@/components/setup/zonedTime';
+import { siteClockNow, zonedIso } from '@/components/setup/zonedTime';
 import { AppText } from '@/components/ui/AppText';
 import { Button } from '@/components/ui/Button';
 import { ChoiceGroup } from '@/components/ui/ChoiceGroup';
@@ -22,6 +22,7 @@ import { Notice } from '@/components/ui/Notice';
 import { Panel } from '@/components/ui/Panel';
 import { TextField } from '@/components/ui/TextField';
 import { space } from '@/constants/theme';
+import { formatDate, formatInstant } from '@/shared/format/time';
 import { CareCertificatePicker } from './CareCertificatePicker';
 import {
   careRecordSchema,
@@ -132,7 +133,7 @@ function RecordLine(props: { text: string; nextDue: string | null; file: CareCer
   return (
     <View style={styles.record} testID={props.testID}>
       <AppText>{props.text}</AppText>
-      {props.nextDue ? <AppText tone="muted">{`Next due ${props.nextDue}`}</AppText> : null}
+      {props.nextDue ? <AppText tone="muted">{`Next due ${formatDate(props.nextDue)}`}</AppText> : null}
       {props.file ? (
         <View style={styles.actions}>
           <Button
@@ -198,7 +199,7 @@ export function GasAnalysesPanel({ meterRunId }: { meterRunId: string }) {
         <RecordLine
           key={a.id}
           testID={`gas-analysis-${a.id}`}
-          text={`${formatOnSiteClock(a.sampledAt, zone)} · ${a.laboratory}${certificateNumber(a)}${versionNote(a.configVersionId)}`}
+          text={`${formatInstant(a.sampledAt, zone)} · ${a.laboratory}${certificateNumber(a)}${versionNote(a.configVersionId)}`}
           nextDue={a.nextDue}
           file={a.certificateFile}
         />
@@ -281,7 +282,7 @@ export function ElementCalibrationsPanel({ meterRunId }: { meterRunId: string })
         <RecordLine
           key={c.id}
           testID={`element-calibration-${c.id}`}
-          text={`${formatOnSiteClock(c.calibratedAt, zone)} · ${c.laboratory} · U(C) ${c.uncertaintyPercent} % · ${c.points.length} points${certificateNumber(c)}`}
+          text={`${formatInstant(c.calibratedAt, zone)} · ${c.laboratory} · U(C) ${c.uncertaintyPercent} % · ${c.points.length} points${certificateNumber(c)}`}
           nextDue={c.nextDue}
           file={c.certificateFile}
         />
@@ -387,7 +388,7 @@ export function InspectionsPanel({ meterRunId }: { meterRunId: string }) {
         <RecordLine
           key={i.id}
           testID={`inspection-${i.id}`}
-          text={`${formatOnSiteClock(i.inspectedAt, zone)} · ${i.kind} · ${i.condition}${certificateNumber(i)}${versionNote(i.configVersionId)}`}
+          text={`${formatInstant(i.inspectedAt, zone)} · ${i.kind} · ${i.condition}${certificateNumber(i)}${versionNote(i.configVersionId)}`}
           nextDue={i.nextDue}
           file={i.certificateFile}
         />

@@ -17,8 +17,8 @@ import { useAuditEvents } from '@/hooks/api/auditEvents';
 import { useConfigVersions } from '@/hooks/api/meterRuns';
 import type { Site } from '@/hooks/api/sites';
 import { useSignedInUser } from '@/hooks/session/SessionProvider';
+import { formatInstant } from '@/shared/format/time';
 import { buildEventLog, valueInWords, type EventLogEntry } from './eventLog';
-import { formatSiteTime } from './siteTime';
 
 /** Entries shown before "Show all". */
 const shortList = 10;
@@ -31,7 +31,7 @@ const fewFields = 4;
 function Entry({ entry, timeZone, index }: { entry: EventLogEntry; timeZone: string; index: number }) {
   const [open, setOpen] = useState(false);
   const changes = open ? entry.changes : entry.changes.slice(0, fewFields);
-  const at = (iso: string) => formatSiteTime(iso, timeZone, 'yyyy-MM-dd HH:mm');
+  const at = (iso: string) => formatInstant(iso, timeZone);
   const backDated = at(entry.recordedAt) !== at(entry.effectiveAt);
   return (
     <View style={styles.entry} testID={`event-log-entry-${index}`}>

@@ -18,6 +18,7 @@ import type { DisplayUnits } from '@/constants/units-display';
 import type { MeterRun } from '@/hooks/api/meterRuns';
 import type { Transmitter } from '@/hooks/api/transmitters';
 import { useTrend } from '@/hooks/api/trends';
+import { formatInstant } from '@/shared/format/time';
 import { formatSiteTime, parseSiteTime } from './siteTime';
 import { trendCharts } from './trendCharts';
 
@@ -153,7 +154,7 @@ export function TrendsPanel({ run, transmitters, displayUnits, atmosphericPressu
         </View>
       ) : null}
       <AppText variant="caption" tone="muted" testID="trend-window-text">
-        {`${formatSiteTime(trendWindow.fromMs, timeZone, 'd LLL yyyy HH:mm')} to ${formatSiteTime(trendWindow.toMs, timeZone, 'd LLL yyyy HH:mm ZZZZ')}. Lines are the mean of each time slice; the grey band behind a line spans its lowest and highest reading.`}
+        {`${formatInstant(trendWindow.fromMs, timeZone)} to ${formatInstant(trendWindow.toMs, timeZone)}. Lines are the mean of each time slice; the grey band behind a line spans its lowest and highest reading.`}
       </AppText>
       <QueryState isPending={trend.isPending} error={trend.error} onRetry={() => void trend.refetch()} noun="trends" />
       {charts ? (

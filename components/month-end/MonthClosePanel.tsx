@@ -14,11 +14,23 @@ import { Panel } from '@/components/ui/Panel';
 import { QueryState } from '@/components/ui/QueryState';
 import { space } from '@/constants/theme';
 import { useClosePeriod, usePeriod } from '@/hooks/api/monthlyVolumes';
+import { formatInstant } from '@/shared/format/time';
 
 const count = (list: unknown[] | undefined, one: string, many: string) =>
   list?.length ? `${list.length} ${list.length === 1 ? one : many}` : null;
 
-export function MonthClosePanel({ siteId, month, canClose }: { siteId: string; month: string; canClose: boolean }) {
+export function MonthClosePanel({
+  siteId,
+  month,
+  canClose,
+  timeZone,
+}: {
+  siteId: string;
+  month: string;
+  canClose: boolean;
+  /** The site's zone, for when the month was closed (the viewer's when absent). */
+  timeZone?: string;
+}) {
   const period = usePeriod(siteId, month);
   const close = useClosePeriod();
   const [confirming, setConfirming] = useState(false);
@@ -50,7 +62,7 @@ export function MonthClosePanel({ siteId, month, canClose }: { siteId: string; m
       {p ? (
         <AppText testID="month-close-status">
           {p.status === 'closed'
-            ? `Closed${p.closedAt ? ` on ${p.closedAt.slice(0, 16).replace('T', ' ')} UTC` : ''}${p.closedBy ? ` by ${p.closedBy.email}` : ''}. Its totals no longer change; late data waits as pending.`
+            ? `Closed${p.closedAt ? ` on ${formatInstant(p.closedAt, timeZone)}` : ''}${p.closedBy ? ` by ${p.closedBy.email}` : ''}. Its totals no longer change; late data waits as pending.`
             : 'Open: totals may still change as data arrives or corrections are approved.'}
         </AppText>
       ) : null}

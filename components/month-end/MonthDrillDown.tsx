@@ -14,6 +14,7 @@ import { unitsFor, type DisplayUnits } from '@/constants/units-display';
 import { useTotals, type Total } from '@/hooks/api/totals';
 import { coverageTitle, totalCells, uncertaintyTitle } from '@/components/meter-runs/totalCells';
 import { formatSiteTime } from '@/components/meter-runs/siteTime';
+import { formatContractDay } from '@/shared/format/time';
 
 interface Props {
   meterRunId: string;
@@ -23,6 +24,16 @@ interface Props {
   timeZone: string;
   displayUnits: DisplayUnits;
   onClose: () => void;
+}
+
+/**
+ * @param day a contract day's total (start and end instants)
+ * @param timeZone the site's zone
+ * @returns e.g. "Contract day 2 Dec 2026, 06:00 2 Dec – 06:00 3 Dec CST": the hour cells' clock times need its zone
+ */
+function dayLabel(day: Total, timeZone: string): string {
+  const bounds = { startMs: Date.parse(day.start), endMs: Date.parse(day.end) };
+  return formatContractDay(formatSiteTime(day.start, timeZone, 'yyyy-MM-dd'), bounds, timeZone);
 }
 
 export function MonthDrillDown({ meterRunId, tag, from, to, timeZone, displayUnits, onClose }: Props) {
@@ -53,7 +64,7 @@ export function MonthDrillDown({ meterRunId, tag, from, to, timeZone, displayUni
   });
   return (
     <Panel
-      title={day ? `${tag}: hours of ${formatSiteTime(day.start, timeZone, 'yyyy-MM-dd')}` : `${tag}: contract days`}
+      title={day ? `${tag}: hours of ${dayLabel(day, timeZone)}` : `${tag}: contract days`}
       testID="month-drill-down"
       actions={
         <Button

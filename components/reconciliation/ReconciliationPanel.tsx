@@ -12,6 +12,7 @@ import { DataTable } from '@/components/ui/DataTable';
 import { Panel } from '@/components/ui/Panel';
 import { QueryState } from '@/components/ui/QueryState';
 import { space } from '@/constants/theme';
+import { formatDate } from '@/shared/format/time';
 import { percentChart, reconciliationGroups } from './reconciliationView';
 import { useReconciliationSummary, useReconciliations } from './useReconciliations';
 
@@ -37,7 +38,7 @@ export function ReconciliationPanel({ meterRunId, timeZone, from, to, title, tes
   return (
     <Panel title={title ?? 'Reconciliation against field totals'} testID={testID ?? 'reconciliation-panel'}>
       <AppText tone="muted">
-        {`Contract days from ${from.slice(0, 10)} to before ${to.slice(0, 10)} with a field total. Difference = Tallyrun − field, in percent of the field total; figures in the field total's unit.`}
+        {`Contract days from ${formatDate(from, timeZone)} to before ${formatDate(to, timeZone)} with a field total. Difference = Tallyrun − field, in percent of the field total; figures in the field total's unit.`}
       </AppText>
       <QueryState
         isPending={days.isPending}

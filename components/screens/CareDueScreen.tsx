@@ -20,6 +20,7 @@ import { FlagMark } from '@/components/ui/StatusMark';
 import { space } from '@/constants/theme';
 import { useCareDue, type CareDueItem, type CareDueSort } from '@/hooks/api/careDue';
 import { useSites } from '@/hooks/api/sites';
+import { formatDate } from '@/shared/format/time';
 
 const kindWords: Record<CareDueItem['kind'], string> = {
   'transmitter-calibration': 'Transmitter calibration',
@@ -66,14 +67,14 @@ function rowOf(item: CareDueItem, index: number): DataRow {
     testID: `care-due-row-${index}`,
     cells: {
       state: <StateCell item={item} />,
-      due: <AppText tabular>{item.dueOn ?? '—'}</AppText>,
+      due: <AppText tabular>{item.dueOn ? formatDate(item.dueOn) : '—'}</AppText>,
       subject: (
         <Link href={href} testID={`care-due-link-${index}`}>
           <AppText style={styles.link}>{item.subject}</AppText>
         </Link>
       ),
       kind: kindWords[item.kind],
-      last: <AppText tabular>{item.lastDoneOn ?? '—'}</AppText>,
+      last: <AppText tabular>{item.lastDoneOn ? formatDate(item.lastDoneOn) : '—'}</AppText>,
     },
   };
 }
@@ -128,7 +129,7 @@ export function CareDueScreen({ siteId: initialSiteId }: { siteId?: string }) {
       {data ? (
         <Panel title={data.site.name} testID="care-due-list">
           <View style={styles.summary}>
-            <AppText testID="care-due-summary">{`Today at the site: ${data.today}. ${overdue} overdue, ${dueSoon} due within the alarm window.`}</AppText>
+            <AppText testID="care-due-summary">{`Today at the site: ${formatDate(data.today)}. ${overdue} overdue, ${dueSoon} due within the alarm window.`}</AppText>
           </View>
           <DataTable
             label={`What is due at ${data.site.name}`}

@@ -255,7 +255,12 @@ export function MonthlyVolumesScreen({ siteExtra }: { siteExtra?: (siteId: strin
             ) : null}
           </View>
           <MonthReconciliation key={`${v.site.id}-${v.month}`} volumes={v} />
-          <MonthClosePanel siteId={v.site.id} month={v.month} canClose={can(user.role, 'closePeriod')} />
+          <MonthClosePanel
+            siteId={v.site.id}
+            month={v.month}
+            canClose={can(user.role, 'closePeriod')}
+            timeZone={v.site.timeZone}
+          />
           <Panel title="Export" testID="monthly-export">
             {mayExport ? (
               <View style={styles.buttons}>

@@ -8,7 +8,7 @@
 import { router } from 'expo-router';
 import { useState } from 'react';
 
-import { formatSiteTime, zoneAbbreviation } from '@/components/meter-runs/siteTime';
+import { formatInstant } from '@/shared/format/time';
 import { AppText } from '@/components/ui/AppText';
 import { Notice } from '@/components/ui/Notice';
 import { QueryState } from '@/components/ui/QueryState';
@@ -85,7 +85,7 @@ export function RangeHealthScreen({ meterRunId: initialMeterRunId }: { meterRunI
       {data && site ? (
         <>
           <AppText testID="range-health-summary">
-            {`${run?.tag ?? ''} from ${formatSiteTime(data.from, zone, 'd LLL yyyy HH:mm')} to ${formatSiteTime(data.to, zone, 'd LLL yyyy HH:mm')} ${zoneAbbreviation(zone)}: ${data.hours} hourly records, ${formatNumber(data.flowTimeS / 3600, 4)} h of flow, ${formatNumber(fromSI(data.standardVolumeM3, set.standardVolume.unit))} ${set.standardVolume.label} at base conditions${data.uncertaintyPercent === null ? '' : `, U ±${formatNumber(data.uncertaintyPercent, 3)} % (k = 2)`}.`}
+            {`${run?.tag ?? ''} from ${formatInstant(data.from, zone)} to ${formatInstant(data.to, zone)}: ${data.hours} hourly records, ${formatNumber(data.flowTimeS / 3600, 4)} h of flow, ${formatNumber(fromSI(data.standardVolumeM3, set.standardVolume.unit))} ${set.standardVolume.label} at base conditions${data.uncertaintyPercent === null ? '' : `, U ±${formatNumber(data.uncertaintyPercent, 3)} % (k = 2)`}.`}
           </AppText>
           <AppText variant="caption" tone="muted" testID="range-health-scope">
             This report looks at the flow the meter run actually saw: U is the hourly records' uncertainty weighted by

@@ -112,7 +112,9 @@ describe('the live board and alarms on a phone', () => {
 
     const notice = page.getByTestId(`alarm-done-${alarmId}`);
     await notice.waitFor();
-    expect(await notice.innerText()).toMatch(/Acknowledged at \d+ \w+ \d\d:\d\d UTC\. Now: Active, acknowledged\./);
+    expect(await notice.innerText()).toMatch(
+      /Acknowledged at \d+ \w+ \d{4}, \d\d:\d\d UTC\. Now: Active, acknowledged\./,
+    );
     expect(await notice.getAttribute('role')).toBe('status');
     await page.getByTestId(`alarm-state-${alarmId}`).filter({ hasText: 'Active, acknowledged' }).waitFor();
     // The list refreshes (this filter no longer matches the alarm) and the row stays.

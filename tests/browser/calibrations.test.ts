@@ -66,7 +66,7 @@ describe('the transmitter calibrations screen', () => {
     // The submit button hides once the calibration is recorded, and is busy (inactive) while it is sent.
     await sendWith(page.getByTestId('calibration-submit'), page.getByTestId('calibration-recorded'));
     const history = page.getByTestId('calibration-history');
-    await history.getByText('2026-06-10 · Northgate Instrument Laboratory').waitFor();
+    await history.getByText('10 Jun 2026 · Northgate Instrument Laboratory').waitFor();
     await history.getByText('+0.120 % of span', { exact: false }).waitFor();
     await expect(history.getByText('As found: ⚑ fail', { exact: false }).count()).resolves.toBe(1);
     await history.getByText('Certificate: NIL-2026-0610.pdf').waitFor();

@@ -82,7 +82,10 @@ describe('the element care panels of the meter-run set-up screen', () => {
       .waitFor();
     await line.getByText('08:00 UTC · Test gas laboratory · certificate GA-7', { exact: false }).waitFor();
     await line.getByText('became a configuration version', { exact: false }).waitFor();
-    await line.getByText(`Next due ${nextDue}`).waitFor();
+    // The due date in words, as every date on screen (shared/format/time.ts formatDate): "24 May 2027".
+    const monthNames = ['Jan', 'Feb', 'Mar', 'Apr', 'May', 'Jun', 'Jul', 'Aug', 'Sep', 'Oct', 'Nov', 'Dec'];
+    const dueWords = `${Number(nextDue.slice(8))} ${monthNames[Number(nextDue.slice(5, 7)) - 1]} ${nextDue.slice(0, 4)}`;
+    await line.getByText(`Next due ${dueWords}`).waitFor();
     await page.getByTestId(`gas-analysis-${recorded.id}-certificate`).getByText('Certificate: GA-7.png').waitFor();
     const version = page.getByTestId(`version-row-${recorded.configVersionId}`);
     await version.getByText('08:00 UTC', { exact: false }).waitFor();
