@@ -57,8 +57,12 @@ export function AlarmGroupRow({
   };
 
   return (
-    <View style={styles.group} testID={`alarm-group-${firstOut.id}`}>
-      <AlarmRow alarm={firstOut} role={role} timeZone={timeZoneOf(firstOut.siteId)} onActed={onActed} />
+    // A group is one item of the alarm list; its rows are lists of their own (a row is a listitem,
+    // and a listitem must sit directly in a list: axe "aria-required-children").
+    <View style={styles.group} role="listitem" testID={`alarm-group-${firstOut.id}`}>
+      <View role="list" aria-label={`First-out alarm ${firstOut.id}`}>
+        <AlarmRow alarm={firstOut} role={role} timeZone={timeZoneOf(firstOut.siteId)} onActed={onActed} />
+      </View>
       {n ? (
         <View style={styles.actions}>
           <Button
@@ -87,7 +91,7 @@ export function AlarmGroupRow({
         </AppText>
       ) : null}
       {open ? (
-        <View style={styles.under} aria-label={`Consequential alarms of ${firstOut.id}`}>
+        <View style={styles.under} role="list" aria-label={`Consequential alarms of ${firstOut.id}`}>
           {consequential.map((alarm) => (
             <AlarmRow key={alarm.id} alarm={alarm} role={role} timeZone={timeZoneOf(alarm.siteId)} onActed={onActed} />
           ))}

@@ -29,14 +29,7 @@ export function DpShareBar({ share, testID }: DpShareBarProps) {
 
   return (
     <View style={styles.wrap} testID={testID}>
-      <View
-        style={[styles.track, abnormal && { borderColor: abnormal.color }]}
-        role="meter"
-        aria-label={words}
-        aria-valuemin={0}
-        aria-valuemax={100}
-        aria-valuenow={share === null ? undefined : Math.round(share * 100)}
-      >
+      <View style={[styles.track, abnormal && { borderColor: abnormal.color }]} {...meterProps(share, words)}>
         <View style={[styles.lowBand, { width: `${lowInRangeShare * 100}%` }]} />
         <View
           style={[styles.fill, { width: `${fill * 100}%` }, abnormal && { backgroundColor: abnormal.color }]}
@@ -61,6 +54,23 @@ export function DpShareBar({ share, testID }: DpShareBarProps) {
       </View>
     </View>
   );
+}
+
+/**
+ * A meter only while a DP reading is in use (a meter without a value is no meter); with none the empty bar is
+ * decoration and the words beside it say so. Past the span (or below zero) the value runs out, and so does the bound.
+ */
+function meterProps(share: number | null, words: string) {
+  if (share === null) return { 'aria-hidden': true } as const;
+  const percent = Math.round(share * 100);
+  return {
+    role: 'meter',
+    'aria-label': 'DP share of span',
+    'aria-valuemin': Math.min(0, percent),
+    'aria-valuemax': Math.max(100, percent),
+    'aria-valuenow': percent,
+    'aria-valuetext': words,
+  } as const;
 }
 
 const barHeightPx = 14;

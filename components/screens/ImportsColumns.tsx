@@ -76,12 +76,16 @@ export function ImportsColumns({ kind }: { kind: ImportKind }) {
       <AppText variant="caption" tone="muted">
         Example
       </AppText>
-      <AppText style={styles.example} selectable>
+      <AppText style={styles.example} selectable {...exampleScrollProps}>
         {examples[kind]}
       </AppText>
     </View>
   );
 }
+
+/** The example scrolls sideways on a phone; a region that scrolls must be reachable by keyboard and named (WCAG 2.1.1). */
+const exampleScrollProps: object =
+  Platform.OS === 'web' ? { tabIndex: 0, role: 'group', 'aria-label': 'Example, scrolls sideways' } : {};
 
 const styles = StyleSheet.create({
   wrap: { gap: space.sm },

@@ -28,7 +28,6 @@ export function ImportsRecent({ imports, selectedId, onSelect }: ImportsRecentPr
             testID={`import-row-${item.id}`}
             role="button"
             aria-pressed={selected}
-            aria-label={`${item.filename}, ${statusText[item.status]}: show its counts and rejected lines`}
             onPress={() => onSelect(item.id)}
             style={({ hovered, focused }: WebPressableState) => [
               styles.row,

@@ -106,10 +106,7 @@ function AttentionPanel({ entries }: { entries: BoardEntry[] }) {
     <Panel title={summary} testID="live-attention">
       {others.map(({ row, states, alarms }) => (
         <Link key={row.meterRunId} href={`/meter-runs/${encodeURIComponent(row.meterRunId)}`} asChild>
-          <Pressable
-            style={styles.attentionRow}
-            aria-label={`${row.tag}: ${[alarms?.open ? alarmWords(alarms) : null, ...states.map((state) => state.label)].filter(Boolean).join('; ')}`}
-          >
+          <Pressable style={styles.attentionRow}>
             <AppText variant="bodyStrong" style={styles.attentionTag}>
               {row.tag}
             </AppText>

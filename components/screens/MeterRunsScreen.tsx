@@ -21,7 +21,6 @@ function MeterRunLink({ run, site }: { run: MeterRun; site: Site | undefined }) 
     <Link href={`/meter-runs/${run.id}`} asChild>
       <Pressable
         testID={`meter-run-row-${run.tag}`}
-        aria-label={`${run.tag} ${run.name}`}
         onHoverIn={() => setHovered(true)}
         onHoverOut={() => setHovered(false)}
         onFocus={() => setFocused(true)}

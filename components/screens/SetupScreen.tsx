@@ -24,11 +24,7 @@ function SiteRow({ site, meterRunCount }: { site: Site; meterRunCount: number | 
   return (
     <View style={styles.row} testID={`site-row-${site.code}`}>
       <Link href={href} asChild>
-        <Pressable
-          style={styles.rowLink}
-          aria-label={`${site.code} ${site.name}: open its meter runs`}
-          testID={`site-open-${site.code}`}
-        >
+        <Pressable style={styles.rowLink} testID={`site-open-${site.code}`}>
           <View style={styles.rowTitle}>
             <AppText variant="bodyStrong">{site.code}</AppText>
             <AppText style={styles.rowName}>{site.name}</AppText>

@@ -42,11 +42,7 @@ function MeterRunRow({ run, site }: { run: MeterRun; site: Site }) {
   const unit = site.displayUnits === 'us' ? 'in' : 'mm';
   return (
     <Link href={`/setup?meterRun=${encodeURIComponent(run.id)}`} asChild>
-      <Pressable
-        style={styles.row}
-        testID={`run-row-${run.tag}`}
-        aria-label={`${run.tag} ${run.name}: open its transmitters and configuration versions`}
-      >
+      <Pressable style={styles.row} testID={`run-row-${run.tag}`}>
         <View style={styles.rowTitle}>
           <AppText variant="bodyStrong">{run.tag}</AppText>
           <AppText style={styles.rowName}>{run.name}</AppText>

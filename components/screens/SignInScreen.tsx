@@ -43,7 +43,12 @@ export function SignInScreen() {
   };
 
   return (
-    <ScrollView style={styles.page} contentContainerStyle={styles.content} keyboardShouldPersistTaps="handled">
+    <ScrollView
+      style={styles.page}
+      contentContainerStyle={styles.content}
+      keyboardShouldPersistTaps="handled"
+      role="main"
+    >
       <View style={styles.column}>
         <View style={styles.brand}>
           <BrandMark size="large" />
@@ -51,7 +56,7 @@ export function SignInScreen() {
         </View>
 
         <View style={styles.card}>
-          <AppText variant="title" role="heading">
+          <AppText variant="title" role="heading" aria-level={1}>
             Sign in
           </AppText>
           {expired && !login.error ? <Notice>Your session has ended. Sign in again to carry on.</Notice> : null}

@@ -1,4 +1,7 @@
-/** The header above every signed-in screen: the area's title, then who is signed in. */
+/**
+ * The header above every signed-in screen (the page's banner landmark): the area's title, the page's one
+ * level-one heading, then who is signed in.
+ */
 import { StyleSheet, View } from 'react-native';
 
 import { AppText } from '@/components/ui/AppText';
@@ -15,10 +18,11 @@ interface AppHeaderProps {
 
 export function AppHeader({ title, user, onSignOut, compact }: AppHeaderProps) {
   return (
-    <View style={[styles.header, compact && styles.headerCompact]}>
+    <View style={[styles.header, compact && styles.headerCompact]} role="banner">
       <AppText
         variant={compact ? 'title' : 'heading'}
         role="heading"
+        aria-level={1}
         numberOfLines={1}
         style={styles.title}
         testID="area-title"

@@ -2,7 +2,8 @@
  * The frame around every signed-in screen. Phone-first: a compact header and a bottom bar
  * (with "More" for the rest); from the `wide` breakpoint a left side navigation instead.
  * Only the areas the user's role may open are offered (constants/areas.ts). The alarm banner
- * (components/alarms) sits under the header on every screen, for every role.
+ * (components/alarms) sits under the header on every screen, for every role. Everything sits in a landmark
+ * (banner, navigation, the alarm summary's region, main), so a screen reader can jump between them.
  */
 import { usePathname } from 'expo-router';
 import { useCallback, useEffect, useState, type ReactNode } from 'react';
@@ -51,7 +52,9 @@ export function AppShell({ user, children }: AppShellProps) {
         <SideNav areas={allowed} currentKey={current?.key} />
         <View style={styles.main}>
           <AppHeader title={title} user={user} onSignOut={onSignOut} compact={false} />
-          <AlarmBanner />
+          <View role="region" aria-label="Alarm summary">
+            <AlarmBanner />
+          </View>
           <View style={styles.body} role="main">
             {children}
           </View>
@@ -65,7 +68,9 @@ export function AppShell({ user, children }: AppShellProps) {
   return (
     <View style={styles.narrow}>
       <AppHeader title={title} user={user} onSignOut={onSignOut} compact={breakpoint === 'phone'} />
-      <AlarmBanner />
+      <View role="region" aria-label="Alarm summary">
+        <AlarmBanner />
+      </View>
       <View style={styles.body} role="main">
         {children}
         {moreOpen ? <MoreMenu areas={more} currentKey={current?.key} onClose={closeMore} /> : null}
