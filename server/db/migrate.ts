@@ -24,6 +24,7 @@ import * as m0019 from '../migrations/0019-reconciliation-tolerance-versions';
 import * as m0022 from '../migrations/0022-hourly-uncertainty-budget';
 import * as m0023 from '../migrations/0023-transmitter-accuracy-kind';
 import * as m0024 from '../migrations/0024-bidirectional-meter-runs';
+import * as m0025 from '../migrations/0025-element-calibration-direction';
 
 /**
  * Migrations are listed here, in order, rather than globbed: the list works the same under
@@ -52,6 +53,7 @@ const migrations = [
   { name: '0022-hourly-uncertainty-budget', ...m0022 },
   { name: '0023-transmitter-accuracy-kind', ...m0023 },
   { name: '0024-bidirectional-meter-runs', ...m0024 },
+  { name: '0025-element-calibration-direction', ...m0025 },
 ];
 
 export function migrator(sequelize: Sequelize) {

@@ -283,3 +283,44 @@ describe('walkMeterRunAlarms: frozen, stale, bad quality', () => {
     expect(of(signals, 'dp-low-in-range')).toEqual([]);
   });
 });
+
+describe('walkMeterRunAlarms: reverse flow on a one-way meter run, judged live', () => {
+  /** Ranged −50…+50 kPa: reads both ways; a reverse share is |Δp| / 50 kPa (bidir-design.md). */
+  const both: WalkTransmitter = { ...dp, lowerRangeSI: -50_000 };
+  const oneWay = { oneWayAt: () => true, noFlowCutoffShareAt: () => 0.005 };
+  const live = (shares: number[], reverseFlow: AlarmWalkInput['reverseFlow'] = oneWay) =>
+    walk(minutes(shares), { transmitters: [both, pt], reverseFlow });
+
+  it('raises at the first reverse reading and clears at the first forward one, without waiting for the hour', () => {
+    // 10 min at +40 %, 10 min at −40 % (−20 kPa), 10 min at +40 %; on- and off-delay 0 (alarm-limits.ts).
+    const { signals } = live([...repeat(10, 0.4), ...repeat(10, -0.4), ...repeat(10, 0.4)]);
+    const reverse = of(signals, 'reverse-flow');
+    expect(reverse.map((s) => [s.kind, s.timeMs])).toEqual([
+      ['raise', T0 + 10 * MIN],
+      ['clear', T0 + 20 * MIN],
+    ]);
+    // Minute 10 is even: no noise, −20 000 Pa of a 50 000 Pa reverse side = 40 %.
+    expect(reverse[0].detail).toEqual({ sinceMs: T0 + 10 * MIN, shareOfSpan: 0.4 });
+    expect(reverse[0].message).toBe(
+      'MR-1 is a one-way meter run and reads reverse flow since 2026-10-01T00:10:00Z (DP 40.0 % of its span below zero): it is not counted as flow.',
+    );
+  });
+
+  it('raises nothing for reverse DP inside the no-flow cutoff (−0.3 % of the reverse side, cutoff 0.5 %)', () => {
+    expect(of(live([...repeat(5, 0.4), ...repeat(10, -0.003)]).signals, 'reverse-flow')).toEqual([]);
+  });
+
+  it('raises nothing on a bi-directional meter run, where reverse flow is counted', () => {
+    const bidirectional = { ...oneWay, oneWayAt: () => false };
+    expect(of(live([...repeat(5, 0.4), ...repeat(10, -0.4)], bidirectional).signals, 'reverse-flow')).toEqual([]);
+  });
+
+  it('leaves the hourly flag to a meter run judged from its hourly records, and ignores it when judged live', () => {
+    const hour = { startMs: T0, endMs: T0 + 60 * MIN, flowTimeS: 0, flags: ['reverse-flow'] };
+    const readings = minutes(repeat(61, 0.4));
+    const fromHours = walk(readings, { transmitters: [both, pt], hours: [hour] });
+    expect(of(fromHours.signals, 'reverse-flow').map((s) => s.kind)).toEqual(['raise']);
+    const judgedLive = walk(readings, { transmitters: [both, pt], hours: [hour], reverseFlow: oneWay });
+    expect(of(judgedLive.signals, 'reverse-flow')).toEqual([]);
+  });
+});

@@ -390,15 +390,11 @@ export function walkMeterRunAlarms(input: AlarmWalkInput): { signals: AlarmSigna
   }
 
   /** The hourly records' rule at one reading: reverse beyond the cutoff is reverse flow; no flow says nothing. */
-  function judgeReverseFlow(
-    t: number,
-    dp: DpSeries,
-    dpPa: number,
-    rule: NonNullable<AlarmWalkInput['reverseFlow']>,
-  ) {
+  function judgeReverseFlow(t: number, dp: DpSeries, dpPa: number, rule: NonNullable<AlarmWalkInput['reverseFlow']>) {
     if (!rule.oneWayAt(t)) return observe('reverse-flow', null, false, t); // counted as reverse flow
     const reading = directionalReading(dp, dpPa);
-    if (reading.magnitudePa <= 0 || reading.share < rule.noFlowCutoffShareAt(t)) return observe('reverse-flow', null, null, t);
+    if (reading.magnitudePa <= 0 || reading.share < rule.noFlowCutoffShareAt(t))
+      return observe('reverse-flow', null, null, t);
     observe('reverse-flow', null, reading.direction === 'reverse', t, { sinceMs: t, shareOfSpan: reading.share });
   }
 

@@ -136,6 +136,65 @@ describe('correctRecord', () => {
   });
 });
 
+describe('correctRecord on a bi-directional hour', () => {
+  /** 1800 s forward (the record's own 100 kg …) and 1800 s reverse: 50 kg, 60 m³, 70 m³ at base, 2.5 MJ. */
+  const reverse = {
+    flowTimeS: 1800,
+    massKg: 50,
+    volumeM3: 60,
+    standardVolumeM3: 70,
+    energyJ: 2.5e6,
+    averageDpPa: 800,
+    averagePressurePa: 2e6,
+    averageTemperatureK: 300,
+    integralValue: null,
+    integralMultiplierValue: null,
+    uncertaintyPercent: 1.2,
+    uncertaintyBudget: [],
+  };
+  /** Bands hold both directions: 40 + 60 kg forward and 50 kg reverse in 10–25 %. */
+  const bidirectional = () =>
+    record({
+      reverse,
+      dpBands: {
+        '0-10': { timeS: 0, massKg: 0 },
+        '10-25': { timeS: 3600, massKg: 90 },
+        '25-50': { timeS: 1800, massKg: 60 },
+        '50-100': { timeS: 0, massKg: 0 },
+        over: { timeS: 0, massKg: 0 },
+      },
+    });
+
+  it('adjusts both directions by the factor (a transmitter measures both ways) and the bands with them', () => {
+    // Factor 1.02 over the whole hour: every quantity × 1.02, by hand.
+    const out = correctRecord(bidirectional(), [correction({ kind: 'adjust', factor: 1.02 })]);
+    expect(out.massKg).toBeCloseTo(102, 9);
+    expect(out.reverse!.massKg).toBeCloseTo(51, 9);
+    expect(out.reverse!.volumeM3).toBeCloseTo(61.2, 9);
+    expect(out.reverse!.standardVolumeM3).toBeCloseTo(71.4, 9);
+    expect(out.reverse!.energyJ).toBeCloseTo(2.55e6, 3);
+    expect(out.reverse!.flowTimeS).toBe(1800);
+    expect(out.reverse!.uncertaintyPercent).toBe(1.2);
+    // 150 kg of bands become 153 kg: 91.8 and 61.2, summing to forward + reverse.
+    expect(out.dpBands['10-25'].massKg).toBeCloseTo(91.8, 9);
+    expect(out.dpBands['25-50'].massKg).toBeCloseTo(61.2, 9);
+  });
+
+  it('keeps the reverse part of a record a forward substitution meets, and scales the bands by the change of both', () => {
+    // 130 kg forward for the hour: bands hold 130 + 50 = 180 kg where they held 150 kg (× 1.2).
+    const out = correctRecord(bidirectional(), [correction({ massKg: 130 })]);
+    expect(out.massKg).toBeCloseTo(130, 9);
+    expect(out.reverse).toEqual(reverse);
+    expect(out.dpBands['10-25'].massKg).toBeCloseTo(108, 9);
+    expect(out.dpBands['25-50'].massKg).toBeCloseTo(72, 9);
+  });
+
+  it('leaves a one-way record without a reverse part', () => {
+    const out = correctRecord(record({ reverse: null }), [correction({ kind: 'adjust', factor: 1.02 })]);
+    expect(out.reverse).toBeNull();
+  });
+});
+
 describe('substituteSamples', () => {
   const good = (timeMs: number, value: number) => ({ timeMs, value, quality: 'good' as const });
 

@@ -12,12 +12,18 @@
  *   mass at the record's own ratios (its own density and heating value that hour) when it has
  *   flow; a record without flow (the usual gap) takes the ratios of the meter run's last records
  *   with flow before the correction (`fallbackRatios`); without either, only mass changes.
- * - An adjustment multiplies every quantity by 1 + (factor − 1) × the record's share.
+ * - An adjustment multiplies every quantity by 1 + (factor − 1) × the record's share, of both
+ *   directions on a bi-directional hour (issue 13 §11): a factor corrects a transmitter or the
+ *   element, which measure both ways.
+ * - A quantity substitution is forward flow: it names no direction, so the server refuses one on a
+ *   bi-directional meter run (400 naming massKg) and substituted readings are the way there. Should
+ *   a record with a reverse part meet one, the reverse part is kept as computed and the DP bands
+ *   (which hold both directions) are scaled by the change of the total of both.
  * - Every record a correction touches is flagged 'corrected', and 'estimated' when the
  *   correction came from an estimate. A substituted quantity carries the estimate's uncertainty
  *   (an estimate), or none (a quantity typed by a person has no stated uncertainty).
  */
-import type { DpBandName, HourlyRecord, Sample } from './types';
+import type { DirectionPart, DpBandName, HourlyRecord, Sample } from './types';
 
 /** Quantities per kilogram, to carry a substituted mass into volume, standard volume and energy. */
 export interface QuantityRatios {
@@ -91,7 +97,25 @@ function substituteQuantity(record: HourlyRecord, c: CorrectionToApply, overlap:
     standardVolumeM3: record.standardVolumeM3 * keep + substitutedKg * (ratios?.standardVolumeM3PerKg ?? 0),
     energyJ,
     uncertaintyPercent,
-    dpBands: record.massKg > 0 ? scaleBands(record.dpBands, massKg / record.massKg) : record.dpBands,
+    dpBands: bandsAfterSubstitution(record, massKg),
+  };
+}
+
+/** The DP bands hold both directions' mass: scale them by the change of that total, the reverse part unchanged. */
+function bandsAfterSubstitution(record: HourlyRecord, forwardKg: number): HourlyRecord['dpBands'] {
+  const reverseKg = record.reverse?.massKg ?? 0;
+  const before = record.massKg + reverseKg;
+  return before > 0 ? scaleBands(record.dpBands, (forwardKg + reverseKg) / before) : record.dpBands;
+}
+
+/** A direction's part scaled like the record's own quantities (its rates and averages stay). */
+function scalePart(part: DirectionPart, scale: number): DirectionPart {
+  return {
+    ...part,
+    massKg: part.massKg * scale,
+    volumeM3: part.volumeM3 * scale,
+    standardVolumeM3: part.standardVolumeM3 * scale,
+    energyJ: part.energyJ === null ? null : part.energyJ * scale,
   };
 }
 
@@ -104,6 +128,7 @@ function adjust(record: HourlyRecord, factor: number, overlap: number): HourlyRe
     standardVolumeM3: record.standardVolumeM3 * scale,
     energyJ: record.energyJ === null ? null : record.energyJ * scale,
     dpBands: scaleBands(record.dpBands, scale),
+    ...(record.reverse ? { reverse: scalePart(record.reverse, scale) } : {}),
   };
 }
 

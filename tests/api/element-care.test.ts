@@ -238,3 +238,77 @@ describe('an inspection of the primary element', () => {
     expect(res.body.error.field).toBe('kind');
   });
 });
+
+describe('a calibration of the element in reverse flow', () => {
+  let f: Awaited<ReturnType<typeof createMeterRun>>;
+  /** The reverse constants: the same plate seen from its downstream face (its bore measured the other way). */
+  const reverseElement = { kind: 'orifice', taps: 'flange', pipeDiameterM: 0.3, boreDiameterM: 0.1002 };
+  beforeAll(async () => {
+    f = await createMeterRun(api, { timeZone: 'UTC', contractHour: 0 });
+  });
+
+  it('is refused on a one-way meter run, naming direction, and records nothing', async () => {
+    const res = await api.post(`/api/meter-runs/${f.meterRun.id}/element-calibrations`, {
+      calibratedAt: '2026-02-01T00:00:00Z',
+      laboratory: 'Test flow laboratory',
+      uncertaintyPercent: 0.6,
+      pointsCsv: 'reynoldsNumber,dischargeCoefficient\n1e5,0.6010\n1e6,0.6030\n',
+      direction: 'reverse',
+    });
+    expect(res.status).toBe(400);
+    expect(res.body.error.field).toBe('direction');
+    expect((await api.get(`/api/meter-runs/${f.meterRun.id}/element-calibrations`)).body).toEqual([]);
+  });
+
+  it('lands in reverseElement, leaves the forward constants alone, and its record says reverse', async () => {
+    const bidirectional = await api.post(`/api/meter-runs/${f.meterRun.id}/config-versions`, {
+      effectiveFrom: '2026-03-01T00:00:00Z',
+      element: f.element,
+      fluid: f.fluid,
+      reverseElement,
+      reason: 'bi-directional from March',
+    });
+    expect(bidirectional.status).toBe(201);
+    const calibratedAt = '2026-03-15T00:00:00.000Z';
+    const res = await api.post(`/api/meter-runs/${f.meterRun.id}/element-calibrations`, {
+      calibratedAt,
+      laboratory: 'Test flow laboratory',
+      certificate: 'FC-R-0001',
+      uncertaintyPercent: 0.6,
+      pointsCsv: 'reynoldsNumber,dischargeCoefficient\n1e6,0.6030\n1e5,0.6010\n',
+      direction: 'reverse',
+    });
+    expect(res.status).toBe(201);
+    expect(res.body.direction).toBe('reverse');
+    expect(res.body.configVersion.element).toEqual(f.element);
+    expect(res.body.configVersion.reverseElement).toEqual({
+      ...reverseElement,
+      calibration: [
+        { reynoldsNumber: 100000, dischargeCoefficient: 0.601 },
+        { reynoldsNumber: 1000000, dischargeCoefficient: 0.603 },
+      ],
+      calibrationUncertaintyPercent: 0.6,
+    });
+    expect(res.body.configVersion.directionSource).toBe('dp-sign');
+
+    const forward = await api.post(`/api/meter-runs/${f.meterRun.id}/element-calibrations`, {
+      calibratedAt: '2026-03-20T00:00:00.000Z',
+      laboratory: 'Test flow laboratory',
+      uncertaintyPercent: 0.5,
+      pointsCsv: 'reynoldsNumber,dischargeCoefficient\n1e5,0.6000\n1e6,0.6020\n',
+    });
+    expect(forward.status).toBe(201);
+    expect(forward.body.direction).toBe('forward');
+    // The forward curve keeps the reverse one in force: the run stays bi-directional.
+    expect(forward.body.configVersion.reverseElement).toEqual(res.body.configVersion.reverseElement);
+
+    const listed = (await api.get(`/api/meter-runs/${f.meterRun.id}/element-calibrations`)).body as {
+      calibratedAt: string;
+      direction: string;
+    }[];
+    expect(listed.map((c) => [c.calibratedAt, c.direction])).toEqual([
+      ['2026-03-20T00:00:00.000Z', 'forward'],
+      [calibratedAt, 'reverse'],
+    ]);
+  });
+});

@@ -113,6 +113,39 @@ describe('proposing a correction', () => {
     expect(res.status).toBe(400);
     expect(res.body.error.field).toBe('substitute.hold');
   });
+
+  it('refuses a quantity substitution on a bi-directional meter run, naming massKg, and takes a factor there', async () => {
+    const bi = await alarmFixture(t, people.engineer.token);
+    const orifice = { kind: 'orifice', taps: 'flange', pipeDiameterM: 0.3, boreDiameterM: 0.1 };
+    const version = await t
+      .http()
+      .post(`/api/meter-runs/${bi.meterRunId}/config-versions`)
+      .set('Authorization', `Bearer ${people.engineer.token}`)
+      .send({
+        effectiveFrom: '2026-10-10T12:00:00Z',
+        element: orifice,
+        fluid: {
+          kind: 'ideal-gas',
+          molarMassKgPerMol: 0.01804,
+          compressibility: 1,
+          isentropicExponent: 1.2,
+          viscosityPaS: 1.12e-5,
+        },
+        reverseElement: orifice,
+        reason: 'bi-directional from noon',
+      });
+    expect(version.status).toBe(201);
+    const quantity = { meterRunId: bi.meterRunId, kind: 'substitute', factor: undefined, massKg: 1000 };
+    // The day overlaps the bi-directional version from noon on.
+    const refused = await propose(people.engineer, adjustment(quantity));
+    expect(refused.status).toBe(400);
+    expect(refused.body.error.field).toBe('massKg');
+    expect(refused.body.error.message).toMatch(/bi-directional/);
+    // The morning before it is one-way: a quantity is accepted there.
+    const morning = await propose(people.engineer, adjustment({ ...quantity, end: '2026-10-10T12:00:00Z' }));
+    expect(morning.status).toBe(201);
+    expect((await propose(people.engineer, adjustment({ meterRunId: bi.meterRunId }))).status).toBe(201);
+  });
 });
 
 describe('four eyes: every proposer against every decider', () => {

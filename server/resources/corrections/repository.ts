@@ -148,6 +148,20 @@ export function correctionsRepository(sequelize: Sequelize) {
       return row ? { timeZone: row.time_zone, contractHour: row.contract_hour } : null;
     },
 
+    /** Whether a configuration version in force during [startMs, endMs) is bi-directional (has a reverse element). */
+    async bidirectionalDuring(meterRunId: string, startMs: number, endMs: number): Promise<boolean> {
+      const rows = await select<{ found: number }>(
+        `SELECT 1 AS found FROM (
+           SELECT reverse_element, effective_from,
+                  lead(effective_from) OVER (ORDER BY effective_from) AS until
+             FROM config_versions WHERE meter_run_id = :meterRunId) v
+          WHERE v.reverse_element IS NOT NULL AND v.effective_from < :end AND (v.until IS NULL OR v.until > :start)
+          LIMIT 1`,
+        { meterRunId, start: iso(startMs), end: iso(endMs) },
+      );
+      return rows.length > 0;
+    },
+
     /** @returns the meter run a transmitter belongs to, or null when it does not exist */
     async transmitterMeterRun(transmitterId: string): Promise<string | null> {
       const [row] = await select<{ meter_run_id: string }>(

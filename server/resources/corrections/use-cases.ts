@@ -277,6 +277,17 @@ export async function proposeCorrection(
   const endMs = Date.parse(input.end);
   checkPeriod(startMs, endMs, clock, nowMs);
   await checkWhat(deps.repository, input, startMs);
+  // A quantity names no direction: on a bi-directional run it could be forward, reverse or net (issue 13 §11).
+  if (
+    input.kind === 'substitute' &&
+    input.substitute === undefined &&
+    (await deps.repository.bidirectionalDuring(input.meterRunId, startMs, endMs))
+  )
+    throw badRequest(
+      'massKg: a quantity substitution names no flow direction, and the meter run is bi-directional in this period; substitute readings or adjust by a factor instead',
+      'massKg',
+      'invalid_field',
+    );
   let estimate: EstimateRecord | null = null;
   let massKg = input.massKg ?? null;
   if (input.origin === 'estimate') {

@@ -28,6 +28,7 @@ export const presentCalibration = (c: ElementCalibrationRecord) => ({
   nextDue: c.nextDue,
   uncertaintyPercent: c.uncertaintyPercent,
   points: c.points.map((p) => ({ reynoldsNumber: p.reynoldsNumber, dischargeCoefficient: p.dischargeCoefficient })),
+  direction: c.direction,
   configVersionId: c.configVersionId,
   createdAt: c.createdAt.toISOString(),
   createdBy: author(c),

@@ -36,6 +36,8 @@ export interface ElementCalibrationRecord extends Recorded {
   laboratory: string;
   uncertaintyPercent: number;
   points: CalibrationPoint[];
+  /** The flow direction the curve is for (issue 13 §11): 'reverse' went into the reverse constants. */
+  direction: 'forward' | 'reverse';
 }
 
 export interface GasAnalysisRecord extends Recorded {
@@ -74,6 +76,7 @@ interface CalibrationRow extends RecordedRow {
   laboratory: string;
   uncertainty_percent: number;
   points: CalibrationPoint[];
+  direction: 'forward' | 'reverse';
 }
 interface AnalysisRow extends RecordedRow {
   sampled_at: Date;
@@ -165,6 +168,7 @@ export function elementCareRepository(sequelize: Sequelize): ElementCareReposito
     laboratory: r.laboratory,
     uncertaintyPercent: r.uncertainty_percent,
     points: r.points,
+    direction: r.direction,
   });
   const analysis = (r: AnalysisRow): GasAnalysisRecord => ({
     ...recorded(r),
@@ -182,7 +186,8 @@ export function elementCareRepository(sequelize: Sequelize): ElementCareReposito
     condition: r.condition,
   });
 
-  const calibrationSql = `SELECT ${common}, t.calibrated_at, t.effective_from, t.laboratory, t.uncertainty_percent, t.points
+  const calibrationSql = `SELECT ${common}, t.calibrated_at, t.effective_from, t.laboratory, t.uncertainty_percent, t.points,
+                t.direction
            FROM element_calibrations t LEFT JOIN users u ON u.id = t.created_by`;
   const analysisSql = `SELECT ${common}, t.sampled_at, t.laboratory, t.components, t.composition, t.sum_tolerance
            FROM gas_analyses t LEFT JOIN users u ON u.id = t.created_by`;
@@ -226,9 +231,9 @@ export function elementCareRepository(sequelize: Sequelize): ElementCareReposito
     insertCalibration(c, transaction) {
       return insertReturningId(
         `INSERT INTO element_calibrations (meter_run_id, calibrated_at, effective_from, laboratory, certificate,
-                uncertainty_percent, points, config_version_id, created_by, ${fileColumns})
+                uncertainty_percent, points, direction, config_version_id, created_by, ${fileColumns})
          VALUES (:meterRunId, :calibratedAt, :effectiveFrom, :laboratory, :certificate,
-                 :uncertaintyPercent, CAST(:points AS jsonb), :configVersionId, :createdBy, ${fileValues})
+                 :uncertaintyPercent, CAST(:points AS jsonb), :direction, :configVersionId, :createdBy, ${fileValues})
          RETURNING id::text`,
         { ...c, points: JSON.stringify(c.points), ...fileReplacements(c) },
         transaction,

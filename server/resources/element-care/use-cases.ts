@@ -218,6 +218,7 @@ export async function recordElementCalibration(
         nextDue: input.nextDue ?? null,
         uncertaintyPercent: input.uncertaintyPercent,
         points,
+        direction: input.direction,
         configVersionId: version.version.id,
         createdBy: actor.id,
       },

@@ -125,8 +125,8 @@ export function exportTable(
     volumes.totals.changeFromPreviousMonthPercent,
     volumes.totals.changeFromYearEarlierPercent,
     null,
-    // The site's reverse and net are in the meter runs' rows; the site total row stays forward.
-    ...directions(undefined, undefined),
+    // Forward, reverse and net of the site, each in its own columns (never netted into the forward ones).
+    ...directions(volumes.totals.reverse, volumes.totals.net),
   ]);
   for (const a of allocation) {
     rows.push([

@@ -69,6 +69,54 @@ describe('PATCH /api/meter-runs/:id', () => {
     expect(renamed.status).toBe(200);
     expect(renamed.body).toMatchObject({ name: 'Renamed', line, maxGapS: 120 });
   });
+
+  it('refuses line.bidirectional: true while the latest configuration version has no reverseElement, and changes nothing', async () => {
+    const id = await meterRun();
+    const auth = `Bearer ${engineer.token}`;
+    const res = await t
+      .http()
+      .patch(`/api/meter-runs/${id}`)
+      .set('Authorization', auth)
+      .send({ line: { bidirectional: true } });
+    expect(res.status).toBe(400);
+    expect(res.body.error.field).toBe('line.bidirectional');
+    expect(res.body.error.message).toMatch(/reverseElement/);
+    const after = await t.http().get(`/api/meter-runs/${id}`).set('Authorization', auth);
+    expect(after.body.line.bidirectional).toBeUndefined();
+  });
+
+  it('accepts line.bidirectional: true once the latest version has a reverseElement, then refuses setting it back to false', async () => {
+    const id = await meterRun();
+    const auth = `Bearer ${engineer.token}`;
+    const reverse = await addVersion(id, {
+      effectiveFrom: '2024-03-01T00:00:00Z',
+      reverseElement: { ...orifice, boreDiameterM: 0.0501 },
+      reason: 'bi-directional from March',
+    });
+    expect(reverse.status).toBe(201);
+    const marked = await t
+      .http()
+      .patch(`/api/meter-runs/${id}`)
+      .set('Authorization', auth)
+      .send({ line: { bidirectional: true, nominalSize: '4 in' } });
+    expect(marked.status).toBe(200);
+    expect(marked.body.line).toEqual({ bidirectional: true, nominalSize: '4 in' });
+    const back = await t
+      .http()
+      .patch(`/api/meter-runs/${id}`)
+      .set('Authorization', auth)
+      .send({ line: { bidirectional: false, nominalSize: '4 in' } });
+    expect(back.status).toBe(400);
+    expect(back.body.error.field).toBe('line.bidirectional');
+    // A one-way version after it makes the run one-way again, and the line may follow.
+    expect((await addVersion(id, { effectiveFrom: '2024-04-01T00:00:00Z', reason: 'one-way again' })).status).toBe(201);
+    const oneWay = await t
+      .http()
+      .patch(`/api/meter-runs/${id}`)
+      .set('Authorization', auth)
+      .send({ line: { bidirectional: false } });
+    expect(oneWay.status).toBe(200);
+  });
 });
 
 describe('configuration history of a meter run', () => {

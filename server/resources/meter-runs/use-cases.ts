@@ -195,6 +195,32 @@ export function datedChangeTime(
 }
 
 /**
+ * A line marked bi-directional must have reverse constants to compute reverse flow with, and a
+ * bi-directional configuration must not sit under a line marked one-way (issue 13 §11): the line
+ * follows the latest configuration version, which alone says how the hours are computed.
+ * @throws bad request naming `line.bidirectional`
+ */
+export function refuseLineDirectionAgainstConfig(
+  line: NonNullable<MeterRunChanges['line']>,
+  latest: { reverseElement: unknown } | null,
+) {
+  const bidirectional = line.bidirectional === true;
+  const configured = latest !== null && latest.reverseElement !== null && latest.reverseElement !== undefined;
+  if (bidirectional && !configured)
+    throw badRequest(
+      "line.bidirectional: the latest configuration version has no reverseElement; add a configuration version with the element's constants in reverse flow first",
+      'line.bidirectional',
+      'invalid_field',
+    );
+  if (!bidirectional && configured)
+    throw badRequest(
+      'line.bidirectional: must stay true while the latest configuration version has a reverseElement; add a one-way configuration version first',
+      'line.bidirectional',
+      'invalid_field',
+    );
+}
+
+/**
  * Changes a meter run, with its audit event (old and new values, and the reason). The name and
  * line change in place; the hold limit, largest gap and no-flow cutoff are dated settings: a
  * change appends a version in force from `effectiveFrom` (default now) and recomputes the hours
@@ -210,6 +236,7 @@ export async function updateMeterRun(
   const current = await repository.findById(meterRunId);
   if (!current) throw notFound('Meter run');
   const history = await repository.configVersionHistory(meterRunId);
+  if (changes.line !== undefined) refuseLineDirectionAgainstConfig(changes.line, history.at(-1)?.version ?? null);
   const wanted = changedSettings(current, changes);
   const effectiveFrom = datedChangeTime(
     changes.effectiveFrom,

@@ -53,7 +53,8 @@ export interface MonthlyVolumes {
   /** Whether any meter run has a total for the month. */
   hasData: boolean;
   meterRuns: MeterRunMonth[];
-  totals: MonthFigures & { correctionsInForce: number };
+  /** reverse and net only when a meter run flowed in reverse: forward, reverse and net kept apart. */
+  totals: MonthFigures & { correctionsInForce: number; reverse?: PeriodReverse; net?: PeriodNet };
 }
 
 /** The month before and the same month a year before `month` (YYYY-MM). */
@@ -201,5 +202,35 @@ function siteTotals(runs: MeterRunMonth[], previous: string, yearEarlier: string
     yearEarlier: yearBefore,
     changeFromPreviousMonthPercent: changePercent(standardVolumeM3, before),
     changeFromYearEarlierPercent: changePercent(standardVolumeM3, yearBefore),
+    ...siteDirections(withTotal),
   };
+}
+
+/**
+ * The site's reverse flow (the sum of its bi-directional meter runs' reverse parts; flowTimeS is
+ * meter-run seconds) and its net: the site's forward total − that reverse, never netted per run
+ * in place of the forward figures (issue 13 §11). Nothing when no meter run flowed in reverse.
+ */
+export function siteDirections(runs: MeterRunMonth[]): { reverse?: PeriodReverse; net?: PeriodNet } {
+  const parts = runs.flatMap((r) => (r.reverse ? [r.reverse] : []));
+  if (!parts.length) return {};
+  const add = (pick: (p: PeriodReverse) => number) => parts.reduce((a, p) => a + pick(p), 0);
+  const reverse: PeriodReverse = {
+    flowTimeS: add((p) => p.flowTimeS),
+    massKg: add((p) => p.massKg),
+    volumeM3: add((p) => p.volumeM3),
+    standardVolumeM3: add((p) => p.standardVolumeM3),
+    energyJ: parts.some((p) => p.energyJ === null) ? null : add((p) => p.energyJ ?? 0),
+  };
+  const forward = (pick: (r: MeterRunMonth) => number | null) => runs.reduce((a, r) => a + (pick(r) ?? 0), 0);
+  const net = netOf(
+    {
+      massKg: forward((r) => r.massKg),
+      volumeM3: forward((r) => r.volumeM3),
+      standardVolumeM3: forward((r) => r.standardVolumeM3),
+      energyJ: runs.some((r) => r.energyJ === null) ? null : forward((r) => r.energyJ),
+    },
+    reverse,
+  );
+  return net ? { reverse, net } : { reverse };
 }
