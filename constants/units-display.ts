@@ -147,7 +147,8 @@ export function temperatureFromDisplay(value: number, set: DisplayUnitSet): numb
 
 /** A reading's transmitter: what it measures and how it reports. */
 export interface ReadingSource {
-  measures: 'differential-pressure' | 'static-pressure' | 'temperature';
+  /** 'flow-direction': a bi-directional meter run's direction input, read as a plain sign (> 0 forward). */
+  measures: 'differential-pressure' | 'static-pressure' | 'temperature' | 'flow-direction';
   unit: string;
   pressureReference?: 'absolute' | 'gauge';
 }
@@ -166,6 +167,7 @@ export function readingForDisplay(
   set: DisplayUnitSet,
   atmosphericPressurePa: number,
 ): number {
+  if (source.measures === 'flow-direction') return value;
   if (source.measures === 'temperature') return temperatureForDisplay(toSI(value, source.unit), set);
   if (source.measures === 'differential-pressure') return differentialPressureForDisplay(toSI(value, source.unit), set);
   const absolutePa = absolutePressurePa(
@@ -183,6 +185,7 @@ export function readingForDisplay(
  * @returns the unit its readings are shown in
  */
 export function displayUnitFor(source: Pick<ReadingSource, 'measures'>, set: DisplayUnitSet): string {
+  if (source.measures === 'flow-direction') return 'sign';
   if (source.measures === 'temperature') return set.temperature.label;
   if (source.measures === 'differential-pressure') return set.differentialPressure.label;
   return set.staticPressure.label;

@@ -12,10 +12,11 @@ import { AppText } from '@/components/ui/AppText';
 import { StateBadge } from '@/components/ui/StateBadge';
 import { colors, radius, space } from '@/constants/theme';
 import type { LiveBoardRow } from '@/hooks/api/live';
+import { useMeterRuns } from '@/hooks/api/meterRuns';
 import { formatClock } from '@/shared/format/time';
 import type { RunAlarms } from './boardOrder';
 import { DpShareBar } from './DpShareBar';
-import { flowFigures, type DisplayUnits, type FluidFamily } from './flowFigures';
+import { directionWords, flowFigures, type DisplayUnits, type FluidFamily } from './flowFigures';
 import { formatAge, formatFigure } from './formatFigure';
 import type { RunState } from './runStates';
 
@@ -60,12 +61,15 @@ export function LiveRunCard({ row, family, displayUnits, ageS, states, alarms, w
   const figures = flowFigures(row, family, displayUnits);
   const abnormal = states.length > 0 || Boolean(alarms?.worst);
   const testID = `live-run-${row.tag}`;
+  // The board's own list of meter runs (one cached query): is this one bi-directional now?
+  const runs = useMeterRuns();
+  const bidirectional = runs.data?.find((r) => r.id === row.meterRunId)?.reverseElement !== undefined;
+  const direction = directionWords(row.direction, bidirectional);
 
   return (
     <Link href={`/meter-runs/${encodeURIComponent(row.meterRunId)}`} asChild>
       <Pressable
         testID={testID}
-        aria-label={`${row.tag} ${row.name}: open the meter run`}
         onHoverIn={() => setHovered(true)}
         onHoverOut={() => setHovered(false)}
         onFocus={() => setFocused(true)}
@@ -130,6 +134,11 @@ export function LiveRunCard({ row, family, displayUnits, ageS, states, alarms, w
             {figures.rate === null ? (
               <AppText variant="caption" tone="muted">
                 No live rate
+              </AppText>
+            ) : null}
+            {direction ? (
+              <AppText variant={row.direction === 'reverse' ? 'bodyStrong' : 'label'} testID={`${testID}-direction`}>
+                {direction}
               </AppText>
             ) : null}
           </View>

@@ -100,3 +100,19 @@ export function flowFigures(flow: LiveFlow, family: FluidFamily, units: DisplayU
     energy,
   };
 }
+
+/** The live board's direction of a meter run (issue 13 §11): the rates are positive either way. */
+export type FlowDirection = 'forward' | 'reverse' | null | undefined;
+
+/**
+ * The direction of flow in words with an arrow, never a bare sign: "→ Forward flow" or "← Reverse
+ * flow". A one-way meter run says so only when it sees reverse flow (that is its alarm's matter).
+ * @param direction the board row's direction
+ * @param bidirectional whether the meter run is bi-directional now
+ * @returns the words, or null when there is nothing to say
+ */
+export function directionWords(direction: FlowDirection, bidirectional: boolean): string | null {
+  if (direction === 'reverse') return bidirectional ? '← Reverse flow' : '← Reverse flow on a one-way meter run';
+  if (!bidirectional) return null;
+  return direction === 'forward' ? '→ Forward flow' : 'No flow direction now (no flow or no fresh reading)';
+}

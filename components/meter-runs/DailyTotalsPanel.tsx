@@ -10,6 +10,7 @@ import { DataTable, type DataColumn } from '@/components/ui/DataTable';
 import { Panel } from '@/components/ui/Panel';
 import { QueryState } from '@/components/ui/QueryState';
 import { formatNumber, unitsFor } from '@/constants/units-display';
+import { useMeterRun } from '@/hooks/api/meterRuns';
 import type { Site } from '@/hooks/api/sites';
 import { useTotals } from '@/hooks/api/totals';
 import { contractDayBounds, contractDayOf } from '@/shared/history/contract-day';
@@ -17,7 +18,14 @@ import { latestContractDays } from './contractDayLabels';
 import { FlagList } from './FlagList';
 import { RecordVersionsView, VersionMarker, versionColumn } from './RecordVersionsView';
 import { formatSiteTime } from './siteTime';
-import { coverageTitle, totalCells, uncertaintyTitle } from './totalCells';
+import {
+  coverageTitle,
+  directionCells,
+  directionColumns,
+  forwardTitle,
+  totalCells,
+  uncertaintyTitle,
+} from './totalCells';
 
 const days = 31;
 const dayMs = 86_400_000;
@@ -45,14 +53,19 @@ export function DailyTotalsPanel({ meterRunId, site }: { meterRunId: string; sit
   const totals = useTotals(meterRunId, 'day', period.from, period.to);
   const [opened, setOpened] = useState<string | null>(null);
   const set = unitsFor(site.displayUnits);
+  // A bi-directional meter run (now, or on any day shown) gets forward, reverse and net as separate columns.
+  const run = useMeterRun(meterRunId);
+  const bidirectional = run.data?.reverseElement !== undefined || (totals.data ?? []).some((t) => t.reverse);
+  const forward = (title: string) => (bidirectional ? forwardTitle(title) : title);
 
   const columns: DataColumn[] = [
     { key: 'day', title: 'Contract day', width: 120 },
     { key: 'hours', title: 'Hours', width: 56 },
-    { key: 'flowTime', title: 'Flow time, h', width: 80 },
-    { key: 'mass', title: `Mass, ${set.mass.label}`, width: 104 },
-    { key: 'volume', title: `Volume at base, ${set.standardVolume.label}`, width: 112 },
-    { key: 'energy', title: `Energy, ${set.energy.label}`, width: 100 },
+    { key: 'flowTime', title: forward('Flow time, h'), width: 80 },
+    { key: 'mass', title: forward(`Mass, ${set.mass.label}`), width: 104 },
+    { key: 'volume', title: forward(`Volume at base, ${set.standardVolume.label}`), width: 112 },
+    { key: 'energy', title: forward(`Energy, ${set.energy.label}`), width: 100 },
+    ...(bidirectional ? directionColumns(set, 'h') : []),
     { key: 'coverage', title: coverageTitle, width: 80 },
     { key: 'flags', title: 'Flags', width: 150, align: 'left' },
     { key: 'uncertainty', title: uncertaintyTitle, width: 88 },
@@ -68,6 +81,7 @@ export function DailyTotalsPanel({ meterRunId, site }: { meterRunId: string; sit
       hours: String(total.hours),
       flowTime: formatNumber(total.flowTimeS / 3600, 3),
       ...totalCells(total, set),
+      ...(bidirectional ? directionCells(total, set, 'h') : {}),
       flags: <FlagList flags={total.flags} />,
       versions: (
         <VersionMarker
@@ -119,7 +133,7 @@ export function DailyTotalsPanel({ meterRunId, site }: { meterRunId: string; sit
         />
       ) : null}
       <AppText variant="caption" tone="muted">
-        {`Each contract day starts at ${String(site.contractHour).padStart(2, '0')}:00 site time (23 or 25 hours on clock-change days). Volume at base conditions. A day with nothing recorded shows zero with coverage 0. U: expanded uncertainty (k = 2). A version marker (v2, v3…) shows a day recomputed since it was first totalled: open it to compare the first and current figures.`}
+        {`Each contract day starts at ${String(site.contractHour).padStart(2, '0')}:00 site time (23 or 25 hours on clock-change days). Volume at base conditions. A day with nothing recorded shows zero with coverage 0. U: expanded uncertainty (k = 2). A version marker (v2, v3…) shows a day recomputed since it was first totalled: open it to compare the first and current figures.${bidirectional ? ' Bi-directional meter run: forward and reverse flow are totalled apart; net is forward − reverse, shown as its own figure.' : ''}`}
       </AppText>
     </Panel>
   );

@@ -22,6 +22,7 @@ import {
   temperatureForDisplay,
   unitsFor,
 } from '@/constants/units-display';
+import { useMeterRun } from '@/hooks/api/meterRuns';
 import { useHourlyRecords } from '@/hooks/api/totals';
 import type { Site } from '@/hooks/api/sites';
 import { formatContractDay } from '@/shared/format/time';
@@ -29,7 +30,14 @@ import { contractDayBounds, contractDayOf } from '@/shared/history/contract-day'
 import { FlagList } from './FlagList';
 import { RecordVersionsView, VersionMarker, versionColumn } from './RecordVersionsView';
 import { formatSiteTime } from './siteTime';
-import { coverageTitle, totalCells, uncertaintyTitle } from './totalCells';
+import {
+  coverageTitle,
+  directionCells,
+  directionColumns,
+  forwardTitle,
+  totalCells,
+  uncertaintyTitle,
+} from './totalCells';
 import { UncertaintyBudgetView } from './UncertaintyBudgetView';
 
 interface HourlyRecordsPanelProps {
@@ -50,13 +58,18 @@ export function HourlyRecordsPanel({ meterRunId, site }: HourlyRecordsPanelProps
   const [budgetHour, setBudgetHour] = useState<string | null>(null);
   const budgetRecord = budgetHour ? records.data?.find((r) => r.start === budgetHour) : undefined;
   const set = unitsFor(site.displayUnits);
+  // A bi-directional meter run's records keep forward and reverse apart: separate columns, net as its own.
+  const run = useMeterRun(meterRunId);
+  const bidirectional = run.data?.reverseElement !== undefined || (records.data ?? []).some((r) => r.reverse);
+  const forward = (title: string) => (bidirectional ? forwardTitle(title) : title);
 
   const columns: DataColumn[] = [
     { key: 'start', title: 'Start', width: 60 },
-    { key: 'flowTime', title: 'Flow time, min', width: 72 },
-    { key: 'mass', title: `Mass, ${set.mass.label}`, width: 92 },
-    { key: 'volume', title: `Volume at base, ${set.standardVolume.label}`, width: 104 },
-    { key: 'energy', title: `Energy, ${set.energy.label}`, width: 92 },
+    { key: 'flowTime', title: forward('Flow time, min'), width: 72 },
+    { key: 'mass', title: forward(`Mass, ${set.mass.label}`), width: 92 },
+    { key: 'volume', title: forward(`Volume at base, ${set.standardVolume.label}`), width: 104 },
+    { key: 'energy', title: forward(`Energy, ${set.energy.label}`), width: 92 },
+    ...(bidirectional ? directionColumns(set, 'min') : []),
     { key: 'dp', title: `DP avg, ${set.differentialPressure.label}`, width: 100 },
     { key: 'pressure', title: `P avg, ${set.staticPressure.label}`, width: 84 },
     { key: 'temperature', title: `T avg, ${set.temperature.label}`, width: 68 },
@@ -81,6 +94,7 @@ export function HourlyRecordsPanel({ meterRunId, site }: HourlyRecordsPanelProps
           : `${formatSiteTime(record.start, site.timeZone, 'HH:mm')}–${formatSiteTime(record.end, site.timeZone, 'HH:mm')}`,
         flowTime: formatNumber(record.flowTimeS / 60, 3),
         ...cells,
+        ...(bidirectional ? directionCells(record, set, 'min') : {}),
         uncertainty: record.uncertaintyBudget?.length ? (
           <Button
             label={`${cells.uncertainty} ▸`}
@@ -170,6 +184,9 @@ export function HourlyRecordsPanel({ meterRunId, site }: HourlyRecordsPanelProps
         Averages are flow-dependent: taken over the flowing time, with no-flow time left out. U: expanded uncertainty (k
         = 2) of the hour's quantity; open it for its budget. Provisional: the hour is not over yet; closed: its month is
         locked. Times on the site's clock.
+        {bidirectional
+          ? ' Bi-directional meter run: averages, IV, IMV and U are of forward flow; reverse flow is kept apart, and net (forward − reverse) is its own figure.'
+          : ''}
       </AppText>
     </Panel>
   );

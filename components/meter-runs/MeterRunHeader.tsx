@@ -33,6 +33,12 @@ const measuresLabel: Record<Transmitter['measures'], string> = {
   'differential-pressure': 'Differential pressure',
   'static-pressure': 'Static pressure',
   temperature: 'Temperature',
+  'flow-direction': 'Flow direction input',
+};
+/** How a bi-directional meter run knows which way it flows, in words. */
+const directionSourceWords: Record<NonNullable<MeterRun['directionSource']>, string> = {
+  'dp-sign': 'Sign of the DP',
+  'direction-input': 'Direction input',
 };
 const roleLabel: Record<Transmitter['stackRole'], string> = {
   single: 'single',
@@ -53,7 +59,7 @@ const lineLabels: Record<string, string> = {
   approvals: 'Approvals',
   installDate: 'Installed',
   expectedServiceLifeYears: 'Expected service life (years)',
-  bidirectional: 'Bidirectional',
+  bidirectional: 'Flow in both directions',
 };
 
 const transmitterColumns: DataColumn[] = [
@@ -79,6 +85,8 @@ export function MeterRunHeader({ run, site, transmitters, today }: MeterRunHeade
     m === undefined ? '—' : `${formatNumber(m / set.length.metresPerUnit)} ${set.length.label}`;
   const element = run.element;
   const beta = element ? betaOf(element) : null;
+  const reverseElement = run.reverseElement;
+  const reverseBeta = reverseElement ? betaOf(reverseElement) : null;
   const lineEntries = Object.entries(run.line).filter(
     ([, value]) => value !== undefined && value !== null && value !== '',
   );
@@ -142,7 +150,10 @@ export function MeterRunHeader({ run, site, transmitters, today }: MeterRunHeade
               value={`${formatNumber(fromSI(site.basePressurePa, set.staticPressure.unit))} ${set.staticPressure.gauge ? 'psia' : set.staticPressure.label}, ${formatNumber(fromSI(site.baseTemperatureK, set.temperature.unit))} ${set.temperature.label}`}
             />
           ) : null}
-          <Fact label="Primary element" value={element ? elementName(element) : 'not configured'} />
+          <Fact
+            label={reverseElement ? 'Primary element (forward)' : 'Primary element'}
+            value={element ? elementName(element) : 'not configured'}
+          />
           <Fact label="β" value={beta === null ? '—' : beta.toFixed(4)} />
           <Fact label="Pipe D" value={length(element?.pipeDiameterM)} />
           {element?.kind === 'cone' ? (
@@ -155,6 +166,16 @@ export function MeterRunHeader({ run, site, transmitters, today }: MeterRunHeade
           ) : null}
           {element?.calibration ? (
             <Fact label="Calibration" value={`${element.calibration.length} points of C against Re_D`} />
+          ) : null}
+          {reverseElement ? <Fact label="Flow" value="Bi-directional" /> : null}
+          {reverseElement ? (
+            <Fact label="Direction from" value={directionSourceWords[run.directionSource ?? 'dp-sign']} />
+          ) : null}
+          {reverseElement ? (
+            <Fact
+              label="Reverse element"
+              value={`${elementName(reverseElement)}, β ${reverseBeta === null ? '—' : reverseBeta.toFixed(4)}${reverseElement.dischargeCoefficient !== undefined ? `, C ${reverseElement.dischargeCoefficient} (fixed)` : ''}${reverseElement.calibration ? `, ${reverseElement.calibration.length} points of C against Re_D` : ''}`}
+            />
           ) : null}
           <Fact label="Fluid" value={run.fluid ? fluidName(run.fluid) : '—'} />
           <Fact label="Hold limit · gap limit" value={`${run.holdLimitS} s · ${run.maxGapS} s`} />

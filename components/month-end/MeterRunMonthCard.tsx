@@ -10,11 +10,13 @@ import { Panel } from '@/components/ui/Panel';
 import { space } from '@/constants/theme';
 import type { DisplayUnits } from '@/constants/units-display';
 import type { MonthFigures } from '@/hooks/api/monthlyVolumes';
+import { directionHeaders, directionMonthCells, forwardHeader, type DirectionParts } from './directionFigures';
 import { monthCells, monthHeaders } from './monthFormat';
 
 interface Props {
   title: string;
-  figures: MonthFigures;
+  /** A bi-directional meter run's month also carries its reverse and net figures. */
+  figures: MonthFigures & DirectionParts;
   displayUnits: DisplayUnits;
   onOpenDays?: () => void;
   testID?: string;
@@ -23,9 +25,20 @@ interface Props {
 export function MeterRunMonthCard({ title, figures, displayUnits, onOpenDays, testID }: Props) {
   const h = monthHeaders(displayUnits);
   const c = monthCells(figures, displayUnits);
+  const bidirectional = figures.reverse !== undefined;
+  const d = directionHeaders(displayUnits);
+  const r = directionMonthCells(figures, displayUnits);
   const lines: [string, string][] = [
-    [h.standardVolume, c.standardVolume],
-    [h.mass, c.mass],
+    [bidirectional ? forwardHeader(h.standardVolume) : h.standardVolume, c.standardVolume],
+    [bidirectional ? forwardHeader(h.mass) : h.mass, c.mass],
+    ...(bidirectional
+      ? ([
+          [d.reverseStandardVolume, r.reverseStandardVolume],
+          [d.reverseMass, r.reverseMass],
+          [d.netStandardVolume, r.netStandardVolume],
+          [d.netMass, r.netMass],
+        ] as [string, string][])
+      : []),
     [h.volume, c.volume],
     [h.energy, c.energy],
     [h.coverage, c.coverage],

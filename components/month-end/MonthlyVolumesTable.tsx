@@ -3,6 +3,7 @@ import { AppText } from '@/components/ui/AppText';
 import { Button } from '@/components/ui/Button';
 import { DataTable, type DataColumn, type DataRow } from '@/components/ui/DataTable';
 import type { MonthlyVolumes } from '@/hooks/api/monthlyVolumes';
+import { directionHeaders, directionMonthCells, forwardHeader } from './directionFigures';
 import { monthCells, monthHeaders } from './monthFormat';
 
 export function MonthlyVolumesTable({
@@ -14,10 +15,25 @@ export function MonthlyVolumesTable({
 }) {
   const units = volumes.site.displayUnits;
   const h = monthHeaders(units);
+  // Forward, reverse and net as separate columns once a meter run of the month flowed in reverse.
+  const bidirectional = volumes.meterRuns.some((r) => r.reverse);
+  const d = directionHeaders(units);
   const columns: DataColumn[] = [
     { key: 'run', title: 'Meter run', width: 104 },
-    { key: 'standardVolume', title: h.standardVolume, width: 108 },
-    { key: 'mass', title: h.mass, width: 92 },
+    {
+      key: 'standardVolume',
+      title: bidirectional ? forwardHeader(h.standardVolume) : h.standardVolume,
+      width: 108,
+    },
+    { key: 'mass', title: bidirectional ? forwardHeader(h.mass) : h.mass, width: 92 },
+    ...(bidirectional
+      ? [
+          { key: 'reverseStandardVolume', title: d.reverseStandardVolume, width: 108 },
+          { key: 'reverseMass', title: d.reverseMass, width: 92 },
+          { key: 'netStandardVolume', title: d.netStandardVolume, width: 124 },
+          { key: 'netMass', title: d.netMass, width: 104 },
+        ]
+      : []),
     { key: 'volume', title: h.volume, width: 92 },
     { key: 'energy', title: h.energy, width: 92 },
     { key: 'coverage', title: h.coverage, width: 84 },
@@ -35,6 +51,7 @@ export function MonthlyVolumesTable({
     cells: {
       run: r.tag,
       ...monthCells(r, units),
+      ...(bidirectional ? directionMonthCells(r, units) : {}),
       days: (
         <Button
           label="Days"
@@ -52,6 +69,8 @@ export function MonthlyVolumesTable({
     cells: {
       run: <AppText variant="bodyStrong">Site total</AppText>,
       ...monthCells(volumes.totals, units),
+      // The site's reverse and net are not totalled by the server: left blank rather than guessed.
+      ...(bidirectional ? { reverseStandardVolume: '', reverseMass: '', netStandardVolume: '', netMass: '' } : {}),
       days: null,
     },
   });

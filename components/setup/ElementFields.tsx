@@ -92,6 +92,14 @@ export const elementFieldLabels: Record<string, string> = {
   'element.referenceTemperatureK': 'Reference temperature',
 };
 
+/** The same labels for the element's constants in reverse flow (a bi-directional meter run). */
+export const reverseElementFieldLabels: Record<string, string> = Object.fromEntries(
+  Object.entries(elementFieldLabels).map(([path, label]) => [
+    path.replace(/^element\./, 'reverseElement.'),
+    `Reverse flow: ${label.charAt(0).toLowerCase()}${label.slice(1)}`,
+  ]),
+);
+
 /** β and geometry warnings of a complete element, or null while the draft is not one yet. */
 function geometryOf(draft: ElementDraft): { beta: number; warnings: string[] } | null {
   const parsed = elementSpecSchema.safeParse(elementFromDraft(draft));
@@ -111,15 +119,17 @@ interface ElementFieldsProps {
   errors: FieldErrors;
   /** Test ids start with this, e.g. "run-create". */
   testPrefix: string;
+  /** The body field the element goes in: 'element', or 'reverseElement' on a bi-directional meter run. */
+  field?: 'element' | 'reverseElement';
 }
 
-export function ElementFields({ draft, onChange, errors, testPrefix }: ElementFieldsProps) {
+export function ElementFields({ draft, onChange, errors, testPrefix, field = 'element' }: ElementFieldsProps) {
   const set =
     <K extends keyof ElementDraft>(key: K) =>
     (value: ElementDraft[K]) =>
       onChange({ ...draft, [key]: value });
-  const id = (key: string) => fieldTestID(testPrefix, `element.${key}`);
-  const error = (key: string) => errorFor(errors, `element.${key}`);
+  const id = (key: string) => fieldTestID(testPrefix, `${field}.${key}`);
+  const error = (key: string) => errorFor(errors, `${field}.${key}`);
   const geometry = geometryOf(draft);
   const changeLengthUnit = (unit: LengthUnit) => {
     const convert = (text: string) =>

@@ -25,9 +25,11 @@ interface LineFieldsProps {
   onChange: (draft: LineDraft) => void;
   errors: FieldErrors;
   testPrefix: string;
+  /** False where the form asks it in its own "Flow direction" section, with the reverse element. */
+  showBidirectional?: boolean;
 }
 
-export function LineFields({ draft, onChange, errors, testPrefix }: LineFieldsProps) {
+export function LineFields({ draft, onChange, errors, testPrefix, showBidirectional = true }: LineFieldsProps) {
   const set =
     <K extends keyof LineDraft>(key: K) =>
     (value: LineDraft[K]) =>
@@ -114,16 +116,18 @@ export function LineFields({ draft, onChange, errors, testPrefix }: LineFieldsPr
         multiline
         numberOfLines={2}
       />
-      <ChoiceGroup
-        label="Flow in both directions (bidirectional)"
-        options={[
-          { value: 'no', label: 'No' },
-          { value: 'yes', label: 'Yes' },
-        ]}
-        value={draft.bidirectional}
-        onChange={set('bidirectional')}
-        testIDPrefix={id('bidirectional')}
-      />
+      {showBidirectional ? (
+        <ChoiceGroup
+          label="Flow in both directions (bi-directional)"
+          options={[
+            { value: 'no', label: 'No' },
+            { value: 'yes', label: 'Yes' },
+          ]}
+          value={draft.bidirectional}
+          onChange={set('bidirectional')}
+          testIDPrefix={id('bidirectional')}
+        />
+      ) : null}
     </View>
   );
 }

@@ -14,8 +14,16 @@ import { useCreateMeterRun, type MeterRun } from '@/hooks/api/meterRuns';
 import type { Site } from '@/hooks/api/sites';
 import { meterRunSchema } from '@/shared/schemas/setup';
 import { ElementAndFluidSections } from './ElementAndFluidSections';
-import { elementFieldLabels } from './ElementFields';
-import { elementFromDraft, emptyElementDraft, type ElementDraft } from './elementDraft';
+import { elementFieldLabels, reverseElementFieldLabels } from './ElementFields';
+import {
+  elementFromDraft,
+  emptyElementDraft,
+  emptyReverseDraft,
+  REVERSE_COPY_UNCONFIRMED,
+  reverseFromDraft,
+  type ElementDraft,
+  type ReverseDraft,
+} from './elementDraft';
 import { FieldRow } from './FieldRow';
 import { fluidFieldLabels } from './FluidFields';
 import { emptyFluidDraft, fluidFromDraft, type FluidDraft } from './fluidDraft';
@@ -31,6 +39,7 @@ import {
 } from './formFields';
 import { emptyLineDraft, LineFields, lineFieldLabels, lineFromDraft, type LineDraft } from './LineFields';
 import { NumberField } from './NumberField';
+import { ReverseFlowSection } from './ReverseFlowSection';
 import { zonedIso } from './zonedTime';
 
 interface RunDraft {
@@ -68,6 +77,9 @@ const labels: Record<string, string> = {
   ...elementFieldLabels,
   ...fluidFieldLabels,
   ...lineFieldLabels,
+  reverseElement: 'Element in reverse flow',
+  directionSource: 'Direction of flow from',
+  ...reverseElementFieldLabels,
 };
 
 const fractionPerPercent = 0.01;
@@ -90,6 +102,7 @@ export function MeterRunForm({ site, onDone }: MeterRunFormProps) {
     ...emptyLineDraft,
     lengthUnit: site.displayUnits === 'us' ? 'in' : 'mm',
   }));
+  const [reverse, setReverse] = useState<ReverseDraft>(emptyReverseDraft);
   const [errors, setErrors] = useState<FieldErrors>({});
   const [added, setAdded] = useState<string | null>(null);
 
@@ -118,10 +131,15 @@ export function MeterRunForm({ site, onDone }: MeterRunFormProps) {
       stackSwitchDownShare: down === undefined ? undefined : down * fractionPerPercent,
       line: lineFromDraft(line),
       effectiveFrom: effectiveDate ? zonedIso(effectiveDate, run.effectiveTime, site.timeZone) : undefined,
+      ...reverseFromDraft(line.bidirectional === 'yes', reverse),
     };
     const parsed = meterRunSchema.safeParse(body);
-    if (!parsed.success) {
-      setErrors(fieldErrorsFromZod(parsed.error));
+    const unconfirmed = line.bidirectional === 'yes' && reverse.copiedUnconfirmed;
+    if (!parsed.success || unconfirmed) {
+      setErrors({
+        ...(parsed.success ? {} : fieldErrorsFromZod(parsed.error)),
+        ...(unconfirmed ? { reverseElement: REVERSE_COPY_UNCONFIRMED } : {}),
+      });
       return;
     }
     setErrors({});
@@ -129,6 +147,7 @@ export function MeterRunForm({ site, onDone }: MeterRunFormProps) {
       onSuccess: (created) => {
         setAdded(`Added ${created.tag} · ${created.name}. Add its transmitters next.`);
         setRun(emptyRunDraft);
+        setReverse(emptyReverseDraft);
         onDone?.(created);
       },
     });
@@ -184,6 +203,22 @@ export function MeterRunForm({ site, onDone }: MeterRunFormProps) {
         testPrefix={prefix}
         titles={{ element: 'Primary element', fluid: 'Fluid' }}
         sectionTestIDs={{ element: `${prefix}-element`, fluid: `${prefix}-fluid` }}
+      />
+
+      <ReverseFlowSection
+        bidirectional={line.bidirectional}
+        onBidirectionalChange={(bidirectional) => {
+          setLine((current) => ({ ...current, bidirectional }));
+          touched();
+        }}
+        forward={element}
+        reverse={reverse}
+        onReverseChange={(next) => {
+          setReverse(next);
+          touched();
+        }}
+        errors={shown}
+        testPrefix={prefix}
       />
 
       <FormSection
@@ -265,6 +300,7 @@ export function MeterRunForm({ site, onDone }: MeterRunFormProps) {
           }}
           errors={shown}
           testPrefix={prefix}
+          showBidirectional={false}
         />
       </FormSection>
 

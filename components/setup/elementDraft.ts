@@ -168,3 +168,38 @@ export function describeElement(element: ElementSpec | undefined, lengthUnit: Le
     element.kind === 'cone' ? `cone ${length(element.coneDiameterM)}` : `d ${length(element.boreDiameterM)}`;
   return [element.kind, subtype, `D ${length(element.pipeDiameterM)}`, inner].filter(Boolean).join(', ');
 }
+
+/** How a bi-directional meter run knows the direction of flow (shared/schemas/setup.ts directionSources). */
+export type DirectionSource = 'dp-sign' | 'direction-input';
+
+/**
+ * A bi-directional meter run's reverse flow as typed: the element's constants in reverse flow
+ * (null until the person starts them), whether they were copied from the forward element and not
+ * yet confirmed, and where the direction comes from.
+ */
+export interface ReverseDraft {
+  element: ElementDraft | null;
+  copiedUnconfirmed: boolean;
+  directionSource: DirectionSource;
+}
+
+export const emptyReverseDraft: ReverseDraft = { element: null, copiedUnconfirmed: false, directionSource: 'dp-sign' };
+
+/** The message when copied reverse constants are sent without the person confirming them. */
+export const REVERSE_COPY_UNCONFIRMED =
+  'copied from the forward element and not confirmed yet: check them against the reverse-flow data sheet or certificate, then press "Confirm reverse constants"';
+
+/**
+ * @param bidirectional whether "Flow in both directions" is yes
+ * @param reverse the reverse-flow draft
+ * @returns the body fields reverseElement and directionSource (none on a one-way meter run; no
+ * reverseElement while none was started, so the schema names the missing field)
+ */
+export function reverseFromDraft(
+  bidirectional: boolean,
+  reverse: ReverseDraft,
+): { reverseElement?: Partial<ElementSpec>; directionSource?: DirectionSource } {
+  if (!bidirectional) return {};
+  if (reverse.element === null) return {};
+  return { reverseElement: elementFromDraft(reverse.element), directionSource: reverse.directionSource };
+}

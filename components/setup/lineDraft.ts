@@ -52,7 +52,7 @@ export const lineFieldLabels: Record<string, string> = {
   'line.approvals': 'Approvals',
   'line.installDate': 'Install date',
   'line.expectedServiceLifeYears': 'Expected service life',
-  'line.bidirectional': 'Bidirectional',
+  'line.bidirectional': 'Flow in both directions',
 };
 
 type Line = MeterRunInput['line'];

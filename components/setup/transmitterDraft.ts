@@ -37,6 +37,7 @@ export function emptyDraft(us: boolean): TransmitterDraft {
 
 /** The unit a transmitter of this kind starts in on a site of these units. */
 export function defaultUnit(what: Measures, us: boolean): TransmitterUnitCode {
+  if (what === 'flow-direction') return 'sign';
   if (what === 'temperature') return us ? 'degF' : 'degC';
   if (what === 'static-pressure') return us ? 'psi' : 'bar';
   return us ? 'inH2O-60F' : 'kPa';

@@ -3,10 +3,11 @@
  * Inches of water name their water temperature: the column's density differs by 0.2 % between
  * 4 °C and 20 °C (TRADE.md §4).
  */
-import { pressureUnits, temperatureUnits, type measures } from '@/shared/schemas/setup';
+import { directionUnits, pressureUnits, temperatureUnits, type transmitterMeasures } from '@/shared/schemas/setup';
 
-export type Measures = (typeof measures)[number];
-export type TransmitterUnitCode = (typeof pressureUnits)[number] | (typeof temperatureUnits)[number];
+export type Measures = (typeof transmitterMeasures)[number];
+export type TransmitterUnitCode =
+  (typeof pressureUnits)[number] | (typeof temperatureUnits)[number] | (typeof directionUnits)[number];
 
 export const unitLabel: Record<TransmitterUnitCode, string> = {
   Pa: 'Pa',
@@ -21,6 +22,7 @@ export const unitLabel: Record<TransmitterUnitCode, string> = {
   K: 'K',
   degC: '°C',
   degF: '°F',
+  sign: 'sign (+ forward, − reverse)',
 };
 
 /**
@@ -28,6 +30,7 @@ export const unitLabel: Record<TransmitterUnitCode, string> = {
  * @returns the unit codes it may be ranged in
  */
 export function unitsFor(what: Measures): readonly TransmitterUnitCode[] {
+  if (what === 'flow-direction') return directionUnits;
   return what === 'temperature' ? temperatureUnits : pressureUnits;
 }
 
@@ -35,6 +38,7 @@ export const measuresLabel: Record<Measures, string> = {
   'differential-pressure': 'Differential pressure (DP)',
   'static-pressure': 'Static pressure',
   temperature: 'Temperature',
+  'flow-direction': 'Flow direction input',
 };
 
 /** @returns e.g. "0 – 250 inH₂O (60 °F)" */

@@ -50,6 +50,8 @@ export const liveBoardRowSchema = z.object({
   freshnessS: nullableNumber,
   transmitters: z.array(liveTransmitterSchema),
   warnings: z.array(z.string()),
+  /** Which way the meter run flows now (issue 13 §11); the rates above are positive either way. Absent from older servers. */
+  direction: z.enum(['forward', 'reverse']).nullable().optional(),
 });
 export type LiveBoardRow = z.infer<typeof liveBoardRowSchema>;
 

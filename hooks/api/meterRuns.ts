@@ -13,7 +13,12 @@ import { z } from 'zod';
 
 import type { FluidSpec } from '@/shared/fluids';
 import type { ElementSpec } from '@/shared/flow';
-import type { ConfigVersionInput, MeterRunInput, meterRunSchema } from '@/shared/schemas/setup';
+import {
+  directionSources,
+  type ConfigVersionInput,
+  type MeterRunInput,
+  type meterRunSchema,
+} from '@/shared/schemas/setup';
 import { apiRequest } from './client';
 import { liveKeys } from './live';
 import { upsertInList } from './upsertInList';
@@ -51,6 +56,10 @@ export const meterRunResponseSchema = z.object({
   element: elementSchema.optional(),
   fluid: fluidSchema.optional(),
   configVersionId: id.optional(),
+  /** Only on a bi-directional meter run: the element's constants in reverse flow, in effect now. */
+  reverseElement: elementSchema.optional(),
+  /** Only on a bi-directional meter run: how the direction of flow is known. */
+  directionSource: z.enum(directionSources).optional(),
 });
 export type MeterRun = z.infer<typeof meterRunResponseSchema>;
 
@@ -69,6 +78,9 @@ export const configVersionResponseSchema = z.object({
   first: z.boolean().optional(),
   /** On a new version: the computed hours from the one containing its effective time on, queued again. */
   recompute: z.object({ from: z.string(), hours: z.number() }).optional(),
+  /** Only on a bi-directional version. */
+  reverseElement: elementSchema.optional(),
+  directionSource: z.enum(directionSources).optional(),
 });
 export type ConfigVersion = z.infer<typeof configVersionResponseSchema>;
 

@@ -33,6 +33,21 @@ const figures = {
   changeFromYearEarlierPercent: z.number().nullable(),
 };
 
+/** A bi-directional meter run's month: its reverse flow, and net (forward − reverse) as its own figure. */
+const reverseMonthSchema = z.object({
+  flowTimeS: z.number(),
+  massKg: z.number(),
+  volumeM3: z.number(),
+  standardVolumeM3: z.number(),
+  energyJ: z.number().nullable(),
+});
+const netMonthSchema = z.object({
+  massKg: z.number(),
+  volumeM3: z.number(),
+  standardVolumeM3: z.number(),
+  energyJ: z.number().nullable(),
+});
+
 export const monthlyVolumesSchema = z.object({
   site: z.object({
     id: z.string(),
@@ -49,7 +64,16 @@ export const monthlyVolumesSchema = z.object({
   end: z.string(),
   status: z.enum(['provisional', 'complete', 'missing', 'closed']),
   meterRuns: z.array(
-    z.object({ meterRunId: z.string(), tag: z.string(), name: z.string(), version: z.number().nullable(), ...figures }),
+    z.object({
+      meterRunId: z.string(),
+      tag: z.string(),
+      name: z.string(),
+      version: z.number().nullable(),
+      ...figures,
+      /** Only where the meter run flowed in reverse this month; the figures above are forward. */
+      reverse: reverseMonthSchema.optional(),
+      net: netMonthSchema.optional(),
+    }),
   ),
   totals: z.object(figures),
 });

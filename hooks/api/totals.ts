@@ -30,7 +30,31 @@ const totalFields = {
   version: z.number().nullable().optional(),
 };
 
-export const totalSchema = z.object(totalFields);
+/** Net flow, forward − reverse, as its own figure (never in place of forward); energy null when either is. */
+const netSchema = z.object({
+  massKg: z.number(),
+  volumeM3: z.number(),
+  standardVolumeM3: z.number(),
+  energyJ: z.number().nullable(),
+});
+export type NetFlow = z.infer<typeof netSchema>;
+
+/** A period's reverse flow on a bi-directional meter run; the period's own figures are forward. */
+const reverseTotalSchema = z.object({
+  flowTimeS: z.number(),
+  massKg: z.number(),
+  volumeM3: z.number(),
+  standardVolumeM3: z.number(),
+  energyJ: z.number().nullable(),
+});
+export type ReverseTotal = z.infer<typeof reverseTotalSchema>;
+
+export const totalSchema = z.object({
+  ...totalFields,
+  /** Only for a period with reverse flow (a bi-directional meter run). */
+  reverse: reverseTotalSchema.optional(),
+  net: netSchema.optional(),
+});
 export type Total = z.infer<typeof totalSchema>;
 
 export const hourlyRecordSchema = z.object({
@@ -56,6 +80,20 @@ export const hourlyRecordSchema = z.object({
     .array(z.object({ term: z.string(), percent: z.number(), source: z.string() }))
     .nullable()
     .optional(),
+  /** The hour's reverse flow on a bi-directional meter run; null on a one-way run (absent from older servers). */
+  reverse: reverseTotalSchema
+    .extend({
+      averageDpPa: z.number().nullable(),
+      averagePressurePa: z.number().nullable(),
+      averageTemperatureK: z.number().nullable(),
+      integralValue: z.number().nullable(),
+      integralMultiplierValue: z.number().nullable(),
+      uncertaintyPercent: z.number().nullable(),
+      uncertaintyBudget: z.array(z.object({ term: z.string(), percent: z.number(), source: z.string() })),
+    })
+    .nullable()
+    .optional(),
+  net: netSchema.nullable().optional(),
 });
 export type HourlyRecord = z.infer<typeof hourlyRecordSchema>;
 

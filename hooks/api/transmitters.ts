@@ -9,7 +9,7 @@
 import { useMutation, useQuery, useQueryClient, type QueryClient } from '@tanstack/react-query';
 import { z } from 'zod';
 
-import { measures, transmitterUnits, type transmitterSchema } from '@/shared/schemas/setup';
+import { transmitterMeasures, transmitterUnits, type transmitterSchema } from '@/shared/schemas/setup';
 import { apiRequest } from './client';
 import { liveKeys } from './live';
 import { meterRunKeys } from './meterRuns';
@@ -24,7 +24,7 @@ export const transmitterResponseSchema = z.object({
   id,
   meterRunId: id,
   tag: z.string(),
-  measures: z.enum(measures),
+  measures: z.enum(transmitterMeasures),
   /** Unit code the transmitter is ranged in and reports in (shared/units). */
   unit: z.enum(transmitterUnits),
   pressureReference: z.enum(['absolute', 'gauge']),

@@ -6,7 +6,7 @@
 import { keepPreviousData, useQuery } from '@tanstack/react-query';
 import { z } from 'zod';
 
-import { measures, transmitterUnits } from '@/shared/schemas/setup';
+import { transmitterMeasures, transmitterUnits } from '@/shared/schemas/setup';
 import { apiRequest } from './client';
 
 const trendPointSchema = z.object({
@@ -20,7 +20,7 @@ const trendPointSchema = z.object({
 export const trendSeriesSchema = z.object({
   transmitterId: z.union([z.string(), z.number()]).transform(String),
   tag: z.string(),
-  measures: z.enum(measures),
+  measures: z.enum(transmitterMeasures),
   unit: z.enum(transmitterUnits),
   stackRole: z.enum(['single', 'low', 'high']),
   lowerRange: z.number(),
