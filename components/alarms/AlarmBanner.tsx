@@ -92,12 +92,13 @@ export function AlarmBanner() {
                   : `Alarm flood: ${raisedLast10Minutes} raised in 10 min`}
               </AppText>
             ) : null}
-            {compact && newestWords ? (
-              <AppText numberOfLines={1} tone="muted" style={styles.squeeze} testID="alarm-banner-message">
-                {newestWords}
-              </AppText>
-            ) : null}
           </View>
+          {/* Phone: the newest message on a line of its own, cut to one line, so the badges never squeeze it away. */}
+          {compact && newestWords ? (
+            <AppText variant="caption" numberOfLines={1} tone="muted" testID="alarm-banner-message">
+              {newestWords}
+            </AppText>
+          ) : null}
           {!compact && newestWords ? (
             <AppText numberOfLines={2} testID="alarm-banner-message">
               {newestWords}
@@ -128,10 +129,9 @@ const styles = StyleSheet.create({
   hovered: { opacity: 0.92 },
   focused: { outlineColor: colors.focusRing, outlineStyle: 'solid', outlineWidth: 2, outlineOffset: -2 },
   content: { flex: 1, minWidth: 0, gap: space.xxs },
-  /** Phone: never wraps; the newest message gives way first. */
+  /** Phone: badges and count on one line that never wraps; the newest message goes on the line below. */
   oneLine: { flexDirection: 'row', flexWrap: 'nowrap', alignItems: 'center', gap: space.sm, overflow: 'hidden' },
   keep: { flexShrink: 0 },
-  squeeze: { flexShrink: 1, minWidth: 0 },
   line: { flexDirection: 'row', flexWrap: 'wrap', alignItems: 'center', columnGap: space.sm, rowGap: space.xxs },
   chevron: { fontSize: 22 },
 });
