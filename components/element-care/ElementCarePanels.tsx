@@ -4,7 +4,8 @@
  * with its certificate (a download) and next due date, and a small form to record one: its date
  * and time on the site's clock, the certificate file and the next due date. Each may become a
  * configuration version (shown in the configuration history), so a recorded one refreshes the
- * meter run's queries.
+ * meter run's queries. On a bi-directional meter run an element calibration says which flow
+ * direction its curve is for: a reverse curve goes into the reverse constants.
  */
 import { useState } from 'react';
 import { StyleSheet, View } from 'react-native';
@@ -22,6 +23,7 @@ import { Notice } from '@/components/ui/Notice';
 import { Panel } from '@/components/ui/Panel';
 import { TextField } from '@/components/ui/TextField';
 import { space } from '@/constants/theme';
+import { useMeterRun } from '@/hooks/api/meterRuns';
 import { formatDate, formatInstant } from '@/shared/format/time';
 import { CareCertificatePicker } from './CareCertificatePicker';
 import {
@@ -40,7 +42,16 @@ const calibration = careRecordSchema.extend({
   laboratory: z.string(),
   uncertaintyPercent: z.number(),
   points: z.array(z.object({ reynoldsNumber: z.number(), dischargeCoefficient: z.number() })),
+  /** The flow direction the curve is for (absent from older servers: forward). */
+  direction: z.enum(['forward', 'reverse']).optional(),
 });
+
+type FlowDirection = 'forward' | 'reverse';
+const directionOptions: { value: FlowDirection; label: string }[] = [
+  { value: 'forward', label: 'Forward flow' },
+  { value: 'reverse', label: 'Reverse flow' },
+];
+const directionWordsOf: Record<FlowDirection, string> = { forward: 'forward flow', reverse: 'reverse flow' };
 const inspection = careRecordSchema.extend({ inspectedAt: z.string(), kind: z.string(), condition: z.string() });
 
 /** The fields every record shares: when (site clock), why, the certificate and the next due date. */
@@ -248,6 +259,9 @@ export function ElementCalibrationsPanel({ meterRunId }: { meterRunId: string })
   const zone = useMeterRunZone(meterRunId);
   const { list, record } = useCareRecords(meterRunId, 'element-calibrations', 'calibration', calibration);
   const common = useCommonFields(zone);
+  // Only a bi-directional meter run (reverse constants in force) takes a reverse curve; the server refuses one otherwise.
+  const bidirectional = useMeterRun(meterRunId).data?.reverseElement !== undefined;
+  const [direction, setDirection] = useState<FlowDirection>('forward');
   const [laboratory, setLaboratory] = useState('');
   const [uncertainty, setUncertainty] = useState('');
   const [pointsCsv, setPointsCsv] = useState('reynoldsNumber,dischargeCoefficient\n');
@@ -261,6 +275,7 @@ export function ElementCalibrationsPanel({ meterRunId }: { meterRunId: string })
     'nextDue',
     'reason',
     'effectiveFrom',
+    'direction',
   ] as const;
   const submit = () =>
     record.mutate({
@@ -269,6 +284,7 @@ export function ElementCalibrationsPanel({ meterRunId }: { meterRunId: string })
         laboratory,
         uncertaintyPercent: parseNumberText(uncertainty) ?? uncertainty,
         pointsCsv,
+        direction: bidirectional ? direction : 'forward',
       },
       certificate: common.file,
     });
@@ -277,12 +293,13 @@ export function ElementCalibrationsPanel({ meterRunId }: { meterRunId: string })
       <AppText variant="caption" tone="muted">
         A laboratory curve of C against Re_D replaces the element&apos;s C from its date; the certificate&apos;s
         uncertainty of C replaces the default, and hours outside its Re_D range are flagged.
+        {bidirectional ? ' A reverse-flow curve replaces the C of the element in reverse flow only.' : ''}
       </AppText>
       {(list.data ?? []).map((c) => (
         <RecordLine
           key={c.id}
           testID={`element-calibration-${c.id}`}
-          text={`${formatInstant(c.calibratedAt, zone)} · ${c.laboratory} · U(C) ${c.uncertaintyPercent} % · ${c.points.length} points${certificateNumber(c)}`}
+          text={`${formatInstant(c.calibratedAt, zone)} · ${directionWordsOf[c.direction ?? 'forward']} · ${c.laboratory} · U(C) ${c.uncertaintyPercent} % · ${c.points.length} points${certificateNumber(c)}`}
           nextDue={c.nextDue}
           file={c.certificateFile}
         />
@@ -297,6 +314,22 @@ export function ElementCalibrationsPanel({ meterRunId }: { meterRunId: string })
         fields={fields}
         testIDPrefix="element-calibration"
       />
+      {bidirectional ? (
+        <View style={styles.record}>
+          <ChoiceGroup
+            label="Curve for"
+            options={directionOptions}
+            value={direction}
+            onChange={setDirection}
+            testIDPrefix="element-calibration-direction"
+          />
+          {problemOf(record.error, 'direction', fields) ? (
+            <AppText tone="alarm" testID="element-calibration-direction-error">
+              {`⊗ ${problemOf(record.error, 'direction', fields)}`}
+            </AppText>
+          ) : null}
+        </View>
+      ) : null}
       <FieldRow>
         <TextField
           label="Laboratory"

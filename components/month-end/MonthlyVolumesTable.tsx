@@ -69,8 +69,8 @@ export function MonthlyVolumesTable({
     cells: {
       run: <AppText variant="bodyStrong">Site total</AppText>,
       ...monthCells(volumes.totals, units),
-      // The site's reverse and net are not totalled by the server: left blank rather than guessed.
-      ...(bidirectional ? { reverseStandardVolume: '', reverseMass: '', netStandardVolume: '', netMass: '' } : {}),
+      // The server's site reverse (sum of the runs' reverse) and net (site forward − site reverse), never summed here.
+      ...(bidirectional ? directionMonthCells(volumes.totals, units) : {}),
       days: null,
     },
   });

@@ -2,7 +2,10 @@
  * A new configuration version of a meter run: the element and fluid from a given moment on
  * (an element swap, a new gas analysis), with the reason. The form starts from the version in
  * force. A moment in the past recomputes the history from then on, which the form says in
- * words before it is sent.
+ * words before it is sent. A bi-directional meter run's version carries the element's constants
+ * in reverse flow and the direction source too (prefilled from the version in force); leaving
+ * them out makes the run one-way from the version's time, so the form asks for them while
+ * "Flow in both directions" stays yes.
  */
 import { useState } from 'react';
 import { StyleSheet, View } from 'react-native';
@@ -18,24 +21,50 @@ import type { ElementSpec } from '@/shared/flow/flow-types';
 import type { FluidSpec } from '@/shared/fluids/fluid-types';
 import { configVersionSchema } from '@/shared/schemas/setup';
 import { ElementAndFluidSections } from './ElementAndFluidSections';
-import { elementFieldLabels } from './ElementFields';
-import { draftFromElement, elementFromDraft, emptyElementDraft, type ElementDraft } from './elementDraft';
+import { elementFieldLabels, reverseElementFieldLabels } from './ElementFields';
+import {
+  draftFromElement,
+  elementFromDraft,
+  emptyElementDraft,
+  emptyReverseDraft,
+  REVERSE_COPY_UNCONFIRMED,
+  reverseFromDraft,
+  type ElementDraft,
+  type ReverseDraft,
+} from './elementDraft';
 import { FieldRow } from './FieldRow';
 import { fluidFieldLabels } from './FluidFields';
 import { draftFromFluid, emptyFluidDraft, fluidFromDraft, type FluidDraft } from './fluidDraft';
 import { FormErrorSummary } from './FormErrorSummary';
 import { fieldErrorFromServer, fieldErrorsFromZod, fieldTestID, type FieldErrors } from './formFields';
+import { ReverseFlowSection } from './ReverseFlowSection';
 import { formatOnSiteClock, siteClockNow, zonedIso } from './zonedTime';
 
 /** An effective time this little in the past is taken as now, not as a back-dating. */
 const backDatingGraceMs = 5 * 60 * 1000;
+
+/** The server's words when a bi-directional meter run's version has no reverse constants (shared/schemas/setup.ts). */
+const REVERSE_ELEMENT_REQUIRED = "required for a bi-directional meter run: the element's constants in reverse flow";
 
 const labels: Record<string, string> = {
   effectiveFrom: 'Effective from',
   reason: 'Reason',
   ...elementFieldLabels,
   ...fluidFieldLabels,
+  reverseElement: 'Element in reverse flow',
+  directionSource: 'Direction of flow from',
+  ...reverseElementFieldLabels,
 };
+
+/** The reverse-flow draft of the version in force: its reverse constants and direction source, or none on a one-way run. */
+function reverseDraftOf(meterRun: MeterRun, lengthUnit: ElementDraft['lengthUnit']): ReverseDraft {
+  if (!meterRun.reverseElement) return emptyReverseDraft;
+  return {
+    element: draftFromElement(meterRun.reverseElement as ElementSpec, lengthUnit),
+    copiedUnconfirmed: false,
+    directionSource: meterRun.directionSource ?? 'dp-sign',
+  };
+}
 
 interface ConfigVersionFormProps {
   meterRun: MeterRun;
@@ -59,6 +88,8 @@ export function ConfigVersionForm({ meterRun, site, onDone, onCancel }: ConfigVe
   const [fluid, setFluid] = useState<FluidDraft>(() =>
     meterRun.fluid ? draftFromFluid(meterRun.fluid as FluidSpec) : emptyFluidDraft,
   );
+  const [bidirectional, setBidirectional] = useState<'yes' | 'no'>(meterRun.reverseElement ? 'yes' : 'no');
+  const [reverse, setReverse] = useState<ReverseDraft>(() => reverseDraftOf(meterRun, lengthUnit));
   const [errors, setErrors] = useState<FieldErrors>({});
 
   const effectiveFrom = zonedIso(effective.date, effective.time, site.timeZone);
@@ -76,9 +107,22 @@ export function ConfigVersionForm({ meterRun, site, onDone, onCancel }: ConfigVe
       element: elementFromDraft(element),
       fluid: fluidFromDraft(fluid),
       reason,
+      ...reverseFromDraft(bidirectional === 'yes', reverse),
     });
-    if (!parsed.success) {
-      setErrors(fieldErrorsFromZod(parsed.error));
+    // A version without reverse constants makes the run one-way from its time: only when "No" is chosen.
+    const reverseProblem =
+      bidirectional !== 'yes'
+        ? undefined
+        : reverse.element === null
+          ? REVERSE_ELEMENT_REQUIRED
+          : reverse.copiedUnconfirmed
+            ? REVERSE_COPY_UNCONFIRMED
+            : undefined;
+    if (!parsed.success || reverseProblem) {
+      setErrors({
+        ...(parsed.success ? {} : fieldErrorsFromZod(parsed.error)),
+        ...(reverseProblem ? { reverseElement: reverseProblem } : {}),
+      });
       return;
     }
     setErrors({});
@@ -155,6 +199,26 @@ export function ConfigVersionForm({ meterRun, site, onDone, onCancel }: ConfigVe
         errors={shown}
         testPrefix={prefix}
         titles={{ element: 'Primary element from then on', fluid: 'Fluid from then on' }}
+      />
+      <ReverseFlowSection
+        bidirectional={bidirectional}
+        onBidirectionalChange={(next) => {
+          setBidirectional(next);
+          touched();
+        }}
+        forward={element}
+        reverse={reverse}
+        onReverseChange={(next) => {
+          setReverse(next);
+          touched();
+        }}
+        errors={shown}
+        testPrefix={prefix}
+        description={
+          meterRun.reverseElement
+            ? 'From the version in force: bi-directional. Choosing No makes the meter run one-way from this version’s time.'
+            : 'From the version in force: one way. Choosing Yes makes the meter run bi-directional from this version’s time.'
+        }
       />
       <Notice>
         A version dated in the past recomputes this meter run’s hourly records, contract days and monthly totals from

@@ -75,7 +75,8 @@ export const monthlyVolumesSchema = z.object({
       net: netMonthSchema.optional(),
     }),
   ),
-  totals: z.object(figures),
+  /** The site's total; reverse and net (the site's forward − its reverse) only when some meter run flowed in reverse. */
+  totals: z.object({ ...figures, reverse: reverseMonthSchema.optional(), net: netMonthSchema.optional() }),
 });
 export type MonthlyVolumes = z.infer<typeof monthlyVolumesSchema>;
 export type MeterRunMonth = MonthlyVolumes['meterRuns'][number];
