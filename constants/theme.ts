@@ -98,10 +98,14 @@ export const colors = {
   inputBackground: grey[0],
 
   /**
-   * Abnormal states. Used only where something needs attention, always with text and a shape.
-   * `alarmHigh` doubles as the colour of a failed action (a rejected form, a lost connection),
-   * which is an abnormal state of the display itself.
+   * A failed action or a state of the display itself (a rejected form, a lost connection, a figure
+   * outside its tolerance): its own colour, always with the ⊗ mark and words, so that red and the
+   * priority shapes keep meaning one thing — an alarm's priority (ISA-101). Contrast on its surface ≈ 8:1.
    */
+  error: '#6B2D8F',
+  errorSurface: '#F1E8F6',
+
+  /** Alarm priorities only (see alarmStyle), always with text and the priority's shape. */
   alarmHigh: '#B0261B',
   alarmHighSurface: '#F7E3E0',
   alarmMedium: '#A65300',

@@ -82,7 +82,7 @@ export function AlarmBanner() {
             {flood ? (
               <AppText
                 variant="label"
-                tone="alarm"
+                tone="error"
                 numberOfLines={1}
                 style={compact && styles.keep}
                 testID="alarm-banner-flood"

@@ -182,7 +182,7 @@ export function AlarmRow({ alarm, role, timeZone, onActed }: AlarmRowProps) {
         <ShelveDialog
           subject={subject}
           busy={action.isPending}
-          fieldError={problem?.tone === 'alarm' ? problem : null}
+          fieldError={problem?.tone === 'error' ? problem : null}
           onConfirm={(minutes, reason) => run({ kind: 'shelve', minutes, reason })}
           onCancel={() => {
             setDialog(null);
@@ -194,7 +194,7 @@ export function AlarmRow({ alarm, role, timeZone, onActed }: AlarmRowProps) {
         <OutOfServiceDialog
           subject={subject}
           busy={action.isPending}
-          serverError={problem?.tone === 'alarm' ? problem.message : null}
+          serverError={problem?.tone === 'error' ? problem.message : null}
           onConfirm={(reason) => run({ kind: 'out-of-service', reason })}
           onCancel={() => {
             setDialog(null);

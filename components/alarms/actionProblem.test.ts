@@ -18,14 +18,14 @@ describe('actionProblem', () => {
 
   it('says a 403 is the role’s limit', () => {
     expect(actionProblem(new ApiError(403, 'forbidden', 'Forbidden.'))).toEqual({
-      tone: 'alarm',
+      tone: 'error',
       message: 'Your role does not allow this action on alarms.',
     });
   });
 
   it('passes a 400’s field on to the form', () => {
     expect(actionProblem(new ApiError(400, 'invalid_body', 'reason: is required', 'reason'))).toEqual({
-      tone: 'alarm',
+      tone: 'error',
       message: 'reason: is required',
       field: 'reason',
     });
@@ -33,9 +33,9 @@ describe('actionProblem', () => {
 
   it('shows any other failure’s own message', () => {
     expect(actionProblem(new ApiError(0, 'network_error', 'Cannot reach the Tallyrun server.'))).toEqual({
-      tone: 'alarm',
+      tone: 'error',
       message: 'Cannot reach the Tallyrun server.',
     });
-    expect(actionProblem('timeout')).toEqual({ tone: 'alarm', message: 'timeout' });
+    expect(actionProblem('timeout')).toEqual({ tone: 'error', message: 'timeout' });
   });
 });

@@ -7,7 +7,7 @@ import { isApiError } from '@/hooks/api/client';
 
 export interface ActionProblem {
   /** `info` for a 409 (the alarm moved on), `alarm` for anything that really failed. */
-  tone: 'info' | 'alarm';
+  tone: 'info' | 'error';
   message: string;
   /** The form field a 400 names. */
   field?: string;
@@ -35,7 +35,7 @@ export function actionProblem(error: unknown): ActionProblem {
       message: `${conflictWords[error.code] ?? error.message} The list now shows where it stands.`,
     };
   }
-  if (isApiError(error, 403)) return { tone: 'alarm', message: 'Your role does not allow this action on alarms.' };
-  if (isApiError(error, 400)) return { tone: 'alarm', message: error.message, field: error.field };
-  return { tone: 'alarm', message: error instanceof Error ? error.message : String(error) };
+  if (isApiError(error, 403)) return { tone: 'error', message: 'Your role does not allow this action on alarms.' };
+  if (isApiError(error, 400)) return { tone: 'error', message: error.message, field: error.field };
+  return { tone: 'error', message: error instanceof Error ? error.message : String(error) };
 }

@@ -94,7 +94,7 @@ function GroupBalance({
       />
       {balance.data ? (
         <>
-          <AppText tone={outside ? 'alarm' : 'default'} testID={`balance-summary-${group.id}`}>
+          <AppText tone={outside ? 'error' : 'default'} testID={`balance-summary-${group.id}`}>
             {balanceSummary(balance.data, group.tolerancePercent)}
           </AppText>
           <DataTable
@@ -104,7 +104,7 @@ function GroupBalance({
               ...row,
               cells: {
                 ...row.cells,
-                verdict: row.cells.verdict === 'Outside' ? <AppText tone="alarm">Outside</AppText> : row.cells.verdict,
+                verdict: row.cells.verdict === 'Outside' ? <AppText tone="error">Outside</AppText> : row.cells.verdict,
               },
             }))}
           />

@@ -180,11 +180,11 @@ export function CalibrationForm({ transmitter, onDone }: { transmitter: Transmit
       />
       <CertificatePicker file={certificate} onChange={setCertificate} disabled={record.isPending} />
       {errors.certificate ? (
-        <AppText tone="alarm" testID="calibration-certificate-error">
+        <AppText tone="error" testID="calibration-certificate-error">
           ⊗ {errors.certificate}
         </AppText>
       ) : null}
-      {formError ? <Notice tone="alarm">{formError}</Notice> : null}
+      {formError ? <Notice tone="error">{formError}</Notice> : null}
       <View style={styles.actions}>
         <Button
           label="Record calibration"

@@ -110,7 +110,7 @@ function ProposeCorrection({ calibration }: { calibration: Calibration }) {
         busy={suggest.isPending}
         testID={`calibration-propose-correction-${calibration.id}`}
       />
-      {suggest.error ? <AppText tone="alarm">⊗ {suggest.error.message}</AppText> : null}
+      {suggest.error ? <AppText tone="error">⊗ {suggest.error.message}</AppText> : null}
     </View>
   );
 }
@@ -144,7 +144,7 @@ function CalibrationCard({ calibration, canPropose }: { calibration: Calibration
             busy={download.isPending}
             testID={`calibration-certificate-${c.id}`}
           />
-          {download.error ? <AppText tone="alarm">⊗ {download.error.message}</AppText> : null}
+          {download.error ? <AppText tone="error">⊗ {download.error.message}</AppText> : null}
         </View>
       ) : (
         <AppText tone="muted">No certificate attached.</AppText>
@@ -184,7 +184,7 @@ export function TransmitterCalibrationsScreen({ transmitterId }: { transmitterId
           </AppText>
           <AppText
             variant={due.abnormal ? 'bodyStrong' : 'body'}
-            tone={due.abnormal ? 'alarm' : 'default'}
+            tone={due.abnormal ? 'error' : 'default'}
             testID="calibration-due"
           >
             Calibration due: {due.text}

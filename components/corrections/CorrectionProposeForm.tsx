@@ -103,7 +103,7 @@ export function CorrectionProposeForm({ meterRuns, sites, onDone, initial }: Pro
         onChange={(meterRunId) => set({ meterRunId, transmitterId: '' })}
         testIDPrefix="correction-meter-run"
       />
-      {errors.meterRunId ? <AppText tone="alarm">{`⊗ ${errors.meterRunId}`}</AppText> : null}
+      {errors.meterRunId ? <AppText tone="error">{`⊗ ${errors.meterRunId}`}</AppText> : null}
       <AppText variant="caption" tone="muted">
         {`Times are on the site’s clock (${timeZone}), whole hours; the period runs from the start up to the end.`}
       </AppText>
@@ -202,7 +202,7 @@ export function CorrectionProposeForm({ meterRuns, sites, onDone, initial }: Pro
             testIDPrefix="correction-transmitter"
           />
           {errors['substitute.transmitterId'] ? (
-            <AppText tone="alarm">{`⊗ ${errors['substitute.transmitterId']}`}</AppText>
+            <AppText tone="error">{`⊗ ${errors['substitute.transmitterId']}`}</AppText>
           ) : null}
           <ChoiceGroup
             label="Substituted value"
@@ -224,7 +224,7 @@ export function CorrectionProposeForm({ meterRuns, sites, onDone, initial }: Pro
               testID="correction-value"
             />
           ) : errors['substitute.hold'] ? (
-            <AppText tone="alarm">{`⊗ ${errors['substitute.hold']}`}</AppText>
+            <AppText tone="error">{`⊗ ${errors['substitute.hold']}`}</AppText>
           ) : null}
         </View>
       ) : null}
@@ -238,7 +238,7 @@ export function CorrectionProposeForm({ meterRuns, sites, onDone, initial }: Pro
       />
       {errors.form ? (
         <Reveal when={errors}>
-          <Notice tone="alarm" testID="correction-form-error">
+          <Notice tone="error" testID="correction-form-error">
             {errors.form}
           </Notice>
         </Reveal>

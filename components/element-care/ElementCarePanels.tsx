@@ -156,7 +156,7 @@ function RecordLine(props: { text: string; nextDue: string | null; file: CareCer
           />
         </View>
       ) : null}
-      {download.error ? <AppText tone="alarm">⊗ {download.error.message}</AppText> : null}
+      {download.error ? <AppText tone="error">⊗ {download.error.message}</AppText> : null}
     </View>
   );
 }
@@ -324,7 +324,7 @@ export function ElementCalibrationsPanel({ meterRunId }: { meterRunId: string })
             testIDPrefix="element-calibration-direction"
           />
           {problemOf(record.error, 'direction', fields) ? (
-            <AppText tone="alarm" testID="element-calibration-direction-error">
+            <AppText tone="error" testID="element-calibration-direction-error">
               {`⊗ ${problemOf(record.error, 'direction', fields)}`}
             </AppText>
           ) : null}

@@ -40,7 +40,7 @@ function MeterRunLatestDays({ run, site, nowMs }: { run: MeterRun; site: Site; n
     <View style={styles.run} testID={testID}>
       <AppText variant="bodyStrong">{`${run.tag} · ${run.name}`}</AppText>
       {totals.error ? (
-        <AppText variant="caption" tone="alarm">{`⊗ ${totals.error.message}`}</AppText>
+        <AppText variant="caption" tone="error">{`⊗ ${totals.error.message}`}</AppText>
       ) : totals.isPending ? (
         <AppText variant="caption" tone="muted">
           Loading…

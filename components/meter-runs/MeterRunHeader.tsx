@@ -122,7 +122,7 @@ export function MeterRunHeader({ run, site, transmitters, today }: MeterRunHeade
             </AppText>
             {last ? (
               <Link href={`/transmitters/${t.id}`} testID={`transmitter-last-calibration-${t.tag}`}>
-                <AppText variant="caption" tone={last.asFoundPass ? 'muted' : 'alarm'}>
+                <AppText variant="caption" tone={last.asFoundPass ? 'muted' : 'error'}>
                   {`calibrated ${last.calibratedOn} · as found ${last.asFoundPass ? 'pass' : '⚑ fail'}`}
                 </AppText>
               </Link>

@@ -72,7 +72,7 @@ export function MonthClosePanel({
       {p && p.status === 'open' && canClose && confirming ? (
         <View style={styles.confirm}>
           {notFinal.length ? (
-            <Notice tone="alarm" title="Not final yet" testID="month-close-not-final">
+            <Notice tone="error" title="Not final yet" testID="month-close-not-final">
               {notFinal.map((line) => (
                 <AppText key={line}>{`• ${line}`}</AppText>
               ))}
@@ -94,7 +94,7 @@ export function MonthClosePanel({
         </View>
       ) : null}
       {close.error ? (
-        <AppText tone="alarm" testID="month-close-error">
+        <AppText tone="error" testID="month-close-error">
           {close.error.message}
         </AppText>
       ) : null}

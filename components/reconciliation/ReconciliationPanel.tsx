@@ -51,7 +51,7 @@ export function ReconciliationPanel({ meterRunId, timeZone, from, to, title, tes
           {days.data.length === 0 ? (
             <AppText>No field totals for contract days in this window.</AppText>
           ) : (
-            <AppText tone={outside ? 'alarm' : 'default'} testID="reconciliation-outside-count">
+            <AppText tone={outside ? 'error' : 'default'} testID="reconciliation-outside-count">
               {outside
                 ? `${outside} ${outside === 1 ? 'day is' : 'days are'} outside the tolerance.`
                 : 'Every day is within the tolerance.'}
@@ -69,7 +69,7 @@ export function ReconciliationPanel({ meterRunId, timeZone, from, to, title, tes
                     cells: {
                       ...row.cells,
                       verdict:
-                        row.cells.verdict === 'Outside' ? <AppText tone="alarm">Outside</AppText> : row.cells.verdict,
+                        row.cells.verdict === 'Outside' ? <AppText tone="error">Outside</AppText> : row.cells.verdict,
                     },
                   })),
                   ...(group.sumRow ? [group.sumRow] : []),

@@ -132,7 +132,7 @@ export function ToleranceForm({ run, site }: { run: MeterRun; site: Site }) {
         reasonHint="Why it changes (a contract amendment, a re-proved field meter). It goes into the audit trail."
         testIDPrefix={prefix}
       />
-      {general ? <Notice tone="alarm">{general}</Notice> : null}
+      {general ? <Notice tone="error">{general}</Notice> : null}
       <View style={styles.actions}>
         <Button
           label="Save tolerance"

@@ -84,7 +84,7 @@ export function AuditLogScreen() {
         testID="audit-list"
       >
         {exportCsv.error ? (
-          <AppText tone="alarm" testID="audit-export-error">
+          <AppText tone="error" testID="audit-export-error">
             {exportCsv.error.message}
           </AppText>
         ) : null}

@@ -56,7 +56,7 @@ export function DevicesCreateForm() {
     return (
       <Panel title="Device created" testID="device-created">
         <Reveal when={created}>
-          <Notice tone="alarm" title="Store this password now: it will not be shown again">
+          <Notice tone="error" title="Store this password now: it will not be shown again">
             Tallyrun keeps only a hash of it. Put it into the device’s configuration before you leave this page. If it
             is lost, create a new device and disable this one.
           </Notice>
@@ -104,7 +104,7 @@ export function DevicesCreateForm() {
     <Panel title="Add a device" testID="device-create">
       {create.error && !serverField ? (
         <Reveal when={create.error}>
-          <Notice tone="alarm" testID="device-create-error">
+          <Notice tone="error" testID="device-create-error">
             {create.error.message}
           </Notice>
         </Reveal>
@@ -136,7 +136,7 @@ export function DevicesCreateForm() {
             testIDPrefix="device-create-site"
           />
           {shown.siteId ? (
-            <AppText variant="caption" tone="alarm" testID="device-create-site-error">
+            <AppText variant="caption" tone="error" testID="device-create-site-error">
               {`⊗ ${shown.siteId}`}
             </AppText>
           ) : null}

@@ -66,7 +66,7 @@ export function DevicesRow({ device }: { device: Device }) {
       {showRefusals ? <DeviceRejectionsPanel deviceId={device.id} testID={`${testID}-refusals`} /> : null}
 
       {update.error ? (
-        <AppText variant="caption" tone="alarm" role="alert">
+        <AppText variant="caption" tone="error" role="alert">
           {`⊗ ${update.error.message}`}
         </AppText>
       ) : null}

@@ -80,7 +80,7 @@ function Original({ item }: { item: Import & { sha256: string } }) {
         />
       </View>
       {download.error ? (
-        <AppText tone="alarm" role="alert">
+        <AppText tone="error" role="alert">
           {download.error.message}
         </AppText>
       ) : null}
@@ -116,7 +116,7 @@ export function ImportsDetail({ item }: { item: Import }) {
       />
 
       {item.status === 'failed' ? (
-        <Notice tone="alarm" title="The import stopped">
+        <Notice tone="error" title="The import stopped">
           Rows committed before the stop are kept. The last line listed below says where and why it stopped.
         </Notice>
       ) : null}

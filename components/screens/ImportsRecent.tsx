@@ -40,7 +40,7 @@ export function ImportsRecent({ imports, selectedId, onSelect }: ImportsRecentPr
               <AppText variant="bodyStrong" numberOfLines={1} style={styles.name}>
                 {selected ? `▸ ${item.filename}` : item.filename}
               </AppText>
-              <AppText variant="label" tone={item.status === 'failed' ? 'alarm' : 'default'}>
+              <AppText variant="label" tone={item.status === 'failed' ? 'error' : 'default'}>
                 {statusText[item.status]}
               </AppText>
             </View>

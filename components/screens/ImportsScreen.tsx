@@ -83,7 +83,7 @@ export function ImportsScreen() {
         disabled={start.isPending}
       />
       {start.error ? (
-        <Notice tone="alarm" title="The upload was refused" testID="import-upload-error">
+        <Notice tone="error" title="The upload was refused" testID="import-upload-error">
           {start.error.message}
         </Notice>
       ) : null}

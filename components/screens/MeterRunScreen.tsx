@@ -37,7 +37,7 @@ export function MeterRunScreen({ meterRunId }: { meterRunId: string }) {
   if (isApiError(run.error, 404)) {
     return (
       <Screen testID="meter-run-screen">
-        <Notice tone="alarm" title="No such meter run">
+        <Notice tone="error" title="No such meter run">
           <AppText>{`There is no meter run ${meterRunId}. It may have been removed, or the address is wrong.`}</AppText>
         </Notice>
         <Link href="/meter-runs">

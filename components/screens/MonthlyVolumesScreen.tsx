@@ -284,7 +284,7 @@ export function MonthlyVolumesScreen({ siteExtra }: { siteExtra?: (siteId: strin
               <AppText tone="muted">Exporting volumes is for engineers, accountants and administrators.</AppText>
             )}
             {exportFile.error || statement.error ? (
-              <AppText tone="alarm" testID="monthly-export-error">
+              <AppText tone="error" testID="monthly-export-error">
                 {(exportFile.error ?? statement.error)?.message}
               </AppText>
             ) : null}

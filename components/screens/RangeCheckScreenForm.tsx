@@ -221,7 +221,7 @@ export function RangeCheckForm({
         {problems.elementKind ? (
           <AppText
             variant="caption"
-            tone="alarm"
+            tone="error"
             testID="range-check-elementKind-error"
           >{`⊗ ${problems.elementKind}`}</AppText>
         ) : null}
@@ -363,7 +363,7 @@ export function RangeCheckForm({
       </Section>
 
       <View style={[styles.submit, wide && styles.submitWide]}>
-        {problems.form ? <AppText tone="alarm" testID="range-check-form-error">{`⊗ ${problems.form}`}</AppText> : null}
+        {problems.form ? <AppText tone="error" testID="range-check-form-error">{`⊗ ${problems.form}`}</AppText> : null}
         <Button label="Check the range" variant="primary" onPress={onSubmit} testID="range-check-submit" />
       </View>
     </View>

@@ -170,7 +170,7 @@ export function RangeCheckResults({ run, displayUnits }: RangeCheckResultsProps)
           ))}
         </Notice>
       ) : (
-        <Notice tone="alarm" title={headline} testID="range-check-headline">
+        <Notice tone="error" title={headline} testID="range-check-headline">
           {sentences.map((s) => (
             <AppText key={s}>{s}</AppText>
           ))}

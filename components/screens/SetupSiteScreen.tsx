@@ -75,7 +75,7 @@ export function SetupSiteScreen({ siteId }: { siteId: string }) {
         />
         {sites.data ? (
           <Notice
-            tone="alarm"
+            tone="error"
             title="No such site"
           >{`There is no site ${siteId}. It may have been given another id; go back to Set-up.`}</Notice>
         ) : null}

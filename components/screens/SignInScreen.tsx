@@ -61,7 +61,7 @@ export function SignInScreen() {
           </AppText>
           {expired && !login.error ? <Notice>Your session has ended. Sign in again to carry on.</Notice> : null}
           {login.error ? (
-            <Notice tone="alarm" testID="sign-in-error">
+            <Notice tone="error" testID="sign-in-error">
               {signInMessage(login.error)}
             </Notice>
           ) : null}

@@ -168,12 +168,12 @@ export function BalanceGroupForm({ site, meterRuns }: { site: Site; meterRuns: r
           />
         ))}
         {shown.inletMeterRunIds ? (
-          <AppText tone="alarm" testID={id('inletMeterRunIds-error')}>
+          <AppText tone="error" testID={id('inletMeterRunIds-error')}>
             {`Inlet meter runs: ${shown.inletMeterRunIds}`}
           </AppText>
         ) : null}
         {shown.outletMeterRunIds ? (
-          <AppText tone="alarm" testID={id('outletMeterRunIds-error')}>
+          <AppText tone="error" testID={id('outletMeterRunIds-error')}>
             {`Outlet meter runs: ${shown.outletMeterRunIds}`}
           </AppText>
         ) : null}

@@ -126,7 +126,7 @@ function CompositionFields({ draft, onChange, errors, testPrefix }: FluidFieldsP
         </AppText>
       ) : null}
       {error ? (
-        <AppText variant="caption" tone="alarm" testID={`${fieldTestID(testPrefix, 'fluid.composition')}-error`}>
+        <AppText variant="caption" tone="error" testID={`${fieldTestID(testPrefix, 'fluid.composition')}-error`}>
           {`⊗ ${error}`}
         </AppText>
       ) : null}

@@ -39,7 +39,7 @@ export function FormErrorSummary({ errors, labels, general, testID, fieldPrefix,
   return (
     <View ref={ref} aria-live="assertive" testID={testID ? `${testID}-region` : undefined}>
       <Notice
-        tone="alarm"
+        tone="error"
         title={
           entries.length
             ? `Check ${entries.length === 1 ? 'this field' : `these ${entries.length} fields`}`

@@ -93,7 +93,7 @@ export function ReverseFlowSection({
           <AppText variant="bodyStrong">Element in reverse flow</AppText>
           {reverse.element === null ? (
             <>
-              <AppText variant="caption" tone={missing ? 'alarm' : 'muted'} testID={id('reverseElement-error')}>
+              <AppText variant="caption" tone={missing ? 'error' : 'muted'} testID={id('reverseElement-error')}>
                 {missing ??
                   'The element’s constants in reverse flow: a cone or orifice may differ by direction, and a calibrated element has its own curve of C for each direction.'}
               </AppText>

@@ -168,7 +168,7 @@ export function TransmitterForm({ meterRun, existing, us, onDone }: TransmitterF
           testIDPrefix={id('unit')}
         />
         {shown.unit ? (
-          <AppText variant="caption" tone="alarm" testID={`${id('unit')}-error`}>{`⊗ ${shown.unit}`}</AppText>
+          <AppText variant="caption" tone="error" testID={`${id('unit')}-error`}>{`⊗ ${shown.unit}`}</AppText>
         ) : null}
       </View>
       {draft.measures === 'static-pressure' ? (
@@ -208,7 +208,7 @@ export function TransmitterForm({ meterRun, existing, us, onDone }: TransmitterF
           {shown.stackRole ? (
             <AppText
               variant="caption"
-              tone="alarm"
+              tone="error"
               testID={`${id('stackRole')}-error`}
             >{`⊗ ${shown.stackRole}`}</AppText>
           ) : null}

@@ -42,6 +42,6 @@ export function HealthLine({ onDark }: { onDark?: boolean }) {
 
 const styles = StyleSheet.create({
   row: { paddingVertical: space.xs },
-  alarm: { backgroundColor: colors.alarmHighSurface, paddingHorizontal: space.sm, borderRadius: 4 },
-  alarmText: { color: colors.alarmHigh },
+  alarm: { backgroundColor: colors.errorSurface, paddingHorizontal: space.sm, borderRadius: 4 },
+  alarmText: { color: colors.error },
 });

@@ -3,7 +3,7 @@ import { StyleSheet, Text, type TextProps } from 'react-native';
 
 import { colors, type as typeScale, type TypeStep } from '@/constants/theme';
 
-export type TextTone = 'default' | 'muted' | 'onDark' | 'onDarkMuted' | 'alarm';
+export type TextTone = 'default' | 'muted' | 'onDark' | 'onDarkMuted' | 'error';
 
 interface AppTextProps extends TextProps {
   variant?: TypeStep;
@@ -17,7 +17,7 @@ const toneColor: Record<TextTone, string> = {
   muted: colors.textMuted,
   onDark: colors.textOnDark,
   onDarkMuted: colors.navTextMuted,
-  alarm: colors.alarmHigh,
+  error: colors.error,
 };
 
 export function AppText({ variant = 'body', tone = 'default', tabular, style, ...rest }: AppTextProps) {

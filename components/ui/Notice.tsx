@@ -9,17 +9,17 @@ import { colors, radius, space } from '@/constants/theme';
 import { AppText } from './AppText';
 
 interface NoticeProps {
-  tone?: 'info' | 'alarm';
+  tone?: 'info' | 'error';
   title?: string;
   children?: ReactNode;
   testID?: string;
 }
 
 export function Notice({ tone = 'info', title, children, testID }: NoticeProps) {
-  const alarm = tone === 'alarm';
+  const alarm = tone === 'error';
   return (
     <View testID={testID} role={alarm ? 'alert' : 'status'} style={[styles.box, alarm ? styles.alarm : styles.info]}>
-      <AppText variant="bodyStrong" tone={alarm ? 'alarm' : 'muted'} aria-hidden style={styles.shape}>
+      <AppText variant="bodyStrong" tone={alarm ? 'error' : 'muted'} aria-hidden style={styles.shape}>
         {alarm ? '⊗' : 'i'}
       </AppText>
       <View style={styles.body}>
@@ -40,7 +40,7 @@ const styles = StyleSheet.create({
     borderLeftWidth: 4,
   },
   info: { backgroundColor: colors.surface, borderColor: colors.border, borderLeftColor: colors.borderStrong },
-  alarm: { backgroundColor: colors.alarmHighSurface, borderColor: colors.alarmHigh, borderLeftColor: colors.alarmHigh },
+  alarm: { backgroundColor: colors.errorSurface, borderColor: colors.error, borderLeftColor: colors.error },
   shape: { width: 16, textAlign: 'center' },
   body: { flex: 1, gap: space.xs },
 });

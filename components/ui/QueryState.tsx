@@ -21,7 +21,7 @@ interface QueryStateProps {
 export function QueryState({ isPending, error, onRetry, noun }: QueryStateProps) {
   if (error) {
     return (
-      <Notice tone="alarm" title={`Could not load ${noun}`}>
+      <Notice tone="error" title={`Could not load ${noun}`}>
         <AppText>{error.message}</AppText>
         <View style={styles.retry}>
           <Button label="Try again" size="compact" onPress={onRetry} />

@@ -79,7 +79,7 @@ export function ReasonDialog({
         onSubmitEditing={confirm}
       />
       {otherError ? (
-        <AppText variant="caption" tone="alarm" testID={`${testIDPrefix}-error`}>
+        <AppText variant="caption" tone="error" testID={`${testIDPrefix}-error`}>
           {`⊗ ${otherError}`}
         </AppText>
       ) : null}

@@ -19,10 +19,10 @@ interface MarkProps {
 export function ErrorMark({ label, testID }: MarkProps) {
   return (
     <View testID={testID} style={styles.row}>
-      <AppText variant="label" tone="alarm" aria-hidden style={styles.mark}>
+      <AppText variant="label" tone="error" aria-hidden style={styles.mark}>
         {marks.error}
       </AppText>
-      <AppText variant="label" tone="alarm" style={styles.text}>
+      <AppText variant="label" tone="error" style={styles.text}>
         {label}
       </AppText>
     </View>

@@ -39,7 +39,7 @@ export function TextField({ label, error, hint, testID, ref, onFocus, onBlur, ..
         style={[styles.input, focused && styles.inputFocused, error ? styles.inputError : null]}
       />
       {error ? (
-        <AppText variant="caption" tone="alarm" testID={testID ? `${testID}-error` : undefined}>
+        <AppText variant="caption" tone="error" testID={testID ? `${testID}-error` : undefined}>
           {`⊗ ${error}`}
         </AppText>
       ) : hint ? (
@@ -69,5 +69,5 @@ const styles = StyleSheet.create({
     outlineStyle: 'solid',
     outlineWidth: 1,
   },
-  inputError: { borderColor: colors.alarmHigh, borderWidth: 2 },
+  inputError: { borderColor: colors.error, borderWidth: 2 },
 });

@@ -65,7 +65,7 @@ export function CreateUserForm() {
       ) : null}
       {create.error && !serverField ? (
         <Reveal when={create.error}>
-          <Notice tone="alarm" testID="user-create-error">
+          <Notice tone="error" testID="user-create-error">
             {create.error.message}
           </Notice>
         </Reveal>
@@ -101,7 +101,7 @@ export function CreateUserForm() {
           {roleSummary[draft.role]}
         </AppText>
         {shown.role ? (
-          <AppText variant="caption" tone="alarm">
+          <AppText variant="caption" tone="error">
             {`⊗ ${shown.role}`}
           </AppText>
         ) : null}

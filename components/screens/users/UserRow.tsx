@@ -52,7 +52,7 @@ export function UserRow({ user, isSelf }: UserRowProps) {
       </View>
 
       {update.error && mode !== 'password' ? (
-        <AppText variant="caption" tone="alarm" role="alert">
+        <AppText variant="caption" tone="error" role="alert">
           {`⊗ ${update.error.message}`}
         </AppText>
       ) : null}
