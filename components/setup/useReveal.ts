@@ -34,6 +34,36 @@ export function revealNode(node: HTMLElement | null, focus: 'self' | 'input' = '
     target.setAttribute('tabindex', '-1');
   }
   target.focus({ preventScroll: true });
+  keepInViewWhileLayoutSettles(node, target);
+}
+
+/**
+ * What a submit changes often re-renders above the outcome a moment later (the list the new site
+ * joins grows by a card), pushing it out of view. For a short while, scroll it back whenever that
+ * happens (and focus, if a re-render dropped it) — unless the person has scrolled, tapped or typed
+ * meanwhile: then the page is theirs.
+ */
+function keepInViewWhileLayoutSettles(node: HTMLElement, target: HTMLElement): void {
+  if (typeof window === 'undefined') return;
+  let personActed = false;
+  const acted = () => {
+    personActed = true;
+  };
+  const events = ['wheel', 'touchstart', 'keydown', 'mousedown'] as const;
+  for (const e of events) window.addEventListener(e, acted, { passive: true, once: true });
+  const check = () => {
+    if (personActed || !node.isConnected) return;
+    const box = node.getBoundingClientRect();
+    if (box.top < 0 || box.bottom > window.innerHeight) node.scrollIntoView({ block: 'center' });
+    // A re-render that dropped focus to the page leaves nobody reading the outcome: give it back.
+    if ((document.activeElement ?? document.body) === document.body && target.isConnected)
+      target.focus({ preventScroll: true });
+  };
+  const timers = [150, 400, 800, 1500].map((ms) => setTimeout(check, ms));
+  setTimeout(() => {
+    timers.forEach(clearTimeout);
+    for (const e of events) window.removeEventListener(e, acted);
+  }, 1600);
 }
 
 /**

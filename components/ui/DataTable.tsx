@@ -89,8 +89,11 @@ export function DataTable({ columns, rows, label, emptyText, testID }: DataTable
             ))}
           </View>
           {rows.length === 0 && emptyText ? (
-            <View style={styles.emptyRow}>
-              <AppText tone="muted">{emptyText}</AppText>
+            // A table holds only rows (axe "aria-required-children"): the empty note is a row of one cell.
+            <View role="row" style={styles.emptyRow}>
+              <View role="cell">
+                <AppText tone="muted">{emptyText}</AppText>
+              </View>
             </View>
           ) : null}
           {rows.map((row) => (
