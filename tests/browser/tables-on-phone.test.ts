@@ -186,7 +186,15 @@ describe('touch targets', () => {
     await page.getByTestId('site-create-basePressurePa').scrollIntoViewIfNeeded();
     await page.screenshot({ path: `${SHOTS}/A-site-form-chips-390.png` });
     await page.setViewportSize(viewports.wide);
-    await page.getByTestId('site-create-basePressurePa-unit-psi').scrollIntoViewIfNeeded();
+    // The wider layout re-renders the form: scroll to the chip once the new one is in place.
+    await until('the wide form to settle', async () => {
+      try {
+        await page.getByTestId('site-create-basePressurePa-unit-psi').scrollIntoViewIfNeeded({ timeout: 2000 });
+        return true;
+      } catch {
+        return false;
+      }
+    });
     await page.screenshot({ path: `${SHOTS}/A-site-form-chips-1440.png` });
     await page.close();
   });
