@@ -74,7 +74,13 @@ export function CorrectionCard({ correction: c, meterRunTag, timeZone, canDecide
         </AppText>
       ) : null}
       {c.status === 'approved' && figures ? (
-        <View style={styles.figures} testID={`correction-${c.id}-figures`} role="table">
+        <View
+          style={styles.figures}
+          testID={`correction-${c.id}-figures`}
+          // A group, not a table: three figure blocks, no rows (axe "aria-required-children").
+          role="group"
+          aria-label="Original, corrected and difference"
+        >
           {(
             [
               ['Original', figures.original],
